@@ -1,0 +1,156 @@
+#include "model/atmosphere.hpp"
+
+#include <cmath>
+
+namespace firn::atmosphere {
+namespace {
+
+using namespace units;
+
+// ICAO Doc 7488 / US Standard Atmosphere 1976 constants.
+constexpr double kP0 = 101325.0;          // Pa
+constexpr double kT0 = 288.15;            // K
+constexpr double kLapse = 0.0065;         // K/m, troposphere
+constexpr double kG0 = 9.80665;           // m/s²
+constexpr double kMolarMass = 0.0289644;  // kg/mol, dry air
+constexpr double kGasConstant = 8.31432;  // J/(mol·K), value used by USSA 1976
+constexpr double kEarthRadius = 6356766.0;  // m
+constexpr double kTropopause = 11000.0;     // m geopotential
+constexpr double kTropopauseTemperature = 216.65;  // K
+// g0·M/(R*·L) = 5.255876...
+constexpr double kExponent = kG0 * kMolarMass / (kGasConstant * kLapse);
+
+// West 1996: PB[Torr] = exp(a − b·h − c·h²), h in km.
+constexpr double kWestA = 6.63328;
+constexpr double kWestB = 0.1112;
+constexpr double kWestC = 0.00149;
+
+double isa_tropopause_pressure() {
+  return kP0 * std::pow(1.0 - kLapse * kTropopause / kT0, kExponent);
+}
+
+double isa_pressure_pa(double geopotential_m) {
+  if (geopotential_m <= kTropopause) {
+    return kP0 * std::pow(1.0 - kLapse * geopotential_m / kT0, kExponent);
+  }
+  return isa_tropopause_pressure() *
+         std::exp(-kG0 * kMolarMass * (geopotential_m - kTropopause) /
+                  (kGasConstant * kTropopauseTemperature));
+}
+
+double isa_geopotential_m(double pressure_pa) {
+  double p11 = isa_tropopause_pressure();
+  if (pressure_pa >= p11) return kT0 / kLapse * (1.0 - std::pow(pressure_pa / kP0, 1.0 / kExponent));
+  return kTropopause - std::log(pressure_pa / p11) * kGasConstant * kTropopauseTemperature /
+                           (kG0 * kMolarMass);
+}
+
+double west_pressure_torr(double km) { return std::exp(kWestA - kWestB * km - kWestC * km * km); }
+
+double west_altitude_km(double torr) {
+  // c·h² + b·h + (ln P − a) = 0, positive root.
+  double k = std::log(torr) - kWestA;
+  return (-kWestB + std::sqrt(kWestB * kWestB - 4.0 * kWestC * k)) / (2.0 * kWestC);
+}
+
+Error altitude_error(Model model, double got_m) {
+  AltitudeRange range = valid_altitudes(model);
+  Error e = range_error("altitude", range.low_m, range.high_m, "m", got_m);
+  e.message += " for the " + std::string(model_name(model)) + " model";
+  return e;
+}
+
+}  // namespace
+
+std::string_view model_name(Model model) { return model == Model::Isa ? "ISA" : "West 1996"; }
+std::string_view model_key(Model model) { return model == Model::Isa ? "isa" : "west"; }
+
+Result<Model> parse_model(std::string_view key) {
+  if (key == "isa" || key == "ISA") return Model::Isa;
+  if (key == "west" || key == "west1996" || key == "West") return Model::West1996;
+  return Error{"unknown atmosphere model '" + std::string(key) + "': use isa or west"};
+}
+
+AltitudeRange valid_altitudes(Model model) {
+  return model == Model::Isa ? AltitudeRange{-500.0, 20000.0} : AltitudeRange{0.0, 9000.0};
+}
+
+double geopotential_from_geometric_m(double z) { return kEarthRadius * z / (kEarthRadius + z); }
+double geometric_from_geopotential_m(double h) { return kEarthRadius * h / (kEarthRadius - h); }
+
+Result<Pressure> pressure_at(Length geometric_altitude, Model model) {
+  double z = geometric_altitude.in(metres);
+  AltitudeRange range = valid_altitudes(model);
+  if (!in_range(z, range.low_m, range.high_m)) return altitude_error(model, z);
+  if (model == Model::Isa) return pascals(isa_pressure_pa(geopotential_from_geometric_m(z)));
+  return torr(west_pressure_torr(z / 1000.0));
+}
+
+Result<Length> altitude_at(Pressure pressure, Model model) {
+  AltitudeRange range = valid_altitudes(model);
+  // The pressure range is the altitude range mapped through the model (high altitude = low P).
+  double low_hpa = pressure_at(metres(range.high_m), model)->in(hectopascals);
+  double high_hpa = pressure_at(metres(range.low_m), model)->in(hectopascals);
+  double hpa = pressure.in(hectopascals);
+  if (!in_range(hpa, low_hpa, high_hpa)) {
+    Error e = range_error("pressure", std::ceil(low_hpa * 10) / 10, std::floor(high_hpa * 10) / 10,
+                          "hPa", hpa);
+    e.message += " for the " + std::string(model_name(model)) + " model (" +
+                 format_number(range.low_m) + " to " + format_number(range.high_m) + " m)";
+    return e;
+  }
+  if (model == Model::Isa) {
+    return metres(geometric_from_geopotential_m(isa_geopotential_m(pressure.in(pascals))));
+  }
+  return kilometres(west_altitude_km(pressure.in(torr)));
+}
+
+namespace {
+constexpr double kQnhLowHpa = 900.0, kQnhHighHpa = 1100.0;
+constexpr double kQnhAltitudeLow = -500.0, kQnhAltitudeHigh = 9000.0;
+
+Result<double> check_qnh_inputs(Length altitude, Pressure qnh) {
+  double z = altitude.in(metres);
+  if (!in_range(z, kQnhAltitudeLow, kQnhAltitudeHigh)) {
+    return range_error("altitude", kQnhAltitudeLow, kQnhAltitudeHigh, "m", z);
+  }
+  double q = qnh.in(hectopascals);
+  if (!in_range(q, kQnhLowHpa, kQnhHighHpa)) {
+    return range_error("QNH (sea-level pressure)", kQnhLowHpa, kQnhHighHpa, "hPa", q);
+  }
+  return geopotential_from_geometric_m(z);
+}
+}  // namespace
+
+Result<Pressure> pressure_from_qnh(Length geometric_altitude, Pressure qnh) {
+  Result<double> h = check_qnh_inputs(geometric_altitude, qnh);
+  if (!h) return h.error();
+  return pascals(qnh.in(pascals) * std::pow(1.0 - kLapse * h.value() / kT0, kExponent));
+}
+
+Result<Pressure> pressure_from_qnh(Length geometric_altitude, Pressure qnh,
+                                   Temperature temperature, TemperatureAt where) {
+  Result<double> h = check_qnh_inputs(geometric_altitude, qnh);
+  if (!h) return h.error();
+  double celsius_value = temperature.in(celsius);
+  if (!in_range(celsius_value, -60.0, 50.0)) {
+    return range_error("air temperature", -60.0, 50.0, "°C", celsius_value);
+  }
+  // Mean layer temperature with the standard lapse inside the layer (AMS Glossary,
+  // "hypsometric equation").
+  double t = temperature.in(kelvin);
+  double mean_t = where == TemperatureAt::SeaLevel ? t - kLapse * h.value() / 2.0
+                                                   : t + kLapse * h.value() / 2.0;
+  return pascals(qnh.in(pascals) *
+                 std::exp(-kG0 * kMolarMass * h.value() / (kGasConstant * mean_t)));
+}
+
+Result<Pressure> pressure_from_station_reading(Pressure reading) {
+  double hpa = reading.in(hectopascals);
+  if (!in_range(hpa, 150.0, 1100.0)) {
+    return range_error("station barometer reading", 150.0, 1100.0, "hPa", hpa);
+  }
+  return reading;
+}
+
+}  // namespace firn::atmosphere

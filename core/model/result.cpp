@@ -1,0 +1,43 @@
+#include "model/result.hpp"
+
+#include <cmath>
+#include <cstdio>
+
+namespace firn {
+
+std::string format_number(double value, int decimals) {
+  if (!std::isfinite(value)) return "not a number";
+  char buffer[64];
+  std::snprintf(buffer, sizeof buffer, "%.*f", decimals, value);
+  std::string text(buffer);
+  if (text.find('.') != std::string::npos) {
+    while (!text.empty() && text.back() == '0') text.pop_back();
+    if (!text.empty() && text.back() == '.') text.pop_back();
+  }
+  if (text == "-0") text = "0";
+  return text;
+}
+
+bool in_range(double value, double low, double high) {
+  return std::isfinite(value) && value >= low && value <= high;
+}
+
+Error range_error(std::string_view what, double low, double high, std::string_view unit) {
+  std::string message(what);
+  message += " must be between " + format_number(low) + " and " + format_number(high) + " ";
+  message += unit;
+  return Error{message};
+}
+
+Error range_error(std::string_view what, double low, double high, std::string_view unit,
+                  double got) {
+  Error error = range_error(what, low, high, unit);
+  if (std::isfinite(got)) {
+    error.message += " (got " + format_number(got) + " " + std::string(unit) + ")";
+  } else {
+    error.message += " (got a value that is not a number)";
+  }
+  return error;
+}
+
+}  // namespace firn

@@ -1,0 +1,80 @@
+// Result-or-error values for everything a user can get wrong, and FIRN_ASSERT for what only a
+// programmer can get wrong. Bad input is data (a Result holding an Error with a message that names
+// the valid range and unit); a broken invariant is a bug (an assert).
+#pragma once
+
+#include <string>
+#include <string_view>
+#include <utility>
+#include <variant>
+
+// FIRN_ASSERT: aborts with a message by default; with FIRN_ASSERT_THROWS defined (native test
+// builds only) it throws std::logic_error so tests can check that contracts are enforced.
+// No exception ever crosses into the web build: it is compiled without FIRN_ASSERT_THROWS.
+#ifdef FIRN_ASSERT_THROWS
+#include <stdexcept>
+#define FIRN_ASSERT(cond, msg)                                                   \
+  do {                                                                           \
+    if (!(cond)) throw std::logic_error(std::string("firn assert: ") + (msg));   \
+  } while (0)
+#else
+#include <cstdio>
+#include <cstdlib>
+#define FIRN_ASSERT(cond, msg)                                                   \
+  do {                                                                           \
+    if (!(cond)) {                                                               \
+      std::fprintf(stderr, "firn assert failed: %s (%s:%d)\n", (msg), __FILE__, __LINE__); \
+      std::abort();                                                              \
+    }                                                                            \
+  } while (0)
+#endif
+
+namespace firn {
+
+// What went wrong with the user's input, in words a medic can act on.
+struct Error {
+  std::string message;
+};
+
+template <class T>
+class [[nodiscard]] Result {
+ public:
+  Result(T value) : state_(std::move(value)) {}        // NOLINT: implicit by design
+  Result(Error error) : state_(std::move(error)) {}    // NOLINT: implicit by design
+
+  bool ok() const { return state_.index() == 0; }
+  explicit operator bool() const { return ok(); }
+
+  const T& value() const& {
+    FIRN_ASSERT(ok(), "value() called on an error Result");
+    return std::get<0>(state_);
+  }
+  T&& value() && {
+    FIRN_ASSERT(ok(), "value() called on an error Result");
+    return std::get<0>(std::move(state_));
+  }
+  const T& operator*() const& { return value(); }
+  const T* operator->() const { return &value(); }
+
+  const Error& error() const {
+    FIRN_ASSERT(!ok(), "error() called on a successful Result");
+    return std::get<1>(state_);
+  }
+
+ private:
+  std::variant<T, Error> state_;
+};
+
+// "altitude must be between -500 and 20000 m (got 25000 m)". Numbers are printed with the fewest
+// digits that show them (no trailing zeros); a non-finite "got" is shown as "not a number".
+Error range_error(std::string_view what, double low, double high, std::string_view unit,
+                  double got);
+Error range_error(std::string_view what, double low, double high, std::string_view unit);
+
+// Formats a finite number with up to `decimals` decimals, trailing zeros trimmed.
+std::string format_number(double value, int decimals = 4);
+
+// True when `value` is finite and within [low, high].
+bool in_range(double value, double low, double high);
+
+}  // namespace firn

@@ -1,0 +1,118 @@
+#include "model/units.hpp"
+
+#include <cctype>
+#include <cmath>
+#include <cstdlib>
+#include <type_traits>
+
+namespace firn::units {
+namespace {
+
+std::string_view trim(std::string_view text) {
+  while (!text.empty() && std::isspace(static_cast<unsigned char>(text.front()))) text.remove_prefix(1);
+  while (!text.empty() && std::isspace(static_cast<unsigned char>(text.back()))) text.remove_suffix(1);
+  return text;
+}
+
+bool is_number_char(char c) {
+  return std::isdigit(static_cast<unsigned char>(c)) || c == '.' || c == ',' || c == '+' ||
+         c == '-' || c == 'e' || c == 'E';
+}
+
+// Length of the leading run that can belong to a number. An 'e' counts only when a digit or sign
+// follows, so "5e3m" is 5000 m but a unit cannot start with a swallowed 'e'.
+size_t number_prefix_length(std::string_view text) {
+  size_t i = 0;
+  while (i < text.size() && is_number_char(text[i])) {
+    if (text[i] == 'e' || text[i] == 'E') {
+      bool exponent = i + 1 < text.size() &&
+                      (std::isdigit(static_cast<unsigned char>(text[i + 1])) ||
+                       text[i + 1] == '+' || text[i + 1] == '-');
+      if (!exponent) break;
+    }
+    ++i;
+  }
+  return i;
+}
+
+std::string lower_ascii(std::string_view text) {
+  std::string out;
+  for (char c : text) out += static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+  return out;
+}
+
+// Accept the degree sign and "deg" decorations in temperature units: "°C", "degC".
+std::string normalise_unit(std::string_view unit) {
+  std::string text = lower_ascii(trim(unit));
+  const std::string degree = "\xC2\xB0";  // UTF-8 '°'
+  if (text.rfind(degree, 0) == 0) text.erase(0, degree.size());
+  if (text.rfind("deg", 0) == 0 && text.size() > 3) text.erase(0, 3);
+  return text;
+}
+
+template <class Dimension, size_t N>
+Result<Quantity<Dimension>> parse_quantity(std::string_view text, std::string_view what,
+                                           const std::array<const Unit<Dimension>*, N>& units,
+                                           std::type_identity_t<const Unit<Dimension>*> default_unit) {
+  std::string_view trimmed = trim(text);
+  size_t split = number_prefix_length(trimmed);
+  Result<double> number = parse_number(trimmed.substr(0, split), what);
+  std::string accepted;
+  for (size_t i = 0; i < N; ++i) {
+    accepted += std::string(units[i]->symbol);
+    accepted += i + 2 < N ? ", " : (i + 1 < N ? " or " : "");
+  }
+  if (!number.ok()) {
+    return Error{number.error().message + " (example: 12" + std::string(units[0]->symbol) + ")"};
+  }
+  std::string unit = normalise_unit(trimmed.substr(split));
+  if (unit.empty()) {
+    if (default_unit != nullptr) return (*default_unit)(number.value());
+    return Error{std::string(what) + " needs a unit: " + accepted + " (example: " +
+                 format_number(number.value()) + std::string(units[0]->symbol) + ")"};
+  }
+  for (const Unit<Dimension>* candidate : units) {
+    if (unit == candidate->spelling) return (*candidate)(number.value());
+  }
+  return Error{"unknown unit '" + std::string(trim(trimmed.substr(split))) + "' for " +
+               std::string(what) + ": use " + accepted};
+}
+
+}  // namespace
+
+Result<double> parse_number(std::string_view text, std::string_view what) {
+  std::string_view trimmed = trim(text);
+  if (trimmed.empty()) return Error{std::string(what) + " is missing a number"};
+  std::string normalised(trimmed);
+  bool has_dot = normalised.find('.') != std::string::npos;
+  for (char& c : normalised) {
+    if (c == ',' && !has_dot) c = '.';
+    if (!is_number_char(c) || c == ',') {
+      return Error{std::string(what) + " is not a number: '" + std::string(trimmed) + "'"};
+    }
+  }
+  char* end = nullptr;
+  double value = std::strtod(normalised.c_str(), &end);
+  if (end != normalised.c_str() + normalised.size() || !std::isfinite(value)) {
+    return Error{std::string(what) + " is not a number: '" + std::string(trimmed) + "'"};
+  }
+  return value;
+}
+
+Result<Length> parse_length(std::string_view text, std::string_view what) {
+  return parse_quantity(text, what, length_units, nullptr);
+}
+
+Result<Pressure> parse_pressure(std::string_view text, std::string_view what) {
+  return parse_quantity(text, what, pressure_units, nullptr);
+}
+
+Result<Temperature> parse_temperature(std::string_view text, std::string_view what) {
+  return parse_quantity(text, what, temperature_units, nullptr);
+}
+
+Result<Volume> parse_volume(std::string_view text, std::string_view what) {
+  return parse_quantity(text, what, volume_units, &litres);
+}
+
+}  // namespace firn::units

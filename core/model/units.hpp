@@ -1,0 +1,138 @@
+// Quantities with their units in the type. A value is made from a named unit and read back only
+// through a named unit:  Length h = metres(4000);  double ft = h.in(feet);
+// Raw doubles exist only at the UI / CLI edge. Parsing "4000m", "616hPa", "-5C"... lives here too.
+#pragma once
+
+#include <array>
+#include <span>
+#include <string>
+#include <string_view>
+
+#include "model/result.hpp"
+
+namespace firn::units {
+
+template <class Dimension>
+struct Unit;
+
+// A physical quantity of one dimension, stored in SI (m, Pa, K, m³/s, m³, s, fraction).
+template <class Dimension>
+class Quantity {
+ public:
+  constexpr Quantity() = default;  // zero of the dimension (absolute zero for temperature)
+
+  template <class D = Dimension>
+  constexpr double in(const Unit<D>& unit) const {
+    return (si_ - unit.offset) / unit.scale;
+  }
+
+  constexpr bool operator==(const Quantity&) const = default;
+  constexpr auto operator<=>(const Quantity&) const = default;
+  constexpr Quantity operator+(Quantity other) const { return Quantity(si_ + other.si_); }
+  constexpr Quantity operator-(Quantity other) const { return Quantity(si_ - other.si_); }
+  constexpr Quantity operator*(double factor) const { return Quantity(si_ * factor); }
+  constexpr Quantity operator/(double divisor) const { return Quantity(si_ / divisor); }
+  constexpr double operator/(Quantity other) const { return si_ / other.si_; }
+  constexpr Quantity& operator+=(Quantity other) { si_ += other.si_; return *this; }
+  constexpr Quantity& operator-=(Quantity other) { si_ -= other.si_; return *this; }
+
+ private:
+  friend struct Unit<Dimension>;
+  constexpr explicit Quantity(double si) : si_(si) {}
+  double si_ = 0.0;
+};
+
+// A named unit: si = amount * scale + offset.
+template <class Dimension>
+struct Unit {
+  double scale;
+  double offset;
+  std::string_view symbol;  // what we print: "m", "hPa", "°C"
+  std::string_view spelling;  // what we accept when parsing (ASCII, compared case-insensitively)
+
+  constexpr Quantity<Dimension> operator()(double amount) const {
+    return Quantity<Dimension>(amount * scale + offset);
+  }
+};
+
+struct LengthDimension {};
+struct PressureDimension {};
+struct TemperatureDimension {};
+struct VolumeDimension {};
+struct VolumeFlowDimension {};
+struct DurationDimension {};
+struct FractionDimension {};
+
+using Length = Quantity<LengthDimension>;
+using Pressure = Quantity<PressureDimension>;        // absolute unless a name says "gauge"
+using Temperature = Quantity<TemperatureDimension>;
+using Volume = Quantity<VolumeDimension>;
+using VolumeFlow = Quantity<VolumeFlowDimension>;
+using Duration = Quantity<DurationDimension>;
+using Fraction = Quantity<FractionDimension>;        // FiO2, SpO2, gas fractions
+
+// Conversion factors: BIPM SI Brochure (2019) and NIST SP 811 (2008) Appendix B.
+inline constexpr Unit<LengthDimension> metres{1.0, 0.0, "m", "m"};
+inline constexpr Unit<LengthDimension> kilometres{1000.0, 0.0, "km", "km"};
+inline constexpr Unit<LengthDimension> feet{0.3048, 0.0, "ft", "ft"};
+
+inline constexpr Unit<PressureDimension> pascals{1.0, 0.0, "Pa", "pa"};
+inline constexpr Unit<PressureDimension> hectopascals{100.0, 0.0, "hPa", "hpa"};
+inline constexpr Unit<PressureDimension> millibar{100.0, 0.0, "mbar", "mbar"};
+inline constexpr Unit<PressureDimension> kilopascals{1000.0, 0.0, "kPa", "kpa"};
+inline constexpr Unit<PressureDimension> bar{100000.0, 0.0, "bar", "bar"};
+inline constexpr Unit<PressureDimension> mmhg{101325.0 / 760.0, 0.0, "mmHg", "mmhg"};
+inline constexpr Unit<PressureDimension> torr{101325.0 / 760.0, 0.0, "Torr", "torr"};
+inline constexpr Unit<PressureDimension> inhg{3386.389, 0.0, "inHg", "inhg"};
+inline constexpr Unit<PressureDimension> psi{6894.757293168, 0.0, "psi", "psi"};
+inline constexpr Unit<PressureDimension> atmospheres{101325.0, 0.0, "atm", "atm"};
+
+inline constexpr Unit<TemperatureDimension> kelvin{1.0, 0.0, "K", "k"};
+inline constexpr Unit<TemperatureDimension> celsius{1.0, 273.15, "°C", "c"};
+inline constexpr Unit<TemperatureDimension> fahrenheit{5.0 / 9.0, 273.15 - 32.0 * 5.0 / 9.0, "°F",
+                                                       "f"};
+
+inline constexpr Unit<VolumeDimension> litres{1e-3, 0.0, "L", "l"};
+inline constexpr Unit<VolumeDimension> millilitres{1e-6, 0.0, "mL", "ml"};
+
+inline constexpr Unit<VolumeFlowDimension> litres_per_minute{1e-3 / 60.0, 0.0, "L/min", "l/min"};
+
+inline constexpr Unit<DurationDimension> seconds{1.0, 0.0, "s", "s"};
+inline constexpr Unit<DurationDimension> minutes{60.0, 0.0, "min", "min"};
+inline constexpr Unit<DurationDimension> hours{3600.0, 0.0, "h", "h"};
+
+inline constexpr Unit<FractionDimension> fraction{1.0, 0.0, "", ""};
+inline constexpr Unit<FractionDimension> percent{0.01, 0.0, "%", "%"};
+
+// Flow × time and volume / flow, the two products the oxygen calculators need.
+constexpr Volume operator*(VolumeFlow flow, Duration time) {
+  return litres(flow.in(litres_per_minute) * time.in(minutes));
+}
+constexpr Duration operator/(Volume volume, VolumeFlow flow) {
+  return minutes(volume.in(litres) / flow.in(litres_per_minute));
+}
+
+// [SECTION] Parsing "number + unit" text typed by a user or passed on the command line.
+
+inline constexpr std::array<const Unit<LengthDimension>*, 3> length_units{&metres, &feet,
+                                                                          &kilometres};
+inline constexpr std::array<const Unit<PressureDimension>*, 9> pressure_units{
+    &hectopascals, &mmhg, &kilopascals, &inhg, &psi, &bar, &millibar, &torr, &pascals};
+inline constexpr std::array<const Unit<TemperatureDimension>*, 3> temperature_units{
+    &celsius, &fahrenheit, &kelvin};
+inline constexpr std::array<const Unit<VolumeDimension>*, 2> volume_units{&litres, &millilitres};
+
+// Parses a decimal number (a comma is accepted as the decimal mark); rejects nan, inf, hex and
+// trailing junk. `what` names the field in the message.
+Result<double> parse_number(std::string_view text, std::string_view what);
+
+// "4000m", "13120 ft", "616hPa", "-5C", "-4°F", "200bar". The unit is required; `what` names the
+// field in error messages ("altitude", "cylinder pressure").
+Result<Length> parse_length(std::string_view text, std::string_view what = "altitude");
+Result<Pressure> parse_pressure(std::string_view text, std::string_view what = "pressure");
+Result<Temperature> parse_temperature(std::string_view text,
+                                      std::string_view what = "temperature");
+// A volume: "10L", "680ml"; a bare number is taken as litres.
+Result<Volume> parse_volume(std::string_view text, std::string_view what = "volume");
+
+}  // namespace firn::units

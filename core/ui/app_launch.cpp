@@ -1,0 +1,51 @@
+#include "ui/app_launch.hpp"
+
+#include <array>
+#include <string_view>
+#include <utility>
+
+namespace firn::ui {
+namespace {
+
+constexpr std::array<std::pair<std::string_view, Screen>, 2> kScreens{{
+    {"here", Screen::Here},
+    {"settings", Screen::Settings},
+}};
+
+constexpr std::array<std::pair<std::string_view, Theme>, 3> kThemes{{
+    {"day", Theme::Day},
+    {"night", Theme::Night},
+    {"projector", Theme::Projection},
+}};
+
+template <class T, size_t N>
+Result<T> lookup(const std::array<std::pair<std::string_view, T>, N>& table,
+                 const std::string& name, const char* what) {
+  std::string valid;
+  for (const auto& [key, value] : table) {
+    if (key == name) return value;
+    valid += valid.empty() ? "" : ", ";
+    valid += key;
+  }
+  return Error{std::string("unknown ") + what + " '" + name + "': use " + valid};
+}
+
+}  // namespace
+
+Result<bool> apply_launch_options(AppState& state, const std::string& screen,
+                                  const std::string& theme) {
+  if (!screen.empty()) {
+    Result<Screen> s = lookup(kScreens, screen, "screen");
+    if (!s) return s.error();
+    state.screen = s.value();
+  }
+  if (!theme.empty()) {
+    Result<Theme> t = lookup(kThemes, theme, "theme");
+    if (!t) return t.error();
+    state.settings.theme = t.value();
+    state.built_font_scale = 0.0f;
+  }
+  return true;
+}
+
+}  // namespace firn::ui

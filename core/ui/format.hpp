@@ -1,0 +1,22 @@
+// Quantities as the user chose to read them: "701.2 hPa", "13 123 ft". The only place the UI
+// turns typed quantities into raw numbers.
+#pragma once
+
+#include <string>
+#include <string_view>
+
+#include "model/units.hpp"
+#include "ui/app_state.hpp"
+
+namespace firn::ui {
+
+std::string_view altitude_unit_symbol(const UnitChoice& units);
+std::string_view pressure_unit_symbol(const UnitChoice& units);
+
+// Number only, in the chosen unit, for editing ("3000", "9842.5").
+std::string altitude_text(units::Length altitude, const UnitChoice& units);
+// With unit, for results ("701.2 hPa", "526.0 mmHg").
+std::string altitude_with_unit(units::Length altitude, const UnitChoice& units);
+std::string pressure_text(units::Pressure pressure, const UnitChoice& units);
+
+}  // namespace firn::ui

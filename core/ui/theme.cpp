@@ -1,0 +1,98 @@
+#include "ui/theme.hpp"
+
+namespace firn::ui {
+namespace {
+
+ImVec4 rgb(int r, int g, int b) { return ImVec4(r / 255.f, g / 255.f, b / 255.f, 1.f); }
+
+// Day: near-black on white, 18.9:1; dim text #3d3d3d on white 11:1 (WCAG 2.1 contrast formula).
+const Palette kDay{rgb(255, 255, 255), rgb(17, 17, 17),    rgb(61, 61, 61),   rgb(0, 70, 140),
+                   rgb(122, 72, 0),    rgb(160, 0, 0),     rgb(232, 236, 241), rgb(196, 214, 236),
+                   rgb(80, 80, 80)};
+// Night: only red light. Text #ff3b30-ish on black; no blue or green components.
+const Palette kNight{rgb(0, 0, 0),    rgb(230, 40, 30),  rgb(170, 30, 24), rgb(255, 80, 60),
+                     rgb(255, 110, 80), rgb(255, 60, 60), rgb(36, 4, 2),    rgb(80, 10, 6),
+                     rgb(120, 20, 12)};
+// Projection: white on very dark blue, large type.
+const Palette kProjection{rgb(12, 18, 32),   rgb(255, 255, 255), rgb(215, 222, 232),
+                          rgb(120, 190, 255), rgb(255, 200, 90),  rgb(255, 120, 110),
+                          rgb(32, 44, 70),    rgb(52, 80, 130),   rgb(140, 150, 170)};
+
+}  // namespace
+
+const Palette& palette(Theme theme) {
+  switch (theme) {
+    case Theme::Night: return kNight;
+    case Theme::Projection: return kProjection;
+    case Theme::Day: break;
+  }
+  return kDay;
+}
+
+float theme_text_scale(Theme theme) { return theme == Theme::Projection ? 1.6f : 1.0f; }
+
+const char* theme_label(Theme theme) {
+  switch (theme) {
+    case Theme::Night: return "Night";
+    case Theme::Projection: return "Projector";
+    case Theme::Day: break;
+  }
+  return "Day";
+}
+
+void apply_theme(Theme theme, float pixel_ratio) {
+  const Palette& p = palette(theme);
+  ImGuiStyle style;  // fresh defaults, then scaled: ScaleAllSizes is not idempotent
+  style.WindowPadding = ImVec2(12, 12);
+  style.FramePadding = ImVec2(10, 10);
+  style.ItemSpacing = ImVec2(10, 10);
+  style.ItemInnerSpacing = ImVec2(8, 8);
+  style.FrameRounding = 6.0f;
+  style.GrabRounding = 6.0f;
+  style.WindowRounding = 0.0f;
+  style.WindowBorderSize = 0.0f;
+  style.FrameBorderSize = 1.0f;
+  style.ScrollbarSize = 18.0f;
+  style.GrabMinSize = 24.0f;
+  style.TouchExtraPadding = ImVec2(4, 4);
+  style.ScaleAllSizes(pixel_ratio * theme_text_scale(theme));
+
+  ImVec4* c = style.Colors;
+  c[ImGuiCol_Text] = p.text;
+  c[ImGuiCol_TextDisabled] = p.text_dim;
+  c[ImGuiCol_WindowBg] = p.background;
+  c[ImGuiCol_ChildBg] = p.background;
+  c[ImGuiCol_PopupBg] = p.background;
+  c[ImGuiCol_Border] = p.border;
+  c[ImGuiCol_FrameBg] = p.surface;
+  c[ImGuiCol_FrameBgHovered] = p.surface_active;
+  c[ImGuiCol_FrameBgActive] = p.surface_active;
+  c[ImGuiCol_TitleBg] = p.surface;
+  c[ImGuiCol_TitleBgActive] = p.surface_active;
+  c[ImGuiCol_MenuBarBg] = p.surface;
+  c[ImGuiCol_ScrollbarBg] = p.background;
+  c[ImGuiCol_ScrollbarGrab] = p.border;
+  c[ImGuiCol_ScrollbarGrabHovered] = p.accent;
+  c[ImGuiCol_ScrollbarGrabActive] = p.accent;
+  c[ImGuiCol_CheckMark] = p.accent;
+  c[ImGuiCol_SliderGrab] = p.accent;
+  c[ImGuiCol_SliderGrabActive] = p.accent;
+  c[ImGuiCol_Button] = p.surface;
+  c[ImGuiCol_ButtonHovered] = p.surface_active;
+  c[ImGuiCol_ButtonActive] = p.surface_active;
+  c[ImGuiCol_Header] = p.surface_active;
+  c[ImGuiCol_HeaderHovered] = p.surface_active;
+  c[ImGuiCol_HeaderActive] = p.surface_active;
+  c[ImGuiCol_Separator] = p.border;
+  c[ImGuiCol_Tab] = p.surface;
+  c[ImGuiCol_TabHovered] = p.surface_active;
+  c[ImGuiCol_TabActive] = p.surface_active;
+  c[ImGuiCol_TableHeaderBg] = p.surface;
+  c[ImGuiCol_TableBorderStrong] = p.border;
+  c[ImGuiCol_TableBorderLight] = p.border;
+  c[ImGuiCol_TextSelectedBg] = p.surface_active;
+  c[ImGuiCol_NavHighlight] = p.accent;
+  ImGui::GetStyle() = style;
+}
+
+}  // namespace firn::ui

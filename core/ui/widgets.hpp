@@ -1,0 +1,48 @@
+// Firn's widgets on top of ImGui: sized in em units (multiples of the current font size), every
+// one recorded by the test hook under its visible label.
+#pragma once
+
+#include <imgui.h>
+
+#include <optional>
+#include <string>
+#include <string_view>
+
+#include "model/result.hpp"
+#include "ui/app_state.hpp"
+
+namespace firn::ui {
+
+// Current font size in framebuffer pixels: the em of our layout.
+float em();
+// The minimum touch target: 48 CSS px at any device pixel ratio (≥ 9 mm on phones).
+float touch_target(const AppState& state);
+
+// A large button, at least one touch target high. Recorded by its label.
+bool big_button(const AppState& state, const char* label, float width = 0.0f);
+
+// A row of mutually exclusive options; returns true when the choice changed.
+bool choice_row(const AppState& state, const char* id, const char* const* labels, int count,
+                int* selected);
+
+// A labelled result: name in small type, value large, unit after it. `shown` is what the test
+// hook reads back ("701.2 hPa").
+void result_value(const AppState& state, const char* label, const std::string& shown,
+                  bool emphasised = true);
+
+// Numeric text field showing `display_text` until the user edits it. Returns the typed text
+// when the user commits it (Enter or leaving the field); the caller parses it and reports
+// errors through state.status_message.
+std::optional<std::string> number_field(AppState& state, const char* label, const char* field_id,
+                                        const std::string& display_text);
+
+// Appends `unit` when `text` is a bare number, so "4000" in a metres field means 4000 m.
+std::string with_default_unit(const std::string& text, std::string_view unit);
+
+// The one-line caution every result screen carries, with a "Read more" that expands it.
+void caution_line(AppState& state);
+
+// Formats a finite value with `decimals`; non-finite values become "—" (never NaN on screen).
+std::string shown_number(double value, int decimals);
+
+}  // namespace firn::ui

@@ -1,0 +1,145 @@
+#include "cli/cli.hpp"
+
+#include <cmath>
+#include <cstdio>
+#include <iostream>
+
+namespace firn::cli {
+
+double rounded(double value, int decimals) {
+  FIRN_ASSERT(std::isfinite(value), "a non-finite number reached CLI output");
+  double scale = std::pow(10.0, decimals);
+  double r = std::round(value * scale) / scale;
+  return r == 0.0 ? 0.0 : r;  // no "-0"
+}
+
+void Report::add(const std::string& key, double value, int decimals, const std::string& label,
+                 const std::string& unit) {
+  double r = rounded(value, decimals);
+  json[key] = r;
+  rows.emplace_back(label, format_number(r, decimals) + (unit.empty() ? "" : " " + unit));
+}
+
+void Report::add_text(const std::string& key, const std::string& value, const std::string& label) {
+  json[key] = value;
+  rows.emplace_back(label, value);
+}
+
+CLI::App* CommandTable::add(const std::string& name, const std::string& description,
+                            CommandAction action) {
+  CLI::App* sub = root.add_subcommand(name, description);
+  commands.emplace_back(sub, std::move(action));
+  return sub;
+}
+
+namespace {
+
+Error missing(const std::string& option, const std::string& what) {
+  return Error{option + " is required: " + what};
+}
+
+}  // namespace
+
+Result<units::Length> required_length(const std::optional<std::string>& text,
+                                      const std::string& option, const std::string& what) {
+  if (!text) return missing(option, what + ", e.g. 4000m or 13120ft");
+  Result<units::Length> parsed = units::parse_length(*text, what);
+  if (!parsed) return Error{option + ": " + parsed.error().message};
+  return parsed;
+}
+
+Result<units::Pressure> required_pressure(const std::optional<std::string>& text,
+                                          const std::string& option, const std::string& what) {
+  if (!text) return missing(option, what + ", e.g. 616hPa, 462mmHg or 2psi");
+  Result<units::Pressure> parsed = units::parse_pressure(*text, what);
+  if (!parsed) return Error{option + ": " + parsed.error().message};
+  return parsed;
+}
+
+Result<double> required_number(const std::optional<std::string>& text, const std::string& option,
+                               const std::string& what, double low, double high,
+                               const std::string& unit) {
+  if (!text) {
+    return missing(option, what + " between " + format_number(low) + " and " +
+                               format_number(high) + (unit.empty() ? "" : " " + unit));
+  }
+  Result<double> number = units::parse_number(*text, what);
+  if (!number) return Error{option + ": " + number.error().message};
+  if (!in_range(number.value(), low, high)) {
+    return Error{option + ": " + range_error(what, low, high, unit, number.value()).message};
+  }
+  return number;
+}
+
+namespace {
+
+void print_table(const Report& report) {
+  size_t width = 0;
+  for (const auto& row : report.rows) width = std::max(width, row.first.size());
+  for (const auto& [label, value] : report.rows) {
+    std::printf("%-*s  %s\n", static_cast<int>(width), label.c_str(), value.c_str());
+  }
+  for (const std::string& note : report.notes) std::printf("* %s\n", note.c_str());
+}
+
+int fail(bool json, const std::string& message) {
+  std::fprintf(stderr, "firn: %s\n", message.c_str());
+  if (json) std::printf("%s\n", Json{{"error", message}}.dump().c_str());
+  return 2;
+}
+
+}  // namespace
+
+int run(int argc, char** argv, AppOptions& app_options) {
+  CLI::App root{"Firn: altitude and oxygen field calculator for mountain rescue. "
+                "Decision support only; clinical signs first; descent is the definitive "
+                "treatment.", "firn"};
+  root.set_version_flag("--version", std::string("firn ") + FIRN_VERSION);
+  root.add_option("--screenshot", app_options.screenshot_path,
+                  "App: render a few frames, write this PNG and exit");
+  root.add_option("--screen", app_options.screen, "App: screen to open");
+  root.add_option("--theme", app_options.theme, "App: day, night or projector");
+  root.add_option("--width", app_options.width, "App: window width (logical pixels)");
+  root.add_option("--height", app_options.height, "App: window height (logical pixels)");
+  root.add_option("--frames", app_options.frames, "App: frames to draw before --screenshot");
+  root.add_option("--pixel-ratio", app_options.pixel_ratio, "App: override the display scale");
+  root.add_option("--idle-report", app_options.idle_seconds,
+                  "App: wait this many seconds without input, print frames drawn, exit");
+  root.add_option("--test-items", app_options.test_items_path,
+                  "App: write the labelled item rectangles of the last frame to this file");
+
+  bool json = false;
+  CommandTable table{root, {}};
+  register_atmosphere_commands(table);
+  for (auto& [sub, action] : table.commands) {
+    sub->add_flag("--json", json, "Print JSON instead of a table");
+  }
+
+  try {
+    root.parse(argc, argv);
+  } catch (const CLI::CallForHelp& e) {
+    return root.exit(e);
+  } catch (const CLI::CallForAllHelp& e) {
+    return root.exit(e);
+  } catch (const CLI::CallForVersion& e) {
+    return root.exit(e);
+  } catch (const CLI::ParseError& e) {
+    for (int i = 1; i < argc; ++i) json = json || std::string(argv[i]) == "--json";
+    return fail(json, e.what());
+  }
+
+  for (auto& [sub, action] : table.commands) {
+    if (!sub->parsed()) continue;
+    Result<Report> report = action();
+    if (!report) return fail(json, report.error().message);
+    if (json) {
+      std::printf("%s\n", report->json.dump().c_str());
+    } else {
+      print_table(report.value());
+    }
+    return 0;
+  }
+  return -1;
+}
+
+}  // namespace firn::cli

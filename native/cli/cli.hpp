@@ -1,0 +1,72 @@
+// The command-line calculators: `firn <command> [options] [--json]`. Each command lives in its
+// own cmd_*.cpp and registers itself in register_commands(). The contract (command names, option
+// names and JSON keys) is stable: tests outside the project rely on it (see docs/cli.md).
+#pragma once
+
+#include <CLI/CLI.hpp>
+#include <nlohmann/json.hpp>
+
+#include <functional>
+#include <optional>
+#include <string>
+#include <utility>
+#include <vector>
+
+#include "model/result.hpp"
+#include "model/units.hpp"
+
+namespace firn::cli {
+
+using Json = nlohmann::ordered_json;
+
+// What a command computed: JSON for --json, and rows + notes for the human table.
+struct Report {
+  Json json = Json::object();
+  std::vector<std::pair<std::string, std::string>> rows;  // label, value with unit
+  std::vector<std::string> notes;                          // cautions, explanations
+
+  void add(const std::string& key, double value, int decimals, const std::string& label,
+           const std::string& unit);
+  void add_text(const std::string& key, const std::string& value, const std::string& label);
+};
+
+using CommandAction = std::function<Result<Report>()>;
+
+// Registers a subcommand; `action` runs when it is chosen and its options parsed.
+struct CommandTable {
+  CLI::App& root;
+  std::vector<std::pair<CLI::App*, CommandAction>> commands;
+  CLI::App* add(const std::string& name, const std::string& description, CommandAction action);
+};
+
+// One function per command file.
+void register_atmosphere_commands(CommandTable& table);  // pressure, altitude
+
+// Options that hold "number + unit" text are parsed by the core, so messages name the unit.
+Result<units::Length> required_length(const std::optional<std::string>& text,
+                                      const std::string& option, const std::string& what);
+Result<units::Pressure> required_pressure(const std::optional<std::string>& text,
+                                          const std::string& option, const std::string& what);
+Result<double> required_number(const std::optional<std::string>& text, const std::string& option,
+                               const std::string& what, double low, double high,
+                               const std::string& unit);
+
+// Rounds for output: JSON carries the same figures the table shows, never NaN.
+double rounded(double value, int decimals);
+
+// Returns the process exit code: 0 done, 2 bad input or usage; -1 means "no command: open the
+// app" and fills `gui_arguments` with the app options.
+struct AppOptions {
+  std::string screenshot_path;
+  std::string screen;
+  std::string theme;
+  std::string test_items_path;
+  int width = 1280;
+  int height = 800;
+  int frames = 6;
+  double idle_seconds = 0.0;  // > 0: run this long without input and report frames drawn
+  float pixel_ratio = 0.0f;   // 0: ask the monitor
+};
+int run(int argc, char** argv, AppOptions& app_options);
+
+}  // namespace firn::cli

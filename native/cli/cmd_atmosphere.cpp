@@ -1,0 +1,134 @@
+// `firn pressure` and `firn altitude`: barometric pressure ↔ altitude, both models side by side.
+#include <memory>
+
+#include "cli/cli.hpp"
+#include "model/atmosphere.hpp"
+
+namespace firn::cli {
+namespace {
+
+using namespace units;
+namespace atm = firn::atmosphere;
+
+struct PressureOptions {
+  std::optional<std::string> altitude, model, qnh, temperature, temperature_at;
+};
+
+struct AltitudeOptions {
+  std::optional<std::string> pressure, model;
+};
+
+Result<atm::Model> model_option(const std::optional<std::string>& text) {
+  if (!text) return atm::default_medical_model;
+  Result<atm::Model> model = atm::parse_model(*text);
+  if (!model) return Error{"--model: " + model.error().message};
+  return model;
+}
+
+void add_pressure_rows(Report& report, const std::string& prefix, const std::string& label,
+                       Pressure p) {
+  report.add(prefix + "pressure_hpa", p.in(hectopascals), 2, label, "hPa");
+  report.add(prefix + "pressure_mmhg", p.in(mmhg), 1, label, "mmHg");
+  report.add(prefix + "pressure_kpa", p.in(kilopascals), 3, label, "kPa");
+  report.add(prefix + "pressure_inhg", p.in(inhg), 2, label, "inHg");
+}
+
+Result<Report> run_pressure(const PressureOptions& o) {
+  Result<Length> altitude = required_length(o.altitude, "--altitude", "altitude");
+  if (!altitude) return altitude.error();
+  Result<atm::Model> model = model_option(o.model);
+  if (!model) return model.error();
+
+  Report report;
+  report.add("altitude_m", altitude->in(metres), 1, "Altitude", "m");
+  Result<Pressure> pressure = Error{""};
+  std::string method;
+  if (o.qnh) {
+    Result<Pressure> qnh = parse_pressure(*o.qnh, "QNH");
+    if (!qnh) return Error{"--qnh: " + qnh.error().message};
+    if (o.temperature) {
+      Result<Temperature> t = parse_temperature(*o.temperature, "air temperature");
+      if (!t) return Error{"--temperature: " + t.error().message};
+      atm::TemperatureAt where = atm::TemperatureAt::SeaLevel;
+      if (o.temperature_at && *o.temperature_at == "station") {
+        where = atm::TemperatureAt::Station;
+      } else if (o.temperature_at && *o.temperature_at != "sea-level") {
+        return Error{"--temperature-at must be sea-level or station"};
+      }
+      pressure = atm::pressure_from_qnh(altitude.value(), qnh.value(), t.value(), where);
+      method = where == atm::TemperatureAt::Station ? "qnh+station-temperature (hypsometric)"
+                                                    : "qnh+sea-level-temperature (hypsometric)";
+    } else {
+      pressure = atm::pressure_from_qnh(altitude.value(), qnh.value());
+      method = "qnh (standard lapse)";
+    }
+  } else {
+    if (o.temperature) return Error{"--temperature needs --qnh (the day's sea-level pressure)"};
+    pressure = atm::pressure_at(altitude.value(), model.value());
+    method = std::string(atm::model_key(model.value()));
+  }
+  if (!pressure) return pressure.error();
+
+  report.add_text("method", method, "Method");
+  report.add_text("model", std::string(atm::model_key(model.value())), "Model");
+  add_pressure_rows(report, "", "Barometric pressure", pressure.value());
+  // Both models side by side, whenever they are valid at this altitude.
+  for (atm::Model each : {atm::Model::West1996, atm::Model::Isa}) {
+    Result<Pressure> p = atm::pressure_at(altitude.value(), each);
+    std::string key = std::string(atm::model_key(each)) + "_pressure_hpa";
+    if (p) {
+      report.add(key, p->in(hectopascals), 2, std::string(atm::model_name(each)), "hPa");
+    } else {
+      report.json[key] = nullptr;
+      report.rows.emplace_back(std::string(atm::model_name(each)), "outside model range");
+    }
+  }
+  return report;
+}
+
+Result<Report> run_altitude(const AltitudeOptions& o) {
+  Result<Pressure> pressure = required_pressure(o.pressure, "--pressure", "barometric pressure");
+  if (!pressure) return pressure.error();
+  Result<atm::Model> model = model_option(o.model);
+  if (!model) return model.error();
+  Result<Length> altitude = atm::altitude_at(pressure.value(), model.value());
+  if (!altitude) return altitude.error();
+  Report report;
+  report.add("pressure_hpa", pressure->in(hectopascals), 2, "Barometric pressure", "hPa");
+  report.add_text("model", std::string(atm::model_key(model.value())), "Model");
+  report.add("altitude_m", altitude->in(metres), 1, "Altitude", "m");
+  report.add("altitude_ft", altitude->in(feet), 0, "Altitude", "ft");
+  for (atm::Model each : {atm::Model::West1996, atm::Model::Isa}) {
+    Result<Length> a = atm::altitude_at(pressure.value(), each);
+    std::string key = std::string(atm::model_key(each)) + "_altitude_m";
+    if (a) {
+      report.add(key, a->in(metres), 1, std::string(atm::model_name(each)), "m");
+    } else {
+      report.json[key] = nullptr;
+      report.rows.emplace_back(std::string(atm::model_name(each)), "outside model range");
+    }
+  }
+  return report;
+}
+
+}  // namespace
+
+void register_atmosphere_commands(CommandTable& table) {
+  auto p = std::make_shared<PressureOptions>();
+  CLI::App* pressure = table.add("pressure", "Barometric pressure at an altitude",
+                                 [p] { return run_pressure(*p); });
+  pressure->add_option("--altitude", p->altitude, "Altitude, e.g. 4000m or 13120ft");
+  pressure->add_option("--model", p->model, "Atmosphere model: west (default) or isa");
+  pressure->add_option("--qnh", p->qnh, "The day's sea-level pressure (QNH), e.g. 1013hPa");
+  pressure->add_option("--temperature", p->temperature, "Air temperature with --qnh, e.g. -5C");
+  pressure->add_option("--temperature-at", p->temperature_at,
+                       "Where --temperature was taken: sea-level (default) or station");
+
+  auto a = std::make_shared<AltitudeOptions>();
+  CLI::App* altitude = table.add("altitude", "Altitude from a barometric pressure",
+                                 [a] { return run_altitude(*a); });
+  altitude->add_option("--pressure", a->pressure, "Barometric pressure, e.g. 616hPa or 462mmHg");
+  altitude->add_option("--model", a->model, "Atmosphere model: west (default) or isa");
+}
+
+}  // namespace firn::cli

@@ -1,0 +1,81 @@
+#include "native_platform.hpp"
+
+#include <cstdlib>
+#include <filesystem>
+#include <fstream>
+#include <sstream>
+
+namespace firn::native {
+
+namespace fs = std::filesystem;
+
+namespace {
+std::string default_config_dir() {
+  if (const char* xdg = std::getenv("XDG_CONFIG_HOME"); xdg && *xdg) return std::string(xdg) + "/firn";
+  if (const char* home = std::getenv("HOME"); home && *home) return std::string(home) + "/.config/firn";
+  return ".firn";
+}
+
+bool safe_key(std::string_view key) {
+  if (key.empty()) return false;
+  for (char c : key) {
+    bool ok = (c >= 'a' && c <= 'z') || (c >= '0' && c <= '9') || c == '-' || c == '_' || c == '.';
+    if (!ok) return false;
+  }
+  return key.find("..") == std::string_view::npos;
+}
+}  // namespace
+
+NativePlatform::NativePlatform(std::string config_dir, std::string test_items_path)
+    : config_dir_(config_dir.empty() ? default_config_dir() : std::move(config_dir)),
+      test_items_path_(std::move(test_items_path)) {}
+
+std::string NativePlatform::path_for(std::string_view key) const {
+  return config_dir_ + "/" + std::string(key);
+}
+
+std::optional<std::string> NativePlatform::load_text(std::string_view key) {
+  if (!safe_key(key)) return std::nullopt;
+  std::ifstream in(path_for(key), std::ios::binary);
+  if (!in) return std::nullopt;
+  std::ostringstream buffer;
+  buffer << in.rdbuf();
+  return buffer.str();
+}
+
+bool NativePlatform::save_text(std::string_view key, std::string_view text) {
+  if (!safe_key(key)) return false;
+  std::error_code ec;
+  fs::create_directories(config_dir_, ec);
+  // Write then rename, so a crash mid-write never leaves half a settings file.
+  std::string final_path = path_for(key);
+  std::string temp_path = final_path + ".tmp";
+  {
+    std::ofstream out(temp_path, std::ios::binary | std::ios::trunc);
+    if (!out) return false;
+    out.write(text.data(), static_cast<std::streamsize>(text.size()));
+    if (!out) return false;
+  }
+  fs::rename(temp_path, final_path, ec);
+  return !ec;
+}
+
+bool NativePlatform::open_html_document(std::string_view title, std::string_view html) {
+  std::string file_name(title);
+  for (char& c : file_name) {
+    if (!((c >= 'a' && c <= 'z') || (c >= 'A' && c <= 'Z') || (c >= '0' && c <= '9'))) c = '-';
+  }
+  if (!save_text(file_name + ".html", html)) return false;
+  std::string command = "xdg-open '" + path_for(file_name + ".html") + "' >/dev/null 2>&1 &";
+  return std::system(command.c_str()) == 0;
+}
+
+void NativePlatform::publish_test_items(std::string_view json) { last_test_items_ = json; }
+
+void NativePlatform::write_test_items() const {
+  if (test_items_path_.empty()) return;
+  std::ofstream out(test_items_path_, std::ios::binary | std::ios::trunc);
+  out << last_test_items_;
+}
+
+}  // namespace firn::native

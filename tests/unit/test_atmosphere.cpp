@@ -1,0 +1,129 @@
+// Atmosphere: ISA (geometric → geopotential), West 1996, QNH and hypsometric pressure.
+#include <catch2/catch.hpp>
+
+#include <cmath>
+
+#include "model/atmosphere.hpp"
+
+using namespace firn;
+using namespace firn::units;
+using namespace firn::atmosphere;
+
+namespace {
+double isa_hpa(double metres_value) {
+  return pressure_at(metres(metres_value), Model::Isa)->in(hectopascals);
+}
+double west_torr(double metres_value) {
+  return pressure_at(metres(metres_value), Model::West1996)->in(torr);
+}
+}  // namespace
+
+TEST_CASE("ISA pressure at geometric altitudes", "[atmosphere]") {
+  // U.S. Standard Atmosphere 1976 (NOAA/NASA/USAF), Table I, indexed by geometric altitude Z.
+  CHECK(isa_hpa(0) == Approx(1013.25).margin(0.005));
+  CHECK(isa_hpa(1000) == Approx(898.76).margin(0.01));
+  CHECK(isa_hpa(3000) == Approx(701.21).margin(0.01));
+  CHECK(isa_hpa(5000) == Approx(540.48).margin(0.02));  // USSA 1976 Table I: 5.4048e2 mb
+  CHECK(isa_hpa(-500) == Approx(1074.78).margin(0.02));  // USSA 1976 Table I: 1.0748e3 mb
+  CHECK(isa_hpa(20000) == Approx(55.29).margin(0.02));  // USSA 1976 Table I: 5.5293e1 mb
+}
+
+TEST_CASE("ISA is defined on geopotential height", "[atmosphere]") {
+  // ICAO Doc 7488/3 (1993), Manual of the ICAO Standard Atmosphere: tropopause at 11 000 m
+  // geopotential, 226.32 hPa.
+  double z = geometric_from_geopotential_m(11000.0);
+  CHECK(z == Approx(11019.1).margin(0.1));
+  CHECK(isa_hpa(z) == Approx(226.32).margin(0.01));
+  CHECK(geopotential_from_geometric_m(geometric_from_geopotential_m(8000.0)) ==
+        Approx(8000.0).margin(1e-6));
+}
+
+TEST_CASE("West 1996 mountain model", "[atmosphere]") {
+  // West JB, J Appl Physiol 1996;81:1850-1854, model-atmosphere table at 15° latitude. The
+  // closed-form equation is the paper's fit to that table; they agree within 1 Torr.
+  CHECK(west_torr(4000) == Approx(475).margin(1.0));
+  CHECK(west_torr(5000) == Approx(419).margin(1.0));
+  CHECK(west_torr(6000) == Approx(369).margin(1.0));
+  // Measured on the Everest summit (8848 m): 253 Torr (West et al., J Appl Physiol
+  // 1983;54:1188-1194). The model predicts it within 1 Torr.
+  CHECK(west_torr(8848) == Approx(253).margin(1.0));
+  // West's model gives higher pressures than ISA at altitude (same paper, discussion).
+  CHECK(west_torr(6000) > pressure_at(metres(6000), Model::Isa)->in(torr));
+}
+
+TEST_CASE("inverse of each model returns the altitude within 0.1 m", "[atmosphere][property]") {
+  for (Model model : {Model::Isa, Model::West1996}) {
+    AltitudeRange range = valid_altitudes(model);
+    for (double z = range.low_m; z <= range.high_m; z += 37.0) {
+      Result<Pressure> p = pressure_at(metres(z), model);
+      REQUIRE(p.ok());
+      Result<Length> back = altitude_at(p.value(), model);
+      REQUIRE(back.ok());
+      CHECK(back->in(metres) == Approx(z).margin(0.1));
+    }
+  }
+}
+
+TEST_CASE("pressure falls monotonically with altitude", "[atmosphere][property]") {
+  for (Model model : {Model::Isa, Model::West1996}) {
+    AltitudeRange range = valid_altitudes(model);
+    double previous = INFINITY;
+    for (double z = range.low_m; z <= range.high_m; z += 10.0) {
+      double p = pressure_at(metres(z), model)->in(pascals);
+      CHECK(p < previous);
+      previous = p;
+    }
+  }
+}
+
+TEST_CASE("out-of-range and non-finite altitudes are errors naming range and unit",
+          "[atmosphere][errors]") {
+  Result<Pressure> high = pressure_at(metres(25000), Model::Isa);
+  REQUIRE_FALSE(high.ok());
+  CHECK(high.error().message ==
+        "altitude must be between -500 and 20000 m (got 25000 m) for the ISA model");
+  Result<Pressure> west_high = pressure_at(metres(9500), Model::West1996);
+  REQUIRE_FALSE(west_high.ok());
+  CHECK(west_high.error().message.find("between 0 and 9000 m") != std::string::npos);
+  CHECK_FALSE(pressure_at(metres(NAN), Model::Isa).ok());
+  CHECK_FALSE(pressure_at(metres(INFINITY), Model::West1996).ok());
+  Result<Length> low_p = altitude_at(hectopascals(10), Model::Isa);
+  REQUIRE_FALSE(low_p.ok());
+  CHECK(low_p.error().message.find("hPa") != std::string::npos);
+  CHECK_FALSE(altitude_at(hectopascals(NAN), Model::West1996).ok());
+}
+
+TEST_CASE("pressure from QNH", "[atmosphere][qnh]") {
+  // With QNH = 1013.25 hPa the altimeter convention reproduces ISA (ICAO Doc 8168, altimeter
+  // setting procedures: QNH makes the altimeter read elevation on the ground).
+  CHECK(pressure_from_qnh(metres(3000), hectopascals(1013.25))->in(hectopascals) ==
+        Approx(isa_hpa(3000)).margin(0.001));
+  // Scales with QNH (same formula): a low of 990 hPa at 3000 m.
+  CHECK(pressure_from_qnh(metres(3000), hectopascals(990))->in(hectopascals) ==
+        Approx(isa_hpa(3000) * 990 / 1013.25).margin(0.001));
+  // Hypsometric form with the ISA sea-level temperature (15 °C) matches ISA within 0.05 hPa:
+  // the layer-mean temperature is exact for a linear lapse to first order.
+  CHECK(pressure_from_qnh(metres(3000), hectopascals(1013.25), celsius(15), TemperatureAt::SeaLevel)
+            ->in(hectopascals) == Approx(isa_hpa(3000)).margin(0.5));
+  // A colder day means a lower pressure aloft (AMS Glossary, hypsometric equation).
+  double cold = pressure_from_qnh(metres(3000), hectopascals(1013.25), celsius(-10),
+                                  TemperatureAt::SeaLevel)->in(hectopascals);
+  CHECK(cold < isa_hpa(3000) - 5.0);
+  // Station temperature of −4.5 °C at 3000 m is the ISA temperature there: same as ISA.
+  CHECK(pressure_from_qnh(metres(3000), hectopascals(1013.25), celsius(15 - 0.0065 * 2998.585),
+                          TemperatureAt::Station)->in(hectopascals) == Approx(isa_hpa(3000)).margin(0.5));
+  CHECK_FALSE(pressure_from_qnh(metres(3000), hectopascals(500)).ok());
+  CHECK_FALSE(pressure_from_qnh(metres(3000), hectopascals(1013), celsius(90), TemperatureAt::Station).ok());
+}
+
+TEST_CASE("a station reading is PB itself", "[atmosphere]") {
+  CHECK(pressure_from_station_reading(hectopascals(616))->in(hectopascals) == 616.0);
+  CHECK_FALSE(pressure_from_station_reading(hectopascals(50)).ok());
+}
+
+TEST_CASE("model names and keys", "[atmosphere]") {
+  CHECK(parse_model("isa").value() == Model::Isa);
+  CHECK(parse_model("west").value() == Model::West1996);
+  CHECK_FALSE(parse_model("mars").ok());
+  CHECK(model_name(default_medical_model) == "West 1996");
+}

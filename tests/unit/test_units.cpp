@@ -1,0 +1,74 @@
+// Units and parsing of "number + unit" text.
+#include <catch2/catch.hpp>
+
+#include <cmath>
+
+#include "model/units.hpp"
+
+using namespace firn;
+using namespace firn::units;
+
+TEST_CASE("conversion factors", "[units]") {
+  // NIST SP 811 (2008), Appendix B.8: 1 ft = 0.3048 m; 1 mmHg = 133.3224 Pa; 1 psi =
+  // 6894.757 Pa; 1 inHg (32 °F) = 3386.38 Pa; 1 atm = 101 325 Pa.
+  CHECK(feet(1).in(metres) == Approx(0.3048));
+  CHECK(mmhg(1).in(pascals) == Approx(133.3224).epsilon(1e-6));
+  CHECK(psi(1).in(pascals) == Approx(6894.757).epsilon(1e-7));
+  CHECK(inhg(1).in(pascals) == Approx(3386.38).epsilon(1e-5));
+  CHECK(atmospheres(1).in(mmhg) == Approx(760.0));
+  CHECK(psi(2).in(hectopascals) == Approx(137.9).margin(0.01));
+  CHECK(psi(1).in(mmhg) == Approx(51.715).margin(0.001));
+  CHECK(celsius(-40).in(fahrenheit) == Approx(-40.0));
+  CHECK(celsius(37).in(kelvin) == Approx(310.15));
+  CHECK(litres_per_minute(6) * hours(1) == litres(360));
+  CHECK((litres(600) / litres_per_minute(10)).in(minutes) == Approx(60.0));
+}
+
+TEST_CASE("parsing lengths, pressures and temperatures", "[units][parse]") {
+  CHECK(parse_length("4000m")->in(metres) == Approx(4000));
+  CHECK(parse_length("13120ft")->in(metres) == Approx(3998.976));
+  CHECK(parse_length(" 4.2 km ")->in(metres) == Approx(4200));
+  CHECK(parse_length("4,5km")->in(metres) == Approx(4500));
+  CHECK(parse_length("5e3m")->in(metres) == Approx(5000));
+  CHECK(parse_pressure("616hPa")->in(hectopascals) == Approx(616));
+  CHECK(parse_pressure("462mmHg")->in(mmhg) == Approx(462));
+  CHECK(parse_pressure("61.6kPa")->in(hectopascals) == Approx(616));
+  CHECK(parse_pressure("18.2inHg")->in(inhg) == Approx(18.2));
+  CHECK(parse_pressure("8.9psi")->in(psi) == Approx(8.9));
+  CHECK(parse_pressure("138mbar")->in(hectopascals) == Approx(138));
+  CHECK(parse_pressure("200bar")->in(bar) == Approx(200));
+  CHECK(parse_pressure("2900PSI")->in(psi) == Approx(2900));
+  CHECK(parse_temperature("-5C")->in(celsius) == Approx(-5));
+  CHECK(parse_temperature("-4F")->in(celsius) == Approx(-20));
+  CHECK(parse_temperature("-4\xC2\xB0""F")->in(celsius) == Approx(-20));
+  CHECK(parse_temperature("300K")->in(kelvin) == Approx(300));
+  CHECK(parse_volume("10")->in(litres) == Approx(10));
+  CHECK(parse_volume("680ml")->in(litres) == Approx(0.68));
+}
+
+TEST_CASE("bad text is an error that says what to type", "[units][parse][errors]") {
+  Result<Length> no_unit = parse_length("4000");
+  REQUIRE_FALSE(no_unit.ok());
+  CHECK(no_unit.error().message == "altitude needs a unit: m, ft or km (example: 4000m)");
+  Result<Pressure> bad_unit = parse_pressure("616hp");
+  REQUIRE_FALSE(bad_unit.ok());
+  CHECK(bad_unit.error().message.find("unknown unit 'hp' for pressure: use hPa, mmHg") == 0);
+  CHECK_FALSE(parse_length("nan m").ok());
+  CHECK_FALSE(parse_length("inf m").ok());
+  CHECK_FALSE(parse_length("1e999m").ok());
+  CHECK_FALSE(parse_length("").ok());
+  CHECK_FALSE(parse_length("m").ok());
+  CHECK_FALSE(parse_length("4..0m").ok());
+  CHECK_FALSE(parse_length("0x10m").ok());
+  CHECK_FALSE(parse_temperature("-5").ok());
+  CHECK(parse_number("abc", "flow").error().message == "flow is not a number: 'abc'");
+}
+
+TEST_CASE("error messages format numbers plainly", "[units][errors]") {
+  CHECK(format_number(701.2100) == "701.21");
+  CHECK(format_number(20000.0) == "20000");
+  CHECK(format_number(-0.0) == "0");
+  CHECK(format_number(NAN) == "not a number");
+  CHECK(range_error("flow", 0, 25, "L/min", -1).message ==
+        "flow must be between 0 and 25 L/min (got -1 L/min)");
+}
