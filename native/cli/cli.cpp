@@ -111,6 +111,11 @@ int run(int argc, char** argv, AppOptions& app_options) {
   bool json = false;
   CommandTable table{root, {}};
   register_atmosphere_commands(table);
+  register_oxygenation_commands(table);
+  register_ams_commands(table);
+  register_bag_commands(table);
+  register_cylinder_commands(table);
+  register_profile_commands(table);
   for (auto& [sub, action] : table.commands) {
     sub->add_flag("--json", json, "Print JSON instead of a table");
   }

@@ -39,8 +39,13 @@ struct CommandTable {
   CLI::App* add(const std::string& name, const std::string& description, CommandAction action);
 };
 
-// One function per command file.
-void register_atmosphere_commands(CommandTable& table);  // pressure, altitude
+// One function per command file (cmd_<name>.cpp).
+void register_atmosphere_commands(CommandTable& table);    // pressure, altitude
+void register_oxygenation_commands(CommandTable& table);   // oxygenation, curve
+void register_ams_commands(CommandTable& table);           // ams
+void register_bag_commands(CommandTable& table);           // bag
+void register_cylinder_commands(CommandTable& table);      // cylinder
+void register_profile_commands(CommandTable& table);       // plan, card, profile
 
 // Options that hold "number + unit" text are parsed by the core, so messages name the unit.
 Result<units::Length> required_length(const std::optional<std::string>& text,

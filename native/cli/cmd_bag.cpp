@@ -1,0 +1,8 @@
+// `firn bag`: placeholder until the command lands (registers nothing yet).
+#include "cli/cli.hpp"
+
+namespace firn::cli {
+
+void register_bag_commands(CommandTable&) {}
+
+}  // namespace firn::cli
