@@ -1,0 +1,123 @@
+// Oxygen cylinders: contents as free gas, duration to a reserve pressure, the US field rule for
+// letter sizes, and how flow devices behave at altitude.
+//
+// "Free gas" is the volume the oxygen would fill at the reference state 101.325 kPa and 15 °C
+// (the state cylinder contents are usually quoted in). Contents are computed with the oxygen
+// reference equation of state (model/oxygen_eos.hpp), from the gauge reading AND the cylinder
+// temperature: a cold cylinder reads a lower gauge pressure with the same contents.
+#pragma once
+
+#include <optional>
+#include <string>
+#include <string_view>
+
+#include "model/result.hpp"
+#include "model/units.hpp"
+
+namespace firn::cylinder {
+
+using units::Duration;
+using units::Pressure;
+using units::Temperature;
+using units::Volume;
+using units::VolumeFlow;
+
+// Reference state of "free gas" litres.
+inline constexpr Pressure reference_pressure = units::kilopascals(101.325);
+inline constexpr Temperature reference_temperature = units::celsius(15.0);
+
+// Validity of the inputs (the equation of state is used over −50…+65 °C, up to 400 bar absolute).
+inline constexpr double min_water_capacity_l = 0.1, max_water_capacity_l = 100.0;
+inline constexpr double max_gauge_bar = 350.0;  // highest fill in use is 300 bar
+inline constexpr double min_temperature_c = -40.0, max_temperature_c = 60.0;
+inline constexpr double max_flow_lpm = 30.0;
+// Ambient (absolute) pressure the gauge is referenced to: 150…1100 hPa (sea level to above
+// Everest's summit).
+inline constexpr double min_ambient_hpa = 150.0, max_ambient_hpa = 1100.0;
+
+// US letter sizes (aluminium / steel medical cylinders as sold in the US).
+enum class LetterSize { D, E, M, H };
+
+struct LetterSizeInfo {
+  LetterSize size;
+  std::string_view name;  // "D"
+  // US field rule factor (common practice in EMS references): minutes = (psi − 200)·factor / flow.
+  double field_factor;
+  // Internal (water) volume, litres: FROM MEMORY (typical US cylinders; check the cylinder label).
+  Volume water_capacity;
+  // Typical full service pressure: 2015 psi for D/E/M aluminium, 2200 psi for steel H (from memory).
+  Pressure full_gauge;
+};
+
+LetterSizeInfo letter_size_info(LetterSize size);
+Result<LetterSize> parse_letter_size(std::string_view text);  // "D", "e", …
+
+// Residual pressure the US field rule assumes ("safe residual", common practice).
+inline constexpr Pressure field_rule_residual_gauge = units::psi(200.0);
+
+// A cylinder as read in the field.
+struct Reading {
+  Volume water_capacity;
+  Pressure gauge_pressure;                      // above ambient, as the gauge shows it
+  Temperature temperature = units::celsius(15.0);  // of the cylinder (the gas in it)
+  Pressure ambient_pressure = units::atmospheres(1.0);  // a gauge reads relative to this
+};
+
+struct Contents {
+  Volume free_gas;           // real gas, by the equation of state
+  Volume ideal_free_gas;     // water capacity × absolute pressure / reference, same temperature
+                             // correction, no compressibility: shown beside it for teaching
+  double z_in_cylinder;      // compressibility at cylinder temperature and absolute pressure
+  double z_reference;        // compressibility at 101.325 kPa, 15 °C (≈ 0.9992)
+  Pressure absolute_pressure;
+};
+
+Result<Contents> contents(const Reading& reading);
+
+// The gauge pressure at which the cylinder holds `free_gas` (inverse of contents(), by
+// bisection). Used for reserve pressures and for pressure-vs-time curves.
+Result<Pressure> gauge_pressure_for(Volume water_capacity, Temperature temperature,
+                                    Pressure ambient_pressure, Volume free_gas);
+
+struct DurationEstimate {
+  Duration to_reserve;      // (contents − contents at reserve) / flow
+  Volume usable_free_gas;   // contents above the reserve
+  Volume reserve_free_gas;  // contents left at the reserve pressure
+  Contents contents;
+};
+
+// Flow is free-gas litres per minute (what a flowmeter calibrated at 1 atm means; see the flow
+// corrections below for altitude). Flow must be > 0 and ≤ 30 L/min; the reserve is a gauge
+// pressure below the reading (0 allowed).
+Result<DurationEstimate> duration(const Reading& reading, Pressure reserve_gauge, VolumeFlow flow);
+
+// US field rule: minutes = (psi − 200) × factor / flow. Gauge 200…3000 psi.
+Result<Duration> field_rule_duration(LetterSize size, Pressure gauge, VolumeFlow flow);
+
+// [SECTION] Flow devices at altitude. Returned as explained corrections: the number AND the reason.
+
+struct FlowCorrection {
+  VolumeFlow set_flow;              // what the device is set to / indicates
+  VolumeFlow actual_at_ambient;     // litres per minute at the ambient pressure (what the
+                                    // patient's mask receives, by volume)
+  VolumeFlow actual_free_gas;       // the same flow as free gas at 1 atm (what the cylinder loses)
+  double ratio;                     // actual_free_gas / set_flow
+  std::string explanation;
+};
+
+// A rotameter (float in a tapered tube) calibrated at `calibration` (usually 1 atm) reads low
+// at lower ambient pressure: actual ≈ indicated·√(P_cal/P_ambient) by volume at ambient
+// (rotameter density correction, manufacturers' technical notes); as free gas that is
+// indicated·√(P_ambient/P_cal).
+Result<FlowCorrection> rotameter_at_altitude(VolumeFlow indicated, Pressure ambient,
+                                             Pressure calibration = units::atmospheres(1.0));
+
+// A fixed-orifice (choked) regulator set to `nominal` with its regulated pressure referenced to
+// ambient: mass flow ∝ absolute upstream pressure = regulated gauge + ambient, so free-gas flow
+// falls by (P_reg + P_ambient)/(P_reg + P_cal). Derived from choked-flow physics; no published
+// measurement known. The regulated pressure is typically ~50 psi gauge (from memory).
+Result<FlowCorrection> fixed_orifice_at_altitude(
+    VolumeFlow nominal, Pressure ambient, Pressure regulated_gauge = units::psi(50.0),
+    Pressure calibration = units::atmospheres(1.0));
+
+}  // namespace firn::cylinder

@@ -1,0 +1,120 @@
+// Oxygen for an evacuation: a set of cylinders used one after another against a schedule of flow
+// phases ("15 L/min for 1 h, then 6 L/min"). Gives a timeline (which cylinder is in use when,
+// swap times, when the reserve is reached), pressure-vs-time samples for a plot, and the
+// shortfall or spare in minutes and in cylinders of a chosen size.
+//
+// Pure data in, pure data out: the team-profile file parser and `firn plan` build PlanInput.
+// Assumptions (documented in docs/oxygen-supply.md): cylinders are used in the order given, each
+// down to the reserve pressure, swaps take no time; each cylinder stays at its own temperature
+// (no cooling from expansion); flows are free-gas litres per minute (see cylinder.hpp).
+#pragma once
+
+#include <cstddef>
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "model/cylinder.hpp"
+#include "model/result.hpp"
+#include "model/units.hpp"
+
+namespace firn::evacuation {
+
+using units::Duration;
+using units::Pressure;
+using units::Temperature;
+using units::Volume;
+using units::VolumeFlow;
+
+// One cylinder the team carries. Give a water capacity, or a US letter size (its water
+// capacity is then the from-memory value in cylinder::letter_size_info); a water capacity wins
+// when both are given.
+struct CylinderSpec {
+  std::string label;                                  // "Cyl 1", "E-07"
+  std::optional<cylinder::LetterSize> letter_size;
+  std::optional<Volume> water_capacity;
+  Pressure gauge_pressure;                            // as read on the gauge now
+  Temperature temperature = units::celsius(15.0);     // of the cylinder
+};
+
+// A flow held for a while. The LAST phase's flow continues until the end of the evacuation (and
+// beyond, when the spare time is computed), so "15 L/min for 1 h, then 6 L/min" is two phases
+// with the second duration ignored.
+struct FlowPhase {
+  VolumeFlow flow;    // free gas, 0…30 L/min (0 = oxygen off for this phase)
+  Duration duration;  // > 0 (ignored for the last phase)
+};
+
+struct PlanInput {
+  std::vector<CylinderSpec> cylinders;  // used in this order; 1…50
+  std::vector<FlowPhase> phases;        // 1…20
+  Duration evacuation;                  // total time to deliver the casualty, 1 min…72 h
+  Pressure reserve_gauge = units::psi(200.0);           // swap when a cylinder reaches this
+  Pressure ambient_pressure = units::atmospheres(1.0);  // gauges read relative to this
+  // The cylinder the shortfall / spare is counted in ("you need 2 more E cylinders"); a full one
+  // of this spec. When absent the first cylinder's type at its current pressure is used.
+  std::optional<CylinderSpec> counting_cylinder;
+  Duration sample_interval = units::minutes(5.0);  // pressure-vs-time spacing (1 min…1 h)
+};
+
+// A stretch of time during which one cylinder supplies the casualty.
+struct CylinderUse {
+  std::size_t cylinder_index;  // into PlanInput::cylinders
+  std::string label;
+  Duration start;
+  Duration end;
+  Pressure start_gauge;
+  Pressure end_gauge;
+  Volume delivered;           // free gas
+  bool reached_reserve;       // false: the evacuation ended while it was in use
+};
+
+enum class EventKind {
+  Start,          // first cylinder opened
+  FlowChange,     // a new flow phase starts
+  Swap,           // a cylinder reached the reserve; the next one is opened
+  Reserve,        // the last cylinder reached the reserve: no oxygen above reserve left
+  Arrival,        // end of the evacuation
+};
+
+struct PlanEvent {
+  Duration time;
+  EventKind kind;
+  std::size_t cylinder_index;  // cylinder in use (after a swap: the new one)
+  std::string text;            // "Swap Cyl 1 → Cyl 2 (Cyl 1 at reserve 200 psi)"
+};
+
+struct PressureSample {
+  Duration time;
+  std::size_t cylinder_index;
+  Pressure gauge;
+  VolumeFlow flow;
+};
+
+struct EvacuationPlan {
+  std::vector<CylinderUse> uses;        // in time order
+  std::vector<PlanEvent> events;        // in time order
+  std::vector<PressureSample> samples;  // in time order; every interval plus every event time
+  Volume oxygen_needed;                 // free gas the schedule asks for over the evacuation
+  Volume oxygen_usable;                 // free gas above reserve in all cylinders
+  // How long the usable oxygen lasts on this schedule (the last flow continuing). Equal to or
+  // longer than `evacuation` when there is enough. Absent when the flow ends at zero and the
+  // oxygen never runs out.
+  std::optional<Duration> supply_lasts;
+  bool enough;                          // oxygen_usable ≥ oxygen_needed
+  Duration shortfall;                   // evacuation time without oxygen above reserve (0 if enough)
+  Duration spare;                       // extra time at the final flow (0 if short)
+  Volume shortfall_volume;              // free gas missing (0 if enough)
+  Volume spare_volume;                  // free gas left above reserve at arrival (0 if short)
+  Volume counting_cylinder_usable;      // free gas above reserve in one counting cylinder
+  int extra_cylinders_needed;           // ceil(shortfall_volume / counting usable); 0 if enough
+  double spare_cylinders;               // spare_volume / counting usable (fractional)
+  std::vector<std::string> assumptions;  // shown with the plan
+};
+
+Result<EvacuationPlan> plan_evacuation(const PlanInput& input);
+
+// Text for an event kind ("swap", "reserve" …), for JSON and tables.
+std::string_view event_key(EventKind kind);
+
+}  // namespace firn::evacuation
