@@ -56,7 +56,10 @@ Result<Quantity<Dimension>> parse_quantity(std::string_view text, std::string_vi
                                            std::type_identity_t<const Unit<Dimension>*> default_unit) {
   std::string_view trimmed = trim(text);
   size_t split = number_prefix_length(trimmed);
-  Result<double> number = parse_number(trimmed.substr(0, split), what);
+  Result<double> number = split == 0 && !trimmed.empty()
+                              ? Result<double>(Error{std::string(what) + " is not a number: '" +
+                                                     std::string(trimmed) + "'"})
+                              : parse_number(trimmed.substr(0, split), what);
   std::string accepted;
   for (size_t i = 0; i < N; ++i) {
     accepted += std::string(units[i]->symbol);
@@ -113,6 +116,14 @@ Result<Temperature> parse_temperature(std::string_view text, std::string_view wh
 
 Result<Volume> parse_volume(std::string_view text, std::string_view what) {
   return parse_quantity(text, what, volume_units, &litres);
+}
+
+Result<VolumeFlow> parse_volume_flow(std::string_view text, std::string_view what) {
+  return parse_quantity(text, what, volume_flow_units, &litres_per_minute);
+}
+
+Result<Duration> parse_duration(std::string_view text, std::string_view what) {
+  return parse_quantity(text, what, duration_units, nullptr);
 }
 
 }  // namespace firn::units

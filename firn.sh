@@ -1,0 +1,110 @@
+#!/usr/bin/env bash
+# Firn's one set-up script (Debian 12, as root or with sudo). Idempotent and quiet when nothing
+# is left to do.
+#   ./firn.sh start   install what is missing, build, serve the offline page and open the app
+#   ./firn.sh test    install what is missing, build native + web, run every test layer
+#   ./firn.sh deps    only install what is missing
+#   ./firn.sh build   only build (native in build/native, web in build/web)
+set -euo pipefail
+cd "$(dirname "$0")"
+ROOT=$PWD
+PORT=${FIRN_PORT:-8080}
+JOBS=${FIRN_JOBS:-$(nproc)}
+LOGS="$ROOT/build/logs"
+
+# Debian packages: compilers and build tools, Emscripten, GLFW, Catch2, JSON and argument
+# parsing, stb, the UI font, fonttools (font subsetting), Xvfb + Mesa (software GL), Chromium
+# (browser tests, card PDF), poppler (PDF checks), librsvg (icons), dpkg-dev (apt-get source).
+PACKAGES=(build-essential cmake pkg-config git ca-certificates xz-utils dpkg-dev
+  emscripten libglfw3-dev libgl-dev libegl-dev libgl1-mesa-dri catch2 nlohmann-json3-dev
+  libcli11-dev libstb-dev fonts-dejavu-core fonttools xvfb xauth chromium poppler-utils
+  librsvg2-bin)
+
+say() { printf 'firn: %s\n' "$*"; }
+as_root() { if [ "$(id -u)" -eq 0 ]; then "$@"; else sudo "$@"; fi; }
+
+install_packages() {
+  local missing=()
+  for p in "${PACKAGES[@]}"; do
+    dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q "install ok installed" || missing+=("$p")
+  done
+  command -v node >/dev/null 2>&1 || missing+=(nodejs)
+  command -v npm >/dev/null 2>&1 || missing+=(npm)
+  if [ ${#missing[@]} -gt 0 ]; then
+    say "installing Debian packages: ${missing[*]}"
+    as_root apt-get update -qq
+    as_root env DEBIAN_FRONTEND=noninteractive apt-get install -y -qq --no-install-recommends \
+      "${missing[@]}" >/dev/null
+  fi
+}
+
+# Dear ImGui 1.86 source from Debian's source package, unpacked into .deps/ (git-ignored).
+install_imgui_source() {
+  [ -f .deps/imgui-1.86/imgui.cpp ] && return 0
+  local list=/etc/apt/sources.list.d/firn-deb-src.sources
+  if ! grep -rqs '^Types:.*deb-src' /etc/apt/sources.list.d/ && ! grep -qs '^deb-src' /etc/apt/sources.list; then
+    say "adding a deb-src entry for Debian bookworm ($list)"
+    printf 'Types: deb-src\nURIs: http://deb.debian.org/debian\nSuites: bookworm\nComponents: main\nSigned-By: /usr/share/keyrings/debian-archive-keyring.gpg\n' \
+      | as_root tee "$list" >/dev/null
+    as_root apt-get update -qq
+  fi
+  say "fetching Debian's imgui 1.86 source package"
+  local tmp; tmp=$(mktemp -d)
+  (cd "$tmp" && apt-get source --download-only imgui=1.86+ds-1 >/dev/null 2>&1 \
+    || apt-get source --download-only imgui >/dev/null)
+  mkdir -p .deps
+  tar -xJf "$tmp"/imgui_1.86+ds.orig.tar.xz -C .deps
+  rm -rf "$tmp"
+}
+
+# playwright-core (npm) for the browser tests; exact versions from package-lock.json.
+install_node_modules() {
+  [ -f tests/browser/package.json ] || return 0
+  if [ ! -d tests/browser/node_modules ] || [ tests/browser/package-lock.json -nt tests/browser/node_modules ]; then
+    say "installing test tooling from npm (tests/browser)"
+    (cd tests/browser && npm ci --no-audit --no-fund --loglevel=error >/dev/null)
+    touch tests/browser/node_modules
+  fi
+}
+
+deps() { install_packages; install_imgui_source; install_node_modules; }
+
+run_logged() {  # name, command...: output to a log, shown only on failure
+  local name=$1; shift
+  mkdir -p "$LOGS"
+  if ! "$@" >"$LOGS/$name.log" 2>&1; then
+    tail -n 60 "$LOGS/$name.log"; say "$name failed (full log: $LOGS/$name.log)"; exit 1
+  fi
+}
+
+build() {
+  export NODE_PATH=/usr/share/nodejs  # emcc needs Debian's acorn (see DEVELOPERS.md)
+  local web=build/web native=build/native
+  if [ ! -f $web/CMakeCache.txt ]; then
+    run_logged configure-web emcmake cmake -S . -B $web -DCMAKE_BUILD_TYPE=Release \
+      -DCMAKE_CROSSCOMPILING_EMULATOR=/usr/bin/node
+  fi
+  run_logged build-web cmake --build $web -j "$JOBS"
+  if [ ! -f $native/CMakeCache.txt ]; then
+    run_logged configure-native cmake -S . -B $native -DCMAKE_BUILD_TYPE=Release \
+      -DFIRN_WEB_BUILD_DIR="$ROOT/$web"
+  fi
+  run_logged build-native cmake --build $native -j "$JOBS"
+}
+
+case "${1:-}" in
+  deps) deps ;;
+  build) deps; build ;;
+  start)
+    deps; build
+    if [ -n "${DISPLAY:-}" ]; then say "opening the native app"; build/native/native/firn & fi
+    say "serving the offline page on http://127.0.0.1:$PORT/ (Ctrl-C stops)"
+    exec node web/serve.mjs build/web/site "$PORT"
+    ;;
+  test)
+    deps; build
+    cd build/native
+    exec ctest --output-on-failure --timeout 1200
+    ;;
+  *) sed -n '2,8p' "$0"; exit 2 ;;
+esac
