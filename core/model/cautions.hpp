@@ -9,7 +9,8 @@ namespace firn::cautions {
 
 // One short line for the foot of a result screen.
 inline constexpr std::string_view short_line =
-    "Decision support only. Clinical signs first. Descent is the definitive treatment.";
+    "Decision support only. Clinical signs first. Descent is the definitive treatment. Follow "
+    "local protocols and medical direction.";
 
 // The full text behind "Read more" and on the card.
 inline constexpr std::array<std::string_view, 5> full_text{
