@@ -47,6 +47,8 @@ struct LetterSizeInfo {
   Volume water_capacity;
   // Typical full service pressure: 2015 psi for D/E/M aluminium, 2200 psi for steel H (from memory).
   Pressure full_gauge;
+  // Nominal contents printed for the size, free-gas litres (from memory).
+  Volume nominal_contents;
 };
 
 LetterSizeInfo letter_size_info(LetterSize size);

@@ -1,0 +1,222 @@
+#include "model/cylinder.hpp"
+
+#include <cmath>
+
+#include "model/oxygen_eos.hpp"
+
+namespace firn::cylinder {
+namespace {
+
+using namespace units;
+
+constexpr double kR = oxygen_eos::gas_constant_j_per_mol_k;
+constexpr double kMinFlowLpm = 0.1;
+
+Result<double> check_reading(const Reading& r) {
+  double wc = r.water_capacity.in(litres);
+  if (!in_range(wc, min_water_capacity_l, max_water_capacity_l)) {
+    return range_error("water capacity", min_water_capacity_l, max_water_capacity_l, "L", wc);
+  }
+  double g = r.gauge_pressure.in(bar);
+  if (!in_range(g, 0.0, max_gauge_bar)) {
+    return range_error("cylinder pressure (gauge)", 0.0, max_gauge_bar, "bar", g);
+  }
+  double t = r.temperature.in(celsius);
+  if (!in_range(t, min_temperature_c, max_temperature_c)) {
+    return range_error("cylinder temperature", min_temperature_c, max_temperature_c, "°C", t);
+  }
+  double a = r.ambient_pressure.in(hectopascals);
+  if (!in_range(a, min_ambient_hpa, max_ambient_hpa)) {
+    return range_error("ambient pressure", min_ambient_hpa, max_ambient_hpa, "hPa", a);
+  }
+  return 0.0;
+}
+
+Result<double> check_flow(VolumeFlow flow, std::string_view what = "flow") {
+  double f = flow.in(litres_per_minute);
+  if (!in_range(f, kMinFlowLpm, max_flow_lpm)) {
+    return range_error(what, kMinFlowLpm, max_flow_lpm, "L/min", f);
+  }
+  return f;
+}
+
+// Free-gas litres of one mole at the reference state (real gas, Z ≈ 0.9992).
+double free_litres_per_mole() {
+  double z_ref = oxygen_eos::compressibility(reference_temperature, reference_pressure).value();
+  return z_ref * kR * reference_temperature.in(kelvin) / reference_pressure.in(pascals) * 1000.0;
+}
+
+// Contents of an already-checked reading.
+Contents contents_checked(const Reading& r) {
+  Pressure absolute = r.gauge_pressure + r.ambient_pressure;
+  oxygen_eos::State s = oxygen_eos::state_at(r.temperature, absolute).value();
+  double moles = s.molar_density_mol_per_m3 * r.water_capacity.in(litres) / 1000.0;
+  double z_ref = oxygen_eos::compressibility(reference_temperature, reference_pressure).value();
+  Contents c;
+  c.free_gas = litres(moles * free_litres_per_mole());
+  c.ideal_free_gas = r.water_capacity * (absolute / reference_pressure);
+  c.z_in_cylinder = s.compressibility;
+  c.z_reference = z_ref;
+  c.absolute_pressure = absolute;
+  return c;
+}
+
+Error ambient_error(Pressure p, std::string_view what) {
+  return range_error(what, min_ambient_hpa, max_ambient_hpa, "hPa", p.in(hectopascals));
+}
+
+}  // namespace
+
+LetterSizeInfo letter_size_info(LetterSize size) {
+  // Factors: common practice in EMS references. Water capacities and full pressures: FROM
+  // MEMORY, typical US medical cylinders (aluminium D, E, M; steel H) — check the label.
+  switch (size) {
+    case LetterSize::D: return {size, "D", 0.16, litres(2.8), psi(2015), litres(415)};
+    case LetterSize::E: return {size, "E", 0.28, litres(4.6), psi(2015), litres(680)};
+    case LetterSize::M: return {size, "M", 1.56, litres(23.0), psi(2015), litres(3450)};
+    case LetterSize::H: return {size, "H", 3.14, litres(42.6), psi(2200), litres(6900)};
+  }
+  FIRN_ASSERT(false, "unknown letter size");
+  return {size, "?", 0.0, litres(0), psi(0), litres(0)};
+}
+
+Result<LetterSize> parse_letter_size(std::string_view text) {
+  if (text == "D" || text == "d") return LetterSize::D;
+  if (text == "E" || text == "e") return LetterSize::E;
+  if (text == "M" || text == "m") return LetterSize::M;
+  if (text == "H" || text == "h") return LetterSize::H;
+  return Error{"unknown cylinder size '" + std::string(text) + "': use D, E, M or H"};
+}
+
+Result<Contents> contents(const Reading& reading) {
+  Result<double> ok = check_reading(reading);
+  if (!ok) return ok.error();
+  return contents_checked(reading);
+}
+
+Result<Pressure> gauge_pressure_for(Volume water_capacity, Temperature temperature,
+                                    Pressure ambient_pressure, Volume free_gas) {
+  Reading r{water_capacity, bar(0), temperature, ambient_pressure};
+  Result<double> ok = check_reading(r);
+  if (!ok) return ok.error();
+  double empty = contents_checked(r).free_gas.in(litres);
+  r.gauge_pressure = bar(max_gauge_bar);
+  double full = contents_checked(r).free_gas.in(litres);
+  double want = free_gas.in(litres);
+  if (!in_range(want, empty, full)) {
+    return range_error("free gas in this cylinder", std::ceil(empty * 10) / 10,
+                       std::floor(full * 10) / 10, "L", want);
+  }
+  // Contents rise monotonically with pressure: bisection to 1 Pa.
+  double low = 0.0, high = bar(max_gauge_bar).in(pascals);
+  for (int i = 0; i < 60 && high - low > 1.0; ++i) {
+    double mid = 0.5 * (low + high);
+    r.gauge_pressure = pascals(mid);
+    if (contents_checked(r).free_gas.in(litres) < want) low = mid; else high = mid;
+  }
+  return pascals(0.5 * (low + high));
+}
+
+Result<DurationEstimate> duration(const Reading& reading, Pressure reserve_gauge,
+                                  VolumeFlow flow) {
+  Result<Contents> now = contents(reading);
+  if (!now) return now.error();
+  Result<double> f = check_flow(flow);
+  if (!f) return f.error();
+  double reserve_bar = reserve_gauge.in(bar);
+  double gauge_bar = reading.gauge_pressure.in(bar);
+  if (!in_range(reserve_bar, 0.0, gauge_bar)) {
+    return range_error("reserve pressure (gauge)", 0.0, gauge_bar, "bar", reserve_bar);
+  }
+  Reading at_reserve = reading;
+  at_reserve.gauge_pressure = reserve_gauge;
+  Contents reserve = contents_checked(at_reserve);
+  DurationEstimate d;
+  d.contents = now.value();
+  d.reserve_free_gas = reserve.free_gas;
+  d.usable_free_gas = now->free_gas - reserve.free_gas;
+  d.to_reserve = d.usable_free_gas / flow;
+  return d;
+}
+
+Result<Duration> field_rule_duration(LetterSize size, Pressure gauge, VolumeFlow flow) {
+  double p = gauge.in(psi);
+  if (!in_range(p, 200.0, 3000.0)) {
+    Error e = range_error("cylinder pressure", 200, 3000, "psi", p);
+    e.message += " for the field rule";
+    return e;
+  }
+  Result<double> f = check_flow(flow);
+  if (!f) return f.error();
+  return minutes((p - field_rule_residual_gauge.in(psi)) * letter_size_info(size).field_factor /
+                 f.value());
+}
+
+Result<FlowCorrection> rotameter_at_altitude(VolumeFlow indicated, Pressure ambient,
+                                             Pressure calibration) {
+  Result<double> f = check_flow(indicated, "indicated flow");
+  if (!f) return f.error();
+  if (!in_range(ambient.in(hectopascals), min_ambient_hpa, max_ambient_hpa)) {
+    return ambient_error(ambient, "ambient pressure");
+  }
+  if (!in_range(calibration.in(hectopascals), 500.0, max_ambient_hpa)) {
+    return range_error("flowmeter calibration pressure", 500, max_ambient_hpa, "hPa",
+                       calibration.in(hectopascals));
+  }
+  double pressure_ratio = calibration / ambient;  // > 1 at altitude
+  FlowCorrection c;
+  c.set_flow = indicated;
+  c.actual_at_ambient = indicated * std::sqrt(pressure_ratio);
+  c.actual_free_gas = c.actual_at_ambient * (ambient / reference_pressure);
+  c.ratio = c.actual_free_gas / indicated;
+  c.explanation =
+      "Rotameter (float in a tapered tube) calibrated at " +
+      format_number(calibration.in(hectopascals), 0) + " hPa, used at " +
+      format_number(ambient.in(hectopascals), 0) +
+      " hPa: the thinner gas lifts the float less, so it reads low. Actual flow is about "
+      "indicated x sqrt(P_cal/P_ambient) = " +
+      format_number(c.actual_at_ambient.in(litres_per_minute), 1) +
+      " L/min by volume at ambient pressure, which is " +
+      format_number(c.actual_free_gas.in(litres_per_minute), 1) +
+      " L/min as free gas at 1 atm (what the cylinder loses). Rotameter density correction, "
+      "manufacturers' technical notes.";
+  return c;
+}
+
+Result<FlowCorrection> fixed_orifice_at_altitude(VolumeFlow nominal, Pressure ambient,
+                                                 Pressure regulated_gauge, Pressure calibration) {
+  Result<double> f = check_flow(nominal, "set flow");
+  if (!f) return f.error();
+  if (!in_range(ambient.in(hectopascals), min_ambient_hpa, max_ambient_hpa)) {
+    return ambient_error(ambient, "ambient pressure");
+  }
+  double reg_psi = regulated_gauge.in(psi);
+  if (!in_range(reg_psi, 10.0, 100.0)) {
+    return range_error("regulated pressure (gauge)", 10, 100, "psi", reg_psi);
+  }
+  if (!in_range(calibration.in(hectopascals), 500.0, max_ambient_hpa)) {
+    return range_error("regulator calibration pressure", 500, max_ambient_hpa, "hPa",
+                       calibration.in(hectopascals));
+  }
+  // Choked orifice: mass flow ∝ absolute upstream pressure (same gas temperature).
+  double ratio = (regulated_gauge + ambient) / (regulated_gauge + calibration);
+  FlowCorrection c;
+  c.set_flow = nominal;
+  c.actual_free_gas = nominal * ratio;
+  c.actual_at_ambient = c.actual_free_gas * (reference_pressure / ambient);
+  c.ratio = ratio;
+  c.explanation =
+      "Fixed-orifice (choked) regulator set to " +
+      format_number(nominal.in(litres_per_minute), 1) + " L/min: its mass flow follows the "
+      "absolute pressure behind the orifice (" + format_number(reg_psi, 0) +
+      " psi regulated above ambient). At " + format_number(ambient.in(hectopascals), 0) +
+      " hPa that falls by a factor " + format_number(ratio, 3) + ", so it delivers " +
+      format_number(c.actual_free_gas.in(litres_per_minute), 2) +
+      " L/min as free gas at 1 atm (" +
+      format_number(c.actual_at_ambient.in(litres_per_minute), 1) +
+      " L/min by volume at ambient pressure). Derived from choked-flow physics; no published "
+      "measurement known.";
+  return c;
+}
+
+}  // namespace firn::cylinder

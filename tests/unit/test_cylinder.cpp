@@ -1,0 +1,149 @@
+// Oxygen cylinders: real-gas contents, duration, US field rule, flow devices at altitude.
+#include <catch2/catch.hpp>
+
+#include <cmath>
+
+#include "model/atmosphere.hpp"
+#include "model/cylinder.hpp"
+
+using namespace firn;
+using namespace firn::units;
+using namespace firn::cylinder;
+
+namespace {
+double free_litres(double water_l, Pressure gauge, double celsius_value = 15.0,
+                   Pressure ambient = atmospheres(1)) {
+  Result<Contents> c = contents({litres(water_l), gauge, celsius(celsius_value), ambient});
+  REQUIRE(c.ok());
+  return c->free_gas.in(litres);
+}
+}  // namespace
+
+TEST_CASE("contents follow the oxygen reference Z table", "[cylinder]") {
+  // Free gas = V·(P/Z)/(P_ref/Z_ref) at the same 15 °C, with Z from Schmidt & Wagner (1985) as
+  // tabulated in Stewart, Jacobsen & Wagner, J Phys Chem Ref Data 1991;20:917:
+  // Z(200 bar, 15 °C) = 0.9311, Z(1.013 bar, 15 °C) = 0.9992.
+  Pressure gauge = bar(200) - atmospheres(1);  // 200 bar absolute
+  double expected = 10.0 * (200.0 / 1.01325) * 0.9992 / 0.9311;
+  CHECK(free_litres(10, gauge) == Approx(expected).epsilon(0.0007));
+  // At 40 °C, 150 bar absolute: Z 0.9602; temperature ratio 288.15/313.15.
+  double warm = 10.0 * (150.0 / 1.01325) * (288.15 / 313.15) * 0.9992 / 0.9602;
+  CHECK(free_litres(10, bar(150) - atmospheres(1), 40) == Approx(warm).epsilon(0.0007));
+}
+
+TEST_CASE("real gas holds more than the metric rule of thumb at 200 bar", "[cylinder]") {
+  // Metric rule (common practice): contents ≈ water capacity × fill pressure: 10 L × 200 bar =
+  // 2000 L. Oxygen's Z < 1 at 200 bar, 15 °C means about 7 % more (Z table above).
+  Result<Contents> c = contents({litres(10), bar(200), celsius(15)});
+  REQUIRE(c.ok());
+  CHECK(c->ideal_free_gas.in(litres) == Approx(10 * 201.01325 / 1.01325).epsilon(1e-9));
+  CHECK(c->free_gas.in(litres) / c->ideal_free_gas.in(litres) == Approx(0.9992 / 0.9312).epsilon(0.001));
+  CHECK(c->z_reference == Approx(0.9992).margin(0.0001));
+}
+
+TEST_CASE("US letter sizes: field rule and from-memory capacities", "[cylinder][field_rule]") {
+  // US field rule, common practice in EMS references: minutes = (psi − 200) × factor / flow.
+  // The rule applied by hand: E at 2000 psi on 10 L/min: (2000 − 200) × 0.28 / 10 = 50.4 min.
+  CHECK(field_rule_duration(LetterSize::E, psi(2000), litres_per_minute(10))->in(minutes) ==
+        Approx(50.4).margin(1e-9));
+  CHECK(field_rule_duration(LetterSize::D, psi(2000), litres_per_minute(2))->in(minutes) ==
+        Approx(144.0).margin(1e-9));
+  CHECK(field_rule_duration(LetterSize::M, psi(1200), litres_per_minute(15))->in(minutes) ==
+        Approx(104.0).margin(1e-9));
+  CHECK(field_rule_duration(LetterSize::H, psi(2200), litres_per_minute(6))->in(minutes) ==
+        Approx(2000 * 3.14 / 6).margin(1e-9));
+  CHECK_FALSE(field_rule_duration(LetterSize::E, psi(150), litres_per_minute(10)).ok());
+  // From memory: nominal contents D 415, E 680, M 3450, H 6900 L; our EOS with the from-memory
+  // water capacities at full service pressure agrees within 4 %.
+  for (LetterSize s : {LetterSize::D, LetterSize::E, LetterSize::M, LetterSize::H}) {
+    LetterSizeInfo info = letter_size_info(s);
+    INFO("size " << info.name);
+    double full = free_litres(info.water_capacity.in(litres), info.full_gauge);
+    CHECK(full == Approx(info.nominal_contents.in(litres)).epsilon(0.04));
+  }
+  CHECK(parse_letter_size("e").value() == LetterSize::E);
+  CHECK_FALSE(parse_letter_size("K").ok());
+}
+
+TEST_CASE("duration to reserve is usable contents over flow", "[cylinder]") {
+  Reading r{litres(10), bar(200), celsius(15)};
+  Result<DurationEstimate> d = duration(r, bar(20), litres_per_minute(15));
+  REQUIRE(d.ok());
+  double usable = free_litres(10, bar(200)) - free_litres(10, bar(20));
+  CHECK(d->usable_free_gas.in(litres) == Approx(usable).epsilon(1e-12));
+  CHECK(d->to_reserve.in(minutes) == Approx(usable / 15).epsilon(1e-12));
+  // Half the flow, twice the time.
+  CHECK(duration(r, bar(20), litres_per_minute(7.5))->to_reserve.in(minutes) ==
+        Approx(2 * d->to_reserve.in(minutes)).epsilon(1e-12));
+}
+
+TEST_CASE("contents: monotonic in pressure, colder holds more, inverse", "[cylinder][property]") {
+  double previous = -1.0;
+  for (double g = 0.0; g <= max_gauge_bar; g += 5.0) {
+    double now = free_litres(10, bar(g));
+    CHECK(now > previous);
+    previous = now;
+  }
+  for (double t = min_temperature_c; t < max_temperature_c; t += 10.0) {
+    // Same gauge reading, colder cylinder: more gas.
+    CHECK(free_litres(10, bar(200), t) > free_litres(10, bar(200), t + 10));
+    // Same contents, colder cylinder: lower gauge reading.
+    Volume gas = litres(free_litres(10, bar(200), 15));
+    double cold = gauge_pressure_for(litres(10), celsius(t), atmospheres(1), gas)->in(bar);
+    double warm = gauge_pressure_for(litres(10), celsius(t + 10), atmospheres(1), gas)->in(bar);
+    CHECK(cold < warm);
+  }
+  for (double g : {1.0, 20.0, 137.0, 200.0, 300.0}) {
+    Volume gas = litres(free_litres(10, bar(g), -10));
+    CHECK(gauge_pressure_for(litres(10), celsius(-10), atmospheres(1), gas)->in(bar) ==
+          Approx(g).margin(1e-4));
+  }
+  // A gauge reads above ambient: the same reading at 5000 m holds a little less.
+  Pressure at_5000 = atmosphere::pressure_at(metres(5000), atmosphere::Model::West1996).value();
+  CHECK(free_litres(10, bar(200), 15, at_5000) < free_litres(10, bar(200), 15));
+  CHECK(free_litres(10, bar(200), 15, at_5000) > 0.99 * free_litres(10, bar(200), 15));
+}
+
+TEST_CASE("rotameter and fixed-orifice corrections at altitude", "[cylinder][flow]") {
+  // Rotameter density correction (manufacturers' technical notes): actual ≈ indicated ×
+  // sqrt(P_cal / P_ambient). 10 L/min indicated at 500 hPa, calibrated at 1013.25 hPa.
+  Result<FlowCorrection> rota = rotameter_at_altitude(litres_per_minute(10), hectopascals(500));
+  REQUIRE(rota.ok());
+  CHECK(rota->actual_at_ambient.in(litres_per_minute) ==
+        Approx(10 * std::sqrt(1013.25 / 500)).epsilon(1e-12));
+  CHECK(rota->actual_free_gas.in(litres_per_minute) ==
+        Approx(10 * std::sqrt(500 / 1013.25)).epsilon(1e-12));
+  CHECK(rota->explanation.find("reads low") != std::string::npos);
+  // No change at the calibration pressure.
+  CHECK(rotameter_at_altitude(litres_per_minute(10), atmospheres(1))->ratio == Approx(1.0));
+  // Choked orifice: free-gas flow ∝ absolute upstream pressure (choked-flow physics; no
+  // published measurement known). 50 psi regulated: (344.7 + 50) / (344.7 + 101.3) kPa.
+  Result<FlowCorrection> orifice = fixed_orifice_at_altitude(litres_per_minute(6), hectopascals(500));
+  REQUIRE(orifice.ok());
+  double ratio = (psi(50).in(pascals) + 50000.0) / (psi(50).in(pascals) + 101325.0);
+  CHECK(orifice->ratio == Approx(ratio).epsilon(1e-12));
+  CHECK(orifice->actual_free_gas.in(litres_per_minute) == Approx(6 * ratio).epsilon(1e-12));
+  CHECK(orifice->ratio < 1.0);
+  CHECK(orifice->explanation.find("no published measurement") != std::string::npos);
+}
+
+TEST_CASE("bad cylinder input names range and unit", "[cylinder][errors]") {
+  Result<Contents> big = contents({litres(500), bar(200), celsius(15)});
+  REQUIRE_FALSE(big.ok());
+  CHECK(big.error().message == "water capacity must be between 0.1 and 100 L (got 500 L)");
+  Result<Contents> over = contents({litres(10), bar(400), celsius(15)});
+  REQUIRE_FALSE(over.ok());
+  CHECK(over.error().message.find("between 0 and 350 bar") != std::string::npos);
+  CHECK_FALSE(contents({litres(10), bar(-1), celsius(15)}).ok());
+  CHECK_FALSE(contents({litres(10), bar(200), celsius(-45)}).ok());
+  CHECK_FALSE(contents({litres(NAN), bar(200), celsius(15)}).ok());
+  Result<DurationEstimate> no_flow = duration({litres(10), bar(200)}, bar(20), litres_per_minute(0));
+  REQUIRE_FALSE(no_flow.ok());
+  CHECK(no_flow.error().message.find("L/min") != std::string::npos);
+  Result<DurationEstimate> reserve = duration({litres(10), bar(10)}, bar(20), litres_per_minute(5));
+  REQUIRE_FALSE(reserve.ok());
+  CHECK(reserve.error().message.find("reserve pressure") != std::string::npos);
+  CHECK_FALSE(rotameter_at_altitude(litres_per_minute(10), hectopascals(50)).ok());
+  CHECK_FALSE(fixed_orifice_at_altitude(litres_per_minute(10), hectopascals(500), psi(500)).ok());
+  CHECK_FALSE(gauge_pressure_for(litres(10), celsius(15), atmospheres(1), litres(1e6)).ok());
+}
