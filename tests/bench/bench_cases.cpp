@@ -1,0 +1,7 @@
+#include "bench_cases.hpp"
+
+namespace firn::bench {
+
+std::vector<Case> model_cases() { return {}; }
+
+}  // namespace firn::bench
