@@ -1,0 +1,157 @@
+// Evacuation oxygen plan: cylinders in sequence against a flow schedule.
+#include <catch2/catch.hpp>
+
+#include <cmath>
+
+#include "model/cylinder.hpp"
+#include "model/evacuation_plan.hpp"
+
+using namespace firn;
+using namespace firn::units;
+using namespace firn::evacuation;
+
+namespace {
+
+CylinderSpec ten_litre(const std::string& label, double gauge_bar) {
+  return {label, std::nullopt, litres(10), bar(gauge_bar), celsius(15)};
+}
+
+// Usable free gas above the reserve by the cylinder model on its own (the plan must agree).
+double usable_l(double water_l, Pressure gauge, Pressure reserve) {
+  Result<cylinder::DurationEstimate> d =
+      cylinder::duration({litres(water_l), gauge, celsius(15)}, reserve, litres_per_minute(1));
+  REQUIRE(d.ok());
+  return d->usable_free_gas.in(litres);
+}
+
+PlanInput two_cylinders_six_hours() {
+  PlanInput in;
+  in.cylinders = {ten_litre("Cyl A", 200), ten_litre("Cyl B", 200)};
+  in.phases = {{litres_per_minute(15), hours(1)}, {litres_per_minute(6), hours(0)}};
+  in.evacuation = hours(6);
+  in.reserve_gauge = bar(20);
+  return in;
+}
+
+}  // namespace
+
+TEST_CASE("two cylinders, 15 L/min for 1 h then 6 L/min, 6 h evacuation", "[evacuation]") {
+  Result<EvacuationPlan> r = plan_evacuation(two_cylinders_six_hours());
+  REQUIRE(r.ok());
+  const EvacuationPlan& plan = r.value();
+  // Hand arithmetic: demand 15·60 + 6·300 = 2700 L; usable per cylinder U from the cylinder
+  // model; cylinder A lasts 60 min + (U − 900)/6 min.
+  double u = usable_l(10, bar(200), bar(20));
+  CHECK(plan.oxygen_needed.in(litres) == Approx(2700).epsilon(1e-12));
+  CHECK(plan.oxygen_usable.in(litres) == Approx(2 * u).epsilon(1e-12));
+  REQUIRE(plan.enough);
+  REQUIRE(plan.uses.size() == 2);
+  double swap = 60.0 + (u - 900.0) / 6.0;
+  CHECK(plan.uses[0].end.in(minutes) == Approx(swap).epsilon(1e-9));
+  CHECK(plan.uses[0].reached_reserve);
+  CHECK(plan.uses[0].end_gauge.in(bar) == Approx(20).epsilon(1e-12));
+  CHECK(plan.uses[1].start.in(minutes) == Approx(swap).epsilon(1e-9));
+  CHECK_FALSE(plan.uses[1].reached_reserve);
+  CHECK(plan.spare_volume.in(litres) == Approx(2 * u - 2700).epsilon(1e-9));
+  CHECK(plan.spare.in(minutes) == Approx((2 * u - 2700) / 6).epsilon(1e-9));
+  CHECK(plan.supply_lasts->in(minutes) == Approx(360 + (2 * u - 2700) / 6).epsilon(1e-9));
+  CHECK(plan.shortfall.in(minutes) == 0.0);
+  CHECK(plan.extra_cylinders_needed == 0);
+  CHECK(plan.spare_cylinders == Approx((2 * u - 2700) / u).epsilon(1e-9));
+  // Events: start, flow change at 60 min, swap, arrival.
+  REQUIRE(plan.events.size() == 4);
+  CHECK(plan.events[0].kind == EventKind::Start);
+  CHECK(plan.events[1].kind == EventKind::FlowChange);
+  CHECK(plan.events[1].time.in(minutes) == Approx(60));
+  CHECK(plan.events[2].kind == EventKind::Swap);
+  CHECK(plan.events[2].text.find("Cyl A") != std::string::npos);
+  CHECK(plan.events[3].kind == EventKind::Arrival);
+  CHECK(event_key(EventKind::Swap) == "swap");
+}
+
+TEST_CASE("one E cylinder is short for 2 h at 15 L/min", "[evacuation]") {
+  PlanInput in;
+  in.cylinders = {{"E1", cylinder::LetterSize::E, std::nullopt, psi(2000), celsius(15)}};
+  in.phases = {{litres_per_minute(15), hours(2)}};
+  in.evacuation = hours(2);
+  in.reserve_gauge = psi(200);
+  in.counting_cylinder = CylinderSpec{"full E", cylinder::LetterSize::E, std::nullopt, psi(2015),
+                                      celsius(15)};
+  Result<EvacuationPlan> r = plan_evacuation(in);
+  REQUIRE(r.ok());
+  double wc = cylinder::letter_size_info(cylinder::LetterSize::E).water_capacity.in(litres);
+  double have = usable_l(wc, psi(2000), psi(200));
+  double full = usable_l(wc, psi(2015), psi(200));
+  CHECK_FALSE(r->enough);
+  CHECK(r->supply_lasts->in(minutes) == Approx(have / 15).epsilon(1e-9));
+  CHECK(r->shortfall.in(minutes) == Approx(120 - have / 15).epsilon(1e-9));
+  CHECK(r->shortfall_volume.in(litres) == Approx(1800 - have).epsilon(1e-9));
+  CHECK(r->extra_cylinders_needed == static_cast<int>(std::ceil((1800 - have) / full)));
+  CHECK(r->extra_cylinders_needed >= 1);
+  CHECK(r->events.back().kind == EventKind::Arrival);
+  CHECK(r->events[r->events.size() - 2].kind == EventKind::Reserve);
+}
+
+TEST_CASE("plan properties: samples ordered, pressures fall, more flow less spare",
+          "[evacuation][property]") {
+  PlanInput in = two_cylinders_six_hours();
+  Result<EvacuationPlan> plan = plan_evacuation(in);
+  REQUIRE(plan.ok());
+  REQUIRE(plan->samples.size() > 70);  // every 5 min over 6 h, plus events
+  for (std::size_t i = 1; i < plan->samples.size(); ++i) {
+    const PressureSample& a = plan->samples[i - 1];
+    const PressureSample& b = plan->samples[i];
+    CHECK(b.time >= a.time);
+    CHECK(std::isfinite(b.gauge.in(bar)));
+    if (a.cylinder_index == b.cylinder_index) CHECK(b.gauge <= a.gauge);
+  }
+  CHECK(plan->samples.front().gauge.in(bar) == Approx(200).margin(1e-3));
+  double delivered = 0.0;
+  for (const CylinderUse& u : plan->uses) delivered += u.delivered.in(litres);
+  CHECK(delivered == Approx(plan->oxygen_needed.in(litres)).epsilon(1e-9));
+
+  double previous_spare = INFINITY;
+  for (double flow = 2.0; flow <= 12.0; flow += 2.0) {
+    in.phases.back().flow = litres_per_minute(flow);
+    Result<EvacuationPlan> p = plan_evacuation(in);
+    REQUIRE(p.ok());
+    double margin = p->enough ? p->spare_volume.in(litres) : -p->shortfall_volume.in(litres);
+    CHECK(margin < previous_spare);
+    previous_spare = margin;
+  }
+}
+
+TEST_CASE("a cylinder below the reserve is skipped; zero flow at arrival", "[evacuation]") {
+  PlanInput in = two_cylinders_six_hours();
+  in.cylinders.insert(in.cylinders.begin(), ten_litre("Empty", 10));
+  in.phases = {{litres_per_minute(6), hours(1)}, {litres_per_minute(0), hours(0)}};
+  Result<EvacuationPlan> r = plan_evacuation(in);
+  REQUIRE(r.ok());
+  CHECK(r->uses.front().label == "Cyl A");
+  CHECK(r->enough);
+  CHECK_FALSE(r->supply_lasts.has_value());
+  CHECK(r->oxygen_needed.in(litres) == Approx(360));
+}
+
+TEST_CASE("bad plan input names range and unit", "[evacuation][errors]") {
+  PlanInput in = two_cylinders_six_hours();
+  in.evacuation = hours(100);
+  Result<EvacuationPlan> long_trip = plan_evacuation(in);
+  REQUIRE_FALSE(long_trip.ok());
+  CHECK(long_trip.error().message == "evacuation time must be between 1 and 4320 min (got 6000 min)");
+  in = two_cylinders_six_hours();
+  in.phases[0].flow = litres_per_minute(40);
+  CHECK(plan_evacuation(in).error().message.find("flow of phase 1 must be between 0 and 30 L/min") == 0);
+  in = two_cylinders_six_hours();
+  in.cylinders[1].water_capacity.reset();
+  CHECK(plan_evacuation(in).error().message.find("Cyl B: give a water capacity") == 0);
+  in = two_cylinders_six_hours();
+  in.cylinders[0].gauge_pressure = bar(500);
+  CHECK(plan_evacuation(in).error().message.find("Cyl A: cylinder pressure") == 0);
+  in = two_cylinders_six_hours();
+  in.cylinders.clear();
+  CHECK_FALSE(plan_evacuation(in).ok());
+  in = two_cylinders_six_hours();
+  in.phases[0].flow = litres_per_minute(NAN);
+  CHECK_FALSE(plan_evacuation(in).ok());
+}
