@@ -121,6 +121,10 @@ inline constexpr std::array<const Unit<PressureDimension>*, 9> pressure_units{
 inline constexpr std::array<const Unit<TemperatureDimension>*, 3> temperature_units{
     &celsius, &fahrenheit, &kelvin};
 inline constexpr std::array<const Unit<VolumeDimension>*, 2> volume_units{&litres, &millilitres};
+inline constexpr std::array<const Unit<VolumeFlowDimension>*, 1> volume_flow_units{
+    &litres_per_minute};
+inline constexpr std::array<const Unit<DurationDimension>*, 3> duration_units{&minutes, &hours,
+                                                                              &seconds};
 
 // Parses a decimal number (a comma is accepted as the decimal mark); rejects nan, inf, hex and
 // trailing junk. `what` names the field in the message.
@@ -134,5 +138,9 @@ Result<Temperature> parse_temperature(std::string_view text,
                                       std::string_view what = "temperature");
 // A volume: "10L", "680ml"; a bare number is taken as litres.
 Result<Volume> parse_volume(std::string_view text, std::string_view what = "volume");
+// A flow: "15L/min"; a bare number is taken as L/min (flows are L/min across Firn).
+Result<VolumeFlow> parse_volume_flow(std::string_view text, std::string_view what = "flow");
+// A duration: "90min", "1.5h", "30s". The unit is required.
+Result<Duration> parse_duration(std::string_view text, std::string_view what = "duration");
 
 }  // namespace firn::units

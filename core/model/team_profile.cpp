@@ -1,0 +1,225 @@
+// Team profile: the public entry points (parse, check, migrate, write) and the writer.
+#include <cmath>
+#include <cstdio>
+#include <cstdlib>
+#include <initializer_list>
+
+#include "model/team_profile_internal.hpp"
+
+namespace firn::team_profile {
+namespace {
+
+using internal::Json;
+using namespace units;
+
+// The shortest text of `q` that reads back to exactly the same value: the candidate unit
+// needing the fewest decimals (≤ 3) wins, earlier candidates on a tie; so "2psi" stays "2psi"
+// and "200bar" stays "200bar". `spellings` are what we write (ASCII, parseable).
+template <class D>
+std::string quantity_text(Quantity<D> q,
+                          std::initializer_list<std::pair<const Unit<D>*, const char*>> candidates,
+                          const std::function<Result<Quantity<D>>(std::string_view)>& parse) {
+  std::string best;
+  int best_decimals = 99;
+  for (auto [unit, spelling] : candidates) {
+    for (int decimals = 0; decimals <= 3 && decimals < best_decimals; ++decimals) {
+      std::string text = format_number(q.in(*unit), decimals) + spelling;
+      Result<Quantity<D>> back = parse(text);
+      if (back && back.value() == q) {
+        best = text;
+        best_decimals = decimals;
+        break;
+      }
+    }
+  }
+  if (!best.empty()) return best;
+  // No short exact form: enough digits to read back within a part in 10^15.
+  auto [unit, spelling] = *candidates.begin();
+  char buffer[64];
+  std::snprintf(buffer, sizeof buffer, "%.15g", q.in(*unit));
+  return std::string(buffer) + spelling;
+}
+
+std::string length_text(Length l, UnitSystem system) {
+  auto parse = [](std::string_view t) { return parse_length(t); };
+  if (system == UnitSystem::Us) return quantity_text<LengthDimension>(l, {{&feet, "ft"}, {&metres, "m"}}, parse);
+  return quantity_text<LengthDimension>(l, {{&metres, "m"}, {&feet, "ft"}}, parse);
+}
+
+std::string pressure_text(Pressure p, bool prefer_psi) {
+  auto parse = [](std::string_view t) { return parse_pressure(t); };
+  if (prefer_psi) {
+    return quantity_text<PressureDimension>(
+        p, {{&psi, "psi"}, {&bar, "bar"}, {&millibar, "mbar"}, {&kilopascals, "kPa"}}, parse);
+  }
+  return quantity_text<PressureDimension>(
+      p, {{&bar, "bar"}, {&psi, "psi"}, {&millibar, "mbar"}, {&kilopascals, "kPa"}}, parse);
+}
+
+std::string temperature_text(Temperature t, UnitSystem system) {
+  auto parse = [](std::string_view s) { return parse_temperature(s); };
+  if (system == UnitSystem::Us) {
+    return quantity_text<TemperatureDimension>(t, {{&fahrenheit, "F"}, {&celsius, "C"}}, parse);
+  }
+  return quantity_text<TemperatureDimension>(t, {{&celsius, "C"}, {&fahrenheit, "F"}}, parse);
+}
+
+std::string volume_text(Volume v) {
+  auto parse = [](std::string_view s) { return parse_volume(s); };
+  return quantity_text<VolumeDimension>(v, {{&litres, "L"}, {&millilitres, "mL"}}, parse);
+}
+
+std::string flow_text(VolumeFlow f) {
+  auto parse = [](std::string_view s) { return parse_volume_flow(s); };
+  return quantity_text<VolumeFlowDimension>(f, {{&litres_per_minute, "L/min"}}, parse);
+}
+
+std::string duration_text(Duration d) {
+  auto parse = [](std::string_view s) { return parse_duration(s); };
+  return quantity_text<DurationDimension>(d, {{&hours, "h"}, {&minutes, "min"}, {&seconds, "s"}},
+                                          parse);
+}
+
+std::string percent_text(Fraction f) {
+  return format_number(f.in(percent), 6) + "%";
+}
+
+}  // namespace
+
+std::string Problems::joined(std::string_view separator) const {
+  std::string text;
+  for (const std::string& line : lines) {
+    if (!text.empty()) text += separator;
+    text += line;
+  }
+  return text;
+}
+
+const CylinderType* TeamProfile::find_cylinder(std::string_view label) const {
+  for (const CylinderType& c : cylinders) {
+    if (c.label == label) return &c;
+  }
+  return nullptr;
+}
+
+std::vector<Length> TeamProfile::card_altitudes() const {
+  std::vector<Length> rows;
+  double count = std::floor((card.altitude_to - card.altitude_from) / card.altitude_step + 1e-9);
+  FIRN_ASSERT(count >= 0 && count < Limits::card_rows_max, "card range was not validated");
+  for (int i = 0; i <= static_cast<int>(count); ++i) {
+    rows.push_back(card.altitude_from + card.altitude_step * static_cast<double>(i));
+  }
+  return rows;
+}
+
+Problems check_profile(std::string_view json_text) {
+  Problems problems;
+  std::optional<Json> root = internal::parse_json(json_text, problems);
+  if (!root) return problems;
+  std::optional<int> version = internal::schema_version(*root, problems);
+  if (!version) return problems;
+  if (*version == 1) {
+    root = internal::migrate_v1(*root, problems);
+    if (!root) return problems;
+  }
+  std::optional<TeamProfile> profile = internal::read_current(*root, problems);
+  FIRN_ASSERT(profile.has_value() == problems.empty(), "profile reader lost a problem");
+  return problems;
+}
+
+Result<TeamProfile> parse_profile(std::string_view json_text) {
+  Problems problems;
+  std::optional<Json> root = internal::parse_json(json_text, problems);
+  if (!root) return Error{problems.joined()};
+  std::optional<int> version = internal::schema_version(*root, problems);
+  if (!version) return Error{problems.joined()};
+  if (*version == 1) {
+    root = internal::migrate_v1(*root, problems);
+    if (!root) return Error{problems.joined()};
+  }
+  std::optional<TeamProfile> profile = internal::read_current(*root, problems);
+  if (!profile) return Error{problems.joined()};
+  return std::move(*profile);
+}
+
+Result<std::string> migrate_to_current(std::string_view json_text) {
+  Problems problems;
+  std::optional<Json> root = internal::parse_json(json_text, problems);
+  if (!root) return Error{problems.joined()};
+  std::optional<int> version = internal::schema_version(*root, problems);
+  if (!version) return Error{problems.joined()};
+  if (*version == 1) {
+    root = internal::migrate_v1(*root, problems);
+    if (!root) return Error{problems.joined()};
+  }
+  return root->dump(2);
+}
+
+std::string serialize_profile(const TeamProfile& p) {
+  Json root = Json::object();
+  root["schema_version"] = current_schema_version;
+  if (p.demo) root["demo"] = true;
+  root["team_name"] = p.team_name;
+  root["units"] = p.units == UnitSystem::Us ? "us" : "metric";
+  root["atmosphere_model"] = std::string(atmosphere::model_key(p.atmosphere_model));
+  Json card = Json::object();
+  card["altitude_from"] = length_text(p.card.altitude_from, p.units);
+  card["altitude_to"] = length_text(p.card.altitude_to, p.units);
+  card["altitude_step"] = length_text(p.card.altitude_step, p.units);
+  card["notes"] = p.card.notes;
+  root["card"] = card;
+  bool us = p.units == UnitSystem::Us;
+  Json cylinders = Json::array();
+  for (const CylinderType& c : p.cylinders) {
+    Json entry = Json::object();
+    entry["label"] = c.label;
+    if (c.letter_size) entry["size"] = std::string(cylinder::letter_size_info(*c.letter_size).name);
+    if (c.water_capacity) entry["water_capacity"] = volume_text(*c.water_capacity);
+    entry["fill_pressure"] = pressure_text(c.fill_pressure_gauge, us || c.letter_size);
+    entry["count"] = c.count;
+    cylinders.push_back(entry);
+  }
+  root["cylinders"] = cylinders;
+  root["reserve_pressure"] = pressure_text(p.reserve_pressure_gauge, us);
+  Json flows = Json::array();
+  for (VolumeFlow f : p.flows) flows.push_back(flow_text(f));
+  root["flows"] = flows;
+  Json bag = Json::object();
+  bag["gauge_pressure"] = pressure_text(p.bag.gauge_pressure, true);
+  bag["pump_stroke_volume"] = volume_text(p.bag.pump_stroke_volume);
+  bag["co2_limit"] = percent_text(p.bag.co2_limit);
+  root["bag"] = bag;
+  if (p.evacuation) {
+    const EvacuationPlan& e = *p.evacuation;
+    Json plan = Json::object();
+    plan["duration"] = duration_text(e.evacuation_time);
+    if (e.altitude) plan["altitude"] = length_text(*e.altitude, p.units);
+    Json on_hand = Json::array();
+    for (const CylinderOnHand& c : e.cylinders) {
+      const CylinderType* type = p.find_cylinder(c.type_label);
+      bool psi_gauge = us || (type && type->letter_size);
+      on_hand.push_back(Json{{"type", c.type_label},
+                             {"pressure", pressure_text(c.pressure_gauge, psi_gauge)},
+                             {"temperature", temperature_text(c.temperature, p.units)}});
+    }
+    plan["cylinders"] = on_hand;
+    Json phases = Json::array();
+    for (const FlowPhase& phase : e.phases) {
+      Json entry = Json{{"flow", flow_text(phase.flow)}};
+      if (phase.duration) entry["duration"] = duration_text(*phase.duration);
+      phases.push_back(entry);
+    }
+    plan["phases"] = phases;
+    if (!e.shortfall_type_label.empty()) plan["count_in"] = e.shortfall_type_label;
+    root["evacuation"] = plan;
+  }
+  return root.dump(2) + "\n";
+}
+
+TeamProfile demo_profile() {
+  Result<TeamProfile> demo = parse_profile(demo_profile_json());
+  FIRN_ASSERT(demo.ok(), "the built-in demo profile does not parse");
+  return std::move(demo).value();
+}
+
+}  // namespace firn::team_profile

@@ -1,0 +1,566 @@
+// Reading the current schema: every field checked, every problem named with its path.
+#include "model/team_profile_internal.hpp"
+
+#include <cmath>
+#include <cstdio>
+#include <cstdlib>
+#include <functional>
+#include <initializer_list>
+
+namespace firn::team_profile::internal {
+
+using namespace units;
+
+// Records where the JSON syntax broke (the DOM parser alone only says "failed"). Works without
+// exceptions: sax_parse calls parse_error and stops.
+struct LocatingSax : nlohmann::detail::json_sax_dom_parser<Json> {
+  explicit LocatingSax(Json& root) : nlohmann::detail::json_sax_dom_parser<Json>(root, false) {}
+  bool parse_error(std::size_t position, const std::string& token,
+                   const nlohmann::detail::exception&) {
+    failed = true;
+    error_position = position;
+    error_token = token;
+    return false;
+  }
+  bool failed = false;
+  std::size_t error_position = 0;
+  std::string error_token;
+};
+
+std::string child(const std::string& path, std::string_view key) {
+  return path.empty() ? std::string(key) : path + "." + std::string(key);
+}
+std::string item(const std::string& path, size_t index) {
+  return path + "[" + std::to_string(index) + "]";
+}
+
+std::string json_shown(const Json& value) {
+  std::string text = value.dump();
+  return text.size() > 40 ? text.substr(0, 37) + "..." : text;
+}
+
+namespace {
+
+// "450bar" as the user wrote it, plus the value in the limit's unit when that differs.
+std::string as_written(const std::string& text, double value_in_limit_unit,
+                       std::string_view limit_unit) {
+  // Compared without spaces, case or degree signs: "-70C" is already "-70 °C".
+  auto simplified = [](std::string_view s) {
+    std::string out;
+    for (unsigned char c : s) {
+      if (c != ' ' && c != 0xC2 && c != 0xB0) out += static_cast<char>(std::tolower(c));
+    }
+    return out;
+  };
+  std::string compact = simplified(text);
+  std::string same = simplified(format_number(value_in_limit_unit, 2) + std::string(limit_unit));
+  if (compact == same) return format_number(value_in_limit_unit, 2) + " " + std::string(limit_unit);
+  return text + " (" + format_number(value_in_limit_unit, 2) + " " + std::string(limit_unit) + ")";
+}
+
+std::string range_text(double low, double high, std::string_view unit) {
+  return format_number(low) + "\xE2\x80\xA6" + format_number(high) + " " + std::string(unit);
+}
+
+
+// Reads typed fields out of JSON objects, recording a problem (path: what is wrong) for every
+// field that is missing, of the wrong kind or out of range.
+class Reader {
+ public:
+  explicit Reader(Problems& problems) : problems_(problems) {}
+
+  void fail(const std::string& path, const std::string& message) {
+    problems_.lines.push_back(path + ": " + message);
+  }
+
+  const Json* field(const Json& object, const std::string& path, std::string_view key,
+                    bool required, std::string_view example) {
+    auto found = object.find(std::string(key));
+    if (found == object.end()) {
+      if (required) {
+        fail(child(path, key), "is missing (example: " + std::string(example) + ")");
+      }
+      return nullptr;
+    }
+    return &*found;
+  }
+
+  bool object(const Json& value, const std::string& path) {
+    if (value.is_object()) return true;
+    fail(path, "must be an object {…}, got " + json_shown(value));
+    return false;
+  }
+
+  bool array(const Json& value, const std::string& path, size_t low, size_t high) {
+    if (!value.is_array()) {
+      fail(path, "must be a list […], got " + json_shown(value));
+      return false;
+    }
+    if (value.size() < low || value.size() > high) {
+      fail(path, std::to_string(value.size()) + " entries is outside " + std::to_string(low) +
+                     "\xE2\x80\xA6" + std::to_string(high) + " entries");
+      return false;
+    }
+    return true;
+  }
+
+  void reject_unknown(const Json& object, const std::string& path,
+                      std::initializer_list<std::string_view> known) {
+    for (auto it = object.begin(); it != object.end(); ++it) {
+      bool listed = false;
+      for (std::string_view k : known) listed = listed || it.key() == k;
+      if (!listed) fail(child(path, it.key()), "unknown field (a typo?)");
+    }
+  }
+
+  std::optional<std::string> text(const Json& object, const std::string& path,
+                                  std::string_view key, bool required, size_t low_chars,
+                                  size_t max_chars, std::string_view example) {
+    const Json* value = field(object, path, key, required, example);
+    if (!value) return std::nullopt;
+    return text_value(*value, child(path, key), low_chars, max_chars);
+  }
+
+  std::optional<std::string> text_value(const Json& value, const std::string& path,
+                                        size_t low_chars, size_t max_chars) {
+    if (!value.is_string()) {
+      fail(path, "must be text in quotes, got " + json_shown(value));
+      return std::nullopt;
+    }
+    const std::string& s = value.get_ref<const std::string&>();
+    if (s.size() < low_chars || s.size() > max_chars) {
+      fail(path, std::to_string(s.size()) + " characters is outside " +
+                     std::to_string(low_chars) + "\xE2\x80\xA6" + std::to_string(max_chars) +
+                     " characters");
+      return std::nullopt;
+    }
+    return s;
+  }
+
+  // A quantity written as text with its unit ("200bar"), checked against [low, high] in `unit`.
+  template <class D>
+  std::optional<Quantity<D>> quantity(
+      const Json& object, const std::string& path, std::string_view key, bool required,
+      const std::function<Result<Quantity<D>>(std::string_view, std::string_view)>& parse,
+      const Unit<D>& unit, double low, double high, std::string_view example) {
+    const Json* value = field(object, path, key, required, example);
+    if (!value) return std::nullopt;
+    return quantity_value(*value, child(path, key), parse, unit, low, high, example);
+  }
+
+  template <class D>
+  std::optional<Quantity<D>> quantity_value(
+      const Json& value, const std::string& path,
+      const std::function<Result<Quantity<D>>(std::string_view, std::string_view)>& parse,
+      const Unit<D>& unit, double low, double high, std::string_view example) {
+    if (!value.is_string()) {
+      fail(path, json_shown(value) + " needs its unit, written as text like \"" +
+                     std::string(example) + "\"");
+      return std::nullopt;
+    }
+    const std::string& text = value.get_ref<const std::string&>();
+    Result<Quantity<D>> parsed = parse(text, path);
+    if (!parsed) {
+      problems_.lines.push_back(parsed.error().message);
+      return std::nullopt;
+    }
+    double in_unit = parsed->in(unit);
+    if (!in_range(in_unit, low, high)) {
+      fail(path, as_written(text, in_unit, unit.symbol) + " is outside " +
+                     range_text(low, high, unit.symbol));
+      return std::nullopt;
+    }
+    return parsed.value();
+  }
+
+  std::optional<int> integer(const Json& object, const std::string& path, std::string_view key,
+                             int low, int high) {
+    const Json* value = field(object, path, key, true, std::to_string(low + 1));
+    if (!value) return std::nullopt;
+    std::string where = child(path, key);
+    if (!value->is_number_integer()) {
+      fail(where, "must be a whole number, got " + json_shown(*value));
+      return std::nullopt;
+    }
+    long long n = value->get<long long>();
+    if (n < low || n > high) {
+      fail(where, std::to_string(n) + " is outside " + std::to_string(low) + "\xE2\x80\xA6" +
+                      std::to_string(high));
+      return std::nullopt;
+    }
+    return static_cast<int>(n);
+  }
+
+ private:
+  Problems& problems_;
+};
+
+using Limits = team_profile::Limits;
+
+const std::function<Result<Length>(std::string_view, std::string_view)> length_parser =
+    [](std::string_view t, std::string_view w) { return parse_length(t, w); };
+const std::function<Result<Pressure>(std::string_view, std::string_view)> pressure_parser =
+    [](std::string_view t, std::string_view w) { return parse_pressure(t, w); };
+const std::function<Result<Temperature>(std::string_view, std::string_view)> temperature_parser =
+    [](std::string_view t, std::string_view w) { return parse_temperature(t, w); };
+const std::function<Result<Volume>(std::string_view, std::string_view)> volume_parser =
+    [](std::string_view t, std::string_view w) { return parse_volume(t, w); };
+const std::function<Result<VolumeFlow>(std::string_view, std::string_view)> flow_parser =
+    [](std::string_view t, std::string_view w) { return parse_volume_flow(t, w); };
+const std::function<Result<Duration>(std::string_view, std::string_view)> duration_parser =
+    [](std::string_view t, std::string_view w) { return parse_duration(t, w); };
+// "1%": the percent sign is required so a fraction (0.01) is never mistaken for a percentage.
+const std::function<Result<Fraction>(std::string_view, std::string_view)> percent_parser =
+    [](std::string_view t, std::string_view w) -> Result<Fraction> {
+  std::string_view s = t;
+  while (!s.empty() && s.back() == ' ') s.remove_suffix(1);
+  if (s.empty() || s.back() != '%') {
+    return Error{std::string(w) + ": '" + std::string(t) + "' needs a % sign (example: 1%)"};
+  }
+  s.remove_suffix(1);
+  Result<double> n = parse_number(s, w);
+  if (!n) return Error{std::string(w) + ": " + n.error().message};
+  return percent(n.value());
+};
+
+std::optional<CylinderType> read_cylinder(Reader& r, const Json& value, const std::string& path) {
+  if (!r.object(value, path)) return std::nullopt;
+  r.reject_unknown(value, path, {"label", "size", "water_capacity", "fill_pressure", "count"});
+  CylinderType c;
+  bool ok = true;
+  auto label = r.text(value, path, "label", true, 1, Limits::label_chars_max, "\"2 L alloy\"");
+  ok = ok && label;
+  if (const Json* size = r.field(value, path, "size", false, "\"D\"")) {
+    Result<LetterSize> parsed = Error{""};
+    if (size->is_string()) parsed = cylinder::parse_letter_size(size->get_ref<const std::string&>());
+    if (!parsed) {
+      r.fail(child(path, "size"), json_shown(*size) + " is not a US letter size: use D, E, M or H");
+      ok = false;
+    } else {
+      c.letter_size = parsed.value();
+    }
+  }
+  auto capacity = r.quantity(value, path, "water_capacity", false, volume_parser, litres,
+                             Limits::water_capacity_low_l, Limits::water_capacity_high_l, "2L");
+  if (value.contains("water_capacity") && !capacity) ok = false;
+  c.water_capacity = capacity;
+  if (!value.contains("size") && !value.contains("water_capacity")) {
+    r.fail(path, "needs a water_capacity (e.g. \"2L\") or a US letter size (\"size\": \"D\")");
+    ok = false;
+  }
+  auto fill = r.quantity(value, path, "fill_pressure", true, pressure_parser, bar,
+                         Limits::fill_pressure_low_bar, Limits::fill_pressure_high_bar, "200bar");
+  auto count = r.integer(value, path, "count", Limits::count_low, Limits::count_high);
+  if (!ok || !fill || !count) return std::nullopt;
+  c.label = *label;
+  c.fill_pressure_gauge = *fill;
+  c.count = *count;
+  return c;
+}
+
+std::optional<CardLayout> read_card(Reader& r, const Json& value, const std::string& path) {
+  if (!r.object(value, path)) return std::nullopt;
+  r.reject_unknown(value, path, {"altitude_from", "altitude_to", "altitude_step", "notes"});
+  auto from = r.quantity(value, path, "altitude_from", true, length_parser, metres,
+                         Limits::card_altitude_low_m, Limits::card_altitude_high_m, "1500m");
+  auto to = r.quantity(value, path, "altitude_to", true, length_parser, metres,
+                       Limits::card_altitude_low_m, Limits::card_altitude_high_m, "6000m");
+  auto step = r.quantity(value, path, "altitude_step", true, length_parser, metres,
+                         Limits::card_step_low_m, Limits::card_step_high_m, "250m");
+  CardLayout card;
+  bool ok = from && to && step;
+  if (const Json* notes = r.field(value, path, "notes", false, "")) {
+    std::string notes_path = child(path, "notes");
+    if (r.array(*notes, notes_path, 0, Limits::note_lines_max)) {
+      for (size_t i = 0; i < notes->size(); ++i) {
+        auto line = r.text_value((*notes)[i], item(notes_path, i), 1, Limits::note_chars_max);
+        if (line) card.notes.push_back(*line);
+        ok = ok && line;
+      }
+    } else {
+      ok = false;
+    }
+  }
+  if (from && to && !(*to > *from)) {
+    r.fail(child(path, "altitude_to"), "must be above altitude_from");
+    ok = false;
+  }
+  if (from && to && step && *to > *from) {
+    double rows = std::floor((*to - *from) / *step + 1e-9) + 1.0;
+    if (rows > static_cast<double>(Limits::card_rows_max)) {
+      r.fail(child(path, "altitude_step"),
+             format_number(rows, 0) + " card rows is more than " +
+                 std::to_string(Limits::card_rows_max) + ": use a larger step or a smaller range");
+      ok = false;
+    }
+  }
+  if (!ok) return std::nullopt;
+  card.altitude_from = *from;
+  card.altitude_to = *to;
+  card.altitude_step = *step;
+  return card;
+}
+
+std::optional<BagSetup> read_bag(Reader& r, const Json& value, const std::string& path) {
+  if (!r.object(value, path)) return std::nullopt;
+  r.reject_unknown(value, path, {"gauge_pressure", "pump_stroke_volume", "co2_limit"});
+  auto gauge = r.quantity(value, path, "gauge_pressure", true, pressure_parser, hectopascals,
+                          Limits::bag_gauge_low_hpa, Limits::bag_gauge_high_hpa, "2psi");
+  auto stroke = r.quantity(value, path, "pump_stroke_volume", true, volume_parser, litres,
+                           Limits::stroke_low_l, Limits::stroke_high_l, "3L");
+  auto co2 = r.quantity(value, path, "co2_limit", true, percent_parser, percent,
+                        Limits::co2_limit_low_pct, Limits::co2_limit_high_pct, "1%");
+  if (!gauge || !stroke || !co2) return std::nullopt;
+  return BagSetup{*gauge, *stroke, *co2};
+}
+
+std::optional<EvacuationPlan> read_evacuation(Reader& r, const Json& value,
+                                              const std::string& path,
+                                              const std::vector<CylinderType>& types,
+                                              bool types_ok) {
+  if (!r.object(value, path)) return std::nullopt;
+  r.reject_unknown(value, path, {"duration", "altitude", "cylinders", "phases", "count_in"});
+  EvacuationPlan plan;
+  bool ok = true;
+  auto known_type = [&](const std::string& label, const std::string& where) {
+    if (!types_ok) return false;  // the inventory itself has problems, already reported
+    for (const CylinderType& t : types) {
+      if (t.label == label) return true;
+    }
+    std::string known;
+    for (const CylinderType& t : types) known += (known.empty() ? "" : ", ") + ("\"" + t.label + "\"");
+    r.fail(where, "\"" + label + "\" is not a cylinder label in cylinders (" + known + ")");
+    return false;
+  };
+  auto duration = r.quantity(value, path, "duration", true, duration_parser, hours,
+                             Limits::evacuation_low_h, Limits::evacuation_high_h, "6h");
+  ok = ok && duration;
+  if (value.contains("altitude")) {
+    plan.altitude = r.quantity(value, path, "altitude", false, length_parser, metres,
+                               Limits::card_altitude_low_m, Limits::card_altitude_high_m, "4200m");
+    ok = ok && plan.altitude;
+  }
+  if (const Json* list = r.field(value, path, "cylinders", true, "[{\"type\": …}]")) {
+    std::string list_path = child(path, "cylinders");
+    if (r.array(*list, list_path, 1, Limits::cylinders_on_hand_max)) {
+      for (size_t i = 0; i < list->size(); ++i) {
+        const Json& entry = (*list)[i];
+        std::string p = item(list_path, i);
+        if (!r.object(entry, p)) { ok = false; continue; }
+        r.reject_unknown(entry, p, {"type", "pressure", "temperature"});
+        auto type = r.text(entry, p, "type", true, 1, Limits::label_chars_max, "\"2 L alloy\"");
+        auto pressure = r.quantity(entry, p, "pressure", true, pressure_parser, bar,
+                                   Limits::on_hand_pressure_low_bar,
+                                   Limits::on_hand_pressure_high_bar, "180bar");
+        std::optional<Temperature> temperature = celsius(15.0);
+        if (entry.contains("temperature")) {
+          temperature = r.quantity(entry, p, "temperature", false, temperature_parser, celsius,
+                                   Limits::temperature_low_c, Limits::temperature_high_c, "-10C");
+        }
+        bool type_ok = type && known_type(*type, child(p, "type"));
+        if (!type_ok || !pressure || !temperature) { ok = false; continue; }
+        plan.cylinders.push_back({*type, *pressure, *temperature});
+      }
+    } else {
+      ok = false;
+    }
+  } else {
+    ok = false;
+  }
+  if (const Json* list = r.field(value, path, "phases", true, "[{\"flow\": \"15L/min\", …}]")) {
+    std::string list_path = child(path, "phases");
+    if (r.array(*list, list_path, 1, Limits::phases_max)) {
+      for (size_t i = 0; i < list->size(); ++i) {
+        const Json& entry = (*list)[i];
+        std::string p = item(list_path, i);
+        if (!r.object(entry, p)) { ok = false; continue; }
+        r.reject_unknown(entry, p, {"flow", "duration"});
+        auto flow = r.quantity(entry, p, "flow", true, flow_parser, litres_per_minute, 0.0,
+                               Limits::flow_high_lpm, "6L/min");
+        bool last = i + 1 == list->size();
+        std::optional<Duration> phase_time;
+        if (entry.contains("duration") || !last) {
+          phase_time = r.quantity(entry, p, "duration", true, duration_parser, minutes, 1.0,
+                                  Limits::evacuation_high_h * 60.0, "60min");
+          if (!phase_time) { ok = false; continue; }
+        }
+        if (!flow) { ok = false; continue; }
+        plan.phases.push_back({*flow, phase_time});
+      }
+    } else {
+      ok = false;
+    }
+  } else {
+    ok = false;
+  }
+  if (auto count_in = r.text(value, path, "count_in", false, 1, Limits::label_chars_max, "")) {
+    ok = known_type(*count_in, child(path, "count_in")) && ok;
+    plan.shortfall_type_label = *count_in;
+  } else if (value.contains("count_in")) {
+    ok = false;
+  }
+  if (!ok) return std::nullopt;
+  plan.evacuation_time = *duration;
+  return plan;
+}
+
+}  // namespace
+
+// Reads a current-schema document. Returns a profile only when nothing is wrong.
+std::optional<TeamProfile> read_current(const Json& root, Problems& problems) {
+  Reader r(problems);
+  const std::string top;
+  r.reject_unknown(root, top,
+                   {"schema_version", "demo", "team_name", "units", "atmosphere_model", "card",
+                    "cylinders", "reserve_pressure", "flows", "bag", "evacuation"});
+  TeamProfile p;
+  bool ok = true;
+  if (const Json* demo = r.field(root, top, "demo", false, "")) {
+    if (demo->is_boolean()) {
+      p.demo = demo->get<bool>();
+    } else {
+      r.fail("demo", "must be true or false, got " + json_shown(*demo));
+      ok = false;
+    }
+  }
+  auto name = r.text(root, top, "team_name", true, 1, Limits::team_name_max_chars,
+                     "\"Valley Rescue\"");
+  ok = ok && name;
+  if (auto system = r.text(root, top, "units", true, 1, 20, "\"metric\"")) {
+    if (*system == "metric") {
+      p.units = UnitSystem::Metric;
+    } else if (*system == "us") {
+      p.units = UnitSystem::Us;
+    } else {
+      r.fail("units", "\"" + *system + "\" is not a unit system: use \"metric\" or \"us\"");
+      ok = false;
+    }
+  } else {
+    ok = false;
+  }
+  if (auto model = r.text(root, top, "atmosphere_model", true, 1, 20, "\"west\"")) {
+    Result<atmosphere::Model> parsed = atmosphere::parse_model(*model);
+    if (parsed) {
+      p.atmosphere_model = parsed.value();
+    } else {
+      r.fail("atmosphere_model", "\"" + *model + "\": use \"west\" or \"isa\"");
+      ok = false;
+    }
+  } else {
+    ok = false;
+  }
+  std::optional<CardLayout> card;
+  if (const Json* v = r.field(root, top, "card", true, "{\"altitude_from\": \"1500m\", …}")) {
+    card = read_card(r, *v, "card");
+  }
+  ok = ok && card;
+  bool cylinders_ok = false;
+  if (const Json* list = r.field(root, top, "cylinders", true, "[{\"label\": …}]")) {
+    if (r.array(*list, "cylinders", 1, Limits::cylinder_types_max)) {
+      cylinders_ok = true;
+      for (size_t i = 0; i < list->size(); ++i) {
+        auto c = read_cylinder(r, (*list)[i], item("cylinders", i));
+        if (c && p.find_cylinder(c->label)) {
+          r.fail(item("cylinders", i) + ".label", "\"" + c->label + "\" is used twice");
+          c.reset();
+        }
+        if (c) p.cylinders.push_back(*c);
+        cylinders_ok = cylinders_ok && c;
+      }
+    }
+  }
+  ok = ok && cylinders_ok;
+  auto reserve = r.quantity(root, top, "reserve_pressure", true, pressure_parser, bar,
+                            Limits::reserve_low_bar, Limits::reserve_high_bar, "20bar");
+  ok = ok && reserve;
+  if (reserve && cylinders_ok) {
+    for (size_t i = 0; i < p.cylinders.size(); ++i) {
+      if (!(*reserve < p.cylinders[i].fill_pressure_gauge)) {
+        r.fail("reserve_pressure", "must be below cylinders[" + std::to_string(i) +
+                                       "].fill_pressure (" +
+                                       format_number(p.cylinders[i].fill_pressure_gauge.in(bar), 1) +
+                                       " bar)");
+        ok = false;
+      }
+    }
+  }
+  if (const Json* list = r.field(root, top, "flows", true, "[\"2L/min\", \"15L/min\"]")) {
+    if (r.array(*list, "flows", 1, Limits::flows_max)) {
+      for (size_t i = 0; i < list->size(); ++i) {
+        const Json& v = (*list)[i];
+        // Flows are L/min across Firn: a bare number is accepted as L/min.
+        Json text = v.is_number() ? Json(v.dump()) : v;
+        auto flow = r.quantity_value(text, item("flows", i), flow_parser, litres_per_minute,
+                                     Limits::flow_low_lpm, Limits::flow_high_lpm, "6L/min");
+        if (flow) p.flows.push_back(*flow);
+        ok = ok && flow;
+      }
+    } else {
+      ok = false;
+    }
+  } else {
+    ok = false;
+  }
+  std::optional<BagSetup> bag;
+  if (const Json* v = r.field(root, top, "bag", true, "{\"gauge_pressure\": \"2psi\", …}")) {
+    bag = read_bag(r, *v, "bag");
+  }
+  ok = ok && bag;
+  if (const Json* v = r.field(root, top, "evacuation", false, "")) {
+    p.evacuation = read_evacuation(r, *v, "evacuation", p.cylinders, cylinders_ok);
+    ok = ok && p.evacuation;
+  }
+  if (!ok || !problems.empty()) return std::nullopt;
+  p.team_name = *name;
+  p.card = *card;
+  p.reserve_pressure_gauge = *reserve;
+  p.bag = *bag;
+  return p;
+}
+
+// Parses text to JSON, reporting syntax errors with line and column.
+std::optional<Json> parse_json(std::string_view text, Problems& problems) {
+  Json root;
+  LocatingSax sax(root);
+  bool parsed = Json::sax_parse(text.begin(), text.end(), &sax);
+  if (!parsed || sax.failed) {
+    size_t end = std::min(sax.error_position, text.size());
+    size_t line = 1, column = 1;
+    for (size_t i = 0; i + 1 < end; ++i) {
+      if (text[i] == '\n') { ++line; column = 1; } else { ++column; }
+    }
+    problems.lines.push_back("the file is not valid JSON: line " + std::to_string(line) +
+                             ", column " + std::to_string(column) + " near '" +
+                             sax.error_token.substr(0, 20) + "'");
+    return std::nullopt;
+  }
+  if (!root.is_object()) {
+    problems.lines.push_back("the file must hold one JSON object {…}, got " + json_shown(root));
+    return std::nullopt;
+  }
+  return root;
+}
+
+// The schema version of a parsed document, or a problem.
+std::optional<int> schema_version(const Json& root, Problems& problems) {
+  auto found = root.find("schema_version");
+  if (found == root.end()) {
+    problems.lines.push_back("schema_version: is missing (this Firn writes " +
+                             std::to_string(current_schema_version) + ")");
+    return std::nullopt;
+  }
+  if (!found->is_number_integer()) {
+    problems.lines.push_back("schema_version: must be a whole number, got " + json_shown(*found));
+    return std::nullopt;
+  }
+  long long v = found->get<long long>();
+  if (v < 1 || v > current_schema_version) {
+    std::string hint = v > current_schema_version ? " (written by a newer Firn: update Firn)" : "";
+    problems.lines.push_back("schema_version: " + std::to_string(v) + " is outside 1\xE2\x80\xA6" +
+                             std::to_string(current_schema_version) + hint);
+    return std::nullopt;
+  }
+  return static_cast<int>(v);
+}
+
+}  // namespace firn::team_profile::internal
