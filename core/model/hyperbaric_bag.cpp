@@ -1,0 +1,159 @@
+#include "model/hyperbaric_bag.hpp"
+
+#include <cmath>
+
+namespace firn::hyperbaric_bag {
+namespace {
+
+using namespace units;
+
+constexpr double kR = 8.314462618;               // J/(mol·K), CODATA 2018
+constexpr double kStpdPressurePa = 101325.0;     // STPD: 0 °C, 101.325 kPa, dry
+constexpr double kStpdTemperatureK = 273.15;
+constexpr double kFreeGasTemperatureK = 288.15;  // oxygen feed: free gas at 1 atm, 15 °C
+constexpr double kWaterVapourMmhg = 47.0;        // at 37 °C
+
+double moles_per_min(VolumeFlow flow, double pressure_pa, double temperature_k) {
+  return flow.in(litres_per_minute) / 1000.0 * pressure_pa / (kR * temperature_k);
+}
+
+Result<double> check(const Settings& s) {
+  double g = s.gauge.in(millibar);
+  if (!in_range(g, 0.0, max_gauge_mbar)) {
+    return range_error("bag gauge pressure", 0, max_gauge_mbar, "mbar", g);
+  }
+  if (s.flush) {
+    double f = s.flush->in(litres_per_minute);
+    if (!in_range(f, min_flush_lpm, max_flush_lpm)) {
+      return range_error("flush flow", min_flush_lpm, max_flush_lpm, "L/min", f);
+    }
+  }
+  double o2 = s.oxygen_feed.in(litres_per_minute);
+  if (!in_range(o2, 0.0, max_oxygen_feed_lpm)) {
+    return range_error("oxygen feed", 0, max_oxygen_feed_lpm, "L/min", o2);
+  }
+  double v = s.bag_volume.in(litres);
+  if (!in_range(v, min_bag_volume_l, max_bag_volume_l)) {
+    return range_error("bag volume", min_bag_volume_l, max_bag_volume_l, "L", v);
+  }
+  double t = s.chamber_temperature.in(celsius);
+  if (!in_range(t, min_chamber_c, max_chamber_c)) {
+    return range_error("chamber temperature", min_chamber_c, max_chamber_c, "°C", t);
+  }
+  double limit = s.co2_limit.in(percent);
+  if (!in_range(limit, min_co2_limit_pct, max_co2_limit_pct)) {
+    return range_error("CO2 limit", min_co2_limit_pct, max_co2_limit_pct, "%", limit);
+  }
+  double vco2 = s.vco2_stpd.in(litres_per_minute), vo2 = s.vo2_stpd.in(litres_per_minute);
+  if (!in_range(vco2, 0.05, 2.0)) return range_error("VCO2", 0.05, 2, "L/min", vco2);
+  if (!in_range(vo2, 0.05, 2.5)) return range_error("VO2", 0.05, 2.5, "L/min", vo2);
+  if (s.stroke_volume) {
+    double sv = s.stroke_volume->in(litres);
+    if (!in_range(sv, min_stroke_l, max_stroke_l)) {
+      return range_error("pump stroke volume", min_stroke_l, max_stroke_l, "L", sv);
+    }
+  }
+  return 0.0;
+}
+
+Pressure pio2(double o2_fraction, Pressure total) {
+  return mmhg(o2_fraction * (total.in(mmhg) - kWaterVapourMmhg));
+}
+
+// Strokes per minute for a flush at chamber pressure: each stroke moves `stroke` of ambient air,
+// which occupies stroke·PB/P_inside inside (same temperature).
+std::optional<double> strokes(const Settings& s, VolumeFlow flush_chamber, Pressure ambient,
+                              Pressure inside) {
+  if (!s.stroke_volume) return std::nullopt;
+  double per_stroke_inside_l = s.stroke_volume->in(litres) * (ambient / inside);
+  return flush_chamber.in(litres_per_minute) / per_stroke_inside_l;
+}
+
+Result<BagResult> compute(Pressure ambient, Length ambient_altitude, atmosphere::Model model,
+                          const Settings& s) {
+  BagResult r;
+  r.model = model;
+  r.ambient_pressure = ambient;
+  r.ambient_altitude = ambient_altitude;
+  r.inside_pressure = ambient + s.gauge;
+  Result<Length> equivalent = atmosphere::altitude_at(r.inside_pressure, model);
+  if (equivalent) {
+    r.equivalent_altitude = equivalent.value();
+    r.descent_equivalent = ambient_altitude - equivalent.value();
+  } else {
+    r.notes.push_back("The pressure inside is above sea-level pressure in the " +
+                      std::string(atmosphere::model_name(model)) +
+                      " model: the equivalent altitude is below sea level (not shown).");
+  }
+
+  // Molar balance at steady state, per minute (dry gas): in = air flush + oxygen feed;
+  // the casualty takes up VO2 and gives off VCO2; out = in − VO2 + VCO2.
+  const double p_in = r.inside_pressure.in(pascals);
+  const double t_ch = s.chamber_temperature.in(kelvin);
+  const double n_co2 = moles_per_min(s.vco2_stpd, kStpdPressurePa, kStpdTemperatureK);
+  const double n_o2 = moles_per_min(s.vo2_stpd, kStpdPressurePa, kStpdTemperatureK);
+  const double n_feed = moles_per_min(s.oxygen_feed, kStpdPressurePa, kFreeGasTemperatureK);
+  const double limit = s.co2_limit.in(fraction);
+
+  // Smallest air flush for the CO2 limit:
+  //   (n_air·f_co2 + n_co2) / (n_air + n_feed − n_o2 + n_co2) = limit
+  double n_air_min = (n_co2 - limit * (n_feed - n_o2 + n_co2)) / (limit - air_co2_fraction);
+  n_air_min = std::max(0.0, n_air_min);
+  r.min_flush = litres_per_minute(n_air_min * kR * t_ch / p_in * 1000.0);
+  r.min_flush_strokes_per_minute = strokes(s, r.min_flush, ambient, r.inside_pressure);
+
+  r.inside_o2 = fraction(air_o2_fraction);
+  if (s.flush) {
+    double n_air = moles_per_min(*s.flush, p_in, t_ch);
+    double n_out = n_air + n_feed - n_o2 + n_co2;
+    double o2_out = n_air * air_o2_fraction + n_feed - n_o2;
+    if (o2_out <= 0.0 || n_out <= 0.0) {
+      return Error{"flush flow is too low for the casualty's oxygen uptake: use at least " +
+                   format_number(r.min_flush.in(litres_per_minute), 0) + " L/min"};
+    }
+    GasBalance g;
+    g.co2 = fraction((n_air * air_co2_fraction + n_co2) / n_out);
+    g.o2 = fraction(o2_out / n_out);
+    g.time_constant = s.bag_volume / *s.flush;
+    g.vco2_in_chamber = litres_per_minute(n_co2 * kR * t_ch / p_in * 1000.0);
+    g.flush_ambient_air = *s.flush * (r.inside_pressure / ambient);
+    g.strokes_per_minute = strokes(s, *s.flush, ambient, r.inside_pressure);
+    r.inside_o2 = g.o2;
+    r.gas = g;
+    r.notes.push_back("Steady state after about 3 time constants (95 %); CO2 and O2 are dry-gas "
+                      "fractions; VCO2 0.20 and VO2 0.25 L/min STPD are resting values from "
+                      "memory.");
+  } else if (s.oxygen_feed.in(litres_per_minute) > 0.0) {
+    r.notes.push_back("An oxygen feed is only balanced together with a fresh-air flush "
+                      "(give the flush).");
+  }
+  r.pio2_ambient = pio2(air_o2_fraction, ambient);
+  r.pio2_inside = pio2(r.inside_o2.in(fraction), r.inside_pressure);
+  r.notes.push_back("Bag volume " + format_number(s.bag_volume.in(litres), 0) +
+                    " L is an assumption unless entered for the device.");
+  r.notes.push_back("Sessions are commonly 1-2 h, then reassess (common practice). The bag buys "
+                    "time for descent; symptoms may return after.");
+  return r;
+}
+
+}  // namespace
+
+Result<BagResult> bag_at_altitude(Length ambient_altitude, atmosphere::Model model,
+                                  const Settings& settings) {
+  Result<double> ok = check(settings);
+  if (!ok) return ok.error();
+  Result<Pressure> ambient = atmosphere::pressure_at(ambient_altitude, model);
+  if (!ambient) return ambient.error();
+  return compute(ambient.value(), ambient_altitude, model, settings);
+}
+
+Result<BagResult> bag_at_pressure(Pressure ambient_pressure, atmosphere::Model model,
+                                  const Settings& settings) {
+  Result<double> ok = check(settings);
+  if (!ok) return ok.error();
+  Result<Length> altitude = atmosphere::altitude_at(ambient_pressure, model);
+  if (!altitude) return altitude.error();
+  return compute(ambient_pressure, altitude.value(), model, settings);
+}
+
+}  // namespace firn::hyperbaric_bag

@@ -1,0 +1,89 @@
+// Portable hyperbaric chamber ("bag"): the pressure inside, the altitude that pressure is
+// equivalent to (the SAME atmosphere model inverted), and the gas inside when the bag is
+// flushed with fresh air (steady-state mass balance for CO2 and O2, optional oxygen feed).
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "model/atmosphere.hpp"
+#include "model/result.hpp"
+#include "model/units.hpp"
+
+namespace firn::hyperbaric_bag {
+
+using units::Duration;
+using units::Fraction;
+using units::Length;
+using units::Pressure;
+using units::Temperature;
+using units::Volume;
+using units::VolumeFlow;
+
+// Validity of the settings.
+inline constexpr double max_gauge_mbar = 250.0;  // devices run up to ~220 mbar (from memory)
+inline constexpr double min_flush_lpm = 5.0, max_flush_lpm = 300.0;
+inline constexpr double max_oxygen_feed_lpm = 15.0;
+inline constexpr double min_bag_volume_l = 100.0, max_bag_volume_l = 2000.0;
+inline constexpr double min_chamber_c = -30.0, max_chamber_c = 45.0;
+inline constexpr double min_co2_limit_pct = 0.1, max_co2_limit_pct = 5.0;
+inline constexpr double min_stroke_l = 0.1, max_stroke_l = 10.0;
+
+struct Settings {
+  Pressure gauge = units::psi(2.0);  // typical working pressure ~2 psi = 137.9 hPa
+  // Fresh air pushed through the bag, litres per minute AT CHAMBER PRESSURE (the volume it
+  // occupies inside). Absent: no gas balance, only pressures.
+  std::optional<VolumeFlow> flush;
+  // Oxygen fed into the bag, free-gas litres per minute (1 atm, 15 °C, as a flowmeter shows).
+  VolumeFlow oxygen_feed = units::litres_per_minute(0.0);
+  // ASSUMPTION: free gas volume of the bag around the casualty, ~480 L; enter the device's.
+  Volume bag_volume = units::litres(480.0);
+  Temperature chamber_temperature = units::celsius(20.0);  // assumption: warmed by the casualty
+  Fraction co2_limit = units::percent(1.0);
+  // Resting casualty, STPD (0 °C, 101.325 kPa, dry): FROM MEMORY, VCO2 0.20, VO2 0.25 L/min.
+  VolumeFlow vco2_stpd = units::litres_per_minute(0.20);
+  VolumeFlow vo2_stpd = units::litres_per_minute(0.25);
+  // Pump stroke volume, litres of ambient air per stroke. Absent: no strokes per minute.
+  std::optional<Volume> stroke_volume;
+};
+
+// Fresh air composition (dry): O2 20.95 % (common practice), CO2 0.04 % (from memory, ~420 ppm).
+inline constexpr double air_o2_fraction = 0.2095;
+inline constexpr double air_co2_fraction = 0.0004;
+
+struct GasBalance {
+  Fraction co2;              // steady-state dry fraction inside
+  Fraction o2;
+  Duration time_constant;    // bag volume / flush: 63 % of the way to steady state per constant
+  VolumeFlow vco2_in_chamber;  // VCO2 converted to chamber pressure and temperature
+  VolumeFlow flush_ambient_air;  // the same flush as ambient-pressure air (what the pump moves)
+  std::optional<double> strokes_per_minute;
+};
+
+struct BagResult {
+  atmosphere::Model model;
+  Pressure ambient_pressure;
+  Length ambient_altitude;
+  Pressure inside_pressure;            // ambient + gauge
+  // Absent when the inside pressure is above the model's sea-level pressure (the bag is then
+  // "below sea level"; see notes).
+  std::optional<Length> equivalent_altitude;
+  std::optional<Length> descent_equivalent;  // ambient altitude − equivalent altitude
+  Fraction inside_o2;                  // 20.95 % without a flush; steady state with one
+  Pressure pio2_ambient;               // FiO2·(PB − 47 mmHg) outside, dry air
+  Pressure pio2_inside;                // inside, with inside_o2
+  std::optional<GasBalance> gas;       // when a flush is given
+  VolumeFlow min_flush;                // fresh air (chamber pressure) for the CO2 limit
+  std::optional<double> min_flush_strokes_per_minute;
+  std::vector<std::string> notes;      // assumptions and explanations to show with the result
+};
+
+// Ambient from an altitude by `model`; the same model gives the equivalent altitude.
+Result<BagResult> bag_at_altitude(Length ambient_altitude, atmosphere::Model model,
+                                  const Settings& settings);
+// Ambient from a barometer (station reading); the ambient altitude is then `model` inverted.
+Result<BagResult> bag_at_pressure(Pressure ambient_pressure, atmosphere::Model model,
+                                  const Settings& settings);
+
+}  // namespace firn::hyperbaric_bag
