@@ -1,0 +1,112 @@
+// Shared helpers for the browser tests: Debian's Chromium in headless mode through
+// playwright-core (WebGL2 via SwiftShader), a fresh profile per launch, and ImGui widgets found
+// by label through window.firnTestItems (framebuffer pixels; divided by devicePixelRatio here).
+import assert from 'node:assert/strict';
+import {mkdirSync, mkdtempSync, rmSync} from 'node:fs';
+import {tmpdir} from 'node:os';
+import {join} from 'node:path';
+import {chromium} from 'playwright-core';
+
+export const CHROMIUM = process.env.FIRN_CHROMIUM ?? '/usr/bin/chromium';
+
+export function requiredEnv(name, what) {
+  const value = process.env[name];
+  assert.ok(value, `set ${name} to ${what}`);
+  return value;
+}
+
+export function screenshotDir() {
+  const dir = process.env.FIRN_SCREENSHOTS ?? join(process.cwd(), 'tests/browser/out');
+  mkdirSync(dir, {recursive: true});
+  return dir;
+}
+
+// A persistent context in a new empty profile folder, removed by close().
+export async function launch({viewport = {width: 420, height: 860}, deviceScaleFactor = 1,
+                              hasTouch = false} = {}) {
+  const profile = mkdtempSync(join(tmpdir(), 'firn-chromium-'));
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: CHROMIUM,
+    headless: true,
+    viewport, deviceScaleFactor, hasTouch,
+    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
+           '--disable-background-networking', '--disable-component-update', '--disable-sync',
+           '--use-gl=angle', '--use-angle=swiftshader', '--enable-unsafe-swiftshader']
+  });
+  const page = context.pages()[0] ?? await context.newPage();
+  const messages = [];
+  page.on('console', (message) => messages.push(`${message.type()}: ${message.text()}`));
+  page.on('pageerror', (error) => messages.push(`pageerror: ${error.message}`));
+  return {
+    context, page, messages,
+    async close() {
+      await context.close();
+      rmSync(profile, {recursive: true, force: true});
+    }
+  };
+}
+
+// Waits until the app has drawn at least one frame with test items, or fails with the page's
+// own problem message.
+export async function waitForApp(page, timeout = 60000) {
+  await page.waitForFunction(
+    () => window.firnProblem || (window.firnStarted && window.firnFramesDrawn > 0 &&
+                                 Array.isArray(window.firnTestItems) && window.firnTestItems.length > 0),
+    null, {timeout});
+  const problem = await page.evaluate(() => window.firnProblem &&
+    document.getElementById('problem').textContent);
+  assert.equal(problem, undefined, `the page reported a problem: ${problem}`);
+}
+
+export async function items(page) {
+  return page.evaluate(() => window.firnTestItems ?? []);
+}
+
+// The item under `label`, with its rectangle in CSS pixels.
+export async function item(page, label) {
+  const found = await page.evaluate((wanted) => {
+    const entry = (window.firnTestItems ?? []).find((i) => i.label === wanted);
+    if (!entry) return null;
+    const ratio = window.devicePixelRatio || 1;
+    return {...entry, x: entry.x / ratio, y: entry.y / ratio, w: entry.w / ratio, h: entry.h / ratio};
+  }, label);
+  assert.ok(found, `no item labelled "${label}" in window.firnTestItems`);
+  return found;
+}
+
+export const pause = (ms) => new Promise((done) => setTimeout(done, ms));
+
+export async function click(page, label) {
+  const target = await item(page, label);
+  await page.mouse.move(target.x + target.w / 2, target.y + target.h / 2);
+  await pause(60);
+  await page.mouse.down();
+  await pause(60);  // ImGui 1.86 loses a press and release inside one frame
+  await page.mouse.up();
+  await pause(120);
+}
+
+// Presses each key for ~50 ms: ImGui 1.86 has no event queue and loses a down+up in one frame.
+export async function press(page, key, holdMs = 50) {
+  await page.keyboard.down(key);
+  await pause(holdMs);
+  await page.keyboard.up(key);
+  await pause(holdMs);
+}
+
+export async function type(page, text) {
+  for (const character of text) await press(page, character);
+}
+
+// Waits until the item's shown text satisfies `predicate`; returns the text.
+export async function waitForText(page, label, predicate, timeout = 5000) {
+  const end = Date.now() + timeout;
+  let last;
+  while (Date.now() < end) {
+    last = (await page.evaluate((wanted) =>
+      (window.firnTestItems ?? []).find((i) => i.label === wanted)?.text, label));
+    if (last !== undefined && predicate(last)) return last;
+    await pause(50);
+  }
+  assert.fail(`"${label}" still shows ${JSON.stringify(last)} after ${timeout} ms`);
+}

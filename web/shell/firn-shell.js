@@ -1,0 +1,129 @@
+// Firn page shell: checks the browser can run the calculator, loads firn.js/firn.wasm, turns
+// touches into mouse events, and wakes the paused main loop on input. Kept in a file of its
+// own (no inline script) so the page's Content-Security-Policy can forbid inline code.
+(function () {
+  'use strict';
+
+  var canvas = document.getElementById('canvas');
+  var loading = document.getElementById('loading');
+  var problemBox = document.getElementById('problem');
+  var runner = 0;      // pointer handed over by main(); 0 until the app runs
+  var running = false;
+
+  var problems = {
+    webgl: ['This browser cannot draw Firn',
+            'Firn draws its screens with WebGL 2, which this browser or device does not offer ' +
+            '(or has turned off). Try a current browser, or switch on hardware acceleration.'],
+    wasm: ['Firn could not load',
+           'The calculator (firn.wasm) did not load. If you are offline and have never opened ' +
+           'Firn on this device before, connect once and reload.'],
+    crash: ['Firn stopped',
+            'Firn hit an internal error and stopped. Reload the page to start again.']
+  };
+  var fallback = 'Meanwhile, use the printed pocket card or the firn command-line tool.';
+
+  function showProblem(kind, detail) {
+    var text = problems[kind] || problems.crash;
+    problemBox.textContent = '';
+    var heading = document.createElement('h1');
+    heading.textContent = text[0];
+    var body = document.createElement('p');
+    body.textContent = text[1] + ' ' + fallback;
+    problemBox.appendChild(heading);
+    problemBox.appendChild(body);
+    if (detail) {
+      var small = document.createElement('p');
+      small.textContent = 'Details: ' + detail;
+      problemBox.appendChild(small);
+    }
+    problemBox.hidden = false;
+    loading.hidden = true;
+    canvas.hidden = true;
+    window.firnProblem = kind;
+  }
+
+  function wake() {
+    if (runner && typeof Module._firn_wake === 'function') Module._firn_wake(runner);
+  }
+
+  window.firnShell = {
+    showProblem: showProblem,
+    started: function (pointer) {
+      runner = pointer;
+      running = true;
+      loading.hidden = true;
+      window.firnStarted = true;
+    }
+  };
+
+  // Emscripten's GLFW treats touches as presses at the last mouse position and cannot drag;
+  // as mouse events they behave like a mouse: the cursor moves first, then presses.
+  var touchToMouse = {touchstart: 'mousedown', touchmove: 'mousemove', touchend: 'mouseup',
+                      touchcancel: 'mouseup'};
+  function forwardTouch(event) {
+    if (event.target !== canvas) return;
+    var touch = event.changedTouches[0];
+    if (!touch) return;
+    event.preventDefault();
+    event.stopPropagation();
+    var type = touchToMouse[event.type];
+    var init = {bubbles: true, cancelable: true, clientX: touch.clientX, clientY: touch.clientY,
+                screenX: touch.screenX, screenY: touch.screenY, button: 0,
+                buttons: type === 'mouseup' ? 0 : 1};
+    if (type === 'mousedown') canvas.dispatchEvent(new MouseEvent('mousemove', init));
+    canvas.dispatchEvent(new MouseEvent(type, init));
+    wake();
+  }
+  Object.keys(touchToMouse).forEach(function (type) {
+    window.addEventListener(type, forwardTouch, {capture: true, passive: false});
+  });
+
+  // Any of these may change what the UI shows; the loop pauses again once ImGui has settled.
+  ['pointerdown', 'pointermove', 'pointerup', 'pointercancel', 'mousedown', 'mousemove',
+   'mouseup', 'wheel', 'keydown', 'keyup', 'keypress', 'focus', 'blur', 'resize',
+   'orientationchange'].forEach(function (type) {
+    window.addEventListener(type, wake, {capture: true, passive: true});
+  });
+  document.addEventListener('visibilitychange', wake);
+  if (window.visualViewport) window.visualViewport.addEventListener('resize', wake);
+  if (window.matchMedia) {
+    // devicePixelRatio changes (browser zoom, moving to another screen) fire no resize event.
+    var watchRatio = function () {
+      var query = window.matchMedia('(resolution: ' + window.devicePixelRatio + 'dppx)');
+      var changed = function () { query.removeEventListener('change', changed); wake(); watchRatio(); };
+      query.addEventListener('change', changed);
+    };
+    watchRatio();
+  }
+
+  function hasWebGL2() {
+    try {
+      var probe = document.createElement('canvas');
+      var gl = probe.getContext('webgl2');
+      if (!gl) return false;
+      var lose = gl.getExtension('WEBGL_lose_context');
+      if (lose) lose.loseContext();
+      return true;
+    } catch (e) {
+      return false;
+    }
+  }
+
+  function start() {
+    if (typeof WebAssembly !== 'object') return showProblem('wasm', 'no WebAssembly in this browser');
+    if (!hasWebGL2()) return showProblem('webgl');
+    window.Module = {
+      canvas: canvas,
+      print: function (text) { console.log(text); },
+      printErr: function (text) { console.warn(text); },
+      onAbort: function (what) { showProblem(running ? 'crash' : 'wasm', String(what || '')); }
+    };
+    var script = document.createElement('script');
+    script.src = 'firn.js';
+    script.onerror = function () { showProblem('wasm', 'firn.js did not load'); };
+    document.body.appendChild(script);
+  }
+
+  window.firnShellReady = (window.firnBeforeStart ? window.firnBeforeStart() : Promise.resolve())
+    .then(start, start);
+})();
