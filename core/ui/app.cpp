@@ -3,11 +3,15 @@
 
 #include <imgui.h>
 
+#include <algorithm>
 #include <cmath>
 
 #include "assets.hpp"
 #include "model/cautions.hpp"
 #include "ui/panels.hpp"
+#include "ui/keypad.hpp"
+#include "ui/persistence.hpp"
+#include "ui/situation.hpp"
 #include "ui/test_hook.hpp"
 #include "ui/theme.hpp"
 #include "ui/widgets.hpp"
@@ -52,32 +56,101 @@ bool update_fonts(AppState& state) {
 }
 
 void init_app(AppState& state, Platform& platform) {
-  (void)platform;
   ImGuiIO& io = ImGui::GetIO();
   io.IniFilename = nullptr;  // layout is computed, never saved
   io.ConfigInputTextCursorBlink = false;  // a blinking cursor would force frames while idle
+  load_state(state, platform);
   state.built_font_scale = 0.0f;
   apply_theme(state.settings.theme, state.pixel_ratio);
 }
 
+// Nothing in Firn animates by itself (no timers, no transitions): frames are drawn only in
+// answer to input, so an idle phone in the cold spends no battery on us.
 bool wants_continuous_frames(const AppState&) { return false; }
 
 // [SECTION] Frame layout and navigation
 
 namespace {
 
-void draw_top_bar(AppState& state) {
-  if (state.font_large) ImGui::PushFont(state.font_large);
-  ImGui::TextUnformatted("Firn");
-  if (state.font_large) ImGui::PopFont();
-  ImGui::SameLine();
-  ImGui::TextDisabled("altitude & oxygen");
-  const char* screens[] = {"Here", "Settings"};
-  int selected = static_cast<int>(state.screen);
-  if (choice_row(state, "screens", screens, 2, &selected)) {
-    state.screen = static_cast<Screen>(selected);
+struct ScreenInfo {
+  Screen screen;
+  const char* nav_label;
+  void (*draw)(AppState&, Platform&);
+  Screen companion;  // shown beside it on a wide screen (itself: full width)
+};
+
+constexpr ScreenInfo kScreens[kScreenCount] = {
+    {Screen::Here, "Here", draw_here_panel, Screen::Casualty},
+    {Screen::Casualty, "Casualty", draw_casualty_panel, Screen::Curve},
+    {Screen::Curve, "Curve", draw_curve_panel, Screen::Casualty},
+    {Screen::Bag, "Bag", draw_bag_panel, Screen::Here},
+    {Screen::Oxygen, "Oxygen", draw_oxygen_panel, Screen::Casualty},
+    {Screen::Ams, "AMS", draw_ams_panel, Screen::Casualty},
+    {Screen::Teaching, "Teaching", draw_teaching_panel, Screen::Teaching},
+    {Screen::Settings, "Settings", draw_settings_panel, Screen::Here},
+};
+
+const ScreenInfo& info(Screen screen) { return kScreens[static_cast<int>(screen)]; }
+
+float nav_rows(float width) { return width > 50.0f * em() ? 1 : 2; }
+
+float nav_height(const AppState& state, float width) {
+  float row = std::max(touch_target(state) * 1.1f, ImGui::GetFrameHeight() * 1.2f);
+  return nav_rows(width) * (row + ImGui::GetStyle().ItemSpacing.y);
+}
+
+// Bottom bar: where a thumb reaches on a phone held upright. Two rows of four on a phone.
+void draw_nav_bar(AppState& state, float width) {
+  int per_row = nav_rows(width) == 1 ? kScreenCount : kScreenCount / 2;
+  float spacing = ImGui::GetStyle().ItemSpacing.x;
+  float button_width = (ImGui::GetContentRegionAvail().x - spacing * (per_row - 1)) / per_row;
+  float row = std::max(touch_target(state) * 1.1f, ImGui::GetFrameHeight() * 1.2f);
+  ImGui::PushID("nav");
+  for (int i = 0; i < kScreenCount; ++i) {
+    if (i % per_row != 0) ImGui::SameLine();
+    bool active = state.screen == kScreens[i].screen ||
+                  (state.wide_layout && info(state.screen).companion == kScreens[i].screen);
+    bool current = state.screen == kScreens[i].screen;
+    if (active) ImGui::PushStyleColor(ImGuiCol_Button, ImGui::GetStyleColorVec4(ImGuiCol_Header));
+    if (current) ImGui::PushStyleColor(ImGuiCol_Border, ImGui::GetStyleColorVec4(ImGuiCol_CheckMark));
+    if (current) ImGui::PushStyleVar(ImGuiStyleVar_FrameBorderSize, 2.0f * state.pixel_ratio);
+    if (ImGui::Button(kScreens[i].nav_label, ImVec2(button_width, row))) {
+      state.screen = kScreens[i].screen;
+      ImGui::SetScrollY(0.0f);
+    }
+    if (current) ImGui::PopStyleVar();
+    if (current) ImGui::PopStyleColor();
+    if (active) ImGui::PopStyleColor();
+    test_hook::item_text(kScreens[i].nav_label, current ? "selected" : "");
   }
-  ImGui::Separator();
+  ImGui::PopID();
+}
+
+// ImGui scrolls with the wheel and the scrollbar only; a thumb drags the page.
+void drag_to_scroll() {
+  ImGuiIO& io = ImGui::GetIO();
+  if (ImGui::IsWindowHovered(ImGuiHoveredFlags_AllowWhenBlockedByActiveItem) &&
+      ImGui::IsMouseDragging(ImGuiMouseButton_Left, em() * 0.5f) && io.MouseDelta.y != 0.0f) {
+    ImGui::SetScrollY(ImGui::GetScrollY() - io.MouseDelta.y);
+  }
+}
+
+void draw_column(AppState& state, Platform& platform, Screen screen, const char* id, float width,
+                 float height) {
+  ImGui::BeginChild(id, ImVec2(width, height), false, ImGuiWindowFlags_NoSavedSettings);
+  if (screen != Screen::Here && screen != Screen::Teaching && screen != Screen::Settings) {
+    draw_situation_strip(state);
+  }
+  info(screen).draw(state, platform);
+  ImGui::Dummy(ImVec2(0, em()));  // the last widget never sits flush on the nav bar
+  drag_to_scroll();
+  ImGui::EndChild();
+}
+
+void draw_status(AppState& state) {
+  if (state.status_message.empty()) return;
+  message_line(state, state.status_message, true);
+  if (big_button(state, "Dismiss")) state.status_message.clear();
 }
 
 }  // namespace
@@ -85,17 +158,38 @@ void draw_top_bar(AppState& state) {
 void draw_frame(AppState& state, Platform& platform, float width, float height) {
   ++state.frames_drawn;
   test_hook::begin_frame();
+  Keypad& keypad = state.keypad;
+  if (keypad.committed && state.frames_drawn > keypad.committed_at_frame + 1) keypad = Keypad{};
+  bool modal = keypad.open && !keypad.committed;
+
   ImGui::SetNextWindowPos(ImVec2(0, 0));
   ImGui::SetNextWindowSize(ImVec2(width, height));
   ImGui::Begin("Firn", nullptr,
                ImGuiWindowFlags_NoDecoration | ImGuiWindowFlags_NoMove |
-                   ImGuiWindowFlags_NoSavedSettings | ImGuiWindowFlags_NoBringToFrontOnFocus);
-  draw_top_bar(state);
-  switch (state.screen) {
-    case Screen::Here: draw_here_panel(state, platform); break;
-    case Screen::Settings: draw_settings_panel(state, platform); break;
+                   ImGuiWindowFlags_NoSavedSettings | ImGuiWindowFlags_NoBringToFrontOnFocus |
+                   ImGuiWindowFlags_NoScrollbar | ImGuiWindowFlags_NoScrollWithMouse);
+  // While the keypad is up the page behind it must not take taps meant for a key.
+  ImGui::BeginDisabled(modal);
+  draw_status(state);
+  state.wide_layout = width > 60.0f * em();
+  float content_height = ImGui::GetContentRegionAvail().y - nav_height(state, width);
+  Screen companion = info(state.screen).companion;
+  if (state.wide_layout && companion != state.screen) {
+    float spacing = ImGui::GetStyle().ItemSpacing.x * 2;
+    float column = (ImGui::GetContentRegionAvail().x - spacing) * 0.5f;
+    draw_column(state, platform, state.screen, "primary", column, content_height);
+    ImGui::SameLine(0, spacing);
+    draw_column(state, platform, companion, "companion", column, content_height);
+  } else {
+    draw_column(state, platform, state.screen, "primary", 0, content_height);
   }
+  draw_nav_bar(state, width);
+  ImGui::EndDisabled();
   ImGui::End();
+  draw_keypad(state, width, height);
+
+  // Save once a gesture is over, not on every frame of a drag.
+  if (!ImGui::IsMouseDown(ImGuiMouseButton_Left)) save_state_if_changed(state, platform);
 #if FIRN_TEST_HOOKS
   platform.publish_test_items(test_hook::frame_json());
 #endif

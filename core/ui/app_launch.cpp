@@ -7,8 +7,14 @@
 namespace firn::ui {
 namespace {
 
-constexpr std::array<std::pair<std::string_view, Screen>, 2> kScreens{{
+constexpr std::array<std::pair<std::string_view, Screen>, kScreenCount> kScreens{{
     {"here", Screen::Here},
+    {"casualty", Screen::Casualty},
+    {"curve", Screen::Curve},
+    {"bag", Screen::Bag},
+    {"oxygen", Screen::Oxygen},
+    {"ams", Screen::Ams},
+    {"teaching", Screen::Teaching},
     {"settings", Screen::Settings},
 }};
 

@@ -1,8 +1,11 @@
 // Everything the UI remembers, as plain structs passed into the panels (no function-local
-// statics). Settings persist across restarts; AppState is this run's working state.
+// statics). Settings, the situation, screen inputs and the last results persist across restarts
+// (ui/persistence.hpp); the rest is this run's working state.
 #pragma once
 
+#include <map>
 #include <string>
+#include <vector>
 
 #include "model/atmosphere.hpp"
 #include "model/units.hpp"
@@ -13,7 +16,9 @@ namespace firn::ui {
 
 enum class Theme { Day, Night, Projection };
 
-enum class Screen { Here, Settings };
+// Order = order in the navigation bar.
+enum class Screen { Here, Casualty, Curve, Bag, Oxygen, Ams, Teaching, Settings };
+inline constexpr int kScreenCount = 8;
 
 // Units a user reads and types in. Values are stored as typed quantities (SI inside), so
 // switching units never rounds an entered value away.
@@ -31,28 +36,93 @@ struct Settings {
   atmosphere::Model model = atmosphere::default_medical_model;
 };
 
-// Where we are: entered once, read by every calculator.
+// Where the barometric pressure comes from.
+enum class PressureSource { Altitude, Station, Qnh };
+
+// The one situation every screen reads: where we are and who the casualty is.
 struct Situation {
+  PressureSource source = PressureSource::Altitude;
   units::Length altitude = units::metres(3000.0);
+  units::Pressure station_reading = units::hectopascals(700.0);
+  units::Pressure qnh = units::hectopascals(1013.25);
+  bool qnh_temperature_known = false;
+  units::Temperature air_temperature = units::celsius(0.0);  // at the station
+
+  bool spo2_measured = false;
+  units::Fraction spo2 = units::percent(88.0);
+  bool acclimatised = false;
+  bool on_oxygen = false;
+  int oxygen_device = 0;  // index into the supplemental-oxygen model's device list
+  units::VolumeFlow oxygen_flow = units::litres_per_minute(2.0);
 };
 
-// Text being edited in a numeric field, and which field it belongs to.
-struct FieldEdit {
+// Inputs of the screens beyond the situation.
+struct BagInputs {
+  units::Pressure gauge = units::psi(2.0);  // bag pressure above ambient
+  units::VolumeFlow flush = units::litres_per_minute(40.0);
+  units::Duration time_in_bag = units::minutes(60.0);
+};
+
+struct OxygenInputs {
+  units::Volume water_capacity = units::litres(2.0);
+  units::Pressure gauge = units::bar(200.0);
+  units::Temperature cylinder_temperature = units::celsius(0.0);
+  units::Pressure reserve = units::bar(20.0);
+  units::VolumeFlow flow = units::litres_per_minute(4.0);
+  int cylinder_count = 3;
+  units::Duration evacuation = units::hours(4.0);
+  units::VolumeFlow first_flow = units::litres_per_minute(8.0);  // first phase of the plan
+  units::Duration first_phase = units::hours(1.0);
+};
+
+struct AmsInputs {
+  int headache = 0;
+  int gastrointestinal = 0;
+  int fatigue = 0;
+  int dizziness = 0;
+  bool recent_ascent = true;
+};
+
+struct TeachingInputs {
+  units::Length altitude = units::metres(4000.0);
+};
+
+// The in-app numeric keypad (the canvas cannot summon a phone keyboard). One field at a time.
+struct Keypad {
+  bool open = false;
   std::string field_id;
-  std::string text;
+  std::string label;
+  std::string hint;     // valid range, in the unit on the keys
+  std::string text;     // what has been typed
+  bool fresh = true;    // the first key replaces the shown value
+  std::vector<std::string> unit_symbols;
+  int unit_index = 0;
+  bool committed = false;  // OK pressed: the field takes the text on its next draw
+  int committed_at_frame = 0;  // dropped if its field was not drawn in the frame after
 };
 
 struct AppState {
   Settings settings;
   Situation situation;
+  BagInputs bag;
+  OxygenInputs oxygen;
+  AmsInputs ams;
+  TeachingInputs teaching;
   Screen screen = Screen::Here;
-  FieldEdit edit;
-  std::string status_message;  // last input error shown under the field, empty when none
+  Keypad keypad;
+  std::map<std::string, std::string> field_errors;  // field id → message naming range and unit
+  std::map<std::string, std::string> last_results;  // label → text, saved for the next start
+  std::string status_message;  // e.g. "saved state could not be read"
+  bool caution_open = false;   // the "Read more" text below a result screen
+
+  // Persistence: the JSON last written, so we only write when something changed.
+  std::string saved_json;
 
   // Display: framebuffer pixels per CSS/logical pixel, and the scale the fonts were built for.
   float pixel_ratio = 1.0f;
   float built_font_scale = 0.0f;
   ImFont* font_large = nullptr;  // results; owned by ImGui's font atlas
+  bool wide_layout = false;      // two columns this frame
 
   int frames_drawn = 0;  // counted by draw_frame; tests read it to check idle frames
 };

@@ -1,5 +1,7 @@
 #include "ui/format.hpp"
 
+#include <cmath>
+
 #include "model/result.hpp"
 #include "ui/widgets.hpp"
 
@@ -43,6 +45,41 @@ std::string pressure_text(Pressure pressure, const UnitChoice& u) {
     case UnitChoice::Pressure::Hectopascals: break;
   }
   return shown_number(pressure.in(hectopascals), 1) + " hPa";
+}
+
+}  // namespace firn::ui
+
+namespace firn::ui {
+
+using namespace units;
+
+std::string cylinder_pressure_text(Pressure gauge, const UnitChoice& u) {
+  if (u.cylinder == UnitChoice::CylinderPressure::Psi) return shown_number(gauge.in(psi), 0) + " psi";
+  return shown_number(gauge.in(bar), 0) + " bar";
+}
+
+std::string temperature_text(Temperature t, const UnitChoice& u) {
+  if (u.temperature == UnitChoice::Temperature::Fahrenheit) return shown_number(t.in(fahrenheit), 0) + " \xC2\xB0" "F";
+  return shown_number(t.in(celsius), 0) + " \xC2\xB0" "C";
+}
+
+std::string percent_text(Fraction f, int decimals) { return shown_number(f.in(percent), decimals) + " %"; }
+
+std::string flow_text(VolumeFlow flow) { return shown_number(flow.in(litres_per_minute), 1) + " L/min"; }
+
+std::string volume_text(Volume v) { return shown_number(v.in(litres), 0) + " L"; }
+
+std::string duration_text(Duration d) {
+  double total = d.in(minutes);
+  if (!std::isfinite(total)) return "\xE2\x80\x94";
+  long rounded = std::lround(total);
+  if (rounded < 60) return std::to_string(rounded) + " min";
+  return std::to_string(rounded / 60) + " h " + std::to_string(rounded % 60) + " min";
+}
+
+std::string gas_pressure_text(Pressure p, const UnitChoice& u) {
+  if (u.pressure == UnitChoice::Pressure::Kilopascals) return shown_number(p.in(kilopascals), 1) + " kPa";
+  return shown_number(p.in(mmhg), 0) + " mmHg";
 }
 
 }  // namespace firn::ui

@@ -20,3 +20,15 @@ std::string altitude_with_unit(units::Length altitude, const UnitChoice& units);
 std::string pressure_text(units::Pressure pressure, const UnitChoice& units);
 
 }  // namespace firn::ui
+
+namespace firn::ui {
+std::string cylinder_pressure_text(units::Pressure gauge, const UnitChoice& units);
+std::string temperature_text(units::Temperature temperature, const UnitChoice& units);
+std::string percent_text(units::Fraction fraction, int decimals = 0);
+std::string flow_text(units::VolumeFlow flow);
+std::string volume_text(units::Volume volume);
+// "1 h 25 min", "40 min"
+std::string duration_text(units::Duration duration);
+// PiO2, PAO2, PaO2 are read in mmHg by clinicians whatever the weather unit; kPa users get kPa.
+std::string gas_pressure_text(units::Pressure pressure, const UnitChoice& units);
+}  // namespace firn::ui

@@ -1,63 +1,96 @@
-// Screen "Here": barometric pressure at the situation's altitude, by the chosen model with the
-// other model beside it.
+// Screen "Here": where we are, entered once for every screen (altitude, a station barometer
+// reading, or QNH + temperature; the atmosphere model visible), and the pressure here by the
+// chosen model with the other beside it.
 #include "ui/panels.hpp"
 
 #include "model/atmosphere.hpp"
+#include "ui/fields.hpp"
 #include "ui/format.hpp"
+#include "ui/situation.hpp"
 #include "ui/widgets.hpp"
 
 namespace firn::ui {
 
-void draw_here_panel(AppState& state, Platform&) {
-  using namespace units;
-  const UnitChoice& u = state.settings.units;
+namespace {
 
-  std::optional<std::string> typed = number_field(state, "Altitude", "altitude",
-                                                  altitude_text(state.situation.altitude, u));
-  if (typed) {
-    Result<Length> parsed = parse_length(with_default_unit(*typed, altitude_unit_symbol(u)));
-    if (parsed && parsed->in(metres) >= -500.0 && parsed->in(metres) <= 9000.0) {
-      state.situation.altitude = parsed.value();
-      state.status_message.clear();
-    } else {
-      state.status_message = parsed ? range_error("altitude", -500, 9000, "m", parsed->in(metres)).message
-                                    : parsed.error().message;
+void draw_where(AppState& state) {
+  using namespace units;
+  Situation& s = state.situation;
+  heading("Where: pressure from");
+  const char* sources[] = {"By altitude", "Barometer", "QNH"};
+  int source = static_cast<int>(s.source);
+  if (choice_row(state, "source", sources, 3, &source)) s.source = static_cast<PressureSource>(source);
+
+  if (s.source != PressureSource::Station) {
+    edit_quantity(state, altitude_field(state, "Altitude", "altitude"), s.altitude);
+  }
+  if (s.source == PressureSource::Station) {
+    edit_quantity(state,
+                  air_pressure_field(state, "Barometer reading (station, not QNH)", "station",
+                                     hectopascals(150), hectopascals(1100)),
+                  s.station_reading);
+  }
+  if (s.source == PressureSource::Qnh) {
+    edit_quantity(state, air_pressure_field(state, "QNH (sea-level pressure)", "qnh",
+                                            hectopascals(900), hectopascals(1100)),
+                  s.qnh);
+    toggle_row(state, "qnh-temperature", "Standard lapse", "Air temperature known",
+               &s.qnh_temperature_known);
+    if (s.qnh_temperature_known) {
+      edit_quantity(state, temperature_field(state, "Air temperature here", "air-temperature", -60, 50),
+                    s.air_temperature);
     }
   }
-  if (!state.status_message.empty()) {
-    ImGui::PushStyleColor(ImGuiCol_Text, ImGui::GetStyleColorVec4(ImGuiCol_PlotHistogram));
-    ImGui::PushTextWrapPos(0.0f);
-    ImGui::TextUnformatted(state.status_message.c_str());
-    ImGui::PopTextWrapPos();
-    ImGui::PopStyleColor();
-  }
 
+  heading("Atmosphere model");
   const char* models[] = {"West 1996", "ISA"};
   int model_index = state.settings.model == atmosphere::Model::West1996 ? 0 : 1;
-  ImGui::TextDisabled("Atmosphere model");
   if (choice_row(state, "model", models, 2, &model_index)) {
     state.settings.model = model_index == 0 ? atmosphere::Model::West1996 : atmosphere::Model::Isa;
   }
+  ImGui::PushTextWrapPos(0.0f);
+  ImGui::TextDisabled("West 1996 fits high mountains at low latitude (the medical default); ISA is "
+                      "the aviation standard. High latitude or winter: enter a barometer reading.");
+  ImGui::PopTextWrapPos();
+}
 
-  atmosphere::Model chosen = state.settings.model;
-  atmosphere::Model other =
-      chosen == atmosphere::Model::Isa ? atmosphere::Model::West1996 : atmosphere::Model::Isa;
-  Result<Pressure> main_pressure = atmosphere::pressure_at(state.situation.altitude, chosen);
-  Result<Pressure> other_pressure = atmosphere::pressure_at(state.situation.altitude, other);
-
-  std::string chosen_label = "Barometric pressure (" + std::string(atmosphere::model_name(chosen)) + ")";
-  if (main_pressure) {
-    result_value(state, chosen_label.c_str(), pressure_text(main_pressure.value(), u));
+void draw_pressure(AppState& state) {
+  using namespace units;
+  const UnitChoice& u = state.settings.units;
+  const Situation& s = state.situation;
+  heading("Pressure here");
+  Result<Pressure> pb = situation_pressure(state);
+  std::string label = "Barometric pressure";
+  if (s.source == PressureSource::Altitude) {
+    label += " (" + std::string(atmosphere::model_name(state.settings.model)) + ")";
   } else {
-    result_value(state, chosen_label.c_str(), "\xE2\x80\x94");
-    ImGui::PushTextWrapPos(0.0f);
-    ImGui::TextUnformatted(main_pressure.error().message.c_str());
-    ImGui::PopTextWrapPos();
+    label += s.source == PressureSource::Station ? " (barometer)" : " (QNH)";
   }
-  std::string other_label = std::string(atmosphere::model_name(other)) + " for comparison";
-  result_value(state, other_label.c_str(),
-               other_pressure ? pressure_text(other_pressure.value(), u) : "outside model range",
-               false);
+  if (pb) result_value(state, label.c_str(), pressure_text(pb.value(), u));
+  else result_error(state, label.c_str(), pb.error().message);
+
+  if (s.source == PressureSource::Altitude) {
+    atmosphere::Model other = state.settings.model == atmosphere::Model::Isa
+                                  ? atmosphere::Model::West1996
+                                  : atmosphere::Model::Isa;
+    Result<Pressure> other_pb = atmosphere::pressure_at(s.altitude, other);
+    std::string other_label = std::string(atmosphere::model_name(other)) + " for comparison";
+    result_value(state, other_label.c_str(),
+                 other_pb ? pressure_text(other_pb.value(), u) : "outside model range", false);
+  } else {
+    // The altitude this pressure corresponds to, so a medic can sanity-check the reading.
+    Result<Length> altitude = atmosphere::altitude_at(pb ? pb.value() : Pressure{}, state.settings.model);
+    std::string text = pb && altitude ? altitude_with_unit(altitude.value(), u) : "\xE2\x80\x94";
+    std::string alt_label = "Pressure altitude (" + std::string(atmosphere::model_name(state.settings.model)) + ")";
+    result_value(state, alt_label.c_str(), text, false);
+  }
+}
+
+}  // namespace
+
+void draw_here_panel(AppState& state, Platform&) {
+  draw_where(state);
+  draw_pressure(state);
   caution_line(state);
 }
 

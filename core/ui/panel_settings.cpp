@@ -1,4 +1,5 @@
-// Screen "Settings": units, theme, about.
+// Screen "Settings": units, theme, about. Units change only how values are shown and typed:
+// the stored quantities stay exactly as entered.
 #include "ui/panels.hpp"
 
 #include <imgui.h>
@@ -23,6 +24,20 @@ void draw_settings_panel(AppState& state, Platform& platform) {
   int pressure_index = static_cast<int>(u.pressure);
   if (choice_row(state, "pressure-unit", pressure_units, 4, &pressure_index)) {
     u.pressure = static_cast<UnitChoice::Pressure>(pressure_index);
+  }
+
+  ImGui::TextDisabled("Cylinder pressure unit");
+  const char* cylinder_units[] = {"bar", "psi"};
+  int cylinder_index = static_cast<int>(u.cylinder);
+  if (choice_row(state, "cylinder-unit", cylinder_units, 2, &cylinder_index)) {
+    u.cylinder = static_cast<UnitChoice::CylinderPressure>(cylinder_index);
+  }
+
+  ImGui::TextDisabled("Temperature unit");
+  const char* temperature_units[] = {"\xC2\xB0" "C", "\xC2\xB0" "F"};
+  int temperature_index = static_cast<int>(u.temperature);
+  if (choice_row(state, "temperature-unit", temperature_units, 2, &temperature_index)) {
+    u.temperature = static_cast<UnitChoice::Temperature>(temperature_index);
   }
 
   ImGui::TextDisabled("Theme");

@@ -6,7 +6,13 @@
 
 namespace firn::ui {
 
-void draw_here_panel(AppState& state, Platform& platform);
-void draw_settings_panel(AppState& state, Platform& platform);
+void draw_here_panel(AppState& state, Platform& platform);      // pressure & oxygen here
+void draw_casualty_panel(AppState& state, Platform& platform);  // SpO2 vs expected
+void draw_curve_panel(AppState& state, Platform& platform);     // dissociation curve
+void draw_bag_panel(AppState& state, Platform& platform);       // hyperbaric bag
+void draw_oxygen_panel(AppState& state, Platform& platform);    // cylinder, evacuation plan
+void draw_ams_panel(AppState& state, Platform& platform);       // Lake Louise 2018
+void draw_teaching_panel(AppState& state, Platform& platform);  // cascade sweep
+void draw_settings_panel(AppState& state, Platform& platform);  // units, theme
 
 }  // namespace firn::ui

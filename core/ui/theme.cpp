@@ -92,6 +92,8 @@ void apply_theme(Theme theme, float pixel_ratio) {
   c[ImGuiCol_TableBorderLight] = p.border;
   c[ImGuiCol_TextSelectedBg] = p.surface_active;
   c[ImGuiCol_NavHighlight] = p.accent;
+  c[ImGuiCol_PlotHistogram] = p.danger;  // warnings in text (message_line)
+  c[ImGuiCol_PlotLines] = p.accent;
   ImGui::GetStyle() = style;
 }
 

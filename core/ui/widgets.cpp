@@ -55,37 +55,15 @@ bool choice_row(const AppState& state, const char* id, const char* const* labels
   return changed;
 }
 
-void result_value(const AppState& state, const char* label, const std::string& shown,
+void result_value(AppState& state, const char* label, const std::string& shown,
                   bool emphasised) {
+  state.last_results[label] = shown;
   ImGui::TextDisabled("%s", label);
   bool large = emphasised && state.font_large != nullptr;
   if (large) ImGui::PushFont(state.font_large);
   ImGui::TextUnformatted(shown.c_str());
   if (large) ImGui::PopFont();
   test_hook::item_text(label, shown);
-}
-
-std::optional<std::string> number_field(AppState& state, const char* label, const char* field_id,
-                                        const std::string& display_text) {
-  ImGui::TextDisabled("%s", label);
-  bool editing = state.edit.field_id == field_id;
-  char buffer[64];
-  std::snprintf(buffer, sizeof buffer, "%s", editing ? state.edit.text.c_str() : display_text.c_str());
-  ImGui::PushID(field_id);
-  ImGui::SetNextItemWidth(-1.0f);
-  bool enter = ImGui::InputText("##value", buffer, sizeof buffer,
-                                ImGuiInputTextFlags_CharsScientific |
-                                    ImGuiInputTextFlags_AutoSelectAll |
-                                    ImGuiInputTextFlags_EnterReturnsTrue);
-  ImGui::PopID();
-  test_hook::item_text(label, buffer);
-  if (ImGui::IsItemActive()) state.edit = {field_id, buffer};
-  if (enter || ImGui::IsItemDeactivatedAfterEdit()) {
-    state.edit = {};
-    return std::string(buffer);
-  }
-  if (!ImGui::IsItemActive() && state.edit.field_id == field_id) state.edit = {};
-  return std::nullopt;
 }
 
 std::string with_default_unit(const std::string& text, std::string_view unit) {
@@ -96,21 +74,51 @@ std::string with_default_unit(const std::string& text, std::string_view unit) {
   return text + std::string(unit);
 }
 
+bool toggle_row(const AppState& state, const char* id, const char* off_label, const char* on_label,
+                bool* value) {
+  const char* labels[] = {off_label, on_label};
+  int selected = *value ? 1 : 0;
+  if (!choice_row(state, id, labels, 2, &selected)) return false;
+  *value = selected == 1;
+  return true;
+}
+
+void message_line(const AppState&, const std::string& text, bool warning) {
+  if (warning) ImGui::PushStyleColor(ImGuiCol_Text, ImGui::GetStyleColorVec4(ImGuiCol_PlotHistogram));
+  ImGui::PushTextWrapPos(0.0f);
+  ImGui::TextUnformatted(text.c_str());
+  ImGui::PopTextWrapPos();
+  if (warning) ImGui::PopStyleColor();
+  test_hook::item_text(warning ? "Warning" : "Message", text);
+}
+
+void heading(const char* text) {
+  ImGui::Spacing();
+  ImGui::TextDisabled("%s", text);
+}
+
+void result_error(AppState& state, const char* label, const std::string& message) {
+  result_value(state, label, "\xE2\x80\x94");
+  message_line(state, message, true);
+}
+
 void caution_line(AppState& state) {
-  (void)state;
   ImGui::Separator();
   ImGui::PushTextWrapPos(0.0f);
   ImGui::TextDisabled("%s", std::string(cautions::short_line).c_str());
   ImGui::PopTextWrapPos();
   test_hook::item_text("Cautions", std::string(cautions::short_line));
-  if (ImGui::TreeNode("Read more")) {
+  // A full-height button, not a tree arrow: a gloved thumb must be able to hit it.
+  if (big_button(state, state.caution_open ? "Read less" : "Read more")) {
+    state.caution_open = !state.caution_open;
+  }
+  if (state.caution_open) {
     for (std::string_view line : cautions::full_text) {
       ImGui::Bullet();
       ImGui::PushTextWrapPos(0.0f);
       ImGui::TextUnformatted(line.data(), line.data() + line.size());
       ImGui::PopTextWrapPos();
     }
-    ImGui::TreePop();
   }
 }
 

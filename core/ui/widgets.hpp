@@ -26,21 +26,26 @@ bool choice_row(const AppState& state, const char* id, const char* const* labels
                 int* selected);
 
 // A labelled result: name in small type, value large, unit after it. `shown` is what the test
-// hook reads back ("701.2 hPa").
-void result_value(const AppState& state, const char* label, const std::string& shown,
+// hook reads back ("701.2 hPa"); it is also kept in state.last_results for the next start.
+void result_value(AppState& state, const char* label, const std::string& shown,
                   bool emphasised = true);
 
-// Numeric text field showing `display_text` until the user edits it. Returns the typed text
-// when the user commits it (Enter or leaving the field); the caller parses it and reports
-// errors through state.status_message.
-std::optional<std::string> number_field(AppState& state, const char* label, const char* field_id,
-                                        const std::string& display_text);
+// Two-option toggle shown as a choice row ("Acute" | "Acclimatised"). Returns true on change.
+bool toggle_row(const AppState& state, const char* id, const char* off_label, const char* on_label,
+                bool* value);
+
+// Wrapped text; `warning` colours it as a caution.
+void message_line(const AppState& state, const std::string& text, bool warning = false);
+// Small dim heading above a group of widgets.
+void heading(const char* text);
 
 // Appends `unit` when `text` is a bare number, so "4000" in a metres field means 4000 m.
 std::string with_default_unit(const std::string& text, std::string_view unit);
 
 // The one-line caution every result screen carries, with a "Read more" that expands it.
 void caution_line(AppState& state);
+// A model's error as a dash result plus the message (never a silent number).
+void result_error(AppState& state, const char* label, const std::string& message);
 
 // Formats a finite value with `decimals`; non-finite values become "—" (never NaN on screen).
 std::string shown_number(double value, int decimals);

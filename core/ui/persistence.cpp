@@ -1,0 +1,210 @@
+// Values are stored in fixed SI-like units named in each key ("altitude_m", "qnh_pa"), at full
+// double precision, so a value typed in feet comes back exactly. Enums are stored as words.
+// Parsing never throws (the web build has no exceptions): every access checks the type first.
+#include "ui/persistence.hpp"
+
+#include <nlohmann/json.hpp>
+
+#include <array>
+#include <cmath>
+#include <string_view>
+
+namespace firn::ui {
+
+using Json = nlohmann::json;
+using namespace units;
+
+namespace {
+
+constexpr int kFormatVersion = 1;
+
+constexpr std::array<std::string_view, kScreenCount> kScreenKeys{
+    "here", "casualty", "curve", "bag", "oxygen", "ams", "teaching", "settings"};
+constexpr std::array<std::string_view, 3> kThemeKeys{"day", "night", "projector"};
+constexpr std::array<std::string_view, 3> kSourceKeys{"altitude", "station", "qnh"};
+constexpr std::array<std::string_view, 2> kAltitudeUnits{"m", "ft"};
+constexpr std::array<std::string_view, 4> kPressureUnits{"hPa", "mmHg", "kPa", "inHg"};
+constexpr std::array<std::string_view, 2> kCylinderUnits{"bar", "psi"};
+constexpr std::array<std::string_view, 2> kTemperatureUnits{"C", "F"};
+
+// Readers: leave `out` untouched unless the value is there, of the right type and in range.
+void read(const Json& j, const char* key, double low, double high, double& out) {
+  auto it = j.find(key);
+  if (it == j.end() || !it->is_number()) return;
+  double v = it->get<double>();
+  if (std::isfinite(v) && v >= low && v <= high) out = v;
+}
+void read(const Json& j, const char* key, bool& out) {
+  auto it = j.find(key);
+  if (it != j.end() && it->is_boolean()) out = it->get<bool>();
+}
+void read(const Json& j, const char* key, int low, int high, int& out) {
+  auto it = j.find(key);
+  if (it == j.end() || !it->is_number_integer()) return;
+  long long v = it->get<long long>();
+  if (v >= low && v <= high) out = static_cast<int>(v);
+}
+template <class Enum, size_t N>
+void read(const Json& j, const char* key, const std::array<std::string_view, N>& keys, Enum& out) {
+  auto it = j.find(key);
+  if (it == j.end() || !it->is_string()) return;
+  const std::string& text = it->get_ref<const std::string&>();
+  for (size_t i = 0; i < N; ++i) {
+    if (keys[i] == text) out = static_cast<Enum>(i);
+  }
+}
+template <class D>
+void read(const Json& j, const char* key, const Unit<D>& unit, double low, double high,
+          Quantity<D>& out) {
+  double v = out.in(unit);
+  read(j, key, low, high, v);
+  out = unit(v);
+}
+Json child(const Json& j, const char* key) {
+  auto it = j.find(key);
+  return it != j.end() && it->is_object() ? *it : Json::object();
+}
+
+template <class Enum, size_t N>
+std::string word(const std::array<std::string_view, N>& keys, Enum value) {
+  return std::string(keys[static_cast<size_t>(value)]);
+}
+
+}  // namespace
+
+std::string state_to_json(const AppState& state) {
+  const Settings& st = state.settings;
+  const Situation& s = state.situation;
+  Json j;
+  j["version"] = kFormatVersion;
+  j["screen"] = word(kScreenKeys, state.screen);
+  j["settings"] = {{"theme", word(kThemeKeys, st.theme)},
+                   {"model", std::string(atmosphere::model_key(st.model))},
+                   {"altitude_unit", word(kAltitudeUnits, st.units.altitude)},
+                   {"pressure_unit", word(kPressureUnits, st.units.pressure)},
+                   {"cylinder_unit", word(kCylinderUnits, st.units.cylinder)},
+                   {"temperature_unit", word(kTemperatureUnits, st.units.temperature)}};
+  j["situation"] = {{"source", word(kSourceKeys, s.source)},
+                    {"altitude_m", s.altitude.in(metres)},
+                    {"station_pa", s.station_reading.in(pascals)},
+                    {"qnh_pa", s.qnh.in(pascals)},
+                    {"temperature_known", s.qnh_temperature_known},
+                    {"air_temperature_k", s.air_temperature.in(kelvin)},
+                    {"spo2_measured", s.spo2_measured},
+                    {"spo2", s.spo2.in(fraction)},
+                    {"acclimatised", s.acclimatised},
+                    {"on_oxygen", s.on_oxygen},
+                    {"oxygen_device", s.oxygen_device},
+                    {"oxygen_flow_lpm", s.oxygen_flow.in(litres_per_minute)}};
+  const BagInputs& b = state.bag;
+  j["bag"] = {{"gauge_pa", b.gauge.in(pascals)},
+              {"flush_lpm", b.flush.in(litres_per_minute)},
+              {"time_min", b.time_in_bag.in(minutes)}};
+  const OxygenInputs& o = state.oxygen;
+  j["oxygen"] = {{"water_capacity_l", o.water_capacity.in(litres)},
+                 {"gauge_pa", o.gauge.in(pascals)},
+                 {"cylinder_temperature_k", o.cylinder_temperature.in(kelvin)},
+                 {"reserve_pa", o.reserve.in(pascals)},
+                 {"flow_lpm", o.flow.in(litres_per_minute)},
+                 {"cylinders", o.cylinder_count},
+                 {"evacuation_min", o.evacuation.in(minutes)},
+                 {"first_flow_lpm", o.first_flow.in(litres_per_minute)},
+                 {"first_phase_min", o.first_phase.in(minutes)}};
+  const AmsInputs& a = state.ams;
+  j["ams"] = {{"headache", a.headache}, {"gastrointestinal", a.gastrointestinal},
+              {"fatigue", a.fatigue}, {"dizziness", a.dizziness},
+              {"recent_ascent", a.recent_ascent}};
+  j["teaching"] = {{"altitude_m", state.teaching.altitude.in(metres)}};
+  j["last_results"] = state.last_results;
+  return j.dump(1);
+}
+
+bool state_from_json(AppState& state, const std::string& text) {
+  Json j = Json::parse(text, nullptr, /*allow_exceptions=*/false);
+  if (j.is_discarded() || !j.is_object()) return false;
+  read(j, "screen", kScreenKeys, state.screen);
+
+  const Json st = child(j, "settings");
+  Settings& settings = state.settings;
+  read(st, "theme", kThemeKeys, settings.theme);
+  if (auto it = st.find("model"); it != st.end() && it->is_string()) {
+    if (Result<atmosphere::Model> m = atmosphere::parse_model(it->get_ref<const std::string&>())) {
+      settings.model = m.value();
+    }
+  }
+  read(st, "altitude_unit", kAltitudeUnits, settings.units.altitude);
+  read(st, "pressure_unit", kPressureUnits, settings.units.pressure);
+  read(st, "cylinder_unit", kCylinderUnits, settings.units.cylinder);
+  read(st, "temperature_unit", kTemperatureUnits, settings.units.temperature);
+
+  // Ranges here are those of the input fields: anything else is damage, not a situation.
+  const Json si = child(j, "situation");
+  Situation& s = state.situation;
+  read(si, "source", kSourceKeys, s.source);
+  read(si, "altitude_m", metres, -500, 9000, s.altitude);
+  read(si, "station_pa", pascals, 15000, 110000, s.station_reading);
+  read(si, "qnh_pa", pascals, 90000, 110000, s.qnh);
+  read(si, "temperature_known", s.qnh_temperature_known);
+  read(si, "air_temperature_k", kelvin, 213.15, 323.15, s.air_temperature);
+  read(si, "spo2_measured", s.spo2_measured);
+  read(si, "spo2", fraction, 0.3, 1.0, s.spo2);
+  read(si, "acclimatised", s.acclimatised);
+  read(si, "on_oxygen", s.on_oxygen);
+  read(si, "oxygen_device", 0, 9, s.oxygen_device);
+  read(si, "oxygen_flow_lpm", litres_per_minute, 0, 30, s.oxygen_flow);
+
+  const Json b = child(j, "bag");
+  read(b, "gauge_pa", pascals, 0, 30000, state.bag.gauge);
+  read(b, "flush_lpm", litres_per_minute, 0, 200, state.bag.flush);
+  read(b, "time_min", minutes, 0, 1440, state.bag.time_in_bag);
+
+  const Json o = child(j, "oxygen");
+  OxygenInputs& ox = state.oxygen;
+  read(o, "water_capacity_l", litres, 0.1, 100, ox.water_capacity);
+  read(o, "gauge_pa", pascals, 0, 35e6, ox.gauge);
+  read(o, "cylinder_temperature_k", kelvin, 233.15, 333.15, ox.cylinder_temperature);
+  read(o, "reserve_pa", pascals, 0, 35e6, ox.reserve);
+  read(o, "flow_lpm", litres_per_minute, 0, 30, ox.flow);
+  read(o, "cylinders", 1, 20, ox.cylinder_count);
+  read(o, "evacuation_min", minutes, 1, 4320, ox.evacuation);
+  read(o, "first_flow_lpm", litres_per_minute, 0, 30, ox.first_flow);
+  read(o, "first_phase_min", minutes, 0, 4320, ox.first_phase);
+
+  const Json a = child(j, "ams");
+  read(a, "headache", 0, 3, state.ams.headache);
+  read(a, "gastrointestinal", 0, 3, state.ams.gastrointestinal);
+  read(a, "fatigue", 0, 3, state.ams.fatigue);
+  read(a, "dizziness", 0, 3, state.ams.dizziness);
+  read(a, "recent_ascent", state.ams.recent_ascent);
+
+  read(child(j, "teaching"), "altitude_m", metres, 0, 8000, state.teaching.altitude);
+
+  const Json r = child(j, "last_results");
+  for (auto it = r.begin(); it != r.end(); ++it) {
+    if (it.value().is_string()) state.last_results[it.key()] = it.value().get<std::string>();
+  }
+  return true;
+}
+
+void load_state(AppState& state, Platform& platform) {
+  std::optional<std::string> text = platform.load_text(kStateKey);
+  if (!text) return;
+  AppState fresh = state;  // a half-read state must not leak into the defaults
+  if (state_from_json(fresh, *text)) {
+    state = fresh;
+    state.saved_json = *text;
+    return;
+  }
+  platform.save_text(kBadStateKey, *text);
+  state.status_message =
+      "The saved situation could not be read; defaults are shown. The old text was kept as " +
+      std::string(kBadStateKey) + ".";
+}
+
+void save_state_if_changed(AppState& state, Platform& platform) {
+  std::string json = state_to_json(state);
+  if (json == state.saved_json) return;
+  if (platform.save_text(kStateKey, json)) state.saved_json = json;
+}
+
+}  // namespace firn::ui

@@ -1,0 +1,77 @@
+#include "ui/situation.hpp"
+
+#include <imgui.h>
+
+#include "model/atmosphere.hpp"
+#include "ui/format.hpp"
+#include "ui/test_hook.hpp"
+#include "ui/widgets.hpp"
+
+namespace firn::ui {
+
+using namespace units;
+
+Result<Pressure> situation_pressure(const AppState& state) {
+  const Situation& s = state.situation;
+  switch (s.source) {
+    case PressureSource::Station: return atmosphere::pressure_from_station_reading(s.station_reading);
+    case PressureSource::Qnh:
+      if (s.qnh_temperature_known) {
+        return atmosphere::pressure_from_qnh(s.altitude, s.qnh, s.air_temperature,
+                                             atmosphere::TemperatureAt::Station);
+      }
+      return atmosphere::pressure_from_qnh(s.altitude, s.qnh);
+    case PressureSource::Altitude: break;
+  }
+  return atmosphere::pressure_at(s.altitude, state.settings.model);
+}
+
+Result<Length> situation_altitude(const AppState& state) {
+  if (state.situation.source != PressureSource::Station) return state.situation.altitude;
+  Result<Pressure> pb = situation_pressure(state);
+  if (!pb) return pb.error();
+  return atmosphere::altitude_at(pb.value(), state.settings.model);
+}
+
+std::string situation_summary(const AppState& state) {
+  const Situation& s = state.situation;
+  const UnitChoice& u = state.settings.units;
+  std::string text;
+  Result<Length> altitude = situation_altitude(state);
+  Result<Pressure> pb = situation_pressure(state);
+  if (s.source == PressureSource::Station) text += "barometer ";
+  text += altitude ? altitude_with_unit(altitude.value(), u) : std::string("\xE2\x80\x94");
+  text += " \xC2\xB7 ";
+  text += pb ? pressure_text(pb.value(), u) : std::string("\xE2\x80\x94");
+  if (s.source == PressureSource::Altitude) text += " (" + std::string(atmosphere::model_name(state.settings.model)) + ")";
+  if (s.source == PressureSource::Qnh) text += " (QNH)";
+  text += " \xC2\xB7 ";
+  text += s.spo2_measured ? "SpO2 " + percent_text(s.spo2) : std::string("no SpO2");
+  text += s.acclimatised ? " \xC2\xB7 acclimatised" : " \xC2\xB7 acute";
+  text += s.on_oxygen ? " \xC2\xB7 on O2 " + flow_text(s.oxygen_flow) : std::string(" \xC2\xB7 air");
+  return text;
+}
+
+void draw_situation_strip(AppState& state) {
+  std::string text = situation_summary(state);
+  float height = std::max(touch_target(state), ImGui::GetFrameHeight());
+  ImGui::PushStyleVar(ImGuiStyleVar_ButtonTextAlign, ImVec2(0.0f, 0.5f));
+  // Wraps on a narrow phone: a clipped summary would hide the altitude a medic must check.
+  float width = ImGui::GetContentRegionAvail().x;
+  ImVec2 size = ImGui::CalcTextSize(text.c_str(), nullptr, false, width - 2 * ImGui::GetStyle().FramePadding.x);
+  height = std::max(height, size.y + 2 * ImGui::GetStyle().FramePadding.y);
+  ImGui::PushID("situation-strip");
+  ImVec2 pos = ImGui::GetCursorScreenPos();
+  bool pressed = ImGui::Button("##situation", ImVec2(width, height));
+  ImGui::PopID();
+  ImGui::PopStyleVar();
+  ImGui::GetWindowDrawList()->AddText(
+      ImGui::GetFont(), ImGui::GetFontSize(),
+      ImVec2(pos.x + ImGui::GetStyle().FramePadding.x, pos.y + (height - size.y) * 0.5f),
+      ImGui::GetColorU32(ImGuiCol_Text), text.c_str(), nullptr,
+      width - 2 * ImGui::GetStyle().FramePadding.x);
+  test_hook::item_text("Situation", text);
+  if (pressed) state.screen = Screen::Here;
+}
+
+}  // namespace firn::ui
