@@ -1,6 +1,146 @@
-// Screen placeholder while its model lands.
+// Screen "Oxygen": how long one cylinder lasts (real-gas contents from the gauge AND the
+// cylinder's temperature, to a reserve), and an evacuation plan with several such cylinders:
+// a first flow for a while, then the steady flow; timeline plot of gauge pressure vs time with
+// the reserve line and swap marks.
 #include "ui/panels.hpp"
+
+#include <algorithm>
+#include <cmath>
+
+#include "model/cylinder.hpp"
+#include "model/evacuation_plan.hpp"
+#include "ui/fields.hpp"
+#include "ui/format.hpp"
+#include "ui/plot.hpp"
+#include "ui/situation.hpp"
 #include "ui/widgets.hpp"
+
 namespace firn::ui {
-void draw_oxygen_panel(AppState& state, Platform&) { caution_line(state); }
+
+namespace {
+
+using namespace units;
+
+void draw_timeline(const AppState& state, const evacuation::PlanInput& input,
+                   const evacuation::EvacuationPlan& plan) {
+  const UnitChoice& u = state.settings.units;
+  bool in_psi = u.cylinder == UnitChoice::CylinderPressure::Psi;
+  const Unit<PressureDimension>& unit = in_psi ? psi : bar;
+  double end_h = input.evacuation.in(hours);
+  if (plan.supply_lasts) end_h = std::max(end_h, std::min(plan.supply_lasts->in(hours), end_h * 2));
+  double top = 0.0;
+  for (const auto& s : plan.samples) top = std::max(top, s.gauge.in(unit));
+  double y_tick = in_psi ? 500.0 : 50.0;
+  top = std::max(y_tick, std::ceil(top / y_tick) * y_tick);
+  double x_tick = end_h > 12 ? 4.0 : end_h > 4 ? 1.0 : 0.5;
+  std::string summary = std::to_string(plan.uses.size()) + " cylinders used; " +
+                        (plan.enough ? "enough" : "short") + " for " + duration_text(input.evacuation);
+  Plot plot = begin_plot(state, "Evacuation timeline", summary, 15.0f,
+                         {0, end_h, 0, top, x_tick, y_tick, "hours from now",
+                          "gauge, " + std::string(unit.symbol)});
+  plot_hline(plot, input.reserve_gauge.in(unit), plot_colour(state, PlotColour::Warning), "reserve");
+  plot_vline(plot, input.evacuation.in(hours), plot_colour(state, PlotColour::Text), "arrival");
+  // One line per cylinder: the saw-tooth of swaps reads at a glance.
+  std::vector<PlotPoint> line;
+  size_t current = plan.samples.empty() ? 0 : plan.samples.front().cylinder_index;
+  ImU32 colours[2] = {plot_colour(state, PlotColour::Accent), plot_colour(state, PlotColour::Danger)};
+  for (const auto& s : plan.samples) {
+    if (s.cylinder_index != current) {
+      plot_line(plot, line, colours[current % 2]);
+      line.clear();
+      current = s.cylinder_index;
+    }
+    line.push_back({s.time.in(hours), s.gauge.in(unit)});
+  }
+  plot_line(plot, line, colours[current % 2]);
+  for (const auto& e : plan.events) {
+    if (e.kind == evacuation::EventKind::Swap) plot_vline(plot, e.time.in(hours), plot_colour(state, PlotColour::Dim), "swap");
+    if (e.kind == evacuation::EventKind::Reserve) plot_vline(plot, e.time.in(hours), plot_colour(state, PlotColour::Danger), "empty");
+  }
+}
+
+void draw_cylinder(AppState& state, Pressure ambient) {
+  const UnitChoice& u = state.settings.units;
+  OxygenInputs& in = state.oxygen;
+  heading("Cylinder");
+  edit_quantity(state, volume_field("Water capacity", "cyl-capacity", cylinder::min_water_capacity_l,
+                                    cylinder::max_water_capacity_l), in.water_capacity);
+  edit_quantity(state, cylinder_pressure_field(state, "Cylinder gauge", "cyl-gauge", bar(cylinder::max_gauge_bar)), in.gauge);
+  edit_quantity(state, temperature_field(state, "Cylinder temperature", "cyl-temperature",
+                                         cylinder::min_temperature_c, cylinder::max_temperature_c),
+                in.cylinder_temperature);
+  edit_quantity(state, cylinder_pressure_field(state, "Reserve (swap at)", "cyl-reserve", bar(cylinder::max_gauge_bar)), in.reserve);
+  edit_quantity(state, flow_field("Flow", "cyl-flow", cylinder::max_flow_lpm), in.flow);
+
+  cylinder::Reading reading{in.water_capacity, in.gauge, in.cylinder_temperature, ambient};
+  Result<cylinder::DurationEstimate> d = cylinder::duration(reading, in.reserve, in.flow);
+  if (!d) {
+    result_error(state, "Lasts to reserve", d.error().message);
+    return;
+  }
+  result_value(state, "Lasts to reserve", duration_text(d->to_reserve));
+  result_value(state, "Contents (free gas, real gas)", volume_text(d->contents.free_gas), false);
+  result_value(state, "Usable above reserve", volume_text(d->usable_free_gas), false);
+  (void)u;
+}
+
+void draw_plan(AppState& state, Pressure ambient) {
+  OxygenInputs& in = state.oxygen;
+  heading("Evacuation plan (cylinders like this one, used in turn)");
+  int_stepper(state, "Cylinders", "plan-count", &in.cylinder_count, 1, 20);
+  edit_quantity(state, flow_field("First flow", "plan-first-flow", cylinder::max_flow_lpm), in.first_flow);
+  edit_quantity(state, duration_field("First flow for", "plan-first-time", 0, 4320), in.first_phase);
+  edit_quantity(state, duration_field("Evacuation time", "plan-time", 1, 4320), in.evacuation);
+  ImGui::TextDisabled("Then the flow above until arrival.");
+
+  evacuation::PlanInput input;
+  for (int i = 0; i < in.cylinder_count; ++i) {
+    evacuation::CylinderSpec spec;
+    spec.label = "Cyl " + std::to_string(i + 1);
+    spec.water_capacity = in.water_capacity;
+    spec.gauge_pressure = in.gauge;
+    spec.temperature = in.cylinder_temperature;
+    input.cylinders.push_back(spec);
+  }
+  if (in.first_phase.in(minutes) > 0.0) input.phases.push_back({in.first_flow, in.first_phase});
+  input.phases.push_back({in.flow, minutes(1.0)});
+  input.evacuation = in.evacuation;
+  input.reserve_gauge = in.reserve;
+  input.ambient_pressure = ambient;
+  Result<evacuation::EvacuationPlan> plan = evacuation::plan_evacuation(input);
+  if (!plan) {
+    result_error(state, "Oxygen for the evacuation", plan.error().message);
+    return;
+  }
+  const evacuation::EvacuationPlan& p = plan.value();
+  result_value(state, "Oxygen for the evacuation",
+               p.enough ? "Enough: " + duration_text(p.spare) + " spare"
+                        : "Short by " + duration_text(p.shortfall));
+  if (!p.enough) {
+    result_value(state, "Extra cylinders needed", std::to_string(p.extra_cylinders_needed), false);
+  }
+  result_value(state, "Supply lasts", p.supply_lasts ? duration_text(*p.supply_lasts) : "\xE2\x80\x94", false);
+  draw_timeline(state, input, p);
+  for (const auto& e : p.events) {
+    ImGui::BulletText("%s  %s", duration_text(e.time).c_str(), e.text.c_str());
+  }
+  for (const std::string& a : p.assumptions) {
+    ImGui::PushTextWrapPos(0.0f);
+    ImGui::TextDisabled("%s", a.c_str());
+    ImGui::PopTextWrapPos();
+  }
+}
+
+}  // namespace
+
+void draw_oxygen_panel(AppState& state, Platform&) {
+  // Gauges read relative to the air around them: the situation's pressure.
+  Result<Pressure> pb = situation_pressure(state);
+  Pressure ambient = pb ? pb.value() : units::atmospheres(1.0);
+  if (!pb) message_line(state, "Pressure here unknown (" + pb.error().message + "); gauges taken at 1 atm.", true);
+  draw_cylinder(state, ambient);
+  draw_plan(state, ambient);
+  caution_line(state);
+}
+
 }  // namespace firn::ui

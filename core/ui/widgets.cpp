@@ -58,20 +58,20 @@ bool choice_row(const AppState& state, const char* id, const char* const* labels
 void result_value(AppState& state, const char* label, const std::string& shown,
                   bool emphasised) {
   state.last_results[label] = shown;
+  if (!emphasised) {
+    // Secondary results on one line: the large ones stay above the fold on a phone.
+    ImGui::TextDisabled("%s", label);
+    ImGui::SameLine();
+    ImGui::TextUnformatted(shown.c_str());
+    test_hook::item_text(label, shown);
+    return;
+  }
   ImGui::TextDisabled("%s", label);
-  bool large = emphasised && state.font_large != nullptr;
+  bool large = state.font_large != nullptr;
   if (large) ImGui::PushFont(state.font_large);
   ImGui::TextUnformatted(shown.c_str());
   if (large) ImGui::PopFont();
   test_hook::item_text(label, shown);
-}
-
-std::string with_default_unit(const std::string& text, std::string_view unit) {
-  for (char c : text) {
-    if (std::isalpha(static_cast<unsigned char>(c)) && c != 'e' && c != 'E') return text;
-    if (static_cast<unsigned char>(c) >= 0x80) return text;  // "°C"
-  }
-  return text + std::string(unit);
 }
 
 bool toggle_row(const AppState& state, const char* id, const char* off_label, const char* on_label,
@@ -81,6 +81,29 @@ bool toggle_row(const AppState& state, const char* id, const char* off_label, co
   if (!choice_row(state, id, labels, 2, &selected)) return false;
   *value = selected == 1;
   return true;
+}
+
+bool int_stepper(const AppState& state, const char* label, const char* id, int* value, int low,
+                 int high) {
+  ImGui::TextDisabled("%s", label);
+  ImGui::PushID(id);
+  float height = std::max(touch_target(state), ImGui::GetFrameHeight());
+  float width = std::max(height, 2.5f * em());
+  int before = *value;
+  if (ImGui::Button("\xE2\x88\x92", ImVec2(width, height)) && *value > low) --*value;
+  test_hook::item(std::string(label) + " -");
+  ImGui::SameLine();
+  std::string shown = std::to_string(*value);
+  if (state.font_large) ImGui::PushFont(state.font_large);
+  ImGui::AlignTextToFramePadding();
+  ImGui::TextUnformatted(shown.c_str());
+  if (state.font_large) ImGui::PopFont();
+  test_hook::item_text(label, shown);
+  ImGui::SameLine();
+  if (ImGui::Button("+", ImVec2(width, height)) && *value < high) ++*value;
+  test_hook::item(std::string(label) + " +");
+  ImGui::PopID();
+  return *value != before;
 }
 
 void message_line(const AppState&, const std::string& text, bool warning) {
@@ -94,7 +117,9 @@ void message_line(const AppState&, const std::string& text, bool warning) {
 
 void heading(const char* text) {
   ImGui::Spacing();
+  ImGui::PushTextWrapPos(0.0f);
   ImGui::TextDisabled("%s", text);
+  ImGui::PopTextWrapPos();
 }
 
 void result_error(AppState& state, const char* label, const std::string& message) {

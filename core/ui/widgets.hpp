@@ -34,6 +34,10 @@ void result_value(AppState& state, const char* label, const std::string& shown,
 bool toggle_row(const AppState& state, const char* id, const char* off_label, const char* on_label,
                 bool* value);
 
+// An integer with − / + ("Cylinders": 3). Recorded as label, "<label> -", "<label> +".
+bool int_stepper(const AppState& state, const char* label, const char* id, int* value, int low,
+                 int high);
+
 // Wrapped text; `warning` colours it as a caution.
 void message_line(const AppState& state, const std::string& text, bool warning = false);
 // Small dim heading above a group of widgets.
