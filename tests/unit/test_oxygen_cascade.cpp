@@ -1,0 +1,178 @@
+// Oxygen cascade: PiO2, alveolar gas equation, PaCO2 at altitude, A–a, pH and SaO2.
+#include <catch2/catch.hpp>
+
+#include <cmath>
+
+#include "model/oxygen_cascade.hpp"
+
+using namespace firn;
+using namespace firn::units;
+using namespace firn::cascade;
+
+namespace {
+Cascade run(double pb_mmhg, Exposure exposure, std::optional<double> paco2 = std::nullopt) {
+  CascadeInputs in;
+  in.barometric = mmhg(pb_mmhg);
+  in.exposure = exposure;
+  if (paco2) in.measured_paco2 = mmhg(*paco2);
+  Result<Cascade> c = oxygen_cascade(in);
+  REQUIRE(c.ok());
+  return c.value();
+}
+double west_pb_mmhg(double km) { return std::exp(6.63328 - 0.1112 * km - 0.00149 * km * km); }
+}  // namespace
+
+TEST_CASE("inspired PO2", "[cascade]") {
+  // Physiology texts (domain brief): PiO2 = FiO2·(PB − 47); sea level 149.2 mmHg with
+  // FiO2 0.2093 (older texts' dry-air fraction).
+  CHECK(inspired_po2(mmhg(760), fraction(0.2093))->in(mmhg) == Approx(149.2).margin(0.05));
+  // FiO2 of dry air is the same at altitude (common practice): at 5000 m (West 1996, 419 Torr)
+  // PiO2 = 0.2095·(419 − 47) = 77.9 mmHg.
+  CHECK(inspired_po2(torr(419), dry_air_fio2())->in(mmhg) == Approx(77.93).margin(0.05));
+  CHECK(dry_air_fio2().in(fraction) == 0.2095);
+}
+
+TEST_CASE("alveolar gas equation", "[cascade]") {
+  // Domain brief worked values (standard physiology texts): sea level, FiO2 0.21, PaCO2 40,
+  // R 0.8: PAO2 99.7 mmHg (simplified) and 101.8 mmHg (full equation).
+  Pressure pio2 = inspired_po2(mmhg(760), fraction(0.21)).value();
+  CHECK(alveolar_po2_simplified(pio2, mmhg(40))->in(mmhg) == Approx(99.7).margin(0.05));
+  CHECK(alveolar_po2(pio2, mmhg(40), fraction(0.21))->in(mmhg) == Approx(101.8).margin(0.05));
+  // On 100 % oxygen the correction term vanishes: PAO2 = PiO2 − PaCO2 (same equation).
+  Pressure pio2_o2 = inspired_po2(mmhg(760), fraction(1.0)).value();
+  CHECK(alveolar_po2(pio2_o2, mmhg(40), fraction(1.0))->in(mmhg) == Approx(713 - 40));
+  // R adjustable: R = 1 makes full and simplified equal (PiO2 − PaCO2).
+  CHECK(alveolar_po2(pio2, mmhg(40), fraction(0.21), 1.0)->in(mmhg) ==
+        Approx(pio2.in(mmhg) - 40));
+}
+
+TEST_CASE("Henderson–Hasselbalch pH and renal compensation", "[cascade][acid-base]") {
+  // Normal arterial blood: HCO3⁻ 24 mmol/L, PaCO2 40 mmHg, pH 7.40 (physiology texts; with the
+  // 0.0307 solubility the equation gives 7.391).
+  CHECK(henderson_hasselbalch_ph(24, mmhg(40)).value() == Approx(7.40).margin(0.01));
+  // Compensation rules (common practice): PaCO2 30 acutely → HCO3⁻ 22; after days → 19.5.
+  AcidBase acute = compensated_acid_base(mmhg(30), Compensation::Acute).value();
+  AcidBase chronic = compensated_acid_base(mmhg(30), Compensation::Chronic).value();
+  CHECK(acute.bicarbonate_mmol_l == Approx(22.0));
+  CHECK(chronic.bicarbonate_mmol_l == Approx(19.5));
+  CHECK(acute.ph > chronic.ph);  // compensation pulls pH back towards 7.40
+  CHECK(chronic.ph > 7.40);      // but not all the way (physiology texts)
+  CHECK(chronic.base_excess_mmol_l < acute.base_excess_mmol_l);
+  CHECK(compensated_acid_base(mmhg(40), Compensation::Acute)->base_excess_mmol_l ==
+        Approx(0.0).margin(0.5));
+  CHECK_FALSE(henderson_hasselbalch_ph(0, mmhg(40)).ok());
+}
+
+TEST_CASE("expected PaCO2 follows the Rahn & Otis ranges", "[cascade][paco2]") {
+  // From memory, soft ranges (Rahn & Otis, Am J Physiol 1949;157:445): acute / acclimatised
+  // 3000 m 36–38 / 32–34; 4000 m 34–36 / 29–31; 5000 m 32–34 / 26–28; 6300 m — / 22–24 mmHg.
+  auto at = [](double km, Exposure e) {
+    Pressure pio2 = inspired_po2(torr(west_pb_mmhg(km)), dry_air_fio2()).value();
+    return expected_paco2(pio2, e).value();
+  };
+  CHECK(at(0, Exposure::Acute).paco2.mid.in(mmhg) == Approx(40));
+  CHECK(at(3, Exposure::Acute).paco2.low.in(mmhg) == Approx(36).margin(0.01));
+  CHECK(at(3, Exposure::Acute).paco2.high.in(mmhg) == Approx(38).margin(0.01));
+  CHECK(at(4, Exposure::Acclimatised).paco2.mid.in(mmhg) == Approx(30).margin(0.01));
+  CHECK(at(5, Exposure::Acute).paco2.mid.in(mmhg) == Approx(33).margin(0.01));
+  CHECK(at(6.3, Exposure::Acclimatised).paco2.mid.in(mmhg) == Approx(23).margin(0.01));
+  CHECK_FALSE(at(6.3, Exposure::Acclimatised).extrapolated);
+  // Between rows it lies between them; above the table it is marked extrapolated and keeps
+  // falling, never below the acclimatised line for acute exposure.
+  double mid45 = at(4.5, Exposure::Acute).paco2.mid.in(mmhg);
+  CHECK((mid45 < 35 && mid45 > 33));
+  Paco2Estimate acute6 = at(6.0, Exposure::Acute);
+  CHECK(acute6.extrapolated);
+  CHECK(acute6.paco2.mid.in(mmhg) < 33);
+  CHECK(acute6.paco2.mid >= at(6.0, Exposure::Acclimatised).paco2.mid);
+  // Below sea level (higher PiO2, e.g. breathing oxygen) it stays at the sea-level 40.
+  CHECK(expected_paco2(mmhg(400), Exposure::Acclimatised)->paco2.mid.in(mmhg) == Approx(40));
+}
+
+TEST_CASE("PaCO2 falls monotonically as PiO2 falls", "[cascade][property]") {
+  for (Exposure e : {Exposure::Acute, Exposure::Acclimatised}) {
+    double previous = 1e9;
+    for (double pio2 = 160; pio2 >= 36; pio2 -= 0.5) {
+      double mid = expected_paco2(mmhg(pio2), e)->paco2.mid.in(mmhg);
+      CHECK(mid <= previous);
+      CHECK(mid >= 8.0);
+      previous = mid;
+    }
+  }
+}
+
+TEST_CASE("A–a gradient narrows from sea level to altitude", "[cascade]") {
+  // From memory: ~5–10 mmHg at sea level, ~2–6 at altitude.
+  PressureBand sea = expected_aa_gradient(mmhg(149.4)).value();
+  CHECK(sea.low.in(mmhg) == Approx(5.0).margin(0.01));
+  CHECK(sea.high.in(mmhg) == Approx(10.0).margin(0.01));
+  PressureBand high = expected_aa_gradient(mmhg(80)).value();
+  CHECK(high.low.in(mmhg) == Approx(2.0));
+  CHECK(high.high.in(mmhg) == Approx(6.0));
+  double between = expected_aa_gradient(mmhg(125))->mid.in(mmhg);
+  CHECK((between > 4.0 && between < 7.5));
+}
+
+TEST_CASE("cascade at sea level gives normal arterial values", "[cascade]") {
+  // Physiology texts: healthy young adult at sea level PaO2 ~90–100 mmHg, SaO2 ~97–98 %, pH 7.40.
+  Cascade c = run(760, Exposure::Acute);
+  CHECK(c.middle.arterial.in(mmhg) == Approx(94).margin(5));
+  CHECK(c.middle.sao2.in(percent) == Approx(97.5).margin(1.0));
+  CHECK(c.middle.acid_base.ph == Approx(7.40).margin(0.01));
+  CHECK(c.lowest.sao2 <= c.middle.sao2);
+  CHECK(c.middle.sao2 <= c.highest.sao2);
+}
+
+TEST_CASE("cascade near 8400 m is plausible against Grocott 2009", "[cascade][plausibility]") {
+  // Grocott MPW et al., Arterial blood gases and oxygen content in climbers on Mount Everest,
+  // NEJM 2009;360:140-149: at 8400 m, PaCO2 13.3 mmHg (domain brief). From memory: PB 272 mmHg,
+  // mean PaO2 24.6 mmHg, pH 7.53, calculated SaO2 54 %. Loose check of the cascade physics with
+  // their measured PaCO2 fed in: within 5 mmHg PaO2 and 0.05 pH.
+  Cascade measured = run(272, Exposure::Acclimatised, 13.3);
+  CHECK(measured.middle.arterial.in(mmhg) == Approx(24.6).margin(5.0));
+  CHECK(measured.middle.acid_base.ph == Approx(7.53).margin(0.05));
+  // On the steep part of the curve 1 mmHg is ~3 % SaO2, so the saturation is checked at their
+  // measured PaO2 and pH (standard P50): within 5 % of their 54 %.
+  dissociation::CurveShift grocott;
+  grocott.ph = 7.53;
+  CHECK(dissociation::saturation(mmhg(24.6), grocott)->in(percent) == Approx(54).margin(5.0));
+  // The expected-PaCO2 table stops at 6300 m; extended to 8400 m it is marked extrapolated and
+  // predicts less hyperventilation than Grocott measured (model ~17 mmHg vs 13.3): within 5.
+  Cascade expected = run(272, Exposure::Acclimatised);
+  CHECK(expected.paco2_extrapolated);
+  CHECK(expected.middle.paco2.in(mmhg) == Approx(13.3).margin(5.0));
+  CHECK(expected.middle.paco2.in(mmhg) > 13.3);
+}
+
+TEST_CASE("acclimatised people have more oxygen than new arrivals at the same altitude",
+          "[cascade]") {
+  // Ventilatory acclimatisation raises PAO2 (Rahn & Otis 1949, O2–CO2 diagram).
+  for (double km : {3.0, 4.0, 5.0}) {
+    Cascade acute = run(west_pb_mmhg(km), Exposure::Acute);
+    Cascade acclimatised = run(west_pb_mmhg(km), Exposure::Acclimatised);
+    CHECK(acclimatised.middle.alveolar > acute.middle.alveolar);
+    CHECK(acclimatised.middle.sao2 > acute.middle.sao2);
+  }
+}
+
+TEST_CASE("cascade input errors name range and unit", "[cascade][errors]") {
+  Result<Pressure> low = inspired_po2(hectopascals(50), dry_air_fio2());
+  REQUIRE_FALSE(low.ok());
+  CHECK(low.error().message ==
+        "barometric pressure must be between 100 and 1300 hPa (got 50 hPa)");
+  CHECK_FALSE(inspired_po2(hectopascals(NAN), dry_air_fio2()).ok());
+  Result<Pressure> fio2 = inspired_po2(hectopascals(600), fraction(1.5));
+  REQUIRE_FALSE(fio2.ok());
+  CHECK(fio2.error().message.find("between 0.15 and 1") != std::string::npos);
+  CHECK(alveolar_po2(mmhg(100), mmhg(120), fraction(0.21)).error().message.find("mmHg") !=
+        std::string::npos);
+  CHECK_FALSE(alveolar_po2(mmhg(100), mmhg(40), fraction(0.21), 2.0).ok());
+  // Contradictory inputs: PaCO2 60 at PiO2 40 would give a negative alveolar PO2.
+  Result<Pressure> negative = alveolar_po2(mmhg(40), mmhg(60), fraction(0.21));
+  REQUIRE_FALSE(negative.ok());
+  CHECK(negative.error().message.find("below zero") != std::string::npos);
+  CascadeInputs too_high;
+  too_high.barometric = hectopascals(150);  // PiO2 ~12 mmHg
+  CHECK(oxygen_cascade(too_high).error().message.find("inspired PO2") != std::string::npos);
+  CHECK_FALSE(expected_paco2(mmhg(NAN), Exposure::Acute).ok());
+}
