@@ -1,0 +1,52 @@
+// 2018 Lake Louise AMS score.
+#include <catch2/catch.hpp>
+
+#include "model/lake_louise.hpp"
+
+using namespace firn;
+using namespace firn::lake_louise;
+
+namespace {
+Score scored(int headache, int gi, int fatigue, int dizziness, bool ascent = true) {
+  Result<Score> s = score({headache, gi, fatigue, dizziness, ascent});
+  REQUIRE(s.ok());
+  return s.value();
+}
+}  // namespace
+
+TEST_CASE("total and categories", "[lake-louise]") {
+  // Roach RC et al., High Alt Med Biol 2018;19:4-6: four items 0–3; AMS = recent ascent +
+  // headache + total ≥ 3; mild 3–5, moderate 6–9, severe 10–12.
+  CHECK(scored(0, 0, 0, 0).total == 0);
+  CHECK(scored(0, 0, 0, 0).category == Category::None);
+  CHECK(scored(1, 1, 0, 0).category == Category::None);  // total 2
+  CHECK(scored(1, 1, 1, 0).category == Category::Mild);  // 3: lower edge of mild
+  CHECK(scored(2, 2, 1, 0).category == Category::Mild);  // 5
+  CHECK(scored(2, 2, 2, 0).category == Category::Moderate);  // 6
+  CHECK(scored(3, 3, 3, 0).category == Category::Moderate);  // 9
+  CHECK(scored(3, 3, 3, 1).category == Category::Severe);    // 10
+  CHECK(scored(3, 3, 3, 3).total == 12);
+  CHECK(scored(3, 3, 3, 3).category == Category::Severe);
+}
+
+TEST_CASE("AMS needs a headache and a recent ascent", "[lake-louise]") {
+  // Roach 2018: without headache there is no AMS whatever the total.
+  Score no_headache = scored(0, 3, 3, 3);
+  CHECK(no_headache.total == 9);
+  CHECK_FALSE(no_headache.meets_ams_definition);
+  CHECK(no_headache.category == Category::None);
+  Score no_ascent = scored(2, 2, 2, 2, false);
+  CHECK_FALSE(no_ascent.meets_ams_definition);
+  CHECK(no_ascent.category == Category::None);
+  CHECK(scored(1, 1, 1, 0).meets_ams_definition);
+}
+
+TEST_CASE("items outside 0–3 are errors naming the range", "[lake-louise][errors]") {
+  Result<Score> high = score({4, 0, 0, 0, true});
+  REQUIRE_FALSE(high.ok());
+  CHECK(high.error().message == "headache item must be between 0 and 3 points (got 4 points)");
+  Result<Score> negative = score({0, 0, -1, 0, true});
+  REQUIRE_FALSE(negative.ok());
+  CHECK(negative.error().message.find("fatigue/weakness item") != std::string::npos);
+  CHECK(category_key(Category::Moderate) == "moderate");
+}
