@@ -1,8 +1,245 @@
-// `firn oxygenation and curve`: placeholder until the command lands (registers nothing yet).
+// `firn oxygenation`: the oxygen cascade and the expected SpO2 band at an altitude or pressure
+// (optionally with oxygen and a measured SpO2); `firn curve`: the dissociation curve at a PO2.
+#include <cmath>
+#include <memory>
+
 #include "cli/cli.hpp"
+#include "model/atmosphere.hpp"
+#include "model/cautions.hpp"
+#include "model/dissociation.hpp"
+#include "model/expected_spo2.hpp"
+#include "model/oxygen_cascade.hpp"
+#include "model/supplemental_oxygen.hpp"
 
 namespace firn::cli {
+namespace {
 
-void register_oxygenation_commands(CommandTable&) {}
+using namespace units;
+namespace atm = firn::atmosphere;
+namespace o2 = firn::supplemental_oxygen;
+
+struct OxygenationOptions {
+  std::optional<std::string> altitude, pressure, model, fio2, spo2, device, flow, target;
+  bool acclimatised = false;
+};
+
+struct CurveOptions {
+  std::optional<std::string> po2, ph, temperature, base_excess, p50;
+};
+
+// A number that may carry a trailing '%': "0.3" → 0.3, "30%" → 0.3 when `percent_sign_scales`.
+Result<double> number_or_percent(const std::string& text, const std::string& option,
+                                 const std::string& what, bool percent_sign_scales) {
+  std::string body = text;
+  bool had_percent = !body.empty() && body.back() == '%';
+  if (had_percent) body.pop_back();
+  Result<double> n = parse_number(body, what);
+  if (!n) return Error{option + ": " + n.error().message};
+  return had_percent && percent_sign_scales ? n.value() / 100.0 : n.value();
+}
+
+// An optional plain number; the model checks its range and names it.
+Result<std::optional<double>> optional_number(const std::optional<std::string>& text,
+                                              const std::string& option, const std::string& what) {
+  if (!text) return std::optional<double>{};
+  Result<double> n = parse_number(*text, what);
+  if (!n) return Error{option + ": " + n.error().message};
+  return std::optional<double>{n.value()};
+}
+
+Result<Pressure> barometric_pressure(const OxygenationOptions& o, atm::Model model,
+                                     Report& report) {
+  if (o.altitude && o.pressure) return Error{"give --altitude or --pressure, not both"};
+  if (o.pressure) {
+    Result<Pressure> p = required_pressure(o.pressure, "--pressure", "barometric pressure");
+    if (!p) return p.error();
+    Result<Pressure> checked = atm::pressure_from_station_reading(p.value());
+    if (!checked) return Error{"--pressure: " + checked.error().message};
+    return checked;
+  }
+  Result<Length> altitude = required_length(o.altitude, "--altitude or --pressure", "altitude");
+  if (!altitude) return altitude.error();
+  Result<Pressure> p = atm::pressure_at(altitude.value(), model);
+  if (!p) return Error{"--altitude: " + p.error().message};
+  report.add("altitude_m", altitude->in(metres), 1, "Altitude", "m");
+  return p;
+}
+
+// Adds the device rows; returns the error if an option is bad.
+std::optional<Error> add_oxygen_rows(Report& report, const OxygenationOptions& o, Pressure pb,
+                                     cascade::Exposure exposure) {
+  Result<o2::Device> device = o2::parse_device(*o.device);
+  if (!device) return Error{"--device: " + device.error().message};
+  report.add_text("device", std::string(o2::device_key(device.value())), "Oxygen device");
+  if (o.flow) {
+    Result<double> lpm = parse_number(*o.flow, "oxygen flow");
+    if (!lpm) return Error{"--flow: " + lpm.error().message};
+    Result<o2::Prediction> p =
+        o2::predict(pb, exposure, device.value(), litres_per_minute(lpm.value()));
+    if (!p) return Error{"--flow: " + p.error().message};
+    report.add("flow_lpm", lpm.value(), 1, "Oxygen flow", "L/min");
+    report.add("device_fio2", p->fio2.in(fraction), 2, "FiO2 with device (rule of thumb)", "");
+    report.add("spo2_with_oxygen_low_pct", p->spo2.low.in(percent), 0, "SpO2 on oxygen, low", "%");
+    report.add("spo2_with_oxygen_pct", p->spo2.mid.in(percent), 0, "SpO2 on oxygen", "%");
+    report.add("spo2_with_oxygen_high_pct", p->spo2.high.in(percent), 0, "SpO2 on oxygen, high", "%");
+  }
+  Fraction target = percent(o2::kDefaultTargetPercent);
+  if (o.target) {
+    Result<double> t = number_or_percent(*o.target, "--target", "target SpO2", false);
+    if (!t) return t.error();
+    target = percent(t.value());
+  }
+  Result<o2::FlowForTarget> f = o2::lowest_flow_for_target(pb, exposure, device.value(), target);
+  if (!f) return Error{"--target: " + f.error().message};
+  report.add("target_spo2_pct", target.in(percent), 0, "Target SpO2 (WMS: > 90 %)", "%");
+  report.json["target_reachable"] = f->reachable;
+  if (f->reachable) {
+    report.add("lowest_flow_lpm", f->flow.in(litres_per_minute), 1, "Lowest flow for target", "L/min");
+  } else {
+    report.json["lowest_flow_lpm"] = nullptr;
+    report.rows.emplace_back("Lowest flow for target", "not reachable with this device");
+  }
+  report.notes.emplace_back(o2::kRuleOfThumbNote);
+  return std::nullopt;
+}
+
+Result<Report> run_oxygenation(const OxygenationOptions& o) {
+  atm::Model model = atm::default_medical_model;
+  if (o.model) {
+    Result<atm::Model> m = atm::parse_model(*o.model);
+    if (!m) return Error{"--model: " + m.error().message};
+    model = m.value();
+  }
+  Report report;
+  Result<Pressure> pb = barometric_pressure(o, model, report);
+  if (!pb) return pb.error();
+  Fraction fio2 = cascade::dry_air_fio2();
+  if (o.fio2) {
+    Result<double> f = number_or_percent(*o.fio2, "--fio2", "FiO2", true);
+    if (!f) return f.error();
+    if (!in_range(f.value(), 0.15, 1.0)) {
+      return Error{"--fio2: " + range_error("FiO2", 0.15, 1.0, "(fraction; or 15% to 100%)",
+                                            f.value()).message};
+    }
+    fio2 = fraction(f.value());
+  }
+  cascade::Exposure exposure =
+      o.acclimatised ? cascade::Exposure::Acclimatised : cascade::Exposure::Acute;
+  Result<expected_spo2::Expectation> e = expected_spo2::expected(pb.value(), exposure, fio2);
+  if (!e) return e.error();
+  const cascade::CascadePath& mid = e->cascade.middle;
+
+  report.add_text("model", std::string(atm::model_key(model)), "Atmosphere model");
+  report.add_text("exposure", std::string(cascade::exposure_key(exposure)), "Exposure");
+  report.add("pressure_hpa", pb->in(hectopascals), 1, "Barometric pressure", "hPa");
+  report.add("pressure_mmhg", pb->in(mmhg), 1, "Barometric pressure", "mmHg");
+  report.add("fio2", fio2.in(fraction), 4, "FiO2", "");
+  report.add("pio2_mmhg", e->cascade.inspired.in(mmhg), 1, "Inspired PO2 (PiO2)", "mmHg");
+  report.add("paco2_mmhg", mid.paco2.in(mmhg), 1, "PaCO2 expected", "mmHg");
+  report.add("paco2_low_mmhg", e->cascade.highest.paco2.in(mmhg), 1, "PaCO2 range, low", "mmHg");
+  report.add("paco2_high_mmhg", e->cascade.lowest.paco2.in(mmhg), 1, "PaCO2 range, high", "mmHg");
+  report.add("pao2_mmhg", mid.alveolar.in(mmhg), 1, "Alveolar PO2 (PAO2)", "mmHg");
+  report.add("a_a_gradient_mmhg", mid.aa_gradient.in(mmhg), 1, "A-a gradient", "mmHg");
+  report.add("arterial_po2_mmhg", mid.arterial.in(mmhg), 1, "Arterial PO2 (PaO2)", "mmHg");
+  report.add("ph", mid.acid_base.ph, 2, "Arterial pH", "");
+  report.add("bicarbonate_mmol_l", mid.acid_base.bicarbonate_mmol_l, 1, "Bicarbonate", "mmol/L");
+  report.add("spo2_expected_low_pct", e->band.low.in(percent), 0, "Expected SpO2, low", "%");
+  report.add("spo2_expected_pct", e->band.mid.in(percent), 0, "Expected SpO2", "%");
+  report.add("spo2_expected_high_pct", e->band.high.in(percent), 0, "Expected SpO2, high", "%");
+  report.json["extrapolated"] = e->extrapolated;
+  if (e->extrapolated) {
+    report.notes.emplace_back("Beyond the altitudes of the field data (above ~5500 m): the band "
+                              "is an extrapolation.");
+  }
+
+  if (o.spo2) {
+    Result<double> s = number_or_percent(*o.spo2, "--spo2", "measured SpO2", false);
+    if (!s) return s.error();
+    Result<expected_spo2::Assessment> a = expected_spo2::assess(percent(s.value()), e->band);
+    if (!a) return Error{"--spo2: " + a.error().message};
+    report.add("spo2_measured_pct", s.value(), 0, "Measured SpO2", "%");
+    report.add("spo2_gap_pct", a->gap_points, 1, "Gap to expected band", "% points");
+    report.add_text("spo2_assessment", std::string(expected_spo2::position_key(a->position)),
+                    "Assessment");
+    report.json["hape_suspected"] = a->hape_suspected;
+    report.json["oximeter_unreliable"] = a->oximeter_unreliable;
+    Json list = Json::array();
+    for (std::string_view c : a->cautions) list.push_back(std::string(c));
+    report.json["cautions"] = list;
+    for (std::string_view c : a->cautions) report.notes.emplace_back(c);
+  } else {
+    report.notes.emplace_back(cautions::short_line);
+  }
+  if (o.device) {
+    if (std::optional<Error> bad = add_oxygen_rows(report, o, pb.value(), exposure)) return *bad;
+  } else if (o.flow || o.target) {
+    return Error{"--flow and --target need --device (cannula, mask or non-rebreather)"};
+  }
+  return report;
+}
+
+Result<Report> run_curve(const CurveOptions& o) {
+  Result<Pressure> po2 = required_pressure(o.po2, "--po2", "PO2");
+  if (!po2) return po2.error();
+  dissociation::CurveShift shift;
+  Result<std::optional<double>> ph = optional_number(o.ph, "--ph", "pH");
+  if (!ph) return ph.error();
+  if (ph.value()) shift.ph = **ph;
+  Result<std::optional<double>> be = optional_number(o.base_excess, "--base-excess", "base excess");
+  if (!be) return be.error();
+  if (be.value()) shift.base_excess_mmol_l = **be;
+  if (o.temperature) {
+    Result<Temperature> t = parse_temperature(*o.temperature, "body temperature");
+    if (!t) return Error{"--temperature: " + t.error().message};
+    shift.temperature = t.value();
+  }
+  if (o.p50) {
+    Result<Pressure> p50 = required_pressure(o.p50, "--p50", "P50");
+    if (!p50) return p50.error();
+    shift.p50 = p50.value();
+  }
+  Result<dissociation::Curve> curve = dissociation::make_curve(shift);
+  if (!curve) return curve.error();
+  Result<Fraction> s = dissociation::saturation(po2.value(), shift);
+  if (!s) return Error{"--po2: " + s.error().message};
+  Report report;
+  report.add("po2_mmhg", po2->in(mmhg), 1, "PO2", "mmHg");
+  report.add("po2_kpa", po2->in(kilopascals), 2, "PO2", "kPa");
+  report.add("so2_pct", s->in(percent), 2, "Oxygen saturation (Severinghaus 1979)", "%");
+  report.add("virtual_po2_mmhg", po2->in(mmhg) * curve->virtual_po2_factor(), 1,
+             "Virtual PO2 (standard curve)", "mmHg");
+  report.add("p50_mmhg", curve->p50().in(mmhg), 1, "P50 of this curve", "mmHg");
+  report.add("ph", shift.ph, 2, "pH", "");
+  report.add("temperature_c", shift.temperature.in(celsius), 1, "Temperature", "°C");
+  report.add("base_excess_mmol_l", shift.base_excess_mmol_l, 1, "Base excess", "mmol/L");
+  report.notes.emplace_back("Shifts as virtual PO2 (Severinghaus/Kelman form, from memory).");
+  return report;
+}
+
+}  // namespace
+
+void register_oxygenation_commands(CommandTable& table) {
+  auto o = std::make_shared<OxygenationOptions>();
+  CLI::App* ox = table.add("oxygenation", "Oxygen cascade and expected SpO2 at an altitude",
+                           [o] { return run_oxygenation(*o); });
+  ox->add_option("--altitude", o->altitude, "Altitude, e.g. 4000m or 13120ft");
+  ox->add_option("--pressure", o->pressure, "Measured barometric pressure, e.g. 616hPa");
+  ox->add_option("--model", o->model, "Atmosphere model for --altitude: west (default) or isa");
+  ox->add_flag("--acclimatised", o->acclimatised, "Days to weeks at this altitude (default: acute)");
+  ox->add_option("--fio2", o->fio2, "Inspired O2 fraction, e.g. 0.21 or 30% (default 0.2095)");
+  ox->add_option("--spo2", o->spo2, "Measured SpO2 in %, compared with the expected band");
+  ox->add_option("--device", o->device, "Oxygen device: cannula, mask or non-rebreather");
+  ox->add_option("--flow", o->flow, "Oxygen flow in L/min with --device");
+  ox->add_option("--target", o->target, "Target SpO2 in % with --device (default 90)");
+
+  auto c = std::make_shared<CurveOptions>();
+  CLI::App* curve = table.add("curve", "Oxygen saturation at a PO2 (dissociation curve)",
+                              [c] { return run_curve(*c); });
+  curve->add_option("--po2", c->po2, "PO2 with unit, e.g. 60mmHg or 8kPa");
+  curve->add_option("--ph", c->ph, "Blood pH (default 7.40)");
+  curve->add_option("--temperature", c->temperature, "Body temperature, e.g. 37C (default)");
+  curve->add_option("--base-excess", c->base_excess, "Base excess in mmol/L (default 0)");
+  curve->add_option("--p50", c->p50, "P50 with unit, e.g. 26.8mmHg (default)");
+}
 
 }  // namespace firn::cli
