@@ -4,6 +4,7 @@
 #include "ui/panels.hpp"
 
 #include "model/atmosphere.hpp"
+#include "model/expected_spo2.hpp"
 #include "ui/fields.hpp"
 #include "ui/format.hpp"
 #include "ui/situation.hpp"
@@ -86,11 +87,31 @@ void draw_pressure(AppState& state) {
   }
 }
 
+// Oxygen here for the situation's casualty (air or the device's FiO2): the cascade's middle
+// path, with PAO2's soft range from the expected PaCO2 band.
+void draw_oxygen_here(AppState& state) {
+  const UnitChoice& u = state.settings.units;
+  heading(state.situation.on_oxygen ? "Oxygen here (on oxygen, see Casualty)" : "Oxygen here (breathing air)");
+  Result<expected_spo2::Expectation> e = situation_expectation(state);
+  if (!e) {
+    result_error(state, "Inspired PO2 (PiO2)", e.error().message);
+    return;
+  }
+  const cascade::Cascade& k = e->cascade;
+  result_value(state, "Inspired PO2 (PiO2)", gas_pressure_text(k.inspired, u));
+  result_value(state, "Alveolar PO2 (PAO2), expected",
+               gas_pressure_text(k.lowest.alveolar, u) + "\xE2\x80\x93" + gas_pressure_text(k.highest.alveolar, u), false);
+  result_value(state, "Arterial PO2 (PaO2), expected",
+               gas_pressure_text(k.lowest.arterial, u) + "\xE2\x80\x93" + gas_pressure_text(k.highest.arterial, u), false);
+  result_value(state, "PaCO2, expected", gas_pressure_text(k.middle.paco2, u), false);
+}
+
 }  // namespace
 
 void draw_here_panel(AppState& state, Platform&) {
   draw_where(state);
   draw_pressure(state);
+  draw_oxygen_here(state);
   caution_line(state);
 }
 

@@ -75,3 +75,33 @@ void draw_situation_strip(AppState& state) {
 }
 
 }  // namespace firn::ui
+
+namespace firn::ui {
+
+cascade::Exposure situation_exposure(const AppState& state) {
+  return state.situation.acclimatised ? cascade::Exposure::Acclimatised : cascade::Exposure::Acute;
+}
+
+supplemental_oxygen::Device situation_device(const AppState& state) {
+  switch (state.situation.oxygen_device) {
+    case 1: return supplemental_oxygen::Device::SimpleMask;
+    case 2: return supplemental_oxygen::Device::NonRebreather;
+    default: break;
+  }
+  return supplemental_oxygen::Device::NasalCannula;
+}
+
+Result<units::Fraction> situation_fio2(const AppState& state) {
+  if (!state.situation.on_oxygen) return cascade::dry_air_fio2();
+  return supplemental_oxygen::delivered_fio2(situation_device(state), state.situation.oxygen_flow);
+}
+
+Result<expected_spo2::Expectation> situation_expectation(const AppState& state) {
+  Result<units::Pressure> pb = situation_pressure(state);
+  if (!pb) return pb.error();
+  Result<units::Fraction> fio2 = situation_fio2(state);
+  if (!fio2) return fio2.error();
+  return expected_spo2::expected(pb.value(), situation_exposure(state), fio2.value());
+}
+
+}  // namespace firn::ui

@@ -22,3 +22,17 @@ std::string situation_summary(const AppState& state);
 void draw_situation_strip(AppState& state);
 
 }  // namespace firn::ui
+
+#include "model/expected_spo2.hpp"
+#include "model/supplemental_oxygen.hpp"
+
+namespace firn::ui {
+
+cascade::Exposure situation_exposure(const AppState& state);
+supplemental_oxygen::Device situation_device(const AppState& state);
+// FiO2 the casualty breathes: dry air, or the device's rule-of-thumb value at its flow.
+Result<units::Fraction> situation_fio2(const AppState& state);
+// Healthy-lowlander expectation for the situation (pressure, exposure, FiO2).
+Result<expected_spo2::Expectation> situation_expectation(const AppState& state);
+
+}  // namespace firn::ui

@@ -1,20 +1,28 @@
 #!/usr/bin/env bash
-# Native smoke test: the app under Xvfb (Mesa software GL) writes a screenshot of each screen,
-# and each must show more than a blank window. Prints where the PNGs are.
+# Native smoke test: the app under Xvfb (Mesa software GL) writes a screenshot of every screen at
+# a phone-like size (430×900) and a laptop size (1366×768), and each must show more than a blank
+# window. Runs with a throw-away config directory so saved state never leaks in or out.
+# Usage: screenshots.sh FIRN OUT_DIR   (prints where the PNGs are)
 set -euo pipefail
 firn="$1"; out="$2"
 mkdir -p "$out"
+export XDG_CONFIG_HOME="$(mktemp -d)"
+trap 'rm -rf "$XDG_CONFIG_HOME"' EXIT
 fail=0
-for screen in here settings; do
-  png="$out/$screen.png"
-  rm -f "$png"
-  xvfb-run -a -s "-screen 0 1400x1000x24" "$firn" --screenshot "$png" --screen "$screen" --width 1280 --height 800
-  test -s "$png" || { echo "not ok: no screenshot for $screen"; fail=1; continue; }
-  # Not blank: the PNG of a one-colour window compresses to almost nothing; our screens have
-  # text in several colours. Count distinct colours with node's zlib (no image library needed).
-  colours=$(node "$(dirname "$0")/png_colours.mjs" "$png")
-  if [ "$colours" -lt 8 ]; then echo "not ok: $screen screenshot looks blank ($colours colours)"; fail=1
-  else echo "ok: $screen screenshot $png ($colours colours)"; fi
+for screen in here casualty curve bag oxygen ams teaching settings; do
+  for size in phone:430:900 laptop:1366:768; do
+    IFS=: read -r name width height <<<"$size"
+    png="$out/$screen-$name.png"
+    rm -f "$png"
+    xvfb-run -a -s "-screen 0 1400x1000x24" "$firn" --screenshot "$png" --screen "$screen" \
+      --width "$width" --height "$height" --pixel-ratio 1
+    test -s "$png" || { echo "not ok: no screenshot for $screen $name"; fail=1; continue; }
+    # Not blank: a one-colour window has few colours; our screens have text in several colours.
+    # Count distinct colours with node's zlib (no image library needed).
+    colours=$(node "$(dirname "$0")/png_colours.mjs" "$png")
+    if [ "$colours" -lt 8 ]; then echo "not ok: $screen $name screenshot looks blank ($colours colours)"; fail=1
+    else echo "ok: $screen $name screenshot $png ($colours colours)"; fi
+  done
 done
 echo "screenshots in $out"
 exit $fail
