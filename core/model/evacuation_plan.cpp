@@ -155,7 +155,12 @@ Result<EvacuationPlan> plan_evacuation(const PlanInput& input) {
   // Count in the chosen cylinder, else in the first one filled above the reserve.
   Result<Stock> counting = Error{""};
   if (input.counting_cylinder) {
-    counting = resolve(*input.counting_cylinder, input);
+    CylinderSpec spec = *input.counting_cylinder;
+    // A letter size with no pressure given means a full one at its service pressure.
+    if (spec.letter_size && spec.gauge_pressure == Pressure{}) {
+      spec.gauge_pressure = cylinder::letter_size_info(*spec.letter_size).full_gauge;
+    }
+    counting = resolve(spec, input);
     if (!counting) return counting.error();
   } else {
     counting = stock.front();

@@ -52,7 +52,8 @@ struct PlanInput {
   Pressure reserve_gauge = units::psi(200.0);           // swap when a cylinder reaches this
   Pressure ambient_pressure = units::atmospheres(1.0);  // gauges read relative to this
   // The cylinder the shortfall / spare is counted in ("you need 2 more E cylinders"); a full one
-  // of this spec. When absent: the first listed cylinder filled above the reserve, as it is now.
+  // of this spec (a letter size with gauge_pressure left at 0 means full at its service pressure).
+  // When absent: the first listed cylinder filled above the reserve, as it is now.
   std::optional<CylinderSpec> counting_cylinder;
   Duration sample_interval = units::minutes(5.0);  // pressure-vs-time spacing (1 min…1 h)
 };

@@ -88,6 +88,9 @@ TEST_CASE("one E cylinder is short for 2 h at 15 L/min", "[evacuation]") {
   CHECK(r->shortfall_volume.in(litres) == Approx(1800 - have).epsilon(1e-9));
   CHECK(r->extra_cylinders_needed == static_cast<int>(std::ceil((1800 - have) / full)));
   CHECK(r->extra_cylinders_needed >= 1);
+  // A letter size without a pressure counts full cylinders (2015 psi for E, from memory).
+  in.counting_cylinder = CylinderSpec{"E", cylinder::LetterSize::E, std::nullopt, {}, celsius(15)};
+  CHECK(plan_evacuation(in)->counting_cylinder_usable.in(litres) == Approx(full).epsilon(1e-9));
   CHECK(r->events.back().kind == EventKind::Arrival);
   CHECK(r->events[r->events.size() - 2].kind == EventKind::Reserve);
 }
