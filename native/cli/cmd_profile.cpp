@@ -1,8 +1,285 @@
-// `firn plan, card and profile`: placeholder until the command lands (registers nothing yet).
+// `firn plan`, `firn card` and `firn profile`: the team profile file (docs/team-profile.md), the
+// evacuation oxygen plan it describes, and the printed pocket card made from it.
+#include <cstdio>
+#include <ctime>
+#include <filesystem>
+#include <fstream>
+#include <memory>
+#include <sstream>
+
 #include "cli/cli.hpp"
+#include "model/atmosphere.hpp"
+#include "model/cautions.hpp"
+#include "model/evacuation_plan.hpp"
+#include "model/pocket_card.hpp"
+#include "model/team_profile.hpp"
 
 namespace firn::cli {
+namespace {
 
-void register_profile_commands(CommandTable&) {}
+using namespace units;
+namespace tp = firn::team_profile;
+namespace card = firn::pocket_card;
+
+constexpr std::uintmax_t max_profile_bytes = 1 << 20;  // a profile is a few kB
+
+Result<std::string> read_text_file(const std::string& path) {
+  std::error_code ec;
+  std::uintmax_t size = std::filesystem::file_size(path, ec);
+  if (ec) return Error{"cannot read profile '" + path + "': " + ec.message()};
+  if (size > max_profile_bytes) {
+    return Error{"profile '" + path + "' is " + std::to_string(size) +
+                 " bytes: a team profile is at most 1 MB"};
+  }
+  std::ifstream in(path, std::ios::binary);
+  if (!in) return Error{"cannot read profile '" + path + "'"};
+  std::stringstream buffer;
+  buffer << in.rdbuf();
+  return buffer.str();
+}
+
+Result<tp::TeamProfile> load_profile(const std::optional<std::string>& path) {
+  if (!path) return Error{"--profile is required: a team profile JSON file (firn profile --demo prints one)"};
+  Result<std::string> text = read_text_file(*path);
+  if (!text) return text.error();
+  Result<tp::TeamProfile> profile = tp::parse_profile(text.value());
+  if (!profile) return Error{*path + ": " + profile.error().message};
+  return profile;
+}
+
+Result<bool> write_text_file(const std::filesystem::path& path, const std::string& text) {
+  std::ofstream out(path, std::ios::binary | std::ios::trunc);
+  if (out) out << text;
+  if (!out) return Error{"cannot write '" + path.string() + "'"};
+  return true;
+}
+
+// [SECTION] firn plan
+
+struct PlanOptions {
+  std::optional<std::string> profile;
+};
+
+evacuation::CylinderSpec spec_for(const tp::CylinderType& type, std::string label,
+                                  Pressure gauge, Temperature temperature) {
+  return {std::move(label), type.letter_size, type.water_capacity, gauge, temperature};
+}
+
+Result<Report> run_plan(const PlanOptions& o) {
+  Result<tp::TeamProfile> loaded = load_profile(o.profile);
+  if (!loaded) return loaded.error();
+  const tp::TeamProfile& p = loaded.value();
+  if (!p.evacuation) {
+    return Error{*o.profile + ": evacuation: is missing (the plan needs the cylinders on hand, "
+                              "flow phases and duration; see docs/team-profile.md)"};
+  }
+  const tp::EvacuationPlan& e = *p.evacuation;
+  evacuation::PlanInput input;
+  for (size_t i = 0; i < e.cylinders.size(); ++i) {
+    const tp::CylinderOnHand& c = e.cylinders[i];
+    const tp::CylinderType* type = p.find_cylinder(c.type_label);
+    FIRN_ASSERT(type != nullptr, "validated profile lost a cylinder type");
+    input.cylinders.push_back(spec_for(*type, "#" + std::to_string(i + 1) + " " + c.type_label,
+                                       c.pressure_gauge, c.temperature));
+  }
+  for (const tp::FlowPhase& phase : e.phases) {
+    // The last phase runs to the end of the evacuation: its duration (if any) is not used.
+    input.phases.push_back({phase.flow, phase.duration.value_or(e.evacuation_time)});
+  }
+  input.evacuation = e.evacuation_time;
+  input.reserve_gauge = p.reserve_pressure_gauge;
+  if (e.altitude) {
+    Result<Pressure> ambient = atmosphere::pressure_at(*e.altitude, p.atmosphere_model);
+    if (!ambient) return Error{"evacuation.altitude: " + ambient.error().message};
+    input.ambient_pressure = ambient.value();
+  }
+  if (!e.shortfall_type_label.empty()) {
+    const tp::CylinderType* type = p.find_cylinder(e.shortfall_type_label);
+    input.counting_cylinder =
+        spec_for(*type, "full " + type->label, type->fill_pressure_gauge, celsius(15.0));
+  }
+  Result<evacuation::EvacuationPlan> plan = evacuation::plan_evacuation(input);
+  if (!plan) return Error{*o.profile + ": " + plan.error().message};
+
+  Report report;
+  report.add_text("team_name", p.team_name, "Team");
+  if (p.demo) report.json["demo"] = true;
+  report.add("evacuation_min", e.evacuation_time.in(minutes), 0, "Evacuation", "min");
+  Json timeline = Json::array();
+  for (const evacuation::PlanEvent& event : plan->events) {
+    timeline.push_back({{"time_min", rounded(event.time.in(minutes), 1)},
+                        {"event", std::string(evacuation::event_key(event.kind))},
+                        {"cylinder", input.cylinders[event.cylinder_index].label},
+                        {"text", event.text}});
+    report.rows.emplace_back(format_number(rounded(event.time.in(minutes), 0), 0) + " min",
+                             event.text);
+  }
+  report.json["timeline"] = timeline;
+  Json uses = Json::array();
+  for (const evacuation::CylinderUse& use : plan->uses) {
+    uses.push_back({{"cylinder", use.label},
+                    {"start_min", rounded(use.start.in(minutes), 1)},
+                    {"end_min", rounded(use.end.in(minutes), 1)},
+                    {"start_gauge_bar", rounded(use.start_gauge.in(bar), 1)},
+                    {"end_gauge_bar", rounded(use.end_gauge.in(bar), 1)},
+                    {"delivered_l", rounded(use.delivered.in(litres), 0)},
+                    {"reached_reserve", use.reached_reserve}});
+  }
+  report.json["uses"] = uses;
+  report.json["enough"] = plan->enough;
+  report.add_text("verdict", plan->enough ? "enough" : "short", "Oxygen");
+  report.add("oxygen_needed_l", plan->oxygen_needed.in(litres), 0, "Oxygen needed", "L");
+  report.add("oxygen_usable_l", plan->oxygen_usable.in(litres), 0, "Usable above reserve", "L");
+  report.add("shortfall_min", plan->shortfall.in(minutes), 0, "Shortfall", "min");
+  report.add("spare_min", plan->spare.in(minutes), 0, "Spare", "min");
+  if (plan->supply_lasts) {
+    report.add("supply_lasts_min", plan->supply_lasts->in(minutes), 0, "Supply lasts", "min");
+  } else {
+    report.json["supply_lasts_min"] = nullptr;
+  }
+  std::string counted = input.counting_cylinder ? input.counting_cylinder->label
+                                                : input.cylinders.front().label;
+  report.add_text("count_in", counted, "Counted in");
+  report.json["extra_cylinders_needed"] = plan->extra_cylinders_needed;
+  report.rows.emplace_back("Extra cylinders needed", std::to_string(plan->extra_cylinders_needed));
+  report.add("spare_cylinders", plan->spare_cylinders, 2, "Spare cylinders", "");
+  for (const std::string& a : plan->assumptions) report.notes.push_back(a);
+  report.json["assumptions"] = plan->assumptions;
+  report.notes.emplace_back(cautions::short_line);
+  return report;
+}
+
+// [SECTION] firn card
+
+struct CardOptions {
+  std::optional<std::string> profile, out, size, csv, date;
+};
+
+std::string today() {
+  std::time_t now = std::time(nullptr);
+  std::tm local{};
+  localtime_r(&now, &local);
+  char buffer[16];
+  std::strftime(buffer, sizeof buffer, "%Y-%m-%d", &local);
+  return buffer;
+}
+
+bool looks_like_date(const std::string& s) {
+  if (s.size() != 10 || s[4] != '-' || s[7] != '-') return false;
+  for (size_t i : {0, 1, 2, 3, 5, 6, 8, 9}) {
+    if (!std::isdigit(static_cast<unsigned char>(s[i]))) return false;
+  }
+  return true;
+}
+
+Result<Report> run_card(const CardOptions& o) {
+  Result<tp::TeamProfile> profile = load_profile(o.profile);
+  if (!profile) return profile.error();
+  if (!o.out) return Error{"--out is required: the HTML file to write, e.g. card.html"};
+  card::Size size = card::Size::A6;
+  if (o.size) {
+    Result<card::Size> s = card::parse_size(*o.size);
+    if (!s) return Error{"--size: " + s.error().message};
+    size = s.value();
+  }
+  std::string date = o.date.value_or(today());
+  if (!looks_like_date(date)) return Error{"--date: '" + date + "' must be YYYY-MM-DD"};
+
+  card::Card built = card::build_card(profile.value(), date);
+  Result<bool> written = write_text_file(*o.out, card::render_html(built, size));
+  if (!written) return Error{"--out: " + written.error().message};
+  Report report;
+  report.add_text("html", *o.out, "Card");
+  report.add_text("size", std::string(card::size_key(size)), "Size");
+  report.json["pages"] = card::page_count(built, size);
+  report.rows.emplace_back("Pages", std::to_string(card::page_count(built, size)));
+  Json csv_files = Json::array();
+  if (o.csv) {
+    std::error_code ec;
+    std::filesystem::create_directories(*o.csv, ec);
+    if (ec) return Error{"--csv: cannot create directory '" + *o.csv + "': " + ec.message()};
+    for (const card::Table& table : built.tables) {
+      std::filesystem::path path = std::filesystem::path(*o.csv) / (table.id + ".csv");
+      Result<bool> ok = write_text_file(path, card::table_csv(table));
+      if (!ok) return Error{"--csv: " + ok.error().message};
+      csv_files.push_back(path.string());
+      report.rows.emplace_back("CSV", path.string());
+    }
+  }
+  report.json["csv"] = csv_files;
+  if (profile->demo) report.notes.emplace_back("This profile is DEMO DATA; the card says so.");
+  report.notes.emplace_back(cautions::short_line);
+  return report;
+}
+
+// [SECTION] firn profile
+
+struct ProfileOptions {
+  std::optional<std::string> check;
+  bool demo = false;
+  CLI::App* command = nullptr;
+};
+
+Result<Report> run_profile(const ProfileOptions& o) {
+  bool json = o.command->count("--json") > 0;
+  if (o.demo == o.check.has_value()) return Error{"give --check FILE or --demo"};
+  Report report;
+  if (o.demo) {
+    if (json) {
+      report.json = Json::parse(tp::demo_profile_json());
+    } else {
+      std::fputs(std::string(tp::demo_profile_json()).c_str(), stdout);
+    }
+    return report;
+  }
+  Result<std::string> text = read_text_file(*o.check);
+  if (!text) return text.error();
+  tp::Problems problems = tp::check_profile(text.value());
+  if (!problems.empty()) {
+    if (!json) {
+      for (const std::string& line : problems.lines) std::printf("problem: %s\n", line.c_str());
+    }
+    return Error{*o.check + ": " + std::to_string(problems.lines.size()) +
+                 (problems.lines.size() == 1 ? " problem: " : " problems: ") + problems.joined()};
+  }
+  tp::TeamProfile profile = tp::parse_profile(text.value()).value();
+  report.json["ok"] = true;
+  report.add_text("team_name", profile.team_name, "Team");
+  report.json["demo"] = profile.demo;
+  report.add("cylinder_types", static_cast<double>(profile.cylinders.size()), 0, "Cylinder types", "");
+  report.add("card_rows", static_cast<double>(profile.card_altitudes().size()), 0, "Card rows", "");
+  report.json["evacuation"] = profile.evacuation.has_value();
+  int version = Json::parse(text.value(), nullptr, false).value("schema_version", 0);
+  bool migrated = version < tp::current_schema_version;
+  report.json["migrated_from_older_schema"] = migrated;
+  if (migrated) report.notes.emplace_back("older schema: read and upgraded; save it again to keep the new form");
+  report.notes.emplace_back("profile is valid");
+  return report;
+}
+
+}  // namespace
+
+void register_profile_commands(CommandTable& table) {
+  auto plan = std::make_shared<PlanOptions>();
+  CLI::App* plan_cmd = table.add("plan", "Evacuation oxygen plan from a team profile",
+                                 [plan] { return run_plan(*plan); });
+  plan_cmd->add_option("--profile", plan->profile, "Team profile JSON (docs/team-profile.md)");
+
+  auto c = std::make_shared<CardOptions>();
+  CLI::App* card_cmd = table.add("card", "Printable pocket card (HTML, optional CSV) from a team profile",
+                                 [c] { return run_card(*c); });
+  card_cmd->add_option("--profile", c->profile, "Team profile JSON");
+  card_cmd->add_option("--out", c->out, "HTML file to write");
+  card_cmd->add_option("--size", c->size, "Page size: a6 (default) or wallet (85.6 x 54 mm)");
+  card_cmd->add_option("--csv", c->csv, "Also write every table as CSV into this directory");
+  card_cmd->add_option("--date", c->date, "Date printed on the card, YYYY-MM-DD (default today)");
+
+  auto p = std::make_shared<ProfileOptions>();
+  CLI::App* profile_cmd = table.add("profile", "Check a team profile file, or print the demo profile",
+                                    [p] { return run_profile(*p); });
+  p->command = profile_cmd;
+  profile_cmd->add_option("--check", p->check, "Validate this profile file and list its problems");
+  profile_cmd->add_flag("--demo", p->demo, "Print the demo profile (fictional team) as JSON");
+}
 
 }  // namespace firn::cli
