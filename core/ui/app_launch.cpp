@@ -40,7 +40,11 @@ Result<T> lookup(const std::array<std::pair<std::string_view, T>, N>& table,
 
 Result<bool> apply_launch_options(AppState& state, const std::string& screen,
                                   const std::string& theme) {
-  if (!screen.empty()) {
+  if (screen == "keypad") {
+    // The keypad open on the Here screen's altitude: for screenshots of the number entry.
+    state.screen = Screen::Here;
+    state.keypad = Keypad{true, "altitude", "Altitude", "-500\xE2\x80\x93" "9000 m", "4250", false, {"m", "ft"}, 0, false, 0};
+  } else if (!screen.empty()) {
     Result<Screen> s = lookup(kScreens, screen, "screen");
     if (!s) return s.error();
     state.screen = s.value();

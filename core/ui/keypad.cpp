@@ -175,6 +175,8 @@ void draw_keypad(AppState& state, float width, float height) {
     }
   }
   float w = (avail - spacing * 3) / 4;
+  // Digits in the large font: readable through a misted visor, and the key still one target.
+  if (state.font_large) ImGui::PushFont(state.font_large);
   const char* rows[3][3] = {{"7", "8", "9"}, {"4", "5", "6"}, {"1", "2", "3"}};
   for (int r = 0; r < 3; ++r) {
     for (int c = 0; c < 3; ++c) {
@@ -192,6 +194,7 @@ void draw_keypad(AppState& state, float width, float height) {
   if (key(state, "0", "Key 0", w, key_height)) type_char(k, '0');
   ImGui::SameLine();
   if (key(state, "OK", "Key OK", w * 2 + spacing, key_height, true)) close_keypad(state, true);
+  if (state.font_large) ImGui::PopFont();
   ImGui::End();
   ImGui::PopStyleVar();
 }

@@ -71,7 +71,7 @@ void draw_curve_panel(AppState& state, Platform&) {
     result_value(state, "pH (expected, compensated)", shown_number(mid.acid_base.ph, 2), false);
   }
   ImGui::PushTextWrapPos(0.0f);
-  ImGui::TextDisabled("On the steep part of the curve a small fall in PaO2 costs a lot of "
+  ImGui::TextDisabled("%s", "On the steep part of the curve a small fall in PaO2 costs a lot of "
                       "saturation; oximeters are unreliable below 80 %.");
   ImGui::PopTextWrapPos();
   caution_line(state);
