@@ -133,6 +133,9 @@ FieldEvent keypad_field(AppState& state, const FieldSpec& spec) {
 void draw_keypad(AppState& state, float width, float height) {
   Keypad& k = state.keypad;
   if (!k.open) return;
+  // Tells the runner typing goes somewhere (the web page publishes it as firnWantsText);
+  // ImGui recomputes it at the next NewFrame.
+  ImGui::GetIO().WantTextInput = true;
   keyboard_into_keypad(state);
   if (!k.open || k.committed) return;
 
