@@ -44,6 +44,8 @@ void type_char(Keypad& k, char c) {
 }
 
 void backspace(Keypad& k) {
+  // The shown value starts "selected": the first backspace clears it, like a selected field.
+  if (k.fresh) k.text.clear();
   k.fresh = false;
   if (!k.text.empty()) k.text.pop_back();
 }
