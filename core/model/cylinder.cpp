@@ -40,10 +40,18 @@ Result<double> check_flow(VolumeFlow flow, std::string_view what = "flow") {
   return f;
 }
 
-// Free-gas litres of one mole at the reference state (real gas, Z ≈ 0.9992).
+// Compressibility at the reference state (≈ 0.9992): a constant of the equation of state,
+// solved once rather than on every call (the plan asks for thousands of contents).
+double reference_compressibility() {
+  static const double z_ref =
+      oxygen_eos::compressibility(reference_temperature, reference_pressure).value();
+  return z_ref;
+}
+
+// Free-gas litres of one mole at the reference state (real gas).
 double free_litres_per_mole() {
-  double z_ref = oxygen_eos::compressibility(reference_temperature, reference_pressure).value();
-  return z_ref * kR * reference_temperature.in(kelvin) / reference_pressure.in(pascals) * 1000.0;
+  return reference_compressibility() * kR * reference_temperature.in(kelvin) /
+         reference_pressure.in(pascals) * 1000.0;
 }
 
 // Contents of an already-checked reading.
@@ -51,7 +59,7 @@ Contents contents_checked(const Reading& r) {
   Pressure absolute = r.gauge_pressure + r.ambient_pressure;
   oxygen_eos::State s = oxygen_eos::state_at(r.temperature, absolute).value();
   double moles = s.molar_density_mol_per_m3 * r.water_capacity.in(litres) / 1000.0;
-  double z_ref = oxygen_eos::compressibility(reference_temperature, reference_pressure).value();
+  double z_ref = reference_compressibility();
   Contents c;
   c.free_gas = litres(moles * free_litres_per_mole());
   c.ideal_free_gas = r.water_capacity * (absolute / reference_pressure);
@@ -107,14 +115,14 @@ Result<Pressure> gauge_pressure_for(Volume water_capacity, Temperature temperatu
     return range_error("free gas in this cylinder", std::ceil(empty * 10) / 10,
                        std::floor(full * 10) / 10, "L", want);
   }
-  // Contents rise monotonically with pressure: bisection to 1 Pa.
-  double low = 0.0, high = bar(max_gauge_bar).in(pascals);
-  for (int i = 0; i < 60 && high - low > 1.0; ++i) {
-    double mid = 0.5 * (low + high);
-    r.gauge_pressure = pascals(mid);
-    if (contents_checked(r).free_gas.in(litres) < want) low = mid; else high = mid;
-  }
-  return pascals(0.5 * (low + high));
+  // The equation of state is explicit in density: the moles fix ρ, and P(ρ, T) follows directly.
+  double moles = want / free_litres_per_mole();
+  double density = moles / (water_capacity.in(litres) / 1000.0);
+  Pressure absolute = pascals(oxygen_eos::pressure_pa(density, temperature.in(kelvin)));
+  Pressure gauge = absolute - ambient_pressure;
+  if (gauge < bar(0.0)) return bar(0.0);  // rounding at the empty end
+  if (gauge > bar(max_gauge_bar)) return bar(max_gauge_bar);
+  return gauge;
 }
 
 Result<DurationEstimate> duration(const Reading& reading, Pressure reserve_gauge,
