@@ -63,6 +63,15 @@ std::string range_text(double low, double high, std::string_view unit) {
 }
 
 
+// "cylinders[2].fill_pressure" → "fill pressure": how unit parsers name the field.
+std::string field_words(const std::string& path) {
+  size_t dot = path.find_last_of('.');
+  std::string last = dot == std::string::npos ? path : path.substr(dot + 1);
+  if (size_t bracket = last.find('['); bracket != std::string::npos) last.erase(bracket);
+  for (char& c : last) c = c == '_' ? ' ' : c;
+  return last;
+}
+
 // Reads typed fields out of JSON objects, recording a problem (path: what is wrong) for every
 // field that is missing, of the wrong kind or out of range.
 class Reader {
@@ -159,9 +168,9 @@ class Reader {
       return std::nullopt;
     }
     const std::string& text = value.get_ref<const std::string&>();
-    Result<Quantity<D>> parsed = parse(text, path);
+    Result<Quantity<D>> parsed = parse(text, field_words(path));
     if (!parsed) {
-      problems_.lines.push_back(parsed.error().message);
+      fail(path, parsed.error().message);
       return std::nullopt;
     }
     double in_unit = parsed->in(unit);
@@ -215,11 +224,11 @@ const std::function<Result<Fraction>(std::string_view, std::string_view)> percen
   std::string_view s = t;
   while (!s.empty() && s.back() == ' ') s.remove_suffix(1);
   if (s.empty() || s.back() != '%') {
-    return Error{std::string(w) + ": '" + std::string(t) + "' needs a % sign (example: 1%)"};
+    return Error{"'" + std::string(t) + "' needs a % sign (example: 1%)"};
   }
   s.remove_suffix(1);
   Result<double> n = parse_number(s, w);
-  if (!n) return Error{std::string(w) + ": " + n.error().message};
+  if (!n) return n.error();
   return percent(n.value());
 };
 
@@ -489,7 +498,7 @@ std::optional<TeamProfile> read_current(const Json& root, Problems& problems) {
       for (size_t i = 0; i < list->size(); ++i) {
         const Json& v = (*list)[i];
         // Flows are L/min across Firn: a bare number is accepted as L/min.
-        Json text = v.is_number() ? Json(v.dump()) : v;
+        Json text = v.is_number() ? Json(v.dump() + "L/min") : v;
         auto flow = r.quantity_value(text, item("flows", i), flow_parser, litres_per_minute,
                                      Limits::flow_low_lpm, Limits::flow_high_lpm, "6L/min");
         if (flow) p.flows.push_back(*flow);
