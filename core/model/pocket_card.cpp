@@ -159,7 +159,7 @@ Card build_card(const TeamProfile& profile, const std::string& date) {
   if (u == UnitSystem::Metric) gauge += " (" + whole(profile.bag.gauge_pressure.in(millibar)) + " mbar)";
   Table bag{"bag", "Hyperbaric bag at " + gauge,
             {std::string("Alt ") + altitude_unit(u), std::string("Inside ") + pb_unit(u),
-             std::string("Feels like ") + altitude_unit(u), "Flush L/min",
+             std::string("Equiv. alt ") + altitude_unit(u), "Flush L/min",
              "Strokes /min"},
             {}, {}};
   double flush_low = 1e9, flush_high = 0, strokes_low = 1e9, strokes_high = 0;
