@@ -112,31 +112,32 @@ std::vector<Length> TeamProfile::card_altitudes() const {
   return rows;
 }
 
+namespace {
+// The file's JSON in the current schema: parsed, version checked, older versions migrated.
+std::optional<Json> current_schema_json(std::string_view json_text, Problems& problems) {
+  std::optional<Json> root = internal::parse_json(json_text, problems);
+  if (!root) return std::nullopt;
+  std::optional<int> version = internal::schema_version(*root, problems);
+  if (!version) return std::nullopt;
+  if (*version == 1) return internal::migrate_v1(*root, problems);
+  return root;
+}
+}  // namespace
+
 Problems check_profile(std::string_view json_text) {
   Problems problems;
-  std::optional<Json> root = internal::parse_json(json_text, problems);
+  std::optional<Json> root = current_schema_json(json_text, problems);
   if (!root) return problems;
-  std::optional<int> version = internal::schema_version(*root, problems);
-  if (!version) return problems;
-  if (*version == 1) {
-    root = internal::migrate_v1(*root, problems);
-    if (!root) return problems;
-  }
   std::optional<TeamProfile> profile = internal::read_current(*root, problems);
   FIRN_ASSERT(profile.has_value() == problems.empty(), "profile reader lost a problem");
   return problems;
 }
 
+
 Result<TeamProfile> parse_profile(std::string_view json_text) {
   Problems problems;
-  std::optional<Json> root = internal::parse_json(json_text, problems);
+  std::optional<Json> root = current_schema_json(json_text, problems);
   if (!root) return Error{problems.joined()};
-  std::optional<int> version = internal::schema_version(*root, problems);
-  if (!version) return Error{problems.joined()};
-  if (*version == 1) {
-    root = internal::migrate_v1(*root, problems);
-    if (!root) return Error{problems.joined()};
-  }
   std::optional<TeamProfile> profile = internal::read_current(*root, problems);
   if (!profile) return Error{problems.joined()};
   return std::move(*profile);
@@ -144,14 +145,8 @@ Result<TeamProfile> parse_profile(std::string_view json_text) {
 
 Result<std::string> migrate_to_current(std::string_view json_text) {
   Problems problems;
-  std::optional<Json> root = internal::parse_json(json_text, problems);
+  std::optional<Json> root = current_schema_json(json_text, problems);
   if (!root) return Error{problems.joined()};
-  std::optional<int> version = internal::schema_version(*root, problems);
-  if (!version) return Error{problems.joined()};
-  if (*version == 1) {
-    root = internal::migrate_v1(*root, problems);
-    if (!root) return Error{problems.joined()};
-  }
   return root->dump(2);
 }
 

@@ -1,19 +1,7 @@
 // `firn bag`: exit codes, JSON keys and values vs published sources, bad-input messages.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { spawnSync } from 'node:child_process';
-
-const BIN = process.env.FIRN_BIN;
-
-function firn(...args) {
-  assert.ok(BIN, 'FIRN_BIN must point at the firn executable');
-  const r = spawnSync(BIN, args, { encoding: 'utf8', timeout: 20000 });
-  return { code: r.status, stdout: r.stdout, stderr: r.stderr };
-}
-function firnJson(...args) {
-  const r = firn(...args, '--json');
-  return { ...r, json: JSON.parse(r.stdout) };
-}
+import { firn, firnResult as firnJson } from './run_firn.mjs';
 
 test('Taber 1990 worked example: 4243 m, 2 psi ≈ 2560 m (West 1996 model, ±30 m)', () => {
   // Taber RL, protocols for the use of a portable hyperbaric chamber (1990).

@@ -28,3 +28,15 @@ export function firnError(args) {
   assert.ok(stderr.includes(body.error));
   return body.error;
 }
+
+// Variadic forms: firn('bag', '--altitude', '4243m') → {code, stdout, stderr}; firnResult(...)
+// adds --json and the parsed body (json) without asserting the exit code, for tests that check
+// both success and failure shapes.
+export function firn(...args) {
+  return runFirn(args);
+}
+
+export function firnResult(...args) {
+  const r = runFirn([...args, '--json']);
+  return { ...r, json: JSON.parse(r.stdout) };
+}
