@@ -16,7 +16,12 @@ double rounded(double value, int decimals) {
 void Report::add(const std::string& key, double value, int decimals, const std::string& label,
                  const std::string& unit) {
   double r = rounded(value, decimals);
-  json[key] = r;
+  // Whole-number figures (scores, minutes, metres at 0 decimals) print as integers: "4", not "4.0".
+  if (decimals <= 0 && std::fabs(r) < 9e15) {
+    json[key] = static_cast<long long>(r);
+  } else {
+    json[key] = r;
+  }
   rows.emplace_back(label, format_number(r, decimals) + (unit.empty() ? "" : " " + unit));
 }
 
