@@ -3,6 +3,7 @@
 
 #include "cli/cli.hpp"
 #include "model/atmosphere.hpp"
+#include "model/cautions.hpp"
 
 namespace firn::cli {
 namespace {
@@ -23,6 +24,11 @@ Result<atm::Model> model_option(const std::optional<std::string>& text) {
   Result<atm::Model> model = atm::parse_model(*text);
   if (!model) return Error{"--model: " + model.error().message};
   return model;
+}
+
+void add_caution(Report& report) {
+  report.json["caution"] = std::string(cautions::short_line);
+  report.notes.emplace_back(cautions::short_line);
 }
 
 void add_pressure_rows(Report& report, const std::string& prefix, const std::string& label,
@@ -83,6 +89,7 @@ Result<Report> run_pressure(const PressureOptions& o) {
       report.rows.emplace_back(std::string(atm::model_name(each)), "outside model range");
     }
   }
+  add_caution(report);
   return report;
 }
 
@@ -108,6 +115,7 @@ Result<Report> run_altitude(const AltitudeOptions& o) {
       report.rows.emplace_back(std::string(atm::model_name(each)), "outside model range");
     }
   }
+  add_caution(report);
   return report;
 }
 
