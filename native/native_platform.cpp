@@ -60,14 +60,54 @@ bool NativePlatform::save_text(std::string_view key, std::string_view text) {
   return !ec;
 }
 
-bool NativePlatform::open_html_document(std::string_view title, std::string_view html) {
+namespace {
+// The card's file name from its title: letters and digits only, so it is safe in a shell command.
+std::string document_file_name(std::string_view title) {
   std::string file_name(title);
   for (char& c : file_name) {
     if (!((c >= 'a' && c <= 'z') || (c >= 'A' && c <= 'Z') || (c >= '0' && c <= '9'))) c = '-';
   }
-  if (!save_text(file_name + ".html", html)) return false;
-  std::string command = "xdg-open '" + path_for(file_name + ".html") + "' >/dev/null 2>&1 &";
+  return file_name + ".html";
+}
+}  // namespace
+
+bool NativePlatform::open_html_document(std::string_view title, std::string_view html) {
+  std::string file_name = document_file_name(title);
+  if (!save_text(file_name, html)) return false;
+  std::string command = "xdg-open '" + path_for(file_name) + "' >/dev/null 2>&1 &";
   return std::system(command.c_str()) == 0;
+}
+
+std::string NativePlatform::document_location(std::string_view title) const {
+  return path_for(document_file_name(title));
+}
+
+bool NativePlatform::request_file_import(std::string_view path) {
+  std::string wanted = path.empty() ? path_for("team-profile-import.json") : std::string(path);
+  ui::ImportedFile file;
+  file.name = fs::path(wanted).filename().string();
+  std::error_code ec;
+  if (fs::is_directory(wanted, ec)) {
+    file.error = wanted + " is a folder, not a file";
+  } else if (std::ifstream in{wanted, std::ios::binary}) {
+    std::ostringstream buffer;
+    buffer << in.rdbuf();
+    file.text = buffer.str();
+  } else {
+    file.error = "cannot read " + wanted;
+  }
+  imported_ = std::move(file);
+  return true;
+}
+
+std::optional<ui::ImportedFile> NativePlatform::take_imported_file() {
+  std::optional<ui::ImportedFile> file = std::move(imported_);
+  imported_.reset();
+  return file;
+}
+
+std::string NativePlatform::offer_download(std::string_view file_name, std::string_view text) {
+  return save_text(file_name, text) ? path_for(file_name) : std::string();
 }
 
 void NativePlatform::publish_test_items(std::string_view json) { last_test_items_ = json; }

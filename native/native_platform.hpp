@@ -18,6 +18,12 @@ class NativePlatform final : public ui::Platform {
   bool open_html_document(std::string_view title, std::string_view html) override;
   void publish_test_items(std::string_view json) override;
   std::string_view name() const override { return "native"; }
+  // A typed path (empty: <config dir>/team-profile-import.json); read at once.
+  bool request_file_import(std::string_view path) override;
+  std::optional<ui::ImportedFile> take_imported_file() override;
+  std::string offer_download(std::string_view file_name, std::string_view text) override;
+  std::string storage_location() const override { return config_dir_; }
+  std::string document_location(std::string_view title) const override;
 
   // The last frame's test items, written to the --test-items file on exit.
   void write_test_items() const;
@@ -27,6 +33,7 @@ class NativePlatform final : public ui::Platform {
   std::string config_dir_;
   std::string test_items_path_;
   std::string last_test_items_;
+  std::optional<ui::ImportedFile> imported_;
 };
 
 }  // namespace firn::native

@@ -12,6 +12,7 @@
 #include "ui/keypad.hpp"
 #include "ui/persistence.hpp"
 #include "ui/situation.hpp"
+#include "ui/team_store.hpp"
 #include "ui/test_hook.hpp"
 #include "ui/theme.hpp"
 #include "ui/widgets.hpp"
@@ -60,6 +61,7 @@ void init_app(AppState& state, Platform& platform) {
   io.IniFilename = nullptr;  // layout is computed, never saved
   io.ConfigInputTextCursorBlink = false;  // a blinking cursor would force frames while idle
   load_state(state, platform);
+  load_team_profile(state, platform);
   state.built_font_scale = 0.0f;
   apply_theme(state.settings.theme, state.pixel_ratio);
 }
@@ -87,6 +89,7 @@ constexpr ScreenInfo kScreens[kScreenCount] = {
     {Screen::Oxygen, "Oxygen", draw_oxygen_panel, Screen::Casualty},
     {Screen::Ams, "AMS", draw_ams_panel, Screen::Casualty},
     {Screen::Teaching, "Teaching", draw_teaching_panel, Screen::Teaching},
+    {Screen::Team, "Team", draw_team_panel, Screen::Team},
     {Screen::Settings, "Settings", draw_settings_panel, Screen::Here},
 };
 
@@ -99,13 +102,16 @@ float nav_height(const AppState& state, float width) {
   return nav_rows(width) * (row + ImGui::GetStyle().ItemSpacing.y);
 }
 
-// Bottom bar: where a thumb reaches on a phone held upright. Two rows of four on a phone.
+// Bottom bar: where a thumb reaches on a phone held upright. Two rows (5 + 4) on a phone.
 void draw_nav_bar(AppState& state, float width) {
-  int per_row = nav_rows(width) == 1 ? kScreenCount : kScreenCount / 2;
+  int per_row = nav_rows(width) == 1 ? kScreenCount : (kScreenCount + 1) / 2;
   float spacing = ImGui::GetStyle().ItemSpacing.x;
   float button_width = (ImGui::GetContentRegionAvail().x - spacing * (per_row - 1)) / per_row;
   float row = std::max(touch_target(state) * 1.1f, ImGui::GetFrameHeight() * 1.2f);
   ImGui::PushID("nav");
+  // Five to a row on a phone: the labels need the button's whole width, not its padding.
+  ImGui::PushStyleVar(ImGuiStyleVar_FramePadding,
+                      ImVec2(0.1f * em(), ImGui::GetStyle().FramePadding.y));
   for (int i = 0; i < kScreenCount; ++i) {
     if (i % per_row != 0) ImGui::SameLine();
     bool active = state.screen == kScreens[i].screen ||
@@ -123,6 +129,7 @@ void draw_nav_bar(AppState& state, float width) {
     if (active) ImGui::PopStyleColor();
     test_hook::item_text(kScreens[i].nav_label, current ? "selected" : "");
   }
+  ImGui::PopStyleVar();
   ImGui::PopID();
 }
 
@@ -138,7 +145,8 @@ void drag_to_scroll() {
 void draw_column(AppState& state, Platform& platform, Screen screen, const char* id, float width,
                  float height) {
   ImGui::BeginChild(id, ImVec2(width, height), false, ImGuiWindowFlags_NoSavedSettings);
-  if (screen != Screen::Here && screen != Screen::Teaching && screen != Screen::Settings) {
+  if (screen != Screen::Here && screen != Screen::Teaching && screen != Screen::Settings &&
+      screen != Screen::Team) {
     draw_situation_strip(state);
   }
   info(screen).draw(state, platform);

@@ -8,6 +8,7 @@
 #include <vector>
 
 #include "model/atmosphere.hpp"
+#include "model/team_profile.hpp"
 #include "model/units.hpp"
 
 struct ImFont;
@@ -17,8 +18,8 @@ namespace firn::ui {
 enum class Theme { Day, Night, Projection };
 
 // Order = order in the navigation bar.
-enum class Screen { Here, Casualty, Curve, Bag, Oxygen, Ams, Teaching, Settings };
-inline constexpr int kScreenCount = 8;
+enum class Screen { Here, Casualty, Curve, Bag, Oxygen, Ams, Teaching, Team, Settings };
+inline constexpr int kScreenCount = 9;
 
 // Units a user reads and types in. Values are stored as typed quantities (SI inside), so
 // switching units never rounds an entered value away.
@@ -101,6 +102,17 @@ struct Keypad {
   int committed_at_frame = 0;  // dropped if its field was not drawn in the frame after
 };
 
+// The team profile in use (ui/team_store.hpp keeps it on the device) and the Team screen.
+struct TeamState {
+  team_profile::TeamProfile profile = team_profile::demo_profile();
+  bool stored = false;         // saved on this device (false: the built-in demo, unsaved)
+  std::string message;         // last import/export/print outcome, shown on the Team screen
+  bool message_is_problem = false;
+  bool import_requested = false;   // waiting for the platform's picker
+  char import_path[512] = {};      // native: typed path of the file to import
+  int card_size = 0;               // 0 A6, 1 wallet
+};
+
 struct AppState {
   Settings settings;
   Situation situation;
@@ -108,6 +120,7 @@ struct AppState {
   OxygenInputs oxygen;
   AmsInputs ams;
   TeachingInputs teaching;
+  TeamState team;
   Screen screen = Screen::Here;
   Keypad keypad;
   std::map<std::string, std::string> field_errors;  // field id → message naming range and unit

@@ -8,6 +8,14 @@
 
 namespace firn::ui {
 
+// A file the user picked for import: its name (no folder) and its whole text, or why it could
+// not be read.
+struct ImportedFile {
+  std::string name;
+  std::string text;
+  std::string error;  // non-empty: the file could not be read (text is empty)
+};
+
 class Platform {
  public:
   virtual ~Platform() = default;
@@ -20,6 +28,24 @@ class Platform {
   // Opens an HTML document for reading or printing (the pocket card). Returns false when the
   // platform cannot (the UI then says where the CLI can write it instead).
   virtual bool open_html_document(std::string_view title, std::string_view html) = 0;
+
+  // [Files the user shares: the team profile.] Asks for a file to import. Web: opens the
+  // browser's file picker (`path` unused), the answer arrives later; native: reads `path`.
+  // Returns false when nothing can be asked. The picked file is collected with
+  // take_imported_file() on a later frame (once).
+  virtual bool request_file_import(std::string_view path) { return (void)path, false; }
+  virtual std::optional<ImportedFile> take_imported_file() { return std::nullopt; }
+  // Hands `text` to the user as a file called `file_name` (web: a download; native: written to
+  // the config directory). Returns where it went, for the message; empty when it failed.
+  virtual std::string offer_download(std::string_view file_name, std::string_view text) {
+    return (void)file_name, (void)text, std::string();
+  }
+  // Where load_text/save_text keep things, in words the user can act on (native: the folder).
+  virtual std::string storage_location() const { return "this device"; }
+  // Where open_html_document(title, …) wrote its file, if it writes one ("" otherwise).
+  virtual std::string document_location(std::string_view title) const {
+    return (void)title, std::string();
+  }
 
   // Published to UI tests (web: window.firnTestItems; native: --test-items FILE). Only called
   // when FIRN_TEST_HOOKS is on.

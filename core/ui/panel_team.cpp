@@ -1,0 +1,209 @@
+// Screen "Team": the team profile in use (name, DEMO DATA when demo, cylinders, flows, bag, card
+// range), loading the demo, importing and exporting the profile file, printing the pocket card,
+// and handing the profile's cylinder and bag figures to the Oxygen and Bag screens.
+#include "ui/panels.hpp"
+
+#include <imgui.h>
+
+#include <string>
+
+#include "model/cylinder.hpp"
+#include "model/pocket_card.hpp"
+#include "ui/team_store.hpp"
+#include "ui/test_hook.hpp"
+#include "ui/widgets.hpp"
+
+namespace firn::ui {
+
+namespace {
+
+using namespace units;
+namespace tp = team_profile;
+
+// The profile is shown in its own unit system (as its card prints), not the app's settings.
+struct ProfileUnits {
+  const Unit<LengthDimension>& length;
+  const Unit<PressureDimension>& gauge;
+};
+ProfileUnits units_of(const tp::TeamProfile& p) {
+  bool us = p.units == tp::UnitSystem::Us;
+  return {us ? feet : metres, us ? psi : bar};
+}
+
+std::string number_with_unit(double value, int decimals, std::string_view symbol) {
+  return shown_number(value, decimals) + " " + std::string(symbol);
+}
+
+// "3.3" → "3.3", "4.0" → "4": profile figures are usually round.
+std::string trimmed_number(double value) {
+  std::string text = shown_number(value, 2);
+  if (text.find('.') != std::string::npos) {
+    while (text.back() == '0') text.pop_back();
+    if (text.back() == '.') text.pop_back();
+  }
+  return text;
+}
+
+Volume capacity_of(const tp::CylinderType& c) {
+  if (c.water_capacity) return *c.water_capacity;
+  return cylinder::letter_size_info(*c.letter_size).water_capacity;
+}
+
+// One "Label  value" line, recorded for the tests under `label`.
+void profile_line(const char* label, const std::string& value) {
+  ImGui::TextDisabled("%s", label);
+  ImGui::SameLine();
+  ImGui::PushTextWrapPos(0.0f);
+  ImGui::TextUnformatted(value.c_str());
+  ImGui::PopTextWrapPos();
+  test_hook::item_text(label, value);
+}
+
+void draw_profile_summary(AppState& state, Platform& platform) {
+  const tp::TeamProfile& p = state.team.profile;
+  if (p.demo) {
+    message_line(state, "DEMO DATA: a fictional team in a fictional range. Import your team's "
+                        "profile before relying on these figures.", true);
+    test_hook::item_text("Demo", "DEMO DATA");
+  }
+  profile_line("Team name", p.team_name);
+  profile_line("Kept", state.team.stored ? "saved in " + platform.storage_location()
+                                         : std::string("built in (not saved yet)"));
+}
+
+void draw_profile_details(const AppState& state) {
+  const tp::TeamProfile& p = state.team.profile;
+  ProfileUnits u = units_of(p);
+  profile_line("Model", p.atmosphere_model == atmosphere::Model::Isa ? "ISA" : "West 1996");
+
+  heading("Cylinders");
+  for (size_t i = 0; i < p.cylinders.size(); ++i) {
+    const tp::CylinderType& c = p.cylinders[i];
+    std::string line = c.label + ": " + trimmed_number(capacity_of(c).in(litres)) + " L" +
+                       (c.water_capacity ? "" : " (size " +
+                                                    std::string(cylinder::letter_size_info(*c.letter_size).name) + ")") +
+                       ", full " + number_with_unit(c.fill_pressure_gauge.in(u.gauge), 0, u.gauge.symbol) +
+                       ", \xC3\x97" + std::to_string(c.count);
+    ImGui::BulletText("%s", line.c_str());
+    test_hook::item_text("Cylinder " + std::to_string(i + 1), line);
+  }
+  profile_line("Reserve", number_with_unit(p.reserve_pressure_gauge.in(u.gauge), 0, u.gauge.symbol));
+  std::string flows;
+  for (const VolumeFlow& f : p.flows) flows += (flows.empty() ? "" : ", ") + trimmed_number(f.in(litres_per_minute));
+  profile_line("Flows", flows + " L/min");
+
+  heading("Hyperbaric bag");
+  profile_line("Bag gauge", number_with_unit(p.bag.gauge_pressure.in(hectopascals), 0, "hPa") + " (" +
+                                number_with_unit(p.bag.gauge_pressure.in(psi), 1, "psi") + ")");
+  profile_line("Pump stroke", trimmed_number(p.bag.pump_stroke_volume.in(litres)) + " L");
+  profile_line("CO2 limit", trimmed_number(p.bag.co2_limit.in(percent)) + " %");
+
+  heading("Pocket card");
+  profile_line("Card range", trimmed_number(p.card.altitude_from.in(u.length)) + "\xE2\x80\x93" +
+                                 trimmed_number(p.card.altitude_to.in(u.length)) + " " +
+                                 std::string(u.length.symbol) + " every " +
+                                 trimmed_number(p.card.altitude_step.in(u.length)) + " " +
+                                 std::string(u.length.symbol));
+  for (const std::string& note : p.card.notes) {
+    ImGui::PushTextWrapPos(0.0f);
+    ImGui::BulletText("%s", note.c_str());
+    ImGui::PopTextWrapPos();
+  }
+}
+
+void collect_imported_file(AppState& state, Platform& platform) {
+  std::optional<ImportedFile> file = platform.take_imported_file();
+  if (!file) return;
+  state.team.import_requested = false;
+  if (!file->error.empty()) {
+    state.team.message = "Nothing imported: " + file->error;
+    state.team.message_is_problem = true;
+    return;
+  }
+  import_team_profile(state, platform, file->text, file->name.empty() ? "the file" : file->name);
+}
+
+void draw_file_actions(AppState& state, Platform& platform) {
+  TeamState& team = state.team;
+  heading("Profile file");
+  if (big_button(state, "Load demo profile")) use_demo_profile(state, platform);
+
+  bool native = platform.name() == "native";
+  if (native) {
+    // The desktop has a keyboard: a path is typed (empty: the file in the config folder).
+    std::string hint = platform.storage_location() + "/team-profile-import.json";
+    ImGui::TextDisabled("Profile file to import");
+    ImGui::SetNextItemWidth(-1.0f);
+    ImGui::InputTextWithHint("##import-path", hint.c_str(), team.import_path, sizeof team.import_path);
+    test_hook::item_text("Profile file to import", team.import_path);
+  }
+  if (big_button(state, "Import profile")) {
+    team.import_requested = platform.request_file_import(team.import_path);
+    if (!team.import_requested) {
+      team.message = "This device cannot pick a file here; use firn profile --check FILE.";
+      team.message_is_problem = true;
+    }
+  }
+  collect_imported_file(state, platform);
+
+  if (big_button(state, "Export profile")) {
+    std::string where = platform.offer_download(kExportFileName, exported_profile_text(state));
+    team.message = where.empty() ? "The profile could not be exported." : "Profile exported to " + where + ".";
+    team.message_is_problem = where.empty();
+  }
+}
+
+void draw_card_actions(AppState& state, Platform& platform) {
+  TeamState& team = state.team;
+  const char* sizes[] = {"A6", "Wallet"};
+  choice_row(state, "card-size", sizes, 2, &team.card_size);
+  if (!big_button(state, "Print pocket card")) return;
+  pocket_card::Size size = team.card_size == 1 ? pocket_card::Size::Wallet : pocket_card::Size::A6;
+  std::string html = pocket_card::render_html(pocket_card::build_card(team.profile, today_iso_date()), size);
+  const char* title = "pocket-card";
+  if (!platform.open_html_document(title, html)) {
+    team.message = "The card could not be opened here; firn card --profile FILE --out card.html writes it.";
+    team.message_is_problem = true;
+    return;
+  }
+  std::string file = platform.document_location(title);
+  team.message = file.empty() ? "The card opened in a new window: print it from there (" +
+                                    std::string(sizes[team.card_size]) + " pages)."
+                              : "The card was written to " + file + " and opened.";
+  team.message_is_problem = false;
+}
+
+// The first cylinder kind, the reserve, the first flow and the bag gauge become the inputs of
+// the Oxygen and Bag screens; the user can still change them there.
+void draw_use_in_calculators(AppState& state) {
+  const tp::TeamProfile& p = state.team.profile;
+  if (!big_button(state, "Use on Oxygen and Bag screens")) return;
+  const tp::CylinderType& c = p.cylinders.front();
+  state.oxygen.water_capacity = capacity_of(c);
+  state.oxygen.gauge = c.fill_pressure_gauge;
+  state.oxygen.reserve = p.reserve_pressure_gauge;
+  state.oxygen.flow = p.flows.front();
+  state.bag.gauge = p.bag.gauge_pressure;
+  state.team.message = "Oxygen screen: " + c.label + " full, reserve and flow from the profile; "
+                       "Bag screen: the profile's gauge pressure.";
+  state.team.message_is_problem = false;
+}
+
+}  // namespace
+
+// Name and demo marker first, the actions next (a thumb reaches them), their outcome right
+// below them, then the profile's figures.
+void draw_team_panel(AppState& state, Platform& platform) {
+  draw_profile_summary(state, platform);
+  draw_card_actions(state, platform);
+  draw_file_actions(state, platform);
+  if (!state.team.message.empty()) {
+    message_line(state, state.team.message, state.team.message_is_problem);
+    test_hook::item_text("Team message", state.team.message);
+  }
+  draw_profile_details(state);
+  draw_use_in_calculators(state);
+  caution_line(state);
+}
+
+}  // namespace firn::ui
