@@ -21,6 +21,12 @@ export function screenshotDir() {
   return dir;
 }
 
+// WebGL2 through SwiftShader; see DEVELOPERS.md (never --disable-software-rasterizer).
+export const CHROMIUM_ARGS = ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
+                              '--disable-background-networking', '--disable-component-update',
+                              '--disable-sync', '--use-gl=angle', '--use-angle=swiftshader',
+                              '--enable-unsafe-swiftshader'];
+
 // A persistent context in a new empty profile folder, removed by close().
 export async function launch({viewport = {width: 420, height: 860}, deviceScaleFactor = 1,
                               hasTouch = false} = {}) {
@@ -29,9 +35,7 @@ export async function launch({viewport = {width: 420, height: 860}, deviceScaleF
     executablePath: CHROMIUM,
     headless: true,
     viewport, deviceScaleFactor, hasTouch,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
-           '--disable-background-networking', '--disable-component-update', '--disable-sync',
-           '--use-gl=angle', '--use-angle=swiftshader', '--enable-unsafe-swiftshader']
+    args: CHROMIUM_ARGS
   });
   const page = context.pages()[0] ?? await context.newPage();
   const messages = [];
@@ -48,6 +52,12 @@ export async function launch({viewport = {width: 420, height: 860}, deviceScaleF
 
 // Waits until the app has drawn at least one frame with test items, or fails with the page's
 // own problem message.
+// One browser for several device contexts (phone, laptop): each newContext() has its own empty
+// storage, so one launch serves every viewport of a test file.
+export async function launchBrowser() {
+  return chromium.launch({executablePath: CHROMIUM, headless: true, args: CHROMIUM_ARGS});
+}
+
 export async function waitForApp(page, timeout = 60000) {
   await page.waitForFunction(
     () => window.firnProblem || (window.firnStarted && window.firnFramesDrawn > 0 &&

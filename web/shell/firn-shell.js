@@ -70,9 +70,39 @@
     var init = {bubbles: true, cancelable: true, clientX: touch.clientX, clientY: touch.clientY,
                 screenX: touch.screenX, screenY: touch.screenY, button: 0,
                 buttons: type === 'mouseup' ? 0 : 1};
-    if (type === 'mousedown') canvas.dispatchEvent(new MouseEvent('mousemove', init));
-    canvas.dispatchEvent(new MouseEvent(type, init));
-    wake();
+    if (type === 'mousedown') queueMouse('mousemove', init);
+    queueMouse(type, init);
+  }
+
+  // ImGui 1.86 has no input queue: a press and its release (or a release and the next press)
+  // that reach the app inside one frame merge, and the tap is lost. Quick taps on a slow phone
+  // do exactly that, so a touch-made button event waits until a frame has seen the one before.
+  var pendingMouse = [];
+  var lastButtonFrame = -1;
+  var flushScheduled = false;
+  function framesDrawn() { return window.firnFramesDrawn || 0; }
+  function queueMouse(type, init) {
+    pendingMouse.push({type: type, init: init});
+    flushMouse();
+  }
+  function flushMouse() {
+    flushScheduled = false;
+    while (pendingMouse.length) {
+      var next = pendingMouse[0];
+      var button = next.type !== 'mousemove';
+      if (button && lastButtonFrame >= 0 && framesDrawn() <= lastButtonFrame) {
+        wake();
+        if (!flushScheduled) {
+          flushScheduled = true;
+          window.requestAnimationFrame(flushMouse);
+        }
+        return;
+      }
+      pendingMouse.shift();
+      canvas.dispatchEvent(new MouseEvent(next.type, next.init));
+      if (button) lastButtonFrame = framesDrawn();
+      wake();
+    }
   }
   Object.keys(touchToMouse).forEach(function (type) {
     window.addEventListener(type, forwardTouch, {capture: true, passive: false});

@@ -1,0 +1,519 @@
+// Every screen of the page, driven like a medic would: at a phone viewport (390×844 CSS px,
+// device scale 3, touch — taps through page.touchscreen) and a laptop viewport (1366×768,
+// mouse). Numbers go in through the in-app keypad ("Key 4", "Key OK"… found by label in
+// window.firnTestItems), results are read back from the same items and compared with the CLI
+// (`firn … --json`, same core, other front end) within the shown rounding. Units and themes are
+// switched, every tapped target is checked to be ≥ 48 CSS px tall, screenshots are saved (the
+// folder is printed) and idle frames over 5 s are measured and must be 0.
+// Env: FIRN_SITE (built site), FIRN_BIN (native firn), FIRN_SCREENSHOTS (output folder).
+// One browser for both devices; one page per device, reused by every step.
+import assert from 'node:assert/strict';
+import {execFileSync} from 'node:child_process';
+import {join} from 'node:path';
+import {after, before, describe, test} from 'node:test';
+
+import {launchBrowser, pause, requiredEnv, screenshotDir, waitForApp} from './browser.mjs';
+import {serveSite} from './serve.mjs';
+
+const site = requiredEnv('FIRN_SITE', 'the built site folder (build/web/site)');
+const firnBin = requiredEnv('FIRN_BIN', 'the native firn executable (for the CLI comparison)');
+const shots = screenshotDir();
+const MIN_TARGET_CSS_PX = 48;  // issue 4: ≥ 48 CSS px (≥ 9 mm) at any device pixel ratio
+const FEET_PER_METRE = 1 / 0.3048;  // international foot, exactly 0.3048 m (1959 agreement)
+const PSI_PER_BAR = 1e5 / 6894.757;  // 1 psi = 6894.757 Pa (NIST SP 811, appendix B)
+
+const NAV = ['Here', 'Casualty', 'Curve', 'Bag', 'Oxygen', 'AMS', 'Teaching', 'Settings'];
+const firn = (...args) => JSON.parse(execFileSync(firnBin, [...args, '--json'], {encoding: 'utf8'}));
+
+let server;
+let browser;
+const started = Date.now();
+before(async () => {
+  server = await serveSite(site);
+  browser = await launchBrowser();
+  console.log(`screenshots: ${shots}`);
+});
+after(async () => {
+  await browser?.close();
+  await server?.close();
+  console.log(`screens.test.mjs ran ${((Date.now() - started) / 1000).toFixed(1)} s`);
+});
+
+// "609.5 hPa" → {value: 609.5, decimals: 1}; "−4 points" reads as -4.
+function number(text, index = 0) {
+  const found = [...String(text).replace(/\u2212/g, '-').matchAll(/-?\d+(?:\.(\d+))?/g)][index];
+  assert.ok(found, `no number #${index} in ${JSON.stringify(text)}`);
+  return {value: Number(found[0]), decimals: found[1]?.length ?? 0};
+}
+
+// |shown − cli| within half a unit of the shown last digit plus the CLI's own rounding.
+function assertNear(shownText, cliValue, {index = 0, cliDecimals = 1, what = ''} = {}) {
+  const shown = number(shownText, index);
+  assert.equal(typeof cliValue, 'number', `CLI gave no number for ${what}`);
+  const tolerance = 0.5 * 10 ** -shown.decimals + 0.5 * 10 ** -cliDecimals + 1e-9;
+  assert.ok(Math.abs(shown.value - cliValue) <= tolerance,
+            `${what}: page shows ${JSON.stringify(shownText)}, CLI says ${cliValue} (±${tolerance})`);
+}
+
+// "1 h 16 min" → 76
+function minutesShown(text) {
+  const match = text.match(/^(?:(\d+) h )?(\d+) min$/);
+  assert.ok(match, `duration shown as ${JSON.stringify(text)}`);
+  return Number(match[1] ?? 0) * 60 + Number(match[2]);
+}
+
+// What the keypad shows after these keys (< is backspace; - toggles the sign, wherever pressed).
+function keypadText(keys) {
+  let text = '';
+  for (const k of keys) {
+    if (k === '<') text = text.slice(0, -1);
+    else if (k === '-') text = text.startsWith('-') ? text.slice(1) : `-${text}`;
+    else text += k;
+  }
+  return text;
+}
+
+// Drives one page by label, by touch (phone) or mouse (laptop).
+class Driver {
+  constructor(name, page, touch) {
+    Object.assign(this, {name, page, touch, taps: 0, smallest: Infinity});
+  }
+
+  async items() {
+    return this.page.evaluate(() => {
+      const ratio = window.devicePixelRatio || 1;
+      return (window.firnTestItems ?? []).map((i) => ({...i, x: i.x / ratio, y: i.y / ratio,
+                                                        w: i.w / ratio, h: i.h / ratio}));
+    });
+  }
+
+  async find(label) {
+    return (await this.items()).find((i) => i.label === label);
+  }
+
+  async item(label, timeout = 3000) {
+    const end = Date.now() + timeout;
+    for (;;) {
+      const found = await this.find(label);
+      if (found) return found;
+      if (Date.now() > end) {
+        const labels = (await this.items()).map((i) => i.label).join(', ');
+        assert.fail(`${this.name}: no item "${label}"; items: ${labels}`);
+      }
+      await pause(50);
+    }
+  }
+
+  async text(label) {
+    return (await this.item(label)).text;
+  }
+
+  async waitText(label, predicate, timeout = 4000) {
+    const end = Date.now() + timeout;
+    let last;
+    while (Date.now() < end) {
+      last = (await this.find(label))?.text;
+      if (last !== undefined && predicate(last)) return last;
+      await pause(50);
+    }
+    assert.fail(`${this.name}: "${label}" shows ${JSON.stringify(last)} after ${timeout} ms`);
+  }
+
+  // The content area ends at the navigation bar (always on screen, at the bottom).
+  async visibleBottom() {
+    const all = await this.items();
+    const nav = all.filter((i) => i.label === 'Here' || i.label === 'Settings');
+    assert.ok(nav.length > 0, `${this.name}: no navigation bar`);
+    return Math.min(...nav.map((i) => i.y));
+  }
+
+  // Scrolls the column under `x` by `dy` CSS px (positive: content moves up).
+  async scroll(x, y, dy) {
+    if (!this.touch) {
+      await this.page.mouse.move(x, y);
+      await this.page.mouse.wheel(0, dy);
+      await pause(150);
+      return;
+    }
+    // A thumb drag: touch events through CDP (page.touchscreen only taps); the page shell turns
+    // them into mouse events and the app drags the page.
+    const cdp = this.cdp ??= await this.page.context().newCDPSession(this.page);
+    const steps = 8;
+    const point = (k) => [{x, y: y - (dy * k) / steps}];
+    await cdp.send('Input.dispatchTouchEvent', {type: 'touchStart', touchPoints: point(0)});
+    for (let k = 1; k <= steps; ++k) {
+      await pause(40);  // one move per frame: ImGui 1.86 has no input queue
+      await cdp.send('Input.dispatchTouchEvent', {type: 'touchMove', touchPoints: point(k)});
+    }
+    await pause(40);
+    await cdp.send('Input.dispatchTouchEvent', {type: 'touchEnd', touchPoints: []});
+    await pause(150);
+  }
+
+  // Brings a labelled item fully between the top of the screen and the navigation bar.
+  async reveal(label) {
+    // The keypad and the navigation bar are always in view.
+    if (/^(Key|Unit) /.test(label) || NAV.includes(label)) return this.item(label);
+    for (let attempt = 0; attempt < 8; ++attempt) {
+      const target = await this.item(label);
+      const bottom = await this.visibleBottom();
+      if (target.y >= 0 && target.y + target.h <= bottom) return target;
+      const centre = bottom / 2;
+      const wanted = target.y + target.h / 2 - centre;
+      const dy = Math.sign(wanted) * Math.min(Math.abs(wanted), bottom * 0.4);
+      const x = target.x + Math.min(target.w / 2, 40);
+      // Drag from a point in the same column, clear of the item itself.
+      await this.scroll(x, dy > 0 ? bottom * 0.75 : bottom * 0.25, dy);
+    }
+    assert.fail(`${this.name}: could not scroll "${label}" into view`);
+  }
+
+  async tap(label) {
+    const target = await this.reveal(label);
+    this.taps += 1;
+    this.smallest = Math.min(this.smallest, target.h);
+    assert.ok(target.h >= MIN_TARGET_CSS_PX - 0.05,
+              `${this.name}: "${label}" is ${target.h.toFixed(1)} CSS px tall (< ${MIN_TARGET_CSS_PX})`);
+    const x = target.x + target.w / 2;
+    const y = target.y + target.h / 2;
+    // Nothing of the page may sit over the canvas where we tap (a notice over the keypad once
+    // swallowed taps). A notice's own button is dismissed first, as a user would.
+    const over = await this.page.evaluate(([px, py]) => {
+      const element = document.elementFromPoint(px, py);
+      if (!element || element.id === 'canvas') return null;
+      const button = element.closest('#offline-note') && element.closest('button');
+      return {what: element.closest('[id]')?.id ?? element.tagName, button: !!button};
+    }, [x, y]);
+    if (over?.button) {
+      console.log(`${this.name}: dismissing the ${over.what} over "${label}"`);
+      await this.page.evaluate(() => document.querySelector('#offline-note button:last-child')?.click());
+      await pause(100);
+    } else {
+      assert.equal(over, null, `${this.name}: "${label}" is covered by ${JSON.stringify(over)}`);
+    }
+    if (this.touch) {
+      // The page shell holds each touch-made button event until a frame has seen the last.
+      await this.page.touchscreen.tap(x, y);
+    } else {
+      // A mouse is held until a frame has seen the press: ImGui 1.86 loses a press and release
+      // inside one frame, and software-rendered frames here can take longer than a click.
+      await this.page.mouse.move(x, y);
+      await this.framesPass(1);
+      await this.page.mouse.down();
+      await this.framesPass(1);
+      await this.page.mouse.up();
+    }
+    await this.framesPass(2);
+  }
+
+  // Waits until `count` more frames have been drawn (or the page went idle without them).
+  async framesPass(count, timeout = 3000) {
+    const frames = () => this.page.evaluate(() => window.firnFramesDrawn ?? 0);
+    const start = await frames();
+    const end = Date.now() + timeout;
+    while ((await frames()) < start + count && Date.now() < end) await pause(20);
+  }
+
+  async screen(name) {
+    await this.tap(name);
+    await this.waitText(name, (t) => t === 'selected');
+  }
+
+  // Opens the field's keypad, optionally picks the unit on it, types `digits`, checks the
+  // keypad shows them, presses OK and waits until the keypad is gone.
+  async enter(field, digits, {unit} = {}) {
+    await this.tap(field);
+    await this.item('Keypad value');
+    if (unit) await this.tap(`Unit ${unit}`);
+    for (const c of digits) await this.tap(c === '<' ? 'Key Backspace' : `Key ${c}`);
+    await this.waitText('Keypad value', (t) => t.split(' ')[0] === keypadText(digits));
+    await this.tap('Key OK');
+    const end = Date.now() + 3000;
+    while (await this.find('Keypad value')) {
+      assert.ok(Date.now() < end, `${this.name}: keypad still open after OK on "${field}"`);
+      await pause(50);
+    }
+    await pause(100);
+  }
+
+  async shot(name) {
+    const file = join(shots, `${this.name}-${name}.png`);
+    await this.page.screenshot({path: file});
+    return file;
+  }
+
+  // The caution line with "Read more" is reachable (scrolled to) and opens the full text.
+  async cautionReachable() {
+    await this.tap('Read more');
+    await this.item('Read less');
+    await this.tap('Read less');
+    await this.item('Read more');
+  }
+}
+
+const DEVICES = [
+  {name: 'phone', touch: true, altitude: 4321, spo2: 72, cylinderBar: 150, celsius: -5,
+   context: {viewport: {width: 390, height: 844}, deviceScaleFactor: 3, isMobile: true,
+             hasTouch: true}},
+  {name: 'laptop', touch: false, altitude: 3650, spo2: 86, cylinderBar: 180, celsius: 12,
+   context: {viewport: {width: 1366, height: 768}, deviceScaleFactor: 1}},
+];
+
+for (const device of DEVICES) {
+  describe(`${device.name} ${device.context.viewport.width}×${device.context.viewport.height}`, () => {
+    let d;
+    const alt = `${device.altitude}m`;
+    before(async () => {
+      const context = await browser.newContext(device.context);
+      const page = await context.newPage();
+      d = new Driver(device.name, page, device.touch);
+      await page.goto(server.url);
+      await waitForApp(page);
+    });
+    after(async () => {
+      if (d) console.log(`${device.name}: ${d.taps} taps, smallest tapped target ` +
+                         `${d.smallest.toFixed(1)} CSS px tall`);
+      await d?.page.context().close();
+    });
+
+    test('Here: altitude typed on the keypad; pressure and oxygen match the CLI', async () => {
+      await d.screen('Here');
+      // Backspace on the keypad: 4,3,2,9,← then 1 gives 4321 (phone) / 3,6,5,9,←,0 → 3650.
+      const text = String(device.altitude);
+      await d.enter('Altitude', text.slice(0, 3) + '9<' + text.slice(3));
+      await d.waitText('Altitude', (t) => t === `${device.altitude} m`);
+      const p = firn('pressure', '--altitude', alt);
+      assertNear(await d.text('Barometric pressure (West 1996)'), p.pressure_hpa,
+                 {cliDecimals: 2, what: 'West 1996 hPa'});
+      assertNear(await d.text('ISA for comparison'), p.isa_pressure_hpa,
+                 {cliDecimals: 2, what: 'ISA hPa'});
+      const o = firn('oxygenation', '--altitude', alt);
+      assertNear(await d.text('Inspired PO2 (PiO2)'), o.pio2_mmhg, {what: 'PiO2 mmHg'});
+      assertNear(await d.text('PaCO2, expected'), o.paco2_mmhg, {what: 'PaCO2 mmHg'});
+      // The middle of the cascade lies inside the ranges shown ("43–47 mmHg").
+      for (const [label, middle] of [['Alveolar PO2 (PAO2), expected', o.pao2_mmhg],
+                                     ['Arterial PO2 (PaO2), expected', o.arterial_po2_mmhg]]) {
+        const shown = await d.text(label);
+        assert.match(shown, /^\d+\u2013\d+ mmHg$/, `${label} shown as ${shown}`);
+        const [low, high] = [number(shown, 0).value, number(shown, 1).value];
+        assert.ok(low - 0.5 <= middle && middle <= high + 0.5, `${label} ${shown} vs CLI ${middle}`);
+      }
+      await d.cautionReachable();
+      await d.shot('here');
+    });
+
+    test('Here: out-of-range altitude is refused with a message naming range and unit',
+         async () => {
+      const before = await d.text('Barometric pressure (West 1996)');
+      await d.enter('Altitude', '12000');
+      const warning = await d.waitText('Warning', (t) => /altitude/i.test(t));
+      assert.match(warning, /-?500/, `message without the lower bound: ${warning}`);
+      assert.match(warning, /9000/, `message without the upper bound: ${warning}`);
+      assert.match(warning, /\bm\b/, `message without the unit: ${warning}`);
+      assert.equal(await d.text('Altitude'), `${device.altitude} m`);
+      assert.equal(await d.text('Barometric pressure (West 1996)'), before);
+      await d.shot('here-out-of-range');
+      // A valid entry clears the message.
+      await d.enter('Altitude', String(device.altitude));
+      assert.equal(await d.find('Warning'), undefined, 'the range message stays after a valid entry');
+    });
+
+    test('Casualty: measured SpO2 against the expected band matches the CLI', async () => {
+      await d.screen('Casualty');
+      await d.tap('SpO2 measured');
+      await d.enter('Measured SpO2', String(device.spo2));
+      await d.waitText('Measured SpO2', (t) => t === `${device.spo2} %`);
+      const o = firn('oxygenation', '--altitude', alt, '--spo2', String(device.spo2));
+      const band = await d.text('Expected SpO2');
+      assertNear(band, o.spo2_expected_low_pct, {index: 0, cliDecimals: 0, what: 'band low'});
+      assertNear(band, o.spo2_expected_high_pct, {index: 1, cliDecimals: 0, what: 'band high'});
+      assertNear(await d.text('Middle of the band'), o.spo2_expected_pct,
+                 {cliDecimals: 0, what: 'band middle'});
+      assertNear(await d.text('Gap to the band'), o.spo2_gap_pct, {what: 'gap'});
+      const words = {within: /^Within/, below: /^Below/, well_below: /^Well below/, above: /^Above/};
+      assert.match(await d.text('Measured vs expected'), words[o.spo2_assessment] ?? /^$/,
+                   `CLI assessment ${o.spo2_assessment}`);
+      if (o.oximeter_unreliable) {
+        const warnings = (await d.items()).filter((i) => i.label.startsWith('Warning'));
+        assert.ok(warnings.some((w) => /80 %/.test(w.text)),
+                  `no oximeter warning below 80 %: ${JSON.stringify(warnings.map((w) => w.text))}`);
+      }
+      await d.cautionReachable();
+      await d.shot('casualty');
+    });
+
+    test('Curve: PaO2 for the measured SpO2 lies on the CLI dissociation curve', async () => {
+      await d.screen('Curve');
+      const standard = number(await d.text('Same SpO2 on the standard curve')).value;
+      // The shown PaO2 is rounded to 1 mmHg: the measured SpO2 must lie between the CLI's
+      // saturations half a mmHg either side (Severinghaus 1979, standard curve).
+      const low = firn('curve', '--po2', `${standard - 0.5}mmHg`).so2_pct;
+      const high = firn('curve', '--po2', `${standard + 0.5}mmHg`).so2_pct;
+      assert.ok(low <= device.spo2 && device.spo2 <= high,
+                `standard curve: ${standard} mmHg gives ${low}–${high} % on the CLI, page SpO2 ${device.spo2}`);
+      const o = firn('oxygenation', '--altitude', alt);
+      assertNear(await d.text('pH (expected, compensated)'), o.ph, {cliDecimals: 2, what: 'pH'});
+      await d.item('Dissociation curve');
+      await d.cautionReachable();
+      await d.shot('curve');
+    });
+
+    test('Bag: 2 psi typed with the keypad unit toggle; equivalent altitude matches the CLI',
+         async () => {
+      await d.screen('Bag');
+      await d.enter('Bag pressure (gauge)', '2', {unit: 'psi'});
+      await d.waitText('Bag pressure (gauge)', (t) => /^(2\.0 psi|138 mbar|138 hPa)$/.test(t));
+      const b = firn('bag', '--altitude', alt, '--gauge', '2psi', '--flush', '40');
+      assertNear(await d.text('Equivalent altitude'), b.equivalent_altitude_m,
+                 {cliDecimals: 0, what: 'equivalent altitude m'});
+      assertNear(await d.text('Descent equivalent'), b.descent_equivalent_m,
+                 {cliDecimals: 0, what: 'descent equivalent m'});
+      assertNear(await d.text('CO2 inside (steady state)'), b.co2_pct, {cliDecimals: 2, what: 'CO2 %'});
+      assertNear(await d.text('Minimum flush for CO2 below 1 %'), b.min_flush_lpm, {what: 'min flush'});
+      await d.item('Altitude ladder');
+      await d.cautionReachable();
+      await d.shot('bag');
+    });
+
+    test('Oxygen: cylinder gauge and temperature typed; duration matches the CLI', async () => {
+      await d.screen('Oxygen');
+      await d.enter('Cylinder gauge', String(device.cylinderBar));
+      await d.waitText('Cylinder gauge', (t) => t === `${device.cylinderBar} bar`);
+      // The − key toggles the sign wherever it is pressed.
+      await d.enter('Cylinder temperature', `${Math.abs(device.celsius)}${device.celsius < 0 ? '-' : ''}`);
+      await d.waitText('Cylinder temperature', (t) => t === `${device.celsius} °C`);
+      const c = firn('cylinder', '--water-capacity', '2', `--pressure=${device.cylinderBar}bar`,
+                     '--flow', '4', '--reserve', '20bar', `--temperature=${device.celsius}C`,
+                     '--altitude', alt);
+      const lasts = minutesShown(await d.text('Lasts to reserve'));
+      assert.ok(Math.abs(lasts - c.duration_min) <= 1, `lasts ${lasts} min, CLI ${c.duration_min} min`);
+      assertNear(await d.text('Contents (free gas, real gas)'), c.contents_l,
+                 {cliDecimals: 0, what: 'contents L'});
+      assertNear(await d.text('Usable above reserve'), c.usable_l, {cliDecimals: 0, what: 'usable L'});
+      await d.item('Evacuation timeline');
+      await d.cautionReachable();
+      await d.shot('oxygen');
+    });
+
+    test('AMS: tapped answers give the CLI Lake Louise score and category', async () => {
+      await d.screen('AMS');
+      const answers = {Headache: 2, Gastrointestinal: 1, Fatigue: 2, Dizziness: 1};
+      for (const [item, value] of Object.entries(answers)) {
+        await d.tap(`${item} ${value}`);
+        await d.waitText(`${item} ${value}`, (t) => t === 'selected');
+      }
+      const a = firn('ams', '--headache', '2', '--gi', '1', '--fatigue', '2', '--dizziness', '1');
+      assert.equal(await d.text('Lake Louise score'), `${a.total} of 12`);
+      assert.match(await d.text('Assessment'), new RegExp(a.category, 'i'));
+      await d.cautionReachable();
+      await d.shot('ams');
+    });
+
+    test('Teaching: altitude typed; cascade for acute and acclimatised matches the CLI',
+         async () => {
+      await d.screen('Teaching');
+      await d.enter('Altitude (teaching)', '6000');
+      await d.waitText('Teaching altitude', (t) => t === '6000 m');
+      const p = firn('pressure', '--altitude', '6000m');
+      const pb = await d.text('PB (West 1996)');  // "370 mmHg = 492.8 hPa"
+      assertNear(pb, p.pressure_mmhg, {index: 0, what: 'PB mmHg'});
+      assertNear(pb, p.pressure_hpa, {index: 1, cliDecimals: 2, what: 'PB hPa'});
+      for (const [exposure, flags] of [['acute', []], ['acclimatised', ['--acclimatised']]]) {
+        const o = firn('oxygenation', '--altitude', '6000m', ...flags);
+        // "PiO2 68 mmHg → PAO2 30 mmHg → PaO2 26 mmHg → SaO2 57 %"; the digits of "PiO2" etc.
+        // are numbers #0, #2, #4, #6 in that text.
+        const line = await d.text(`Cascade, ${exposure}`);
+        assertNear(line, o.pio2_mmhg, {index: 1, what: `${exposure} PiO2`});
+        assertNear(line, o.pao2_mmhg, {index: 3, what: `${exposure} PAO2`});
+        assertNear(line, o.arterial_po2_mmhg, {index: 5, what: `${exposure} PaO2`});
+        assertNear(line, o.spo2_expected_pct, {index: 7, cliDecimals: 0, what: `${exposure} SaO2`});
+      }
+      await d.item('Cascade chart');
+      await d.item('Teaching curve');
+      await d.cautionReachable();
+      await d.shot('teaching');
+    });
+
+    // Settings on a phone are a screen of their own; on a laptop Here sits beside them.
+    async function onScreen(screen, label) {
+      await d.screen(screen);
+      return d.text(label);
+    }
+
+    test('Units: m→ft→m, hPa→mmHg→hPa, bar→psi→bar, °C→°F→°C lose nothing', async () => {
+      const metres = device.altitude;
+      await d.screen('Settings');
+      await d.tap('ft');
+      assert.equal(await onScreen('Here', 'Altitude'), `${Math.round(metres * FEET_PER_METRE)} ft`);
+      await d.screen('Settings');
+      await d.tap('m');
+      assert.equal(await onScreen('Here', 'Altitude'), `${metres} m`);
+
+      // Typed in feet on the keypad while showing metres; shown in feet it is exactly that.
+      await d.enter('Altitude', '14000', {unit: 'ft'});
+      await d.waitText('Altitude', (t) => t === `${Math.round(14000 / FEET_PER_METRE)} m`);
+      await d.screen('Settings');
+      await d.tap('ft');
+      assert.equal(await onScreen('Here', 'Altitude'), '14000 ft');
+      await d.screen('Settings');
+      await d.tap('m');
+      await d.screen('Here');
+      await d.enter('Altitude', String(metres));
+
+      await d.screen('Settings');
+      await d.tap('mmHg');
+      const p = firn('pressure', '--altitude', alt);
+      assertNear(await onScreen('Here', 'Barometric pressure (West 1996)'), p.pressure_mmhg,
+                 {what: 'West 1996 mmHg'});
+      await d.shot('here-mmhg');
+      await d.screen('Settings');
+      await d.tap('hPa');
+      assertNear(await onScreen('Here', 'Barometric pressure (West 1996)'), p.pressure_hpa,
+                 {cliDecimals: 2, what: 'West 1996 hPa after mmHg'});
+
+      await d.screen('Settings');
+      await d.tap('psi');
+      assert.equal(await onScreen('Oxygen', 'Cylinder gauge'),
+                   `${Math.round(device.cylinderBar * PSI_PER_BAR)} psi`);
+      await d.screen('Settings');
+      await d.tap('bar');
+      assert.equal(await onScreen('Oxygen', 'Cylinder gauge'), `${device.cylinderBar} bar`);
+
+      await d.screen('Settings');
+      await d.tap('°F');
+      assert.equal(await onScreen('Oxygen', 'Cylinder temperature'),
+                   `${Math.round(device.celsius * 9 / 5 + 32)} °F`);
+      await d.screen('Settings');
+      await d.tap('°C');
+      assert.equal(await onScreen('Oxygen', 'Cylinder temperature'), `${device.celsius} °C`);
+    });
+
+    test('Themes: Night and Projector screenshots, back to Day', async () => {
+      await d.screen('Settings');
+      await d.tap('Night');
+      await d.waitText('Night', (t) => t === 'selected');
+      await d.screen('Here');
+      console.log(`${device.name} night: ${await d.shot('here-night')}`);
+      await d.screen('Settings');
+      await d.tap('Projector');
+      await d.waitText('Projector', (t) => t === 'selected');
+      await d.screen('Teaching');
+      console.log(`${device.name} projector: ${await d.shot('teaching-projector')}`);
+      await d.screen('Casualty');
+      await d.shot('casualty-projector');
+      await d.screen('Settings');
+      await d.tap('Day');
+      await d.waitText('Day', (t) => t === 'selected');
+    });
+
+    test('Idle: no frames drawn in 5 s without input after settling', async () => {
+      await d.screen('Here');
+      await pause(1500);  // the settle frames after the last input run out
+      const before = await d.page.evaluate(() => window.firnFramesDrawn);
+      await pause(5000);
+      const idle = (await d.page.evaluate(() => window.firnFramesDrawn)) - before;
+      console.log(`${device.name} idle: ${idle} frames drawn in 5 s (total ${before})`);
+      assert.equal(idle, 0);
+    });
+  });
+}
