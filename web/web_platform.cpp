@@ -2,6 +2,7 @@
 
 #include <emscripten.h>
 
+#include <cctype>
 #include <cstdlib>
 #include <string>
 
@@ -30,21 +31,66 @@ EM_JS(int, firn_js_storage_save, (const char* key, const char* text), {
   }
 });
 
-// A blob URL in a new window, where the browser's own print command works; when pop-ups are
-// blocked the document is offered as a download instead.
-EM_JS(int, firn_js_open_document, (const char* title, const char* html), {
+// A blob URL in a new window, where the browser's own print command works. Returns 2 when
+// pop-ups are blocked (the caller offers the document as a download instead), 0 on failure.
+EM_JS(int, firn_js_open_document, (const char* html), {
   try {
     var blob = new Blob([UTF8ToString(html)], {type: 'text/html;charset=utf-8'});
     var url = URL.createObjectURL(blob);
     var opened = window.open(url, '_blank');
-    if (!opened) {
-      var link = document.createElement('a');
-      link.href = url;
-      link.download = (UTF8ToString(title).replace(/[^A-Za-z0-9]+/g, '-') || 'firn') + '.html';
-      document.body.appendChild(link);
-      link.click();
-      link.remove();
-    }
+    setTimeout(function() { URL.revokeObjectURL(url); }, 120000);
+    return opened ? 1 : 2;
+  } catch (e) {
+    return 0;
+  }
+});
+
+// A hidden <input type=file>; the chosen file is read as text and handed back to the platform
+// object (`platform`) through the exported firn_file_imported, then the paused loop is woken.
+EM_JS(int, firn_js_request_file_import, (void* platform), {
+  try {
+    var input = document.createElement('input');
+    input.type = 'file';
+    input.accept = '.json,application/json';
+    input.hidden = true;
+    var give = function(name, text, error) {
+      var pass = function(value) {
+        var size = lengthBytesUTF8(value) + 1;
+        var pointer = _malloc(size);
+        stringToUTF8(value, pointer, size);
+        return pointer;
+      };
+      var n = pass(name), t = pass(text), e = pass(error);
+      Module['_firn_file_imported'](platform, n, t, e);
+      _free(n); _free(t); _free(e);
+      if (window.firnShell && window.firnShell.wake) window.firnShell.wake();
+    };
+    input.addEventListener('change', function() {
+      var file = input.files && input.files[0];
+      input.remove();
+      if (!file) return;
+      file.text().then(function(text) { give(file.name, text, ''); },
+                       function(error) { give(file.name, '', 'cannot read ' + file.name + ': ' + error); });
+    });
+    document.body.appendChild(input);
+    input.click();
+    return 1;
+  } catch (e) {
+    return 0;
+  }
+});
+
+// A download through a blob link (works offline; the browser asks where or uses Downloads).
+EM_JS(int, firn_js_offer_download, (const char* name, const char* text, const char* type), {
+  try {
+    var blob = new Blob([UTF8ToString(text)], {type: UTF8ToString(type) + ';charset=utf-8'});
+    var url = URL.createObjectURL(blob);
+    var link = document.createElement('a');
+    link.href = url;
+    link.download = UTF8ToString(name);
+    document.body.appendChild(link);
+    link.click();
+    link.remove();
     setTimeout(function() { URL.revokeObjectURL(url); }, 120000);
     return 1;
   } catch (e) {
@@ -113,11 +159,33 @@ bool WebPlatform::save_text(std::string_view key, std::string_view text) {
 }
 
 bool WebPlatform::open_html_document(std::string_view title, std::string_view html) {
-  return firn_js_open_document(std::string(title).c_str(), std::string(html).c_str()) != 0;
+  std::string text(html);
+  int opened = firn_js_open_document(text.c_str());
+  if (opened != 2) return opened == 1;
+  std::string file_name;
+  for (char c : title) file_name += std::isalnum(static_cast<unsigned char>(c)) ? c : '-';
+  return firn_js_offer_download(((file_name.empty() ? std::string("firn") : file_name) + ".html").c_str(),
+                                text.c_str(), "text/html") != 0;
 }
 
 void WebPlatform::publish_test_items(std::string_view json) {
   firn_js_publish_test_items(std::string(json).c_str());
+}
+
+bool WebPlatform::request_file_import(std::string_view) {
+  return firn_js_request_file_import(this) != 0;
+}
+
+std::optional<ui::ImportedFile> WebPlatform::take_imported_file() {
+  std::optional<ui::ImportedFile> file = std::move(imported_);
+  imported_.reset();
+  return file;
+}
+
+std::string WebPlatform::offer_download(std::string_view file_name, std::string_view text) {
+  bool offered = firn_js_offer_download(std::string(file_name).c_str(), std::string(text).c_str(),
+                                        "application/json") != 0;
+  return offered ? "a download called " + std::string(file_name) : std::string();
 }
 
 void report_start_problem(const char* kind) { firn_js_report_start_problem(kind); }
@@ -131,3 +199,9 @@ void publish_frame_info(int frames_drawn, bool wants_text_input, float pixel_rat
 }
 
 }  // namespace firn::web
+
+extern "C" EMSCRIPTEN_KEEPALIVE void firn_file_imported(void* platform, const char* name,
+                                                       const char* text, const char* error) {
+  if (platform == nullptr) return;
+  static_cast<firn::web::WebPlatform*>(platform)->file_imported({name, text, error});
+}

@@ -2,6 +2,9 @@
 // window (print from there), UI test items published on window.firnTestItems.
 #pragma once
 
+#include <optional>
+#include <string>
+
 #include "ui/platform.hpp"
 
 namespace firn::web {
@@ -13,6 +16,17 @@ class WebPlatform final : public ui::Platform {
   bool open_html_document(std::string_view title, std::string_view html) override;
   void publish_test_items(std::string_view json) override;
   std::string_view name() const override { return "web"; }
+  // The browser's file picker; the chosen file's text arrives through firn_file_imported().
+  bool request_file_import(std::string_view path) override;
+  std::optional<ui::ImportedFile> take_imported_file() override;
+  std::string offer_download(std::string_view file_name, std::string_view text) override;
+  std::string storage_location() const override { return "this browser's storage"; }
+
+  // Called (through firn_file_imported) when the picker's file has been read.
+  void file_imported(ui::ImportedFile file) { imported_ = std::move(file); }
+
+ private:
+  std::optional<ui::ImportedFile> imported_;
 };
 
 // Tells the page shell why Firn cannot start ("webgl"), so it shows a message, not a blank canvas.

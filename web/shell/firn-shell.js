@@ -48,6 +48,7 @@
 
   window.firnShell = {
     showProblem: showProblem,
+    wake: wake,  // for page code that finishes later (a picked file has been read)
     started: function (pointer) {
       runner = pointer;
       running = true;
