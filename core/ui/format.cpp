@@ -77,6 +77,13 @@ std::string duration_text(Duration d) {
   return std::to_string(rounded / 60) + " h " + std::to_string(rounded % 60) + " min";
 }
 
+std::string gas_pressure_range_text(Pressure low, Pressure high, const UnitChoice& u) {
+  if (u.pressure == UnitChoice::Pressure::Kilopascals) {
+    return shown_number(low.in(kilopascals), 1) + "\xE2\x80\x93" + shown_number(high.in(kilopascals), 1) + " kPa";
+  }
+  return shown_number(low.in(mmhg), 0) + "\xE2\x80\x93" + shown_number(high.in(mmhg), 0) + " mmHg";
+}
+
 std::string gas_pressure_text(Pressure p, const UnitChoice& u) {
   if (u.pressure == UnitChoice::Pressure::Kilopascals) return shown_number(p.in(kilopascals), 1) + " kPa";
   return shown_number(p.in(mmhg), 0) + " mmHg";

@@ -31,4 +31,6 @@ std::string volume_text(units::Volume volume);
 std::string duration_text(units::Duration duration);
 // PiO2, PAO2, PaO2 are read in mmHg by clinicians whatever the weather unit; kPa users get kPa.
 std::string gas_pressure_text(units::Pressure pressure, const UnitChoice& units);
+// A range with one unit: "57–60 mmHg".
+std::string gas_pressure_range_text(units::Pressure low, units::Pressure high, const UnitChoice& units);
 }  // namespace firn::ui

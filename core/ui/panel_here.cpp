@@ -100,9 +100,9 @@ void draw_oxygen_here(AppState& state) {
   const cascade::Cascade& k = e->cascade;
   result_value(state, "Inspired PO2 (PiO2)", gas_pressure_text(k.inspired, u));
   result_value(state, "Alveolar PO2 (PAO2), expected",
-               gas_pressure_text(k.lowest.alveolar, u) + "\xE2\x80\x93" + gas_pressure_text(k.highest.alveolar, u), false);
+               gas_pressure_range_text(k.lowest.alveolar, k.highest.alveolar, u), false);
   result_value(state, "Arterial PO2 (PaO2), expected",
-               gas_pressure_text(k.lowest.arterial, u) + "\xE2\x80\x93" + gas_pressure_text(k.highest.arterial, u), false);
+               gas_pressure_range_text(k.lowest.arterial, k.highest.arterial, u), false);
   result_value(state, "PaCO2, expected", gas_pressure_text(k.middle.paco2, u), false);
 }
 

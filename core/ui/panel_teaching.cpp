@@ -35,45 +35,70 @@ void altitude_slider(AppState& state) {
                       ImVec2(ImGui::GetStyle().FramePadding.x, std::max(ImGui::GetStyle().FramePadding.y,
                                                                        (touch_target(state) - em()) * 0.5f)));
   ImGui::PushStyleVar(ImGuiStyleVar_GrabMinSize, 2.5f * em());
-  ImGui::SetNextItemWidth(-1.0f);
+  // The altitude is written above the slider: on the track the thumb-wide grab would hide it.
   std::string shown = altitude_with_unit(state.teaching.altitude, state.settings.units);
-  if (ImGui::SliderFloat("##teach-altitude", &value, 0.0f, 8000.0f, shown.c_str(),
-                         ImGuiSliderFlags_AlwaysClamp | ImGuiSliderFlags_NoInput)) {
+  if (state.font_large) ImGui::PushFont(state.font_large);
+  ImGui::TextUnformatted(shown.c_str());
+  if (state.font_large) ImGui::PopFont();
+  ImGui::SetNextItemWidth(-1.0f);
+  if (ImGui::SliderFloat("##teach-altitude", &value, 0.0f, 8000.0f, "",
+                         ImGuiSliderFlags_AlwaysClamp | ImGuiSliderFlags_NoInput |
+                             ImGuiSliderFlags_NoRoundToFormat)) {
     state.teaching.altitude = metres(std::round(value / 50.0f) * 50.0);  // 50 m steps read cleanly
   }
   ImGui::PopStyleVar(2);
   test_hook::item_text("Teaching altitude", shown);
 }
 
+// Two bars (acute, acclimatised) at `stage` with their values on top.
+void draw_bar_pair(const AppState& state, const Plot& plot, int stage, const double (&values)[2],
+                   const ImU32 (&colours)[2]) {
+  for (int c = 0; c < 2; ++c) {
+    double x0 = stage + 0.12 + c * 0.38, x1 = x0 + 0.36;
+    plot.draw->AddRectFilled(plot.at(x0, 0), plot.at(x1, values[c]), colours[c]);
+    std::string t = shown_number(values[c], 0);
+    ImVec2 top = plot.at((x0 + x1) * 0.5, values[c]);
+    float tw = ImGui::CalcTextSize(t.c_str()).x;
+    plot.draw->AddText(ImVec2(top.x - tw * 0.5f, top.y - 1.2f * em()), plot_colour(state, PlotColour::Text), t.c_str());
+  }
+}
+
+void stage_labels(const AppState& state, const Plot& plot, const char* const* names, int count) {
+  for (int stage = 0; stage < count; ++stage) {
+    ImVec2 label_at = plot.at(stage + 0.5, 0);
+    float tw = ImGui::CalcTextSize(names[stage]).x;
+    plot.draw->AddText(ImVec2(label_at.x - tw * 0.5f, label_at.y + 0.3f * em()),
+                       plot_colour(state, PlotColour::Text), names[stage]);
+  }
+}
+
+// Pressures on a mmHg axis, and SaO2 in a small chart of its own with a 0–100 % axis: a
+// percentage drawn against mmHg would read as a pressure.
 void draw_cascade_chart(const AppState& state, const Column (&columns)[2], Pressure pb) {
   const UnitChoice& u = state.settings.units;
-  Plot plot = begin_plot(state, "Cascade chart",
-                         "PB " + gas_pressure_text(pb, u), 15.0f,
-                         {0, 4, 0, 160, 0, 20, "", "mmHg (SaO2: %)"});
-  const char* stages[] = {"PiO2", "PAO2", "PaO2", "SaO2 %"};
   ImU32 colours[2] = {plot_colour(state, PlotColour::Danger), plot_colour(state, PlotColour::Accent)};
-  for (int stage = 0; stage < 4; ++stage) {
-    ImVec2 label_at = plot.at(stage + 0.5, 0);
-    float tw = ImGui::CalcTextSize(stages[stage]).x;
-    plot.draw->AddText(ImVec2(label_at.x - tw * 0.5f, label_at.y + 0.3f * em()),
-                       plot_colour(state, PlotColour::Text), stages[stage]);
-  }
+  double pressures[3][2] = {};
+  double saturation[2] = {};
   for (int c = 0; c < 2; ++c) {
     if (!columns[c].expectation) continue;
     const cascade::Cascade& k = columns[c].expectation->cascade;
-    // SaO2 plotted on the same 0–160 scale as percent (×1.6): read the number on the bar.
-    double values[4] = {k.inspired.in(mmhg), k.middle.alveolar.in(mmhg), k.middle.arterial.in(mmhg),
-                        columns[c].expectation->band.mid.in(percent)};
-    for (int stage = 0; stage < 4; ++stage) {
-      double x0 = stage + 0.12 + c * 0.38, x1 = x0 + 0.36;
-      double y = stage == 3 ? values[stage] * 1.6 : values[stage];
-      plot.draw->AddRectFilled(plot.at(x0, 0), plot.at(x1, y), colours[c]);
-      std::string t = shown_number(values[stage], 0);
-      ImVec2 top = plot.at((x0 + x1) * 0.5, y);
-      float tw = ImGui::CalcTextSize(t.c_str()).x;
-      plot.draw->AddText(ImVec2(top.x - tw * 0.5f, top.y - 1.2f * em()), plot_colour(state, PlotColour::Text), t.c_str());
-    }
+    pressures[0][c] = k.inspired.in(mmhg);
+    pressures[1][c] = k.middle.alveolar.in(mmhg);
+    pressures[2][c] = k.middle.arterial.in(mmhg);
+    saturation[c] = columns[c].expectation->band.mid.in(percent);
   }
+  Plot plot = begin_plot(state, "Cascade chart", "PB " + gas_pressure_text(pb, u), 12.0f,
+                         {0, 3, 0, 160, 0, 20, "", "PO2, mmHg"});
+  const char* stages[] = {"PiO2", "PAO2", "PaO2"};
+  stage_labels(state, plot, stages, 3);
+  for (int stage = 0; stage < 3; ++stage) draw_bar_pair(state, plot, stage, pressures[stage], colours);
+
+  std::string summary = "SaO2 acute " + shown_number(saturation[0], 0) + " %, acclimatised " +
+                        shown_number(saturation[1], 0) + " %";
+  Plot sat = begin_plot(state, "Saturation chart", summary, 8.0f, {0, 1, 0, 100, 0, 25, "", "SaO2, %"});
+  const char* sat_stage[] = {"SaO2"};
+  stage_labels(state, sat, sat_stage, 1);
+  draw_bar_pair(state, sat, 0, saturation, colours);
   plot_legend(state, {{colours[0], "acute (first hours\xE2\x80\x93" "2 days)"}, {colours[1], "acclimatised"}});
 }
 

@@ -7,7 +7,7 @@ ImVec4 rgb(int r, int g, int b) { return ImVec4(r / 255.f, g / 255.f, b / 255.f,
 
 // Day: near-black on white, 18.9:1; dim text #3d3d3d on white 11:1 (WCAG 2.1 contrast formula).
 const Palette kDay{rgb(255, 255, 255), rgb(17, 17, 17),    rgb(61, 61, 61),   rgb(0, 70, 140),
-                   rgb(122, 72, 0),    rgb(160, 0, 0),     rgb(232, 236, 241), rgb(196, 214, 236),
+                   rgb(100, 58, 0),    rgb(160, 0, 0),     rgb(232, 236, 241), rgb(196, 214, 236),
                    rgb(80, 80, 80)};
 // Night: only red light. Text #ff3b30-ish on black; no blue or green components.
 const Palette kNight{rgb(0, 0, 0),    rgb(230, 40, 30),  rgb(170, 30, 24), rgb(255, 80, 60),

@@ -60,9 +60,16 @@ void result_value(AppState& state, const char* label, const std::string& shown,
   state.last_results[label] = shown;
   if (!emphasised) {
     // Secondary results on one line: the large ones stay above the fold on a phone.
+    // Label and value share a line when they fit; otherwise the value wraps on its own line
+    // (a long cascade or a range must never run off the right edge of a phone).
     ImGui::TextDisabled("%s", label);
-    ImGui::SameLine();
+    float needed = ImGui::CalcTextSize(shown.c_str()).x + ImGui::GetStyle().ItemSpacing.x;
+    if (ImGui::GetItemRectMax().x + needed <= ImGui::GetWindowPos().x + ImGui::GetWindowContentRegionMax().x) {
+      ImGui::SameLine();
+    }
+    ImGui::PushTextWrapPos(0.0f);
     ImGui::TextUnformatted(shown.c_str());
+    ImGui::PopTextWrapPos();
     test_hook::item_text(label, shown);
     return;
   }
