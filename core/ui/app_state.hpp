@@ -106,6 +106,7 @@ struct Keypad {
 struct TeamState {
   team_profile::TeamProfile profile = team_profile::demo_profile();
   bool stored = false;         // saved on this device (false: the built-in demo, unsaved)
+  bool backup_kept = false;    // an unreadable saved profile was kept as team-profile.json.bad
   std::string message;         // last import/export/print outcome, shown on the Team screen
   bool message_is_problem = false;
   bool import_requested = false;   // waiting for the platform's picker

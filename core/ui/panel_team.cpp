@@ -67,8 +67,11 @@ void draw_profile_summary(AppState& state, Platform& platform) {
     test_hook::item_text("Demo", "DEMO DATA");
   }
   profile_line("Team name", p.team_name);
-  profile_line("Kept", state.team.stored ? "saved in " + platform.storage_location()
-                                         : std::string("built in (not saved yet)"));
+  const TeamState& team = state.team;
+  profile_line("Kept", team.stored        ? "saved in " + platform.storage_location()
+                       : team.backup_kept ? "built in; the unreadable saved profile is kept as " +
+                                                std::string(kBadProfileKey)
+                                          : std::string("built in (not saved yet)"));
 }
 
 void draw_profile_details(const AppState& state) {

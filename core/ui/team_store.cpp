@@ -40,8 +40,8 @@ void load_team_profile(AppState& state, Platform& platform) {
                                     " in " + platform.storage_location() + "."
                               : std::string("The old text could not be copied; it stays under ") +
                                     kProfileKey + " until you import or load a profile.");
-  append_status(state, message);
-  tell(team, message, true);
+  append_status(state, message);  // shown on every screen until dismissed
+  team.backup_kept = kept;
 }
 
 bool import_team_profile(AppState& state, Platform& platform, std::string_view text,

@@ -82,6 +82,7 @@ test('garbage in storage: kept as backup, demo loaded, the message names the pro
   await openTeam(page);
   assert.equal((await item(page, 'Team name')).text, demo.team_name, 'defaults (demo) loaded');
   assert.equal((await item(page, 'Demo')).text, 'DEMO DATA');
+  assert.match((await item(page, 'Kept')).text, /kept as team-profile\.json\.bad/);
   await shot(page, 'web-team-corrupt-storage.png');
 
   // A profile that is valid JSON but out of range is refused the same way, naming the field.
