@@ -1,0 +1,202 @@
+// core/ui logic without GL: an ImGui context with no renderer (fonts built, frames begun and
+// ended) drives the keypad field, and the saved-state round trip and garbage handling run
+// against an in-memory platform. Linked to firn_ui; registered as ctest "ui".
+#define CATCH_CONFIG_MAIN
+#include <catch2/catch.hpp>
+#include <imgui.h>
+#include <nlohmann/json.hpp>
+
+#include <map>
+
+#include "ui/app_state.hpp"
+#include "ui/fields.hpp"
+#include "ui/keypad.hpp"
+#include "ui/persistence.hpp"
+#include "ui/platform.hpp"
+#include "ui/test_hook.hpp"
+
+using namespace firn;
+using namespace firn::ui;
+
+namespace {
+
+class MemoryPlatform : public Platform {
+ public:
+  std::map<std::string, std::string> stored;
+  std::optional<std::string> load_text(std::string_view key) override {
+    auto it = stored.find(std::string(key));
+    if (it == stored.end()) return std::nullopt;
+    return it->second;
+  }
+  bool save_text(std::string_view key, std::string_view text) override {
+    stored[std::string(key)] = std::string(text);
+    return true;
+  }
+  bool open_html_document(std::string_view, std::string_view) override { return false; }
+  void publish_test_items(std::string_view) override {}
+  std::string_view name() const override { return "test"; }
+};
+
+// One ImGui context per test, no renderer: Render() only builds draw lists.
+struct Headless {
+  Headless() {
+    ImGui::CreateContext();
+    ImGuiIO& io = ImGui::GetIO();
+    io.DisplaySize = ImVec2(390, 844);
+    io.IniFilename = nullptr;
+    io.Fonts->AddFontDefault();
+    unsigned char* pixels = nullptr;
+    int w = 0, h = 0;
+    io.Fonts->GetTexDataAsAlpha8(&pixels, &w, &h);  // builds the atlas
+    for (int i = 0; i < ImGuiKey_COUNT; ++i) io.KeyMap[i] = i;
+  }
+  ~Headless() { ImGui::DestroyContext(); }
+
+  // One frame with the altitude field and the keypad; returns the labelled items.
+  nlohmann::json frame(AppState& state) {
+    ImGuiIO& io = ImGui::GetIO();
+    io.DeltaTime = 1.0f / 60.0f;
+    ImGui::NewFrame();
+    test_hook::begin_frame();
+    ++state.frames_drawn;
+    ImGui::SetNextWindowPos(ImVec2(0, 0));
+    ImGui::SetNextWindowSize(io.DisplaySize);
+    ImGui::Begin("test", nullptr, ImGuiWindowFlags_NoDecoration);
+    edit_quantity(state, altitude_field(state, "Altitude", "altitude"), state.situation.altitude);
+    ImGui::End();
+    draw_keypad(state, io.DisplaySize.x, io.DisplaySize.y);
+    ImGui::Render();
+    for (bool& down : io.KeysDown) down = false;
+    return nlohmann::json::parse(test_hook::frame_json());
+  }
+
+  // Presses and releases the mouse on a labelled item, one frame each.
+  void click(AppState& state, const std::string& label) {
+    nlohmann::json items = frame(state);
+    bool found = false;
+    for (const auto& i : items) {
+      if (i["label"] != label) continue;
+      found = true;
+      ImGui::GetIO().MousePos = ImVec2(i["x"].get<float>() + i["w"].get<float>() / 2,
+                                       i["y"].get<float>() + i["h"].get<float>() / 2);
+    }
+    REQUIRE(found);
+    frame(state);  // hover
+    ImGui::GetIO().MouseDown[0] = true;
+    frame(state);
+    ImGui::GetIO().MouseDown[0] = false;
+    frame(state);
+    frame(state);  // the field takes a committed value on the next draw
+  }
+
+  std::string text(AppState& state, const std::string& label) {
+    for (const auto& i : frame(state)) {
+      if (i["label"] == label) return i["text"];
+    }
+    return "(absent)";
+  }
+};
+
+}  // namespace
+
+TEST_CASE("keypad: digits, backspace and OK set the altitude") {
+  Headless ui;
+  AppState state;
+  ui.click(state, "Altitude");
+  REQUIRE(state.keypad.open);
+  for (const char* k : {"Key 4", "Key 3", "Key 2", "Key 9", "Key Backspace", "Key 1"}) ui.click(state, k);
+  CHECK(ui.text(state, "Keypad value") == "4321 m");
+  ui.click(state, "Key OK");
+  CHECK_FALSE(state.keypad.open);
+  CHECK(state.situation.altitude.in(units::metres) == Approx(4321.0).margin(1e-9));
+  CHECK(ui.text(state, "Altitude") == "4321 m");
+}
+
+TEST_CASE("keypad: the first backspace clears the shown value; Cancel keeps the old one") {
+  Headless ui;
+  AppState state;
+  ui.click(state, "Altitude");
+  ui.click(state, "Key Backspace");
+  CHECK(state.keypad.text.empty());
+  ui.click(state, "Key 7");
+  ui.click(state, "Key Cancel");
+  CHECK_FALSE(state.keypad.open);
+  CHECK(state.situation.altitude.in(units::metres) == Approx(3000.0));
+}
+
+TEST_CASE("keypad: a value typed in feet is kept exactly, shown in the display unit") {
+  Headless ui;
+  AppState state;
+  ui.click(state, "Altitude");
+  ui.click(state, "Unit ft");
+  for (const char* k : {"Key 1", "Key 4", "Key 0", "Key 0", "Key 0"}) ui.click(state, k);
+  ui.click(state, "Key OK");
+  // 1 ft = 0.3048 m exactly (international foot, 1959).
+  CHECK(state.situation.altitude.in(units::metres) == Approx(14000 * 0.3048).epsilon(1e-12));
+  CHECK(ui.text(state, "Altitude") == "4267 m");
+  state.settings.units.altitude = UnitChoice::Altitude::Feet;
+  CHECK(ui.text(state, "Altitude") == "14000 ft");
+}
+
+TEST_CASE("keypad: out of range leaves the value and names range and unit") {
+  Headless ui;
+  AppState state;
+  ui.click(state, "Altitude");
+  for (const char* k : {"Key 1", "Key 2", "Key 0", "Key 0", "Key 0"}) ui.click(state, k);
+  ui.click(state, "Key OK");
+  CHECK(state.situation.altitude.in(units::metres) == Approx(3000.0));
+  std::string warning = ui.text(state, "Warning");
+  CHECK(warning.find("altitude") != std::string::npos);
+  CHECK(warning.find("9000") != std::string::npos);
+  CHECK(warning.find(" m") != std::string::npos);
+  // The − key toggles the sign wherever it is pressed: 5, 0, 0, − gives −500 (the lower bound).
+  ui.click(state, "Altitude");
+  for (const char* k : {"Key 5", "Key 0", "Key 0", "Key -"}) ui.click(state, k);
+  ui.click(state, "Key OK");
+  CHECK(state.situation.altitude.in(units::metres) == Approx(-500.0));
+  CHECK(ui.text(state, "Warning") == "(absent)");
+}
+
+TEST_CASE("saved state: round trip keeps values at full precision") {
+  AppState state;
+  state.settings.theme = Theme::Night;
+  state.settings.units.altitude = UnitChoice::Altitude::Feet;
+  state.settings.units.pressure = UnitChoice::Pressure::Millimetres;
+  state.situation.altitude = units::feet(14000.0);
+  state.situation.spo2_measured = true;
+  state.situation.spo2 = units::percent(72.0);
+  state.oxygen.gauge = units::psi(2175.0);
+  state.screen = Screen::Teaching;
+  state.last_results["Lasts to reserve"] = "1 h 16 min";
+  AppState back;
+  REQUIRE(state_from_json(back, state_to_json(state)));
+  CHECK(back.settings.theme == Theme::Night);
+  CHECK(back.settings.units.altitude == UnitChoice::Altitude::Feet);
+  CHECK(back.settings.units.pressure == UnitChoice::Pressure::Millimetres);
+  CHECK(back.situation.altitude.in(units::feet) == Approx(14000.0).epsilon(1e-12));
+  CHECK(back.situation.spo2_measured);
+  CHECK(back.situation.spo2.in(units::percent) == Approx(72.0));
+  CHECK(back.oxygen.gauge.in(units::psi) == Approx(2175.0).epsilon(1e-12));
+  CHECK(back.screen == Screen::Teaching);
+  CHECK(back.last_results["Lasts to reserve"] == "1 h 16 min");
+}
+
+TEST_CASE("saved state: garbage gives defaults, a kept backup and a message") {
+  MemoryPlatform platform;
+  platform.stored[kStateKey] = "{\"situation\": [not json";
+  AppState state;
+  load_state(state, platform);
+  CHECK(state.situation.altitude.in(units::metres) == Approx(3000.0));
+  CHECK(platform.stored[kBadStateKey] == "{\"situation\": [not json");
+  CHECK(state.status_message.find(kBadStateKey) != std::string::npos);
+}
+
+TEST_CASE("saved state: out-of-range and wrong-type values keep their defaults") {
+  MemoryPlatform platform;
+  platform.stored[kStateKey] = R"({"version":1,"situation":{"altitude_m":99999,"spo2":"high"},"settings":{"theme":"purple"}})";
+  AppState state;
+  load_state(state, platform);
+  CHECK(state.situation.altitude.in(units::metres) == Approx(3000.0));
+  CHECK(state.situation.spo2.in(units::percent) == Approx(88.0));
+  CHECK(state.settings.theme == Theme::Day);
+}
