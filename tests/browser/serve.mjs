@@ -1,7 +1,7 @@
 // A tiny static file server for the browser tests: 127.0.0.1, a random free port, correct MIME
 // types (application/wasm matters: browsers only stream-compile wasm served with it), the site
 // mounted under any sub-path, the served folder swappable (update tests) and every request
-// recorded. Also runnable by hand: node serve.mjs SITE_DIR [/sub/path/]
+// recorded. Also serves the app for `./firn.sh start`: node serve.mjs SITE_DIR [/sub/path/] [PORT]
 import {createReadStream, statSync} from 'node:fs';
 import {createServer} from 'node:http';
 import {extname, join, normalize, sep} from 'node:path';
@@ -17,7 +17,7 @@ const MIME = {
 
 // Starts serving `root` under `mount` ('/' or '/a/b/'). Resolves to
 // {origin, url, requests, setRoot(dir), close()}.
-export function serveSite(root, {mount = '/'} = {}) {
+export function serveSite(root, {mount = '/', port = 0} = {}) {
   if (!mount.startsWith('/') || !mount.endsWith('/')) throw new Error('mount must be /…/');
   const state = {root, requests: []};
   const server = createServer((request, response) => {
@@ -51,7 +51,7 @@ export function serveSite(root, {mount = '/'} = {}) {
   });
   return new Promise((resolve, reject) => {
     server.once('error', reject);
-    server.listen(0, '127.0.0.1', () => {
+    server.listen(port, '127.0.0.1', () => {
       const origin = `http://127.0.0.1:${server.address().port}`;
       resolve({
         origin,
@@ -68,6 +68,7 @@ export function serveSite(root, {mount = '/'} = {}) {
 }
 
 if (import.meta.url === pathToFileURL(process.argv[1]).href) {
-  const site = await serveSite(process.argv[2] ?? '.', {mount: process.argv[3] ?? '/'});
+  const site = await serveSite(process.argv[2] ?? '.',
+                              {mount: process.argv[3] ?? '/', port: Number(process.argv[4] ?? 0)});
   console.log(`serving ${process.argv[2] ?? '.'} at ${site.url}`);
 }
