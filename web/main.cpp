@@ -102,6 +102,19 @@ void draw_one_frame(void* argument) {
   }
 }
 
+// Emscripten 3.1.6's GLFW hands the scroll callback the DOM wheel delta as it is: positive =
+// down and about 100 per notch in pixel mode (3 in line mode), where GLFW and ImGui expect
+// positive = up and 1 per notch. Passed on raw, a notch down scrolled 200 lines *up* (nothing
+// moved at the top of a screen) and a notch up jumped to the bottom.
+double wheel_steps(double dom_delta) {
+  double per_notch = std::fabs(dom_delta) >= 50.0 ? 100.0 : 3.0;
+  return -dom_delta / per_notch;
+}
+
+void scroll_callback(GLFWwindow* window, double dom_x, double dom_y) {
+  ImGui_ImplGlfw_ScrollCallback(window, wheel_steps(dom_x), wheel_steps(dom_y));
+}
+
 }  // namespace
 }  // namespace firn::web
 
@@ -141,6 +154,7 @@ int main() {
   IMGUI_CHECKVERSION();
   ImGui::CreateContext();
   ImGui_ImplGlfw_InitForOpenGL(window, true);
+  glfwSetScrollCallback(window, web::scroll_callback);  // replaces ImGui's; calls it normalised
   ImGui_ImplOpenGL3_Init("#version 300 es");
 
   // Lives as long as the page; never freed on purpose.
