@@ -73,6 +73,12 @@
                 buttons: type === 'mouseup' ? 0 : 1};
     if (type === 'mousedown') queueMouse('mousemove', init);
     queueMouse(type, init);
+    // A finger leaves nothing hovering: once a frame has taken the release, the pointer moves
+    // off the canvas, else the last key stays lit like a selected button.
+    if (type === 'mouseup') {
+      queueMouse('mousemove', Object.assign({}, init, {clientX: -1000, clientY: -1000,
+                                                       screenX: -1000, screenY: -1000}), true);
+    }
   }
 
   // ImGui 1.86 has no input queue: a press and its release (or a release and the next press)
@@ -82,15 +88,15 @@
   var lastButtonFrame = -1;
   var flushScheduled = false;
   function framesDrawn() { return window.firnFramesDrawn || 0; }
-  function queueMouse(type, init) {
-    pendingMouse.push({type: type, init: init});
+  function queueMouse(type, init, afterFrame) {
+    pendingMouse.push({type: type, init: init, afterFrame: !!afterFrame});
     flushMouse();
   }
   function flushMouse() {
     flushScheduled = false;
     while (pendingMouse.length) {
       var next = pendingMouse[0];
-      var button = next.type !== 'mousemove';
+      var button = next.type !== 'mousemove' || next.afterFrame;
       if (button && lastButtonFrame >= 0 && framesDrawn() <= lastButtonFrame) {
         wake();
         if (!flushScheduled) {
