@@ -16,14 +16,6 @@ std::string default_config_dir() {
   return ".firn";
 }
 
-bool safe_key(std::string_view key) {
-  if (key.empty()) return false;
-  for (char c : key) {
-    bool ok = (c >= 'a' && c <= 'z') || (c >= '0' && c <= '9') || c == '-' || c == '_' || c == '.';
-    if (!ok) return false;
-  }
-  return key.find("..") == std::string_view::npos;
-}
 }  // namespace
 
 NativePlatform::NativePlatform(std::string config_dir, std::string test_items_path)
@@ -35,7 +27,7 @@ std::string NativePlatform::path_for(std::string_view key) const {
 }
 
 std::optional<std::string> NativePlatform::load_text(std::string_view key) {
-  if (!safe_key(key)) return std::nullopt;
+  if (!ui::is_valid_storage_key(key)) return std::nullopt;
   std::ifstream in(path_for(key), std::ios::binary);
   if (!in) return std::nullopt;
   std::ostringstream buffer;
@@ -44,7 +36,7 @@ std::optional<std::string> NativePlatform::load_text(std::string_view key) {
 }
 
 bool NativePlatform::save_text(std::string_view key, std::string_view text) {
-  if (!safe_key(key)) return false;
+  if (!ui::is_valid_storage_key(key)) return false;
   std::error_code ec;
   fs::create_directories(config_dir_, ec);
   // Write then rename, so a crash mid-write never leaves half a settings file.

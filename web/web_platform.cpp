@@ -132,20 +132,8 @@ EM_JS(void, firn_js_publish_page_colour, (int rgb), {
 
 namespace firn::web {
 
-namespace {
-// Same key rule as the native platform, so a key that works on one works on the other.
-bool safe_key(std::string_view key) {
-  if (key.empty()) return false;
-  for (char c : key) {
-    bool ok = (c >= 'a' && c <= 'z') || (c >= '0' && c <= '9') || c == '-' || c == '_' || c == '.';
-    if (!ok) return false;
-  }
-  return key.find("..") == std::string_view::npos;
-}
-}  // namespace
-
 std::optional<std::string> WebPlatform::load_text(std::string_view key) {
-  if (!safe_key(key)) return std::nullopt;
+  if (!ui::is_valid_storage_key(key)) return std::nullopt;
   char* stored = firn_js_storage_load(std::string(key).c_str());
   if (stored == nullptr) return std::nullopt;
   std::string text(stored);
@@ -154,7 +142,7 @@ std::optional<std::string> WebPlatform::load_text(std::string_view key) {
 }
 
 bool WebPlatform::save_text(std::string_view key, std::string_view text) {
-  if (!safe_key(key)) return false;
+  if (!ui::is_valid_storage_key(key)) return false;
   return firn_js_storage_save(std::string(key).c_str(), std::string(text).c_str()) != 0;
 }
 

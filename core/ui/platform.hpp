@@ -8,6 +8,17 @@
 
 namespace firn::ui {
 
+// Storage keys both platforms accept: lower-case ASCII letters, digits, '-', '_' and '.', no
+// "..". One rule, so a key that works on one platform works on the other.
+inline bool is_valid_storage_key(std::string_view key) {
+  if (key.empty() || key.find("..") != std::string_view::npos) return false;
+  for (char c : key) {
+    bool ok = (c >= 'a' && c <= 'z') || (c >= '0' && c <= '9') || c == '-' || c == '_' || c == '.';
+    if (!ok) return false;
+  }
+  return true;
+}
+
 // A file the user picked for import: its name (no folder) and its whole text, or why it could
 // not be read.
 struct ImportedFile {
