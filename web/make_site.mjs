@@ -46,14 +46,36 @@ for (const input of inputs) {
   }
 }
 
+// An index.html from an assembled site (the update test re-assembles one) loses its old tags.
+const INDEX = 'index.html';
+const indexPath = join(options.out, INDEX);
+if (copied.has(INDEX)) {
+  writeFileSync(indexPath, readFileSync(indexPath, 'utf8')
+    .replace(/<meta name="firn-build" content="[^"]*">\n/g, '')
+    .replace(/\?build=[0-9a-f]+"/g, '"'));
+}
+
 const sha256 = (bytes) => createHash('sha256').update(bytes).digest('hex');
-const files = [...copied].filter((name) => name !== SERVICE_WORKER).sort().map((name) => {
+const hashFiles = () => [...copied].filter((name) => name !== SERVICE_WORKER).sort().map((name) => {
   const bytes = readFileSync(join(options.out, name));
   return {path: name, size: bytes.length, sha256: sha256(bytes)};
 });
-// firn-build.json itself is precached too (the page reads the version from it); its entry
-// carries no hash since it describes the others. The build hash covers every other file.
-const buildHash = sha256(files.map((f) => `${f.path}\0${f.sha256}\n`).join('')).slice(0, 16);
+// The build hash covers every file as built (firn-build.json describes the others and has no
+// hash of its own in its entry).
+const buildHash = sha256(hashFiles().map((f) => `${f.path}\0${f.sha256}\n`).join('')).slice(0, 16);
+
+// The page names its build, and asks for each of its files with ?build=<hash>: the service
+// worker refuses a tagged request for another build, so a page can never run a mix of two
+// versions, even when a new version takes over while this one is starting.
+if (copied.has(INDEX)) {
+  let page = readFileSync(indexPath, 'utf8');
+  if (!page.includes('<title>')) throw new Error(`${INDEX} has no <title>`);
+  page = page.replace('<title>', `<meta name="firn-build" content="${buildHash}">\n<title>`);
+  page = page.replace(/\b(src|href)="([^"/:?#]+)"/g, (whole, attribute, file) =>
+    copied.has(file) ? `${attribute}="${file}?build=${buildHash}"` : whole);
+  writeFileSync(indexPath, page);
+}
+const files = hashFiles();
 const manifest = {
   version: options.version, label: options.label, build: buildHash,
   files: [...files, {path: BUILD_MANIFEST, size: 0, sha256: ''}]

@@ -1,11 +1,13 @@
 // Firn offline support, page side: registers the service worker (sw.js), tells the user when
-// Firn is saved for offline use and when a newer version is ready, and switches to that
-// version before any file of the old one is loaded. Runs before firn-shell.js, which waits
-// for window.firnBeforeStart() before loading the calculator.
+// Firn is saved for offline use and when a newer version is ready, and reloads when a newer
+// version takes over before this page has finished starting. Runs before firn-shell.js.
 (function () {
   'use strict';
 
-  var status = {state: 'starting', updateReady: false, persisted: null, build: null};
+  var buildMeta = document.querySelector('meta[name="firn-build"]');
+  // pageBuild: the build this page itself belongs to; build: what the active worker reports.
+  var status = {state: 'starting', updateReady: false, persisted: null, build: null,
+                pageBuild: buildMeta ? buildMeta.content : null};
   window.firnOffline = status;
   var supported = 'serviceWorker' in navigator && window.isSecureContext;
 
@@ -42,45 +44,17 @@
            'It takes over the next time you open or reload Firn.', true);
   }
 
-  // A waiting worker means the new version finished downloading during an earlier visit.
-  function takeOver(worker) {
-    return new Promise(function (resolve) {
-      var finish = function (how) {
-        if (status.takeOver) return;
-        status.takeOver = how;
-        resolve(how !== 'timed out');
-      };
-      worker.addEventListener('statechange', function () {
-        if (worker.state === 'activated') finish('activated');
-      });
-      navigator.serviceWorker.addEventListener('controllerchange', function () {
-        finish('controller changed');
-      });
-      // Asked again every second: a stopped worker may miss the first message while it starts.
-      var asks = 0;
-      var ask = function () {
-        if (status.takeOver) return;
-        if (++asks > 15) return finish('timed out');
-        worker.postMessage('firn-take-over');
-        setTimeout(ask, 1000);
-      };
-      ask();
-    });
-  }
-
-  window.firnBeforeStart = function () {
-    if (!supported) return Promise.resolve();
-    return navigator.serviceWorker.getRegistration().then(function (registration) {
-      status.waitingAtStart = !!(registration && registration.waiting);
-      if (!registration || !registration.waiting || !navigator.serviceWorker.controller) return;
+  // A new version takes over as soon as it is saved (sw.js). This page asked for each of its
+  // files tagged with its own build, and the new worker refuses those, so a page that has not
+  // finished starting must reload to run the new version whole; a running page keeps going.
+  navigator.serviceWorker && navigator.serviceWorker.addEventListener('controllerchange', function () {
+    if (!window.firnStarted) {
       status.state = 'switching';
-      return takeOver(registration.waiting).then(function (activated) {
-        if (!activated) return;
-        location.reload();
-        return new Promise(function () {});  // never start the old version's calculator
-      });
-    }, function () {});
-  };
+      location.reload();
+      return;
+    }
+    announceUpdate();
+  });
 
   function watch(registration) {
     var follow = function (worker) {

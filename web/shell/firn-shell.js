@@ -149,18 +149,21 @@
   function start() {
     if (typeof WebAssembly !== 'object') return showProblem('wasm', 'no WebAssembly in this browser');
     if (!hasWebGL2()) return showProblem('webgl');
+    // Ask for this page's own build of the calculator (see make_site.mjs and sw.js).
+    var meta = document.querySelector('meta[name="firn-build"]');
+    var tag = meta ? '?build=' + encodeURIComponent(meta.content) : '';
     window.Module = {
       canvas: canvas,
+      locateFile: function (path, prefix) { return prefix + path + tag; },
       print: function (text) { console.log(text); },
       printErr: function (text) { console.warn(text); },
       onAbort: function (what) { showProblem(running ? 'crash' : 'wasm', String(what || '')); }
     };
     var script = document.createElement('script');
-    script.src = 'firn.js';
+    script.src = 'firn.js' + tag;
     script.onerror = function () { showProblem('wasm', 'firn.js did not load'); };
     document.body.appendChild(script);
   }
 
-  window.firnShellReady = (window.firnBeforeStart ? window.firnBeforeStart() : Promise.resolve())
-    .then(start, start);
+  start();
 })();

@@ -2,10 +2,13 @@
 // - install: downloads every file of this build (list and SHA-256 written in by make_site.mjs),
 //   checks each against its hash, and only then stores them in a cache named after the build
 //   hash. A half-deployed server (some files old, some new) fails the check: nothing is mixed.
-// - the page keeps running on the old version until it asks the new one to take over (the next
-//   time Firn is opened or reloaded; see firn-offline.js).
+// - once complete it takes over at once (skipWaiting): a page already running keeps what it has
+//   loaded, and the next time Firn is opened or reloaded every file comes from the new build.
 // - activate: deletes this site's caches of other builds.
-// - fetch: the build's own files come from its cache; anything else goes to the network.
+// - fetch: the build's own files come from its cache; anything else goes to the network. The
+//   page asks for its files with ?build=<hash> (make_site.mjs); a request tagged with another
+//   build is refused, so a page that started on the old build can never load a new file (it
+//   reloads instead; see firn-offline.js).
 /*FIRN_BUILD*/ const BUILD = {build: 'unassembled', version: '', label: '', files: []};
 
 const SCOPE = new URL(self.registration.scope);
@@ -38,6 +41,7 @@ self.addEventListener('install', (event) => {
     await caches.delete(CACHE);  // a failed earlier attempt may have left part of it
     const cache = await caches.open(CACHE);
     await Promise.all(downloaded.map(([url, response]) => cache.put(url, response)));
+    self.skipWaiting();  // not awaited: it settles once activation is under way
   })());
 });
 
@@ -50,7 +54,6 @@ self.addEventListener('activate', (event) => {
 });
 
 self.addEventListener('message', (event) => {
-  if (event.data === 'firn-take-over') event.waitUntil(self.skipWaiting());
   if (event.data === 'firn-build' && event.source) {
     event.source.postMessage({type: 'firn-build', build: BUILD.build, label: BUILD.label,
                               version: BUILD.version, cache: CACHE});
@@ -62,11 +65,17 @@ self.addEventListener('fetch', (event) => {
   if (request.method !== 'GET') return;
   const url = new URL(request.url);
   if (url.origin !== SCOPE.origin) return;
+  const wanted = url.searchParams.get('build');
   url.search = '';
   url.hash = '';
   let key = url.href;
   if (request.mode === 'navigate' && key === SCOPE.href) key = INDEX;
   if (!PRECACHED.has(key)) return;
+  if (wanted !== null && wanted !== BUILD.build) {
+    event.respondWith(new Response('Firn build ' + wanted + ' has been replaced by ' + BUILD.build,
+                                   {status: 409, headers: {'content-type': 'text/plain'}}));
+    return;
+  }
   event.respondWith((async () => {
     const cache = await caches.open(CACHE);
     const hit = await cache.match(key);
