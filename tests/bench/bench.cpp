@@ -1,8 +1,11 @@
 // Speed of the core calculators, printed as figures (never asserted: see DEVELOPERS.md).
-// Each line: name, calls, nanoseconds per call. Run by tests/bench/run.sh.
+// Each line: name, calls, nanoseconds per call; then whole tasks (median of 21 runs).
+// Run by tests/bench/run.sh and tests/bench/compare.sh.
+#include <algorithm>
 #include <chrono>
 #include <cstdio>
 #include <functional>
+#include <vector>
 
 #include "model/atmosphere.hpp"
 #include "bench_cases.hpp"
@@ -20,6 +23,20 @@ void measure(const char* name, int calls, const std::function<double(int)>& body
   sink = sink + total;
   double ns = std::chrono::duration<double, std::nano>(elapsed).count() / calls;
   std::printf("%-40s %9d calls %12.1f ns/call\n", name, calls, ns);
+}
+
+// A whole task: one untimed warm-up run, then `runs` timed runs; prints median and slowest.
+void measure_task(const firn::bench::Task& task, int runs) {
+  sink = sink + task.run();
+  std::vector<double> ms;
+  for (int i = 0; i < runs; ++i) {
+    auto start = std::chrono::steady_clock::now();
+    sink = sink + task.run();
+    ms.push_back(std::chrono::duration<double, std::milli>(std::chrono::steady_clock::now() - start).count());
+  }
+  std::sort(ms.begin(), ms.end());
+  std::printf("%-52s %3d runs  median %8.3f ms  slowest %8.3f ms\n", task.name, runs,
+              ms[ms.size() / 2], ms.back());
 }
 
 }  // namespace
@@ -41,5 +58,7 @@ int main() {
     return parse_length(i % 2 ? "13120ft" : "4000m")->in(metres);
   });
   for (const firn::bench::Case& c : firn::bench::model_cases()) measure(c.name, c.calls, c.body);
+  std::printf("Whole tasks\n");
+  for (const firn::bench::Task& t : firn::bench::task_cases()) measure_task(t, 21);
   return 0;
 }

@@ -1,4 +1,4 @@
-// Benchmark cases for the calculators beyond the atmosphere (bench_cases.cpp).
+// Benchmark cases for the calculators beyond the atmosphere, and whole tasks (bench_cases.cpp).
 #pragma once
 
 #include <functional>
@@ -13,5 +13,14 @@ struct Case {
 };
 
 std::vector<Case> model_cases();
+
+// Whole tasks a user waits for, timed as one run each (bench.cpp prints the median of several):
+// the full pocket card of the demo profile, and 10 000 oxygenation evaluations.
+struct Task {
+  const char* name;
+  std::function<double()> run;
+};
+
+std::vector<Task> task_cases();
 
 }  // namespace firn::bench
