@@ -9,6 +9,8 @@
 #include <imgui_impl_glfw.h>
 #include <imgui_impl_opengl3.h>
 
+#include <malloc.h>
+
 #include <algorithm>
 #include <cmath>
 
@@ -130,6 +132,12 @@ extern "C" EMSCRIPTEN_KEEPALIVE void firn_wake(void* runner_pointer) {
     runner->paused = false;
     emscripten_resume_main_loop();
   }
+}
+
+// Bytes the app holds on its heap right now (dlmalloc's in-use total): the long-session browser
+// test checks that it stays level over thousands of interactions.
+extern "C" EMSCRIPTEN_KEEPALIVE unsigned firn_heap_in_use() {
+  return static_cast<unsigned>(mallinfo().uordblks);
 }
 
 // [SECTION] Start

@@ -112,6 +112,12 @@ void draw_nav_bar(AppState& state, float width) {
   // Five to a row on a phone: the labels need the button's whole width, not its padding.
   ImGui::PushStyleVar(ImGuiStyleVar_FramePadding,
                       ImVec2(0.1f * em(), ImGui::GetStyle().FramePadding.y));
+  // One label size for the whole bar, the size at which the longest label fits.
+  float scale = 1.0f;
+  for (int i = 0; i < kScreenCount; ++i) {
+    scale = std::min(scale, label_fit_scale(kScreens[i].nav_label, button_width));
+  }
+  if (scale < 1.0f) ImGui::SetWindowFontScale(scale);
   for (int i = 0; i < kScreenCount; ++i) {
     if (i % per_row != 0) ImGui::SameLine();
     bool active = state.screen == kScreens[i].screen ||
@@ -129,6 +135,7 @@ void draw_nav_bar(AppState& state, float width) {
     if (active) ImGui::PopStyleColor();
     test_hook::item_text(kScreens[i].nav_label, current ? "selected" : "");
   }
+  if (scale < 1.0f) ImGui::SetWindowFontScale(1.0f);
   ImGui::PopStyleVar();
   ImGui::PopID();
 }

@@ -71,7 +71,8 @@ void draw_band_plot(const AppState& state, const expected_spo2::Band& here_band)
   plot_band(plot, low, high, plot_colour(state, PlotColour::Accent, 0.35f));
   plot_line(plot, low, plot_colour(state, PlotColour::Accent), 0.08f);
   plot_line(plot, high, plot_colour(state, PlotColour::Accent), 0.08f);
-  plot_hline(plot, 80, plot_colour(state, PlotColour::Dim), "oximeter unreliable below 80 %");
+  plot_hline(plot, 80, plot_colour(state, PlotColour::Dim), "unreliable below 80 %",
+             LineLabel::BelowLeft);
   if (altitude) {
     double x = altitude->in(unit);
     plot_vline(plot, x, plot_colour(state, PlotColour::Dim));

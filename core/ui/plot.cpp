@@ -60,12 +60,22 @@ Plot begin_plot(const AppState& state, const char* label, const std::string& sum
   d->AddRect(plot.min, plot.max, plot_colour(state, PlotColour::Grid), 0.0f, 0, 1.0f * state.pixel_ratio);
   // Grid lines on multiples of the tick: round numbers a medic can read off.
   if (axes.x_tick > 0) {
-    for (double x = std::ceil(axes.x0 / axes.x_tick) * axes.x_tick; x <= axes.x1 + 1e-9; x += axes.x_tick) {
+    // On a narrow phone every grid line stays, but only every n-th gets a number, so that
+    // numbers never run into each other or off the right edge.
+    float widest = std::max(ImGui::CalcTextSize(tick_text(axes.x0, axes.x_tick).c_str()).x,
+                            ImGui::CalcTextSize(tick_text(axes.x1, axes.x_tick).c_str()).x);
+    float spacing = (plot.max.x - plot.min.x) * static_cast<float>(axes.x_tick / (axes.x1 - axes.x0));
+    int every = std::max(1, static_cast<int>(std::ceil((widest + 0.6f * em()) / std::max(spacing, 1.0f))));
+    int index = 0;
+    for (double x = std::ceil(axes.x0 / axes.x_tick) * axes.x_tick; x <= axes.x1 + 1e-9;
+         x += axes.x_tick, ++index) {
       ImVec2 p = plot.at(x, axes.y0);
       d->AddLine(ImVec2(p.x, plot.min.y), ImVec2(p.x, plot.max.y), grid);
+      if (index % every != 0) continue;
       std::string t = tick_text(x, axes.x_tick);
       float tw = ImGui::CalcTextSize(t.c_str()).x;
-      d->AddText(ImVec2(p.x - tw * 0.5f, plot.max.y + 0.2f * em()), text, t.c_str());
+      float tx = std::min(p.x - tw * 0.5f, origin.x + width - tw);
+      d->AddText(ImVec2(tx, plot.max.y + 0.2f * em()), text, t.c_str());
     }
   }
   if (axes.y_tick > 0) {
@@ -125,13 +135,16 @@ void plot_point(const Plot& plot, PlotPoint p, ImU32 colour, const std::string& 
   }
 }
 
-void plot_hline(const Plot& plot, double y, ImU32 colour, const std::string& label) {
+void plot_hline(const Plot& plot, double y, ImU32 colour, const std::string& label,
+                LineLabel place) {
   ImVec2 p = plot.at(plot.axes.x0, y);
   plot.draw->AddLine(ImVec2(plot.min.x, p.y), ImVec2(plot.max.x, p.y), colour, 0.12f * em());
-  if (!label.empty()) {
-    float tw = ImGui::CalcTextSize(label.c_str()).x;
-    plot.draw->AddText(ImVec2(plot.max.x - tw - 0.3f * em(), p.y - 1.1f * em()), colour, label.c_str());
-  }
+  if (label.empty()) return;
+  float tw = ImGui::CalcTextSize(label.c_str()).x;
+  ImVec2 at = place == LineLabel::AboveRight
+                  ? ImVec2(plot.max.x - tw - 0.3f * em(), p.y - 1.1f * em())
+                  : ImVec2(plot.min.x + 0.3f * em(), p.y + 0.2f * em());
+  plot.draw->AddText(at, colour, label.c_str());
 }
 
 void plot_vline(const Plot& plot, double x, ImU32 colour, const std::string& label) {

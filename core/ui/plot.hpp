@@ -44,7 +44,11 @@ void plot_band(const Plot& plot, const std::vector<PlotPoint>& lower,
                const std::vector<PlotPoint>& upper, ImU32 colour);
 void plot_point(const Plot& plot, PlotPoint p, ImU32 colour, const std::string& label = {},
                 float radius_em = 0.4f);
-void plot_hline(const Plot& plot, double y, ImU32 colour, const std::string& label = {});
+// Where a horizontal line's label goes: above it at the right end, or below it at the left
+// (where a curve falling to the right leaves room).
+enum class LineLabel { AboveRight, BelowLeft };
+void plot_hline(const Plot& plot, double y, ImU32 colour, const std::string& label = {},
+                LineLabel place = LineLabel::AboveRight);
 void plot_vline(const Plot& plot, double x, ImU32 colour, const std::string& label = {});
 void plot_text(const Plot& plot, PlotPoint p, ImU32 colour, const std::string& text);
 // A legend row: coloured swatch + text, one per entry, under the plot.

@@ -1,5 +1,6 @@
 #include "ui/widgets.hpp"
 
+#include <algorithm>
 #include <cctype>
 #include <cmath>
 #include <cstdio>
@@ -25,9 +26,26 @@ std::string shown_number(double value, int decimals) {
   return text;
 }
 
+float label_fit_scale(const char* label, float width) {
+  constexpr float kSmallestScale = 0.7f;
+  float available = width - 2.0f * ImGui::GetStyle().FramePadding.x;
+  float needed = ImGui::CalcTextSize(label, nullptr, true).x;
+  if (width <= 0.0f || needed <= available || needed <= 0.0f) return 1.0f;
+  return std::max(kSmallestScale, available / needed);
+}
+
+bool fitted_button(const char* label, const ImVec2& size) {
+  float scale = label_fit_scale(label, size.x);
+  // Firn never scales a window's font otherwise, so 1 is the scale to return to.
+  if (scale < 1.0f) ImGui::SetWindowFontScale(scale);
+  bool pressed = ImGui::Button(label, size);
+  if (scale < 1.0f) ImGui::SetWindowFontScale(1.0f);
+  return pressed;
+}
+
 bool big_button(const AppState& state, const char* label, float width) {
   float height = std::max(touch_target(state), ImGui::GetFrameHeight());
-  bool pressed = ImGui::Button(label, ImVec2(width, height));
+  bool pressed = fitted_button(label, ImVec2(width, height));
   test_hook::item(label);
   return pressed;
 }
@@ -44,7 +62,7 @@ bool choice_row(const AppState& state, const char* id, const char* const* labels
     if (active) ImGui::PushStyleColor(ImGuiCol_Button, ImGui::GetStyleColorVec4(ImGuiCol_Header));
     if (active) ImGui::PushStyleColor(ImGuiCol_Border, ImGui::GetStyleColorVec4(ImGuiCol_CheckMark));
     float height = std::max(touch_target(state), ImGui::GetFrameHeight());
-    if (ImGui::Button(labels[i], ImVec2(width, height)) && !active) {
+    if (fitted_button(labels[i], ImVec2(width, height)) && !active) {
       *selected = i;
       changed = true;
     }
@@ -76,7 +94,10 @@ void result_value(AppState& state, const char* label, const std::string& shown,
   ImGui::TextDisabled("%s", label);
   bool large = state.font_large != nullptr;
   if (large) ImGui::PushFont(state.font_large);
+  // Wrapped: a long verdict in large type must not run off the right edge of a phone.
+  ImGui::PushTextWrapPos(0.0f);
   ImGui::TextUnformatted(shown.c_str());
+  ImGui::PopTextWrapPos();
   if (large) ImGui::PopFont();
   test_hook::item_text(label, shown);
 }

@@ -18,6 +18,12 @@ float em();
 // The minimum touch target: 48 CSS px at any device pixel ratio (≥ 9 mm on phones).
 float touch_target(const AppState& state);
 
+// The font scale (0.7–1) at which `label` fits a button `width` wide, padding included.
+float label_fit_scale(const char* label, float width);
+// ImGui::Button whose label is drawn smaller (down to 70 %) when it would not fit the given
+// width, instead of being clipped ("Casualty" on a five-across phone bar). Not recorded.
+bool fitted_button(const char* label, const ImVec2& size);
+
 // A large button, at least one touch target high. Recorded by its label.
 bool big_button(const AppState& state, const char* label, float width = 0.0f);
 
