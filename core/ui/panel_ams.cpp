@@ -58,12 +58,7 @@ void draw_ams_panel(AppState& state, Platform&) {
     result_value(state, "Lake Louise score", std::to_string(score->total) + " of 12");
     result_value(state, "Assessment", std::string(lake_louise::category_name(score->category)));
   }
-  for (std::string_view caveat : lake_louise::caveats) {
-    ImGui::Bullet();
-    ImGui::PushTextWrapPos(0.0f);
-    ImGui::TextUnformatted(caveat.data(), caveat.data() + caveat.size());
-    ImGui::PopTextWrapPos();
-  }
+  for (std::string_view caveat : lake_louise::caveats) bullet_line(caveat);
   caution_line(state);
 }
 

@@ -122,7 +122,7 @@ void draw_plan(AppState& state, Pressure ambient) {
   result_value(state, "Supply lasts", p.supply_lasts ? duration_text(*p.supply_lasts) : "\xE2\x80\x94", false);
   draw_timeline(state, input, p);
   for (const auto& e : p.events) {
-    ImGui::BulletText("%s  %s", duration_text(e.time).c_str(), e.text.c_str());
+    bullet_line(duration_text(e.time) + "  " + e.text);
   }
   for (const std::string& a : p.assumptions) {
     ImGui::PushTextWrapPos(0.0f);

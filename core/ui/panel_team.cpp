@@ -87,7 +87,7 @@ void draw_profile_details(const AppState& state) {
                                                     std::string(cylinder::letter_size_info(*c.letter_size).name) + ")") +
                        ", full " + number_with_unit(c.fill_pressure_gauge.in(u.gauge), 0, u.gauge.symbol) +
                        ", \xC3\x97" + std::to_string(c.count);
-    ImGui::BulletText("%s", line.c_str());
+    bullet_line(line);
     test_hook::item_text("Cylinder " + std::to_string(i + 1), line);
   }
   profile_line("Reserve", number_with_unit(p.reserve_pressure_gauge.in(u.gauge), 0, u.gauge.symbol));
@@ -107,11 +107,7 @@ void draw_profile_details(const AppState& state) {
                                  std::string(u.length.symbol) + " every " +
                                  trimmed_number(p.card.altitude_step.in(u.length)) + " " +
                                  std::string(u.length.symbol));
-  for (const std::string& note : p.card.notes) {
-    ImGui::PushTextWrapPos(0.0f);
-    ImGui::BulletText("%s", note.c_str());
-    ImGui::PopTextWrapPos();
-  }
+  for (const std::string& note : p.card.notes) bullet_line(note);
 }
 
 void collect_imported_file(AppState& state, Platform& platform) {

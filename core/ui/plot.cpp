@@ -150,7 +150,11 @@ void plot_hline(const Plot& plot, double y, ImU32 colour, const std::string& lab
 void plot_vline(const Plot& plot, double x, ImU32 colour, const std::string& label) {
   ImVec2 p = plot.at(x, plot.axes.y0);
   plot.draw->AddLine(ImVec2(p.x, plot.min.y), ImVec2(p.x, plot.max.y), colour, 0.1f * em());
-  if (!label.empty()) plot.draw->AddText(ImVec2(p.x + 0.2f * em(), plot.min.y), colour, label.c_str());
+  if (label.empty()) return;
+  float tw = ImGui::CalcTextSize(label.c_str()).x;
+  float x = p.x + 0.2f * em();
+  if (x + tw > plot.max.x) x = p.x - 0.2f * em() - tw;  // near the right edge: left of the line
+  plot.draw->AddText(ImVec2(x, plot.min.y), colour, label.c_str());
 }
 
 void plot_text(const Plot& plot, PlotPoint p, ImU32 colour, const std::string& text) {

@@ -143,6 +143,13 @@ void message_line(const AppState&, const std::string& text, bool warning) {
   test_hook::item_text(warning ? "Warning" : "Message", text);
 }
 
+void bullet_line(std::string_view text) {
+  ImGui::Bullet();
+  ImGui::PushTextWrapPos(0.0f);
+  ImGui::TextUnformatted(text.data(), text.data() + text.size());
+  ImGui::PopTextWrapPos();
+}
+
 void heading(const char* text) {
   ImGui::Spacing();
   ImGui::PushTextWrapPos(0.0f);
@@ -166,12 +173,7 @@ void caution_line(AppState& state) {
     state.caution_open = !state.caution_open;
   }
   if (state.caution_open) {
-    for (std::string_view line : cautions::full_text) {
-      ImGui::Bullet();
-      ImGui::PushTextWrapPos(0.0f);
-      ImGui::TextUnformatted(line.data(), line.data() + line.size());
-      ImGui::PopTextWrapPos();
-    }
+    for (std::string_view line : cautions::full_text) bullet_line(line);
   }
 }
 

@@ -46,6 +46,8 @@ bool int_stepper(const AppState& state, const char* label, const char* id, int* 
 
 // Wrapped text; `warning` colours it as a caution.
 void message_line(const AppState& state, const std::string& text, bool warning = false);
+// A bullet with wrapped text (ImGui::BulletText runs off a phone's edge). Not recorded.
+void bullet_line(std::string_view text);
 // Small dim heading above a group of widgets.
 void heading(const char* text);
 
