@@ -152,9 +152,9 @@ void plot_vline(const Plot& plot, double x, ImU32 colour, const std::string& lab
   plot.draw->AddLine(ImVec2(p.x, plot.min.y), ImVec2(p.x, plot.max.y), colour, 0.1f * em());
   if (label.empty()) return;
   float tw = ImGui::CalcTextSize(label.c_str()).x;
-  float x = p.x + 0.2f * em();
-  if (x + tw > plot.max.x) x = p.x - 0.2f * em() - tw;  // near the right edge: left of the line
-  plot.draw->AddText(ImVec2(x, plot.min.y), colour, label.c_str());
+  float text_x = p.x + 0.2f * em();
+  if (text_x + tw > plot.max.x) text_x = p.x - 0.2f * em() - tw;  // near the right edge: left of the line
+  plot.draw->AddText(ImVec2(text_x, plot.min.y), colour, label.c_str());
 }
 
 void plot_text(const Plot& plot, PlotPoint p, ImU32 colour, const std::string& text) {
