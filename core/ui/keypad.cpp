@@ -78,7 +78,7 @@ bool key(const AppState& state, const char* shown, const char* test_label, float
          float height, bool accent = false) {
   if (accent) ImGui::PushStyleColor(ImGuiCol_Button, ImGui::GetStyleColorVec4(ImGuiCol_Header));
   ImGui::PushID(test_label);
-  bool pressed = ImGui::Button(shown, ImVec2(width, height));
+  bool pressed = fitted_button(shown, ImVec2(width, height));
   ImGui::PopID();
   if (accent) ImGui::PopStyleColor();
   test_hook::item(test_label);
