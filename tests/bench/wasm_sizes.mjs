@@ -68,31 +68,31 @@ if (names.size === 0) {
 const mangled = bodies.map((_, i) => names.get(i + importedFunctions) ?? `function ${i}`);
 const demangled = execFileSync('c++filt', {input: mangled.join('\n'), maxBuffer: 1 << 26})
   .toString().split('\n');
-// Groups, first match wins.
+// Groups, first match wins (demangled names; templates start with their return type).
 const GROUPS = [
-  ['ImGui: demo window', /ShowDemo|ShowExample|ShowUserGuide|ShowAboutWindow|ShowStyleEditor|ExampleApp|HelpMarker/],
-  ['ImGui: stb_truetype (font rasteriser)', /^stbtt|stbtt__/],
-  ['ImGui: stb_textedit / rect_pack', /^stb_|stbrp|STB_TEXTEDIT|stb_text/],
+  ['ImGui example: main loop + inlined demo window', /main::\$_0|ShowDemo|ShowExample|ShowUserGuide|ShowAboutWindow|ShowStyleEditor|ShowFontSelector|HelpMarker/],
+  ['ImGui: stb_truetype (font rasteriser)', /stbtt/],
+  ['ImGui: stb_textedit, stb_rect_pack', /stb_|stbrp|STB_TEXTEDIT/],
   ['ImGui: backends (GLFW, OpenGL3)', /ImGui_Impl/],
-  ['ImGui: core', /ImGui|ImFont|ImDraw|ImVec|ImStr|ImText|ImHash|ImPool|ImTriangle|ImBezier|ImLine|ImGuiTable|Im[A-Z]/],
-  ['nlohmann::json (team profile)', /nlohmann/],
-  ['Firn: model (core/model)', /^firn::(units|atmosphere|cascade|dissociation|expected_spo2|oxygen_eos|cylinder|hyperbaric_bag|evacuation|lake_louise|o2|supplemental|pocket_card|team_profile|Result|Error|range_error|in_range|cautions)|firn::[a-z_]*::.*(Result|Error)|^firn::[A-Za-z_]+\(/],
-  ['Firn: ui (core/ui)', /^firn::ui/],
-  ['Firn: web runner and platform', /^firn::web|firn_/],
-  ['libc++ (std::)', /^std::|__cxa|__cxx|__gnu|operator new|operator delete/],
-  ['libc / compiler runtime', /^(printf|vfprintf|snprintf|vsnprintf|fmt_|printf_core|pop_arg|strto|__|mem|str|fopen|fclose|fwrite|fread|fseek|ftell|sscanf|vfscanf|qsort|free|malloc|dlmalloc|dlfree|sbrk|emscripten_|frexp|scalbn|pow|exp|log|sin|cos|atan|sqrt|fmod|round|floor|ceil|wcrtomb|wctomb|out|pad|getint|fmt_fp|fmt_x|fmt_o|fmt_u|isdigit|isspace|toupper|tolower|abort|atexit|stackAlloc|stackSave|stackRestore|dynCall|legalstub|glfw|gl[A-Z])/],
+  ['nlohmann::json (team profile files)', /nlohmann::/],
+  ['Firn: ui (core/ui)', /firn::ui::/],
+  ['Firn: web runner and platform (web/)', /firn::web::|firn_/],
+  ['Firn: model (core/model)', /firn::/],
+  ['ImGui: core', /ImGui|ImFont|ImDraw|ImVec|ImStr|ImText|ImHash|ImPool|ImTriangle|ImBezier|ImLine|Im[A-Z][a-z]/],
+  ['libc++ (std::)', /^(\S+ )?std::|__cxa|__cxx|operator new|operator delete/],
+  ['libc, libm, malloc, Emscripten runtime', /./],
 ];
 const groups = new Map();
 const all = [];
 demangled.forEach((text, i) => {
-  const group = (GROUPS.find(([, pattern]) => pattern.test(text)) ?? ['other'])[0];
+  const group = GROUPS.find(([, pattern]) => pattern.test(text))[0];
   groups.set(group, (groups.get(group) ?? 0) + bodies[i]);
   all.push({text, size: bodies[i], group});
 });
 const code = bodies.reduce((a, b) => a + b, 0);
 console.log(`  code by group (${bodies.length} functions, ${code} bytes of bodies):`);
 for (const [group, size] of [...groups].sort((a, b) => b[1] - a[1])) {
-  console.log(`    ${group.padEnd(40)} ${String(size).padStart(9)}  ${(100 * size / code).toFixed(1).padStart(5)} %`);
+  console.log(`    ${group.padEnd(48)} ${String(size).padStart(9)}  ${(100 * size / code).toFixed(1).padStart(5)} %`);
 }
 const top = Number(topArg ?? 0);
 if (top > 0) {
