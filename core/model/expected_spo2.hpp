@@ -41,7 +41,9 @@ struct Expectation {
 
 // Band for a barometric pressure (valid 100…1300 hPa; the cascade rejects pressures whose PiO2 is
 // below 35 mmHg) and FiO2 (0.15…1; dry air by default). Field data cover ~3000–5000 m on air;
-// above 5500 m (or with PiO2 below that altitude's) `extrapolated` is set.
+// above 5500 m (or with PiO2 below that altitude's) `extrapolated` is set. Acute exposure with a
+// PiO2 below about 41 mmHg (ISA above ~8800 m on air) leaves no arterial PO2 in the model: the
+// cascade's "arterial PO2 below 1 mmHg" error, never a number (found by the sweep tests).
 Result<Expectation> expected(Pressure barometric, Exposure exposure,
                              Fraction fio2 = cascade::dry_air_fio2());
 

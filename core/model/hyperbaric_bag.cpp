@@ -1,5 +1,6 @@
 #include "model/hyperbaric_bag.hpp"
 
+#include <algorithm>
 #include <cmath>
 
 namespace firn::hyperbaric_bag {
@@ -138,10 +139,23 @@ Result<BagResult> compute(Pressure ambient, Length ambient_altitude, atmosphere:
 
 }  // namespace
 
+// The bag's own range: the model's, cut where the ambient pressure falls below min_ambient_hpa.
+// Found by fuzzing: ISA to 20 000 m gave a negative PiO2 outside (PB below 47 mmHg).
 Result<BagResult> bag_at_altitude(Length ambient_altitude, atmosphere::Model model,
                                   const Settings& settings) {
   Result<double> ok = check(settings);
   if (!ok) return ok.error();
+  atmosphere::AltitudeRange range = atmosphere::valid_altitudes(model);
+  double top_m = range.high_m;
+  bool cut = atmosphere::pressure_at(metres(top_m), model)->in(hectopascals) < min_ambient_hpa;
+  if (cut) top_m = std::floor(atmosphere::altitude_at(hectopascals(min_ambient_hpa), model)->in(metres));
+  double z = ambient_altitude.in(metres);
+  if (!in_range(z, range.low_m, top_m)) {
+    Error e = range_error("altitude", range.low_m, top_m, "m", z);
+    e.message += " for a bag in the " + std::string(atmosphere::model_name(model)) + " model";
+    if (cut) e.message += " (ambient pressure at least " + format_number(min_ambient_hpa) + " hPa)";
+    return e;
+  }
   Result<Pressure> ambient = atmosphere::pressure_at(ambient_altitude, model);
   if (!ambient) return ambient.error();
   return compute(ambient.value(), ambient_altitude, model, settings);
@@ -151,6 +165,16 @@ Result<BagResult> bag_at_pressure(Pressure ambient_pressure, atmosphere::Model m
                                   const Settings& settings) {
   Result<double> ok = check(settings);
   if (!ok) return ok.error();
+  atmosphere::AltitudeRange range = atmosphere::valid_altitudes(model);
+  double model_low = atmosphere::pressure_at(metres(range.high_m), model)->in(hectopascals);
+  double model_high = atmosphere::pressure_at(metres(range.low_m), model)->in(hectopascals);
+  double hpa = ambient_pressure.in(hectopascals);
+  if (!in_range(hpa, std::max(min_ambient_hpa, model_low), model_high)) {
+    Error e = range_error("ambient pressure", std::max(min_ambient_hpa, std::ceil(model_low * 10) / 10),
+                          std::floor(model_high * 10) / 10, "hPa", hpa);
+    e.message += " for a bag in the " + std::string(atmosphere::model_name(model)) + " model";
+    return e;
+  }
   Result<Length> altitude = atmosphere::altitude_at(ambient_pressure, model);
   if (!altitude) return altitude.error();
   return compute(ambient_pressure, altitude.value(), model, settings);

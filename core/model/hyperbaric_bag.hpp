@@ -29,6 +29,9 @@ inline constexpr double min_bag_volume_l = 100.0, max_bag_volume_l = 2000.0;
 inline constexpr double min_chamber_c = -30.0, max_chamber_c = 45.0;
 inline constexpr double min_co2_limit_pct = 0.1, max_co2_limit_pct = 5.0;
 inline constexpr double min_stroke_l = 0.1, max_stroke_l = 10.0;
+// Ambient pressure where a person can be (as for station readings, atmosphere.hpp): below it the
+// inspired PO2 outside is zero or less. ISA reaches it at about 13 600 m; West 1996 never does.
+inline constexpr double min_ambient_hpa = 150.0;
 
 struct Settings {
   Pressure gauge = units::psi(2.0);  // typical working pressure ~2 psi = 137.9 hPa
@@ -79,10 +82,12 @@ struct BagResult {
   std::vector<std::string> notes;      // assumptions and explanations to show with the result
 };
 
-// Ambient from an altitude by `model`; the same model gives the equivalent altitude.
+// Ambient from an altitude by `model`; the same model gives the equivalent altitude. The altitude
+// must be in the model's range and its pressure at least min_ambient_hpa.
 Result<BagResult> bag_at_altitude(Length ambient_altitude, atmosphere::Model model,
                                   const Settings& settings);
 // Ambient from a barometer (station reading); the ambient altitude is then `model` inverted.
+// Valid from min_ambient_hpa to the model's sea-level-range pressure.
 Result<BagResult> bag_at_pressure(Pressure ambient_pressure, atmosphere::Model model,
                                   const Settings& settings);
 

@@ -69,6 +69,12 @@ Error pio2_error(double pio2) {
   return range_error("inspired PO2", kPio2LowMmhg, kPio2HighMmhg, "mmHg", pio2);
 }
 
+// The alveolar gas equation takes any PiO2 from 0; its message must name that range, not the
+// 35 mmHg floor of the PaCO2 table (sweep finding, docs/hardening.md).
+Error alveolar_pio2_error(double pio2) {
+  return range_error("inspired PO2", 0.0, kPio2HighMmhg, "mmHg", pio2);
+}
+
 Result<double> checked_paco2(Pressure paco2) {
   double value = paco2.in(mmhg);
   if (!in_range(value, kPaco2LowMmhg, kPaco2HighMmhg)) {
@@ -119,7 +125,7 @@ Result<Pressure> alveolar_po2(Pressure inspired, Pressure paco2, Fraction fio2,
   double f = fio2.in(fraction);
   if (!in_range(f, 0.15, 1.0)) return range_error("FiO2", 0.15, 1.0, "(fraction)", f);
   double pio2 = inspired.in(mmhg);
-  if (!in_range(pio2, 0.0, kPio2HighMmhg)) return pio2_error(pio2);
+  if (!in_range(pio2, 0.0, kPio2HighMmhg)) return alveolar_pio2_error(pio2);
   return positive_alveolar(pio2 - c.value() * (f + (1.0 - f) / r.value()));
 }
 
@@ -130,7 +136,7 @@ Result<Pressure> alveolar_po2_simplified(Pressure inspired, Pressure paco2,
   Result<double> r = checked_quotient(respiratory_quotient);
   if (!r) return r.error();
   double pio2 = inspired.in(mmhg);
-  if (!in_range(pio2, 0.0, kPio2HighMmhg)) return pio2_error(pio2);
+  if (!in_range(pio2, 0.0, kPio2HighMmhg)) return alveolar_pio2_error(pio2);
   return positive_alveolar(pio2 - c.value() / r.value());
 }
 

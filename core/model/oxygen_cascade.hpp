@@ -37,7 +37,8 @@ std::string_view exposure_key(Exposure exposure);  // "acute" / "acclimatised"
 Result<Pressure> inspired_po2(Pressure barometric, Fraction fio2);
 
 // Alveolar gas equation, full: PAO2 = PiO2 − PaCO2·[FiO2 + (1 − FiO2)/R].
-// PaCO2 valid 5…80 mmHg, R valid 0.6…1.2. An alveolar PO2 at or below zero is an error (the
+// PiO2 valid 0…1000 mmHg, PaCO2 5…80 mmHg, R 0.6…1.2, FiO2 0.15…1. An alveolar PO2 at or below
+// zero is an error (the
 // inputs contradict each other), never a silent number.
 Result<Pressure> alveolar_po2(Pressure inspired, Pressure paco2, Fraction fio2,
                               double respiratory_quotient = kRestingRespiratoryQuotient);
@@ -118,6 +119,8 @@ struct Cascade {
   bool paco2_extrapolated = false;
 };
 
+// Refused (a message, never a number) when PiO2 is below 35 mmHg, when a path's alveolar PO2 is
+// at or below zero, or its arterial PO2 below 1 mmHg (acute exposure with PiO2 below ~41 mmHg).
 Result<Cascade> oxygen_cascade(const CascadeInputs& inputs);
 
 }  // namespace firn::cascade

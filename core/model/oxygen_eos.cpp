@@ -114,8 +114,9 @@ Result<State> state_at(Temperature temperature, Pressure absolute_pressure) {
     return range_error("oxygen temperature", min_temperature_c, max_temperature_c, "°C", t_c);
   }
   double p_bar = absolute_pressure.in(bar);
-  if (!in_range(p_bar, 0.0, max_pressure_bar) || p_bar <= 0.0) {
-    return range_error("oxygen pressure (absolute)", 0.0, max_pressure_bar, "bar", p_bar);
+  if (!in_range(p_bar, min_pressure_bar, max_pressure_bar)) {
+    return range_error("oxygen pressure (absolute)", min_pressure_bar, max_pressure_bar, "bar",
+                       p_bar);
   }
   double t = temperature.in(kelvin);
   double p = absolute_pressure.in(pascals);

@@ -12,11 +12,13 @@ namespace firn::oxygen_eos {
 using units::Pressure;
 using units::Temperature;
 
-// Range Firn uses it over (gas cylinders in the field): −50…+65 °C, above 0 and up to 400 bar
-// absolute. The equation itself is valid far wider; this range keeps the solver in the gas /
-// supercritical region where it has one root.
+// Range Firn uses it over (gas cylinders in the field): −50…+65 °C, 0.001…400 bar absolute. The
+// equation itself is valid far wider; this range keeps the solver in the gas / supercritical
+// region where it has one root. The 1 mbar floor keeps the density out of subnormal doubles,
+// where the solver cannot converge and Z would be noise (fuzz finding, docs/hardening.md); a
+// cylinder is never below the ambient pressure (≥ 150 hPa) anyway.
 inline constexpr double min_temperature_c = -50.0, max_temperature_c = 65.0;
-inline constexpr double max_pressure_bar = 400.0;
+inline constexpr double min_pressure_bar = 0.001, max_pressure_bar = 400.0;
 
 // Constants of the equation (Stewart, Jacobsen & Wagner 1991).
 inline constexpr double critical_temperature_k = 154.581;

@@ -1,5 +1,6 @@
 #include "model/result.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 
@@ -7,6 +8,14 @@ namespace firn {
 
 std::string format_number(double value, int decimals) {
   if (!std::isfinite(value)) return "not a number";
+  // Huge figures (only ever someone's typo, echoed in a message) in 6 significant digits: fixed
+  // notation would not fit the buffer and was cut to a wrong number (fuzz finding, "2e101"
+  // printed as 63 digits; docs/hardening.md).
+  if (std::fabs(value) >= 1e15) {
+    char scientific[32];
+    std::snprintf(scientific, sizeof scientific, "%.6g", value);
+    return scientific;
+  }
   char buffer[64];
   std::snprintf(buffer, sizeof buffer, "%.*f", decimals, value);
   std::string text(buffer);
@@ -19,13 +28,16 @@ std::string format_number(double value, int decimals) {
 }
 
 bool in_range(double value, double low, double high) {
-  return std::isfinite(value) && value >= low && value <= high;
+  // A bound typed in another unit comes back from the conversion a rounding off ("1000mmHg" is
+  // 1000.0000000000001 mmHg inside): allow a part in 10^12 (sweep finding, docs/hardening.md).
+  double slack = 1e-12 * std::max(std::fabs(low), std::fabs(high));
+  return std::isfinite(value) && value >= low - slack && value <= high + slack;
 }
 
 Error range_error(std::string_view what, double low, double high, std::string_view unit) {
   std::string message(what);
-  message += " must be between " + format_number(low) + " and " + format_number(high) + " ";
-  message += unit;
+  message += " must be between " + format_number(low) + " and " + format_number(high);
+  if (!unit.empty()) message += " " + std::string(unit);  // counts have none: no stray space
   return Error{message};
 }
 
@@ -33,7 +45,7 @@ Error range_error(std::string_view what, double low, double high, std::string_vi
                   double got) {
   Error error = range_error(what, low, high, unit);
   if (std::isfinite(got)) {
-    error.message += " (got " + format_number(got) + " " + std::string(unit) + ")";
+    error.message += " (got " + format_number(got) + (unit.empty() ? "" : " ") + std::string(unit) + ")";
   } else {
     error.message += " (got a value that is not a number)";
   }

@@ -71,10 +71,12 @@ Error range_error(std::string_view what, double low, double high, std::string_vi
                   double got);
 Error range_error(std::string_view what, double low, double high, std::string_view unit);
 
-// Formats a finite number with up to `decimals` decimals, trailing zeros trimmed.
+// Formats a finite number with up to `decimals` decimals, trailing zeros trimmed; from 1e15 up
+// (in size) with 6 significant digits in scientific notation ("2e+101").
 std::string format_number(double value, int decimals = 4);
 
-// True when `value` is finite and within [low, high].
+// True when `value` is finite and within [low, high] (give or take a part in 10^12 of the
+// bounds: unit-conversion rounding of a value typed at a bound).
 bool in_range(double value, double low, double high);
 
 }  // namespace firn

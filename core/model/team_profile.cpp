@@ -33,10 +33,11 @@ std::string quantity_text(Quantity<D> q,
     }
   }
   if (!best.empty()) return best;
-  // No short exact form: enough digits to read back within a part in 10^15.
+  // No short exact form: 17 significant digits, which read back as the same double (15 did not:
+  // "83.3333hPa" came back a rounding off, breaking write → read = same profile; sweep finding).
   auto [unit, spelling] = *candidates.begin();
   char buffer[64];
-  std::snprintf(buffer, sizeof buffer, "%.15g", q.in(*unit));
+  std::snprintf(buffer, sizeof buffer, "%.17g", q.in(*unit));
   return std::string(buffer) + spelling;
 }
 

@@ -1,6 +1,7 @@
 // Reading the current schema: every field checked, every problem named with its path.
 #include "model/team_profile_internal.hpp"
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 #include <cstdlib>
@@ -34,9 +35,25 @@ std::string item(const std::string& path, size_t index) {
   return path + "[" + std::to_string(index) + "]";
 }
 
+// At most `max_bytes` of `text`, cut between characters, any byte that is not UTF-8 shown as '?':
+// problem lines reach the screen and JSON output (fuzz finding: a cut or a raw byte broke both).
+static std::string utf8_shown(std::string_view text, size_t max_bytes) {
+  std::string out;
+  for (size_t i = 0; i < text.size();) {
+    auto byte = [&](size_t k) { return static_cast<unsigned char>(text[k]); };
+    size_t n = byte(i) < 0x80 ? 1 : (byte(i) & 0xE0) == 0xC0 ? 2 : (byte(i) & 0xF0) == 0xE0 ? 3
+             : (byte(i) & 0xF8) == 0xF0 ? 4 : 0;
+    for (size_t k = 1; n > 1 && k < n; ++k) n = i + k < text.size() && (byte(i + k) & 0xC0) == 0x80 ? n : 0;
+    if (out.size() + std::max<size_t>(n, 1) > max_bytes) break;
+    out += n == 0 ? std::string("?") : std::string(text.substr(i, n));
+    i += std::max<size_t>(n, 1);
+  }
+  return out;
+}
+
 std::string json_shown(const Json& value) {
   std::string text = value.dump();
-  return text.size() > 40 ? text.substr(0, 37) + "..." : text;
+  return text.size() > 40 ? utf8_shown(text, 37) + "..." : text;
 }
 
 namespace {
@@ -540,7 +557,7 @@ std::optional<Json> parse_json(std::string_view text, Problems& problems) {
     }
     problems.lines.push_back("the file is not valid JSON: line " + std::to_string(line) +
                              ", column " + std::to_string(column) + " near '" +
-                             sax.error_token.substr(0, 20) + "'");
+                             utf8_shown(sax.error_token, 20) + "'");
     return std::nullopt;
   }
   if (!root.is_object()) {

@@ -78,6 +78,13 @@ Result<double> required_number(const std::optional<std::string>& text, const std
 
 namespace {
 
+// JSON for stdout. Strings may echo what the user typed (an option name, a file path) and so may
+// not be UTF-8: such bytes print as U+FFFD instead of throwing (fuzz_cli finding, see
+// docs/hardening.md).
+std::string json_text(const Json& json) {
+  return json.dump(-1, ' ', false, Json::error_handler_t::replace);
+}
+
 void print_table(const Report& report) {
   size_t width = 0;
   for (const auto& row : report.rows) width = std::max(width, row.first.size());
@@ -89,7 +96,7 @@ void print_table(const Report& report) {
 
 int fail(bool json, const std::string& message) {
   std::fprintf(stderr, "firn: %s\n", message.c_str());
-  if (json) std::printf("%s\n", Json{{"error", message}}.dump().c_str());
+  if (json) std::printf("%s\n", json_text(Json{{"error", message}}).c_str());
   return 2;
 }
 
@@ -125,6 +132,11 @@ int run(int argc, char** argv, AppOptions& app_options) {
     sub->add_flag("--json", json, "Print JSON instead of a table");
   }
 
+  // An error is JSON whenever --json is on the line, even where the parser took it as the value
+  // of an option missing its own ("plan --profile --json"; fuzz_cli finding).
+  bool json_on_line = false;
+  for (int i = 1; i < argc; ++i) json_on_line = json_on_line || std::string(argv[i]) == "--json";
+
   try {
     root.parse(argc, argv);
   } catch (const CLI::CallForHelp& e) {
@@ -134,16 +146,15 @@ int run(int argc, char** argv, AppOptions& app_options) {
   } catch (const CLI::CallForVersion& e) {
     return root.exit(e);
   } catch (const CLI::ParseError& e) {
-    for (int i = 1; i < argc; ++i) json = json || std::string(argv[i]) == "--json";
-    return fail(json, e.what());
+    return fail(json || json_on_line, e.what());
   }
 
   for (auto& [sub, action] : table.commands) {
     if (!sub->parsed()) continue;
     Result<Report> report = action();
-    if (!report) return fail(json, report.error().message);
+    if (!report) return fail(json || json_on_line, report.error().message);
     if (json) {
-      std::printf("%s\n", report->json.dump().c_str());
+      std::printf("%s\n", json_text(report->json).c_str());
     } else {
       print_table(report.value());
     }

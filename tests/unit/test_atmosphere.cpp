@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include "model/atmosphere.hpp"
+#include "sweep.hpp"
 
 using namespace firn;
 using namespace firn::units;
@@ -126,4 +127,76 @@ TEST_CASE("model names and keys", "[atmosphere]") {
   CHECK(parse_model("west").value() == Model::West1996);
   CHECK_FALSE(parse_model("mars").ok());
   CHECK(model_name(default_medical_model) == "West 1996");
+}
+
+TEST_CASE("sweep: pressures to altitudes, QNH and station readings over their whole ranges",
+          "[atmosphere][sweep]") {
+  // pressure_at over each model's range: see the inverse and monotonic cases above. Here the
+  // other direction, from every pressure the model covers (ISA 55.3…1074.7, West 330.1…1013.2).
+  for (Model model : {Model::Isa, Model::West1996}) {
+    AltitudeRange range = valid_altitudes(model);
+    double low_hpa = pressure_at(metres(range.high_m), model)->in(hectopascals);
+    double high_hpa = pressure_at(metres(range.low_m), model)->in(hectopascals);
+    double previous = INFINITY;
+    for (double hpa : sweep::grid(low_hpa, high_hpa, 500)) {
+      Result<Length> z = altitude_at(hectopascals(hpa), model);
+      REQUIRE(z.ok());
+      CHECK(z->in(metres) >= range.low_m - 1e-6);
+      CHECK(z->in(metres) <= range.high_m + 1e-6);
+      CHECK(z->in(metres) < previous);  // higher pressure, lower altitude
+      previous = z->in(metres);
+    }
+  }
+  // QNH 900…1100 hPa, altitude −500…9000 m, air temperature −60…+50 °C at sea level or station.
+  for (double qnh : sweep::grid(900, 1100, 8)) {
+    double previous = INFINITY;
+    for (double z : sweep::grid(-500, 9000, 95)) {
+      Result<Pressure> p = pressure_from_qnh(metres(z), hectopascals(qnh));
+      REQUIRE(p.ok());
+      CHECK(p->in(hectopascals) < previous);
+      CHECK(p->in(hectopascals) > 250.0);  // ISA at 9000 m with the lowest QNH: ~270 hPa
+      CHECK(p->in(hectopascals) < 1170.0);
+      previous = p->in(hectopascals);
+      for (TemperatureAt where : {TemperatureAt::SeaLevel, TemperatureAt::Station}) {
+        double previous_t = z > 0 ? 0.0 : INFINITY;
+        for (double t : sweep::grid(-60, 50, 11)) {
+          Result<Pressure> hyp = pressure_from_qnh(metres(z), hectopascals(qnh), celsius(t), where);
+          REQUIRE(hyp.ok());
+          double hpa = hyp->in(hectopascals);
+          CHECK(hpa > 150.0);  // 9000 m under a −60 °C sea-level layer: ~170 hPa
+          CHECK(hpa < 1250.0);
+          // A warmer layer is thicker: above sea level the pressure rises with temperature,
+          // below it falls (AMS Glossary, hypsometric equation).
+          if (z > 0) CHECK(hpa > previous_t);
+          if (z < 0) CHECK(hpa < previous_t);
+          previous_t = hpa;
+        }
+      }
+    }
+  }
+  for (double hpa : sweep::grid(150, 1100, 95)) {
+    CHECK(pressure_from_station_reading(hectopascals(hpa))->in(hectopascals) == hpa);
+  }
+}
+
+TEST_CASE("sweep: just outside every atmosphere range the message names it",
+          "[atmosphere][sweep][errors]") {
+  CHECK_REFUSED_NAMING(pressure_at(metres(-500.01), Model::Isa), "between -500 and 20000 m");
+  CHECK_REFUSED_NAMING(pressure_at(metres(20000.01), Model::Isa), "between -500 and 20000 m");
+  CHECK_REFUSED_NAMING(pressure_at(metres(-0.01), Model::West1996), "between 0 and 9000 m");
+  CHECK_REFUSED_NAMING(pressure_at(metres(9000.01), Model::West1996), "between 0 and 9000 m");
+  CHECK_REFUSED_NAMING(altitude_at(hectopascals(55.2), Model::Isa), "between 55.3 and 1074.7 hPa");
+  CHECK_REFUSED_NAMING(altitude_at(hectopascals(1074.8), Model::Isa), "between 55.3 and 1074.7 hPa");
+  CHECK_REFUSED_NAMING(altitude_at(hectopascals(330.0), Model::West1996), "between 330.1 and 1013.2 hPa");
+  CHECK_REFUSED_NAMING(altitude_at(hectopascals(1013.3), Model::West1996), "between 330.1 and 1013.2 hPa");
+  CHECK_REFUSED_NAMING(pressure_from_qnh(metres(-500.01), hectopascals(1013)), "between -500 and 9000 m");
+  CHECK_REFUSED_NAMING(pressure_from_qnh(metres(9000.01), hectopascals(1013)), "between -500 and 9000 m");
+  CHECK_REFUSED_NAMING(pressure_from_qnh(metres(0), hectopascals(899.99)), "between 900 and 1100 hPa");
+  CHECK_REFUSED_NAMING(pressure_from_qnh(metres(0), hectopascals(1100.01)), "between 900 and 1100 hPa");
+  CHECK_REFUSED_NAMING(pressure_from_qnh(metres(0), hectopascals(1013), celsius(-60.01), TemperatureAt::SeaLevel),
+                       "between -60 and 50 °C");
+  CHECK_REFUSED_NAMING(pressure_from_qnh(metres(0), hectopascals(1013), celsius(50.01), TemperatureAt::Station),
+                       "between -60 and 50 °C");
+  CHECK_REFUSED_NAMING(pressure_from_station_reading(hectopascals(149.99)), "between 150 and 1100 hPa");
+  CHECK_REFUSED_NAMING(pressure_from_station_reading(hectopascals(1100.01)), "between 150 and 1100 hPa");
 }

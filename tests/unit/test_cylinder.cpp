@@ -5,6 +5,7 @@
 
 #include "model/atmosphere.hpp"
 #include "model/cylinder.hpp"
+#include "sweep.hpp"
 
 using namespace firn;
 using namespace firn::units;
@@ -146,4 +147,103 @@ TEST_CASE("bad cylinder input names range and unit", "[cylinder][errors]") {
   CHECK_FALSE(rotameter_at_altitude(litres_per_minute(10), hectopascals(50)).ok());
   CHECK_FALSE(fixed_orifice_at_altitude(litres_per_minute(10), hectopascals(500), psi(500)).ok());
   CHECK_FALSE(gauge_pressure_for(litres(10), celsius(15), atmospheres(1), litres(1e6)).ok());
+}
+
+TEST_CASE("sweep: contents, duration and flow corrections over their whole ranges",
+          "[cylinder][sweep]") {
+  // Water capacity 0.1…100 L, gauge 0…350 bar, −40…+60 °C, ambient 150…1100 hPa: contents
+  // finite and positive, rising with the gauge, Z plausible for oxygen, and gauge_pressure_for
+  // inverts contents.
+  for (double water : {0.1, 2.0, 10.0, 50.0, 100.0}) {
+    for (double t : sweep::grid(min_temperature_c, max_temperature_c, 5)) {
+      for (double ambient : {150.0, 600.0, 1100.0}) {
+        double previous = -1.0;
+        for (double gauge : sweep::grid(0, max_gauge_bar, 35)) {
+          Reading r{litres(water), bar(gauge), celsius(t), hectopascals(ambient)};
+          Result<Contents> c = contents(r);
+          REQUIRE(c.ok());
+          CHECK(c->free_gas.in(litres) > previous);
+          previous = c->free_gas.in(litres);
+          CHECK(c->z_in_cylinder > 0.7);  // the equation gives 0.75…1.09 over this range
+          CHECK(c->z_in_cylinder < 1.15);
+          Result<Pressure> back = gauge_pressure_for(litres(water), celsius(t), hectopascals(ambient), c->free_gas);
+          REQUIRE(back.ok());
+          CHECK(back->in(bar) == Approx(gauge).margin(1e-6));
+          // Duration to every reserve below the reading, at the lowest and highest flow.
+          for (double flow : {0.1, max_flow_lpm}) {
+            Result<DurationEstimate> d = duration(r, bar(gauge / 2), litres_per_minute(flow));
+            REQUIRE(d.ok());
+            CHECK(d->to_reserve.in(minutes) >= 0.0);
+            CHECK(d->usable_free_gas.in(litres) <= c->free_gas.in(litres));
+          }
+        }
+      }
+    }
+  }
+  // US field rule, 200…3000 psi and 0.1…30 L/min: minutes ≥ 0, rising with pressure.
+  for (LetterSize size : {LetterSize::D, LetterSize::E, LetterSize::M, LetterSize::H}) {
+    for (double flow : sweep::grid(0.1, max_flow_lpm, 10)) {
+      double previous = -1.0;
+      for (double p : sweep::grid(200, 3000, 28)) {
+        Result<Duration> d = field_rule_duration(size, psi(p), litres_per_minute(flow));
+        REQUIRE(d.ok());
+        CHECK(d->in(minutes) > previous);
+        previous = d->in(minutes);
+      }
+    }
+  }
+  // Flowmeters: ambient 150…1100 hPa, calibration 500…1100 hPa, regulated 10…100 psi. Less
+  // ambient pressure never gives more free gas from a fixed orifice; ratios positive.
+  for (double flow : sweep::grid(0.1, max_flow_lpm, 6)) {
+    for (double cal : sweep::grid(500, 1100, 3)) {
+      for (double reg : sweep::grid(10, 100, 3)) {
+        double previous = 0.0;
+        for (double ambient : sweep::grid(150, 1100, 19)) {
+          Result<FlowCorrection> rota = rotameter_at_altitude(litres_per_minute(flow), hectopascals(ambient), hectopascals(cal));
+          Result<FlowCorrection> orifice = fixed_orifice_at_altitude(litres_per_minute(flow), hectopascals(ambient), psi(reg), hectopascals(cal));
+          REQUIRE(rota.ok());
+          REQUIRE(orifice.ok());
+          CHECK(rota->ratio > 0.0);
+          CHECK(std::isfinite(rota->actual_at_ambient.in(litres_per_minute)));
+          CHECK(orifice->actual_free_gas.in(litres_per_minute) > previous);
+          previous = orifice->actual_free_gas.in(litres_per_minute);
+        }
+      }
+    }
+  }
+}
+
+TEST_CASE("sweep: just outside every cylinder range the message names it", "[cylinder][sweep][errors]") {
+  Reading ok{litres(10), bar(200), celsius(15), hectopascals(1013)};
+  auto with = [&](auto change) {
+    Reading r = ok;
+    change(r);
+    return contents(r);
+  };
+  CHECK_REFUSED_NAMING(with([](Reading& r) { r.water_capacity = litres(0.099); }), "between 0.1 and 100 L");
+  CHECK_REFUSED_NAMING(with([](Reading& r) { r.water_capacity = litres(100.01); }), "between 0.1 and 100 L");
+  CHECK_REFUSED_NAMING(with([](Reading& r) { r.gauge_pressure = bar(-0.01); }), "between 0 and 350 bar");
+  CHECK_REFUSED_NAMING(with([](Reading& r) { r.gauge_pressure = bar(350.01); }), "between 0 and 350 bar");
+  CHECK_REFUSED_NAMING(with([](Reading& r) { r.temperature = celsius(-40.01); }), "between -40 and 60 °C");
+  CHECK_REFUSED_NAMING(with([](Reading& r) { r.temperature = celsius(60.01); }), "between -40 and 60 °C");
+  CHECK_REFUSED_NAMING(with([](Reading& r) { r.ambient_pressure = hectopascals(149.99); }), "between 150 and 1100 hPa");
+  CHECK_REFUSED_NAMING(with([](Reading& r) { r.ambient_pressure = hectopascals(1100.01); }), "between 150 and 1100 hPa");
+  CHECK_REFUSED_NAMING(duration(ok, bar(20), litres_per_minute(0.099)), "between 0.1 and 30 L/min");
+  CHECK_REFUSED_NAMING(duration(ok, bar(20), litres_per_minute(30.01)), "between 0.1 and 30 L/min");
+  CHECK_REFUSED_NAMING(duration(ok, bar(-0.01), litres_per_minute(5)), "between 0 and 200 bar");
+  CHECK_REFUSED_NAMING(duration(ok, bar(200.01), litres_per_minute(5)), "between 0 and 200 bar");
+  CHECK_REFUSED_NAMING(field_rule_duration(LetterSize::E, psi(199.99), litres_per_minute(5)), "between 200 and 3000 psi");
+  CHECK_REFUSED_NAMING(field_rule_duration(LetterSize::E, psi(3000.01), litres_per_minute(5)), "between 200 and 3000 psi");
+  CHECK_REFUSED_NAMING(rotameter_at_altitude(litres_per_minute(5), hectopascals(149.99)), "between 150 and 1100 hPa");
+  CHECK_REFUSED_NAMING(rotameter_at_altitude(litres_per_minute(5), hectopascals(1100.01)), "between 150 and 1100 hPa");
+  CHECK_REFUSED_NAMING(rotameter_at_altitude(litres_per_minute(5), hectopascals(600), hectopascals(499.99)),
+                       "between 500 and 1100 hPa");
+  CHECK_REFUSED_NAMING(rotameter_at_altitude(litres_per_minute(5), hectopascals(600), hectopascals(1100.01)),
+                       "between 500 and 1100 hPa");
+  CHECK_REFUSED_NAMING(fixed_orifice_at_altitude(litres_per_minute(5), hectopascals(600), psi(9.99)),
+                       "between 10 and 100 psi");
+  CHECK_REFUSED_NAMING(fixed_orifice_at_altitude(litres_per_minute(5), hectopascals(600), psi(100.01)),
+                       "between 10 and 100 psi");
+  CHECK_REFUSED_NAMING(fixed_orifice_at_altitude(litres_per_minute(30.01), hectopascals(600)), "between 0.1 and 30 L/min");
+  CHECK_REFUSED_NAMING(gauge_pressure_for(litres(10), celsius(15), hectopascals(1013), litres(-0.01)), "L");
 }

@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include "model/dissociation.hpp"
+#include "sweep.hpp"
 
 using namespace firn;
 using namespace firn::units;
@@ -135,4 +136,66 @@ TEST_CASE("the cheap curve never returns non-finite values", "[dissociation][pro
   CHECK(std::isfinite(curve.saturation(mmhg(INFINITY)).in(fraction)));
   CHECK(std::isfinite(curve.po2_for(fraction(1.0)).in(mmhg)));
   CHECK(std::isfinite(curve.po2_for(fraction(-0.2)).in(mmhg)));
+}
+
+TEST_CASE("sweep: saturation and its inverse over PO2, temperature, pH, BE and P50",
+          "[dissociation][sweep]") {
+  // Shift ranges 20…43 °C, pH 6.8…7.8, BE −30…+30 mmol/L, P50 15…40 mmHg; PO2 0…1000 mmHg;
+  // SO2 0…99.9 %. Saturations stay 0–100 % and rise with PO2; the inverse gives PO2 back.
+  for (double t : sweep::grid(20, 43, 4)) {
+    for (double ph : sweep::grid(6.8, 7.8, 4)) {
+      for (double be : sweep::grid(-30, 30, 3)) {
+        for (double p50 : sweep::grid(15, 40, 4)) {
+          CurveShift shift{celsius(t), ph, be, mmhg(p50)};
+          double previous = -1.0;
+          for (double po2 : sweep::grid(0, 1000, 80)) {
+            Result<Fraction> s = saturation(mmhg(po2), shift);
+            REQUIRE(s.ok());
+            double pct = s->in(percent);
+            CHECK(pct >= 0.0);
+            CHECK(pct <= 100.0);
+            CHECK(pct >= previous);  // flat only where it rounds to 100 %
+            previous = pct;
+          }
+          double previous_po2 = -1.0;
+          for (double pct : sweep::grid(0, 99.9, 37)) {
+            Result<Pressure> po2 = po2_for_saturation(percent(pct), shift);
+            REQUIRE(po2.ok());
+            CHECK(po2->in(mmhg) >= 0.0);
+            CHECK(po2->in(mmhg) > previous_po2);
+            previous_po2 = po2->in(mmhg);
+            if (po2->in(mmhg) > 1000.0) continue;  // a right-shifted curve passes saturation()'s range
+            Result<Fraction> back = saturation(po2.value(), shift);
+            REQUIRE(back.ok());
+            CHECK(back->in(fraction) == Approx(pct / 100).margin(1e-9));
+          }
+        }
+      }
+    }
+  }
+  double previous = 0.0;
+  for (double pct : sweep::grid(1, 99.9, 200)) {
+    Result<Pressure> approx = severinghaus_inverse_approximation(percent(pct));
+    REQUIRE(approx.ok());
+    CHECK(approx->in(mmhg) > previous);
+    previous = approx->in(mmhg);
+  }
+}
+
+TEST_CASE("sweep: just outside every dissociation range the message names it",
+          "[dissociation][sweep][errors]") {
+  CHECK_REFUSED_NAMING(saturation(mmhg(-0.01)), "between 0 and 1000 mmHg");
+  CHECK_REFUSED_NAMING(saturation(mmhg(1000.01)), "between 0 and 1000 mmHg");
+  CHECK_REFUSED_NAMING(saturation(mmhg(60), {celsius(19.99)}), "between 20 and 43 °C");
+  CHECK_REFUSED_NAMING(saturation(mmhg(60), {celsius(43.01)}), "between 20 and 43 °C");
+  CHECK_REFUSED_NAMING(saturation(mmhg(60), {celsius(37), 6.799}), "between 6.8 and 7.8 (no unit)");
+  CHECK_REFUSED_NAMING(saturation(mmhg(60), {celsius(37), 7.801}), "between 6.8 and 7.8 (no unit)");
+  CHECK_REFUSED_NAMING(saturation(mmhg(60), {celsius(37), 7.4, -30.01}), "between -30 and 30 mmol/L");
+  CHECK_REFUSED_NAMING(saturation(mmhg(60), {celsius(37), 7.4, 30.01}), "between -30 and 30 mmol/L");
+  CHECK_REFUSED_NAMING(saturation(mmhg(60), {celsius(37), 7.4, 0, mmhg(14.99)}), "between 15 and 40 mmHg");
+  CHECK_REFUSED_NAMING(saturation(mmhg(60), {celsius(37), 7.4, 0, mmhg(40.01)}), "between 15 and 40 mmHg");
+  CHECK_REFUSED_NAMING(po2_for_saturation(percent(-0.01)), "between 0 and 99.9 %");
+  CHECK_REFUSED_NAMING(po2_for_saturation(percent(99.91)), "between 0 and 99.9 %");
+  CHECK_REFUSED_NAMING(severinghaus_inverse_approximation(percent(0.99)), "between 1 and 99.9 %");
+  CHECK_REFUSED_NAMING(severinghaus_inverse_approximation(percent(99.91)), "between 1 and 99.9 %");
 }

@@ -5,6 +5,7 @@
 
 #include "model/cylinder.hpp"
 #include "model/evacuation_plan.hpp"
+#include "sweep.hpp"
 
 using namespace firn;
 using namespace firn::units;
@@ -157,4 +158,86 @@ TEST_CASE("bad plan input names range and unit", "[evacuation][errors]") {
   in = two_cylinders_six_hours();
   in.phases[0].flow = litres_per_minute(NAN);
   CHECK_FALSE(plan_evacuation(in).ok());
+}
+
+TEST_CASE("sweep: plans over evacuation time, flow, cylinders and reserve", "[evacuation][sweep]") {
+  // Evacuation 1 min…72 h, flow 0…30 L/min, reserve 0…350 bar (gauge), 1…50 cylinders. Every
+  // plan: times ordered, figures finite, what is delivered is what was needed or all that was
+  // usable, and "enough" exactly when the usable gas covers the need (to 1 mL).
+  for (double evac_min : {1.0, 30.0, 180.0, 1440.0, 4320.0}) {
+    for (double flow : {0.0, 0.5, 6.0, 15.0, 30.0}) {
+      for (int count : {1, 4, 50}) {
+        for (double reserve : {0.0, 20.0, 199.0}) {
+          PlanInput in;
+          for (int i = 0; i < count; ++i) in.cylinders.push_back(ten_litre("C" + std::to_string(i), 200));
+          in.phases = {{litres_per_minute(flow), minutes(1)}};
+          in.evacuation = minutes(evac_min);
+          in.reserve_gauge = bar(reserve);
+          in.sample_interval = minutes(60);
+          INFO(evac_min << " min at " << flow << " L/min, " << count << " cylinders, reserve " << reserve);
+          Result<EvacuationPlan> plan = plan_evacuation(in);
+          REQUIRE(plan.ok());
+          CHECK(plan->oxygen_needed.in(litres) == Approx(flow * evac_min).margin(1e-9));
+          double delivered = 0.0;
+          for (const CylinderUse& u : plan->uses) {
+            CHECK(u.end >= u.start);
+            CHECK(u.end_gauge.in(bar) <= u.start_gauge.in(bar) + 1e-6);  // inverse rounding
+            CHECK(u.end_gauge.in(bar) >= reserve - 1e-6);
+            delivered += u.delivered.in(litres);
+          }
+          double usable = plan->oxygen_usable.in(litres);
+          CHECK(delivered == Approx(std::min(flow * evac_min, usable)).epsilon(1e-9).margin(1e-6));
+          CHECK(plan->enough == (usable >= flow * evac_min - 1e-3));
+          CHECK(plan->shortfall.in(minutes) >= 0.0);
+          CHECK(plan->spare.in(minutes) >= 0.0);
+          CHECK(std::isfinite(plan->spare_cylinders));
+          CHECK(plan->extra_cylinders_needed >= 0);
+          for (std::size_t i = 1; i < plan->samples.size(); ++i) {
+            CHECK(plan->samples[i].time >= plan->samples[i - 1].time);
+            CHECK(std::isfinite(plan->samples[i].gauge.in(bar)));
+          }
+          for (std::size_t i = 1; i < plan->events.size(); ++i) {
+            CHECK(plan->events[i].time >= plan->events[i - 1].time);
+          }
+        }
+      }
+    }
+  }
+  // Sample spacing 1…60 min and up to 20 phases: the sample count stays capped (600 + events).
+  for (double interval : sweep::grid(1, 60, 4)) {
+    PlanInput in = two_cylinders_six_hours();
+    in.phases.clear();
+    for (int i = 0; i < 20; ++i) in.phases.push_back({litres_per_minute(i % 2 ? 2 : 8), minutes(30)});
+    in.evacuation = hours(72);
+    in.sample_interval = minutes(interval);
+    Result<EvacuationPlan> plan = plan_evacuation(in);
+    REQUIRE(plan.ok());
+    CHECK(plan->samples.size() <= 600 + 2 * plan->events.size() + 2);
+  }
+}
+
+TEST_CASE("sweep: just outside every plan range the message names it", "[evacuation][sweep][errors]") {
+  auto with = [](auto change) {
+    PlanInput in = two_cylinders_six_hours();
+    change(in);
+    return plan_evacuation(in);
+  };
+  // Sweep finding: counts have no unit, and the message read "between 1 and 50  (got 0 )".
+  CHECK(with([](PlanInput& in) { in.cylinders.clear(); }).error().message ==
+        "number of cylinders must be between 1 and 50 (got 0)");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.cylinders.resize(51, in.cylinders[0]); }), "between 1 and 50");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.phases.clear(); }), "between 1 and 20");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.phases.resize(21, in.phases[0]); }), "between 1 and 20");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.phases[0].flow = litres_per_minute(-0.01); }), "between 0 and 30 L/min");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.phases[1].flow = litres_per_minute(30.01); }), "between 0 and 30 L/min");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.phases[0].duration = minutes(0.99); }), "between 1 and 4320 min");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.phases[0].duration = minutes(4320.01); }), "between 1 and 4320 min");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.evacuation = minutes(0.99); }), "between 1 and 4320 min");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.evacuation = minutes(4320.01); }), "between 1 and 4320 min");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.reserve_gauge = bar(-0.01); }), "between 0 and 350 bar");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.reserve_gauge = bar(350.01); }), "between 0 and 350 bar");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.sample_interval = minutes(0.99); }), "between 1 and 60 min");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.sample_interval = minutes(60.01); }), "between 1 and 60 min");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.cylinders[0].gauge_pressure = bar(350.01); }), "between 0 and 350 bar");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.ambient_pressure = hectopascals(149.99); }), "between 150 and 1100 hPa");
 }

@@ -6,6 +6,7 @@
 
 #include "model/atmosphere.hpp"
 #include "model/expected_spo2.hpp"
+#include "sweep.hpp"
 
 using namespace firn;
 using namespace firn::units;
@@ -125,4 +126,67 @@ TEST_CASE("expected-SpO2 input errors", "[expected-spo2][errors]") {
   CHECK_FALSE(assess(percent(NAN), b).ok());
   CHECK_FALSE(expected(hectopascals(80), Exposure::Acute).ok());
   CHECK_FALSE(expected(hectopascals(600), Exposure::Acute, fraction(0.05)).ok());
+}
+
+TEST_CASE("sweep: band and assessment over pressure, FiO2, exposure and measured SpO2",
+          "[expected-spo2][sweep]") {
+  // PB 100…1300 hPa and FiO2 0.15…1: a band wherever PiO2 ≥ 35 mmHg (else the cascade's
+  // documented error), edges 0–100 % and ordered, not falling as pressure or FiO2 rises.
+  for (Exposure exposure : {Exposure::Acute, Exposure::Acclimatised}) {
+    std::vector<double> previous_by_pb;
+    for (double f : sweep::grid(0.15, 1.0, 17)) {
+      double previous = 0.0;
+      size_t k = 0;
+      for (double pb : sweep::grid(100, 1300, 60)) {
+        Result<Expectation> e = expected(hectopascals(pb), exposure, fraction(f));
+        if (f * (hectopascals(pb).in(mmhg) - 47.0) < 35.0) {
+          CHECK_REFUSED_NAMING(e, "inspired PO2");
+          if (previous_by_pb.size() <= k) previous_by_pb.push_back(0.0);
+          ++k;
+          continue;
+        }
+        INFO("PB " << pb << " hPa, FiO2 " << f);
+        double pio2 = f * (hectopascals(pb).in(mmhg) - 47.0);
+        if (exposure == Exposure::Acute && pio2 < 41.0 && !e.ok()) {  // documented in the header
+          CHECK_THAT(e.error().message, Catch::Contains("arterial PO2"));
+          if (previous_by_pb.size() <= k) previous_by_pb.push_back(0.0);
+          ++k;
+          continue;
+        }
+        REQUIRE(e.ok());
+        const Band& b = e->band;
+        CHECK(b.low.in(percent) >= 0.0);
+        CHECK(b.high.in(percent) <= 100.0);
+        CHECK(b.low <= b.mid);
+        CHECK(b.mid <= b.high);
+        CHECK(b.mid.in(percent) >= previous - 1e-9);
+        previous = b.mid.in(percent);
+        if (previous_by_pb.size() <= k) previous_by_pb.push_back(0.0);
+        CHECK(b.mid.in(percent) >= previous_by_pb[k] - 1e-9);  // more oxygen, not less SpO2
+        previous_by_pb[k++] = b.mid.in(percent);
+        // Every measured SpO2 30…100 % gets an assessment with cautions and a finite gap.
+        for (double measured : sweep::grid(30, 100, 14)) {
+          Result<Assessment> a = assess(percent(measured), b);
+          REQUIRE(a.ok());
+          CHECK(std::isfinite(a->gap_points));
+          CHECK_FALSE(a->cautions.empty());
+          CHECK((a->position == Position::Within) == (a->gap_points == 0.0));
+        }
+      }
+    }
+  }
+}
+
+TEST_CASE("sweep: just outside every expected-SpO2 range the message names it",
+          "[expected-spo2][sweep][errors]") {
+  CHECK_REFUSED_NAMING(expected(hectopascals(99.99), Exposure::Acute), "between 100 and 1300 hPa");
+  CHECK_REFUSED_NAMING(expected(hectopascals(1300.01), Exposure::Acclimatised),
+                       "between 100 and 1300 hPa");
+  CHECK_REFUSED_NAMING(expected(hectopascals(700), Exposure::Acute, fraction(0.1499)),
+                       "between 0.15 and 1 (fraction)");
+  CHECK_REFUSED_NAMING(expected(hectopascals(700), Exposure::Acute, fraction(1.0001)),
+                       "between 0.15 and 1 (fraction)");
+  Band b = band_at(3000, Exposure::Acute);
+  CHECK_REFUSED_NAMING(assess(percent(29.99), b), "between 30 and 100 %");
+  CHECK_REFUSED_NAMING(assess(percent(100.01), b), "between 30 and 100 %");
 }

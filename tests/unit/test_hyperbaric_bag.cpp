@@ -1,9 +1,11 @@
 // Portable hyperbaric bag: inside pressure, equivalent altitude, CO2/O2 mass balance.
 #include <catch2/catch.hpp>
 
+#include <algorithm>
 #include <cmath>
 
 #include "model/hyperbaric_bag.hpp"
+#include "sweep.hpp"
 
 using namespace firn;
 using namespace firn::units;
@@ -144,4 +146,120 @@ TEST_CASE("bad bag input names range and unit", "[bag][errors]") {
   CHECK_FALSE(bag_at_altitude(metres(4000), Model::Isa, nan_flush).ok());
   CHECK(bag_at_pressure(hectopascals(600), Model::Isa, {}).ok());
   CHECK_FALSE(bag_at_pressure(hectopascals(20), Model::Isa, {}).ok());
+}
+
+namespace {
+// What every bag result must satisfy, whatever the inputs.
+void check_plausible(const BagResult& r) {
+  CHECK(r.inside_pressure >= r.ambient_pressure);
+  CHECK(r.pio2_ambient.in(mmhg) > 0.0);
+  CHECK(r.pio2_inside.in(mmhg) > 0.0);
+  CHECK(r.inside_o2.in(percent) > 0.0);
+  CHECK(r.inside_o2.in(percent) <= 100.0);
+  CHECK(r.min_flush.in(litres_per_minute) >= 0.0);
+  if (r.equivalent_altitude) {
+    CHECK(r.equivalent_altitude->in(metres) <= r.ambient_altitude.in(metres) + 1e-6);
+    CHECK(r.descent_equivalent->in(metres) >= -1e-6);
+  }
+  if (r.gas) {
+    CHECK(r.gas->co2.in(percent) > 0.0);
+    CHECK(r.gas->co2.in(percent) < 100.0);
+    CHECK(r.gas->o2.in(percent) > 0.0);
+    CHECK(r.gas->time_constant.in(minutes) > 0.0);
+  }
+}
+}  // namespace
+
+TEST_CASE("sweep: the bag over altitude, gauge and every setting", "[bag][sweep]") {
+  // Altitude over each model's range (ISA cut at 150 hPa, about 13 637 m), gauge 0…250 mbar:
+  // plausible figures, and more gauge pressure never a higher equivalent altitude.
+  for (Model model : {Model::Isa, Model::West1996}) {
+    double top = model == Model::Isa ? 13637.0 : 9000.0;
+    for (double z : sweep::grid(atmosphere::valid_altitudes(model).low_m, top, 60)) {
+      double previous = INFINITY;
+      for (double mbar : sweep::grid(0, max_gauge_mbar, 10)) {
+        Settings s;
+        s.gauge = millibar(mbar);
+        BagResult r = bag(z, model, s);
+        check_plausible(r);
+        if (r.equivalent_altitude) {
+          CHECK(r.equivalent_altitude->in(metres) < previous);
+          previous = r.equivalent_altitude->in(metres);
+        }
+      }
+    }
+  }
+  // Every setting over its range at a low and a high camp. A flush too small for the casualty's
+  // oxygen uptake is the documented error; with at least the minimum flush CO2 meets the limit.
+  for (double z : {2500.0, 6000.0}) {
+    for (double flush : sweep::grid(min_flush_lpm, max_flush_lpm, 6)) {
+      for (double feed : sweep::grid(0, max_oxygen_feed_lpm, 3)) {
+        for (double volume : sweep::grid(min_bag_volume_l, max_bag_volume_l, 2)) {
+          for (double chamber : sweep::grid(min_chamber_c, max_chamber_c, 3)) {
+            for (double limit : sweep::grid(min_co2_limit_pct, max_co2_limit_pct, 3)) {
+              for (double vo2 : {0.05, 0.25, 2.5}) {
+                Settings s;
+                s.flush = litres_per_minute(flush);
+                s.oxygen_feed = litres_per_minute(feed);
+                s.bag_volume = litres(volume);
+                s.chamber_temperature = celsius(chamber);
+                s.co2_limit = percent(limit);
+                s.vo2_stpd = litres_per_minute(vo2);
+                s.vco2_stpd = litres_per_minute(std::clamp(vo2 * 0.8, 0.05, 2.0));
+                s.stroke_volume = litres(volume > 1000 ? max_stroke_l : min_stroke_l);
+                Result<BagResult> r = bag_at_altitude(metres(z), Model::West1996, s);
+                if (!r.ok()) {
+                  CHECK_THAT(r.error().message, Catch::Contains("flush flow is too low"));
+                  continue;
+                }
+                check_plausible(r.value());
+                CHECK(*r->gas->strokes_per_minute > 0.0);
+                if (s.flush.value() >= r->min_flush) CHECK(r->gas->co2.in(percent) <= limit + 1e-9);
+              }
+            }
+          }
+        }
+      }
+    }
+  }
+  // From a barometer: 150 hPa up to each model's sea-level side.
+  for (double hpa : sweep::grid(330.1, 1013.2, 40)) check_plausible(bag_at_pressure(hectopascals(hpa), Model::West1996, {}).value());
+  for (double hpa : sweep::grid(150, 1074.7, 40)) check_plausible(bag_at_pressure(hectopascals(hpa), Model::Isa, {}).value());
+}
+
+TEST_CASE("sweep: just outside every bag range the message names it", "[bag][sweep][errors]") {
+  auto with = [](auto change) {
+    Settings s;
+    s.flush = litres_per_minute(50);
+    change(s);
+    return bag_at_altitude(metres(4000), Model::West1996, s);
+  };
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.gauge = millibar(-0.01); }), "between 0 and 250 mbar");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.gauge = millibar(250.01); }), "between 0 and 250 mbar");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.flush = litres_per_minute(4.99); }), "between 5 and 300 L/min");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.flush = litres_per_minute(300.01); }), "between 5 and 300 L/min");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.oxygen_feed = litres_per_minute(-0.01); }), "between 0 and 15 L/min");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.oxygen_feed = litres_per_minute(15.01); }), "between 0 and 15 L/min");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.bag_volume = litres(99.99); }), "between 100 and 2000 L");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.bag_volume = litres(2000.01); }), "between 100 and 2000 L");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.chamber_temperature = celsius(-30.01); }), "between -30 and 45 °C");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.chamber_temperature = celsius(45.01); }), "between -30 and 45 °C");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.co2_limit = percent(0.099); }), "between 0.1 and 5 %");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.co2_limit = percent(5.01); }), "between 0.1 and 5 %");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.vco2_stpd = litres_per_minute(0.049); }), "between 0.05 and 2 L/min");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.vco2_stpd = litres_per_minute(2.01); }), "between 0.05 and 2 L/min");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.vo2_stpd = litres_per_minute(0.049); }), "between 0.05 and 2.5 L/min");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.vo2_stpd = litres_per_minute(2.51); }), "between 0.05 and 2.5 L/min");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.stroke_volume = litres(0.099); }), "between 0.1 and 10 L");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.stroke_volume = litres(10.01); }), "between 0.1 and 10 L");
+  CHECK_REFUSED_NAMING(bag_at_altitude(metres(-500.01), Model::Isa, {}), "between -500 and 13637 m");
+  // Fuzz finding: ISA accepted up to 20 000 m, where the PiO2 outside came out negative.
+  CHECK_REFUSED_NAMING(bag_at_altitude(metres(13637.7), Model::Isa, {}), "between -500 and 13637 m");
+  CHECK_REFUSED_NAMING(bag_at_altitude(metres(19500), Model::Isa, {}), "ambient pressure at least 150 hPa");
+  CHECK_REFUSED_NAMING(bag_at_altitude(metres(-0.01), Model::West1996, {}), "between 0 and 9000 m");
+  CHECK_REFUSED_NAMING(bag_at_altitude(metres(9000.01), Model::West1996, {}), "between 0 and 9000 m");
+  CHECK_REFUSED_NAMING(bag_at_pressure(hectopascals(149.99), Model::Isa, {}), "between 150 and 1074.7 hPa");
+  CHECK_REFUSED_NAMING(bag_at_pressure(hectopascals(1074.8), Model::Isa, {}), "between 150 and 1074.7 hPa");
+  CHECK_REFUSED_NAMING(bag_at_pressure(hectopascals(330.0), Model::West1996, {}), "between 330.1 and 1013.2 hPa");
+  CHECK_REFUSED_NAMING(bag_at_pressure(hectopascals(1013.3), Model::West1996, {}), "between 330.1 and 1013.2 hPa");
 }

@@ -2,6 +2,7 @@
 #include <catch2/catch.hpp>
 
 #include "model/lake_louise.hpp"
+#include "sweep.hpp"
 
 using namespace firn;
 using namespace firn::lake_louise;
@@ -49,4 +50,36 @@ TEST_CASE("items outside 0–3 are errors naming the range", "[lake-louise][erro
   REQUIRE_FALSE(negative.ok());
   CHECK(negative.error().message.find("fatigue/weakness item") != std::string::npos);
   CHECK(category_key(Category::Moderate) == "moderate");
+}
+
+TEST_CASE("sweep: every answer combination", "[lake-louise][sweep]") {
+  // All 4⁴ × 2 inputs: the total is the sum (0–12), and the category follows Roach 2018.
+  for (int h = 0; h <= 3; ++h) {
+    for (int g = 0; g <= 3; ++g) {
+      for (int f = 0; f <= 3; ++f) {
+        for (int d = 0; d <= 3; ++d) {
+          for (bool ascent : {true, false}) {
+            Score s = scored(h, g, f, d, ascent);
+            int total = h + g + f + d;
+            CHECK(s.total == total);
+            CHECK(s.meets_ams_definition == (ascent && h >= 1 && total >= 3));
+            Category want = !s.meets_ams_definition ? Category::None
+                            : total >= 10           ? Category::Severe
+                            : total >= 6            ? Category::Moderate
+                                                    : Category::Mild;
+            CHECK(s.category == want);
+          }
+        }
+      }
+    }
+  }
+}
+
+TEST_CASE("sweep: just outside 0–3 on every item the message names it", "[lake-louise][sweep][errors]") {
+  for (int bad : {-1, 4}) {
+    CHECK_REFUSED_NAMING(score({bad, 0, 0, 0, true}), "headache item must be between 0 and 3 points");
+    CHECK_REFUSED_NAMING(score({0, bad, 0, 0, true}), "gastrointestinal item must be between 0 and 3 points");
+    CHECK_REFUSED_NAMING(score({0, 0, bad, 0, true}), "fatigue/weakness item must be between 0 and 3 points");
+    CHECK_REFUSED_NAMING(score({0, 0, 0, bad, true}), "dizziness/light-headedness item must be between 0 and 3 points");
+  }
 }

@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include "model/oxygen_cascade.hpp"
+#include "sweep.hpp"
 
 using namespace firn;
 using namespace firn::units;
@@ -175,4 +176,149 @@ TEST_CASE("cascade input errors name range and unit", "[cascade][errors]") {
   too_high.barometric = hectopascals(150);  // PiO2 ~12 mmHg
   CHECK(oxygen_cascade(too_high).error().message.find("inspired PO2") != std::string::npos);
   CHECK_FALSE(expected_paco2(mmhg(NAN), Exposure::Acute).ok());
+}
+
+TEST_CASE("sweep: cascade pieces over their whole ranges", "[cascade][sweep]") {
+  // PiO2 = FiO2·(PB − 47): PB 100…1300 hPa, FiO2 0.15…1; rises with both.
+  for (double f : sweep::grid(0.15, 1.0, 17)) {
+    double previous = 0.0;
+    for (double pb : sweep::grid(100, 1300, 120)) {
+      Result<Pressure> pio2 = inspired_po2(hectopascals(pb), fraction(f));
+      REQUIRE(pio2.ok());
+      CHECK(pio2->in(mmhg) > previous);
+      previous = pio2->in(mmhg);
+    }
+  }
+  // Alveolar gas equation, PiO2 0…1000 mmHg, PaCO2 5…80, R 0.6…1.2: a positive PAO2 below
+  // PiO2, or the documented "at or below zero" error.
+  for (double pio2 : sweep::grid(0, 1000, 40)) {
+    for (double paco2 : sweep::grid(5, 80, 15)) {
+      for (double r : sweep::grid(0.6, 1.2, 6)) {
+        for (double f : {0.15, 0.21, 0.5, 1.0}) {
+          Result<Pressure> full = alveolar_po2(mmhg(pio2), mmhg(paco2), fraction(f), r);
+          Result<Pressure> simple = alveolar_po2_simplified(mmhg(pio2), mmhg(paco2), r);
+          for (const Result<Pressure>* a : {&full, &simple}) {
+            if (a->ok()) {
+              CHECK((*a)->in(mmhg) > 0.0);
+              CHECK((*a)->in(mmhg) < pio2);
+            } else {
+              CHECK_THAT(a->error().message, Catch::Contains("at or below zero"));
+            }
+          }
+        }
+      }
+    }
+  }
+  // Expected PaCO2 and A–a over PiO2 35…1000 mmHg: ordered bands, within the floor (8) and the
+  // sea-level row (42), A–a within 2…10 mmHg, none falling as PiO2 rises; acclimatised never
+  // above acute.
+  double previous_mid[2] = {0.0, 0.0}, previous_aa = 0.0;
+  for (double pio2 : sweep::grid(35, 1000, 965)) {
+    Result<Paco2Estimate> acute = expected_paco2(mmhg(pio2), Exposure::Acute);
+    Result<Paco2Estimate> acclimatised = expected_paco2(mmhg(pio2), Exposure::Acclimatised);
+    REQUIRE(acute.ok());
+    REQUIRE(acclimatised.ok());
+    int i = 0;
+    for (const Result<Paco2Estimate>* e : {&acute, &acclimatised}) {
+      const PressureBand& b = (*e)->paco2;
+      CHECK(b.low.in(mmhg) >= 8.0);
+      CHECK(b.high.in(mmhg) <= 42.0);
+      CHECK(b.low <= b.mid);
+      CHECK(b.mid <= b.high);
+      CHECK(b.mid.in(mmhg) >= previous_mid[i] - 1e-9);
+      previous_mid[i++] = b.mid.in(mmhg);
+    }
+    CHECK(acclimatised->paco2.mid <= acute->paco2.mid);
+    Result<PressureBand> aa = expected_aa_gradient(mmhg(pio2));
+    REQUIRE(aa.ok());
+    CHECK(aa->low.in(mmhg) >= 2.0);
+    CHECK(aa->high.in(mmhg) <= 10.0);
+    CHECK(aa->mid.in(mmhg) >= previous_aa - 1e-9);
+    previous_aa = aa->mid.in(mmhg);
+  }
+  // Henderson–Hasselbalch: HCO3⁻ 2…60 mmol/L, PaCO2 5…80 mmHg; pH up with HCO3⁻, down with CO2.
+  for (double hco3 : sweep::grid(2, 60, 29)) {
+    double previous = INFINITY;
+    for (double paco2 : sweep::grid(5, 80, 75)) {
+      Result<double> ph = henderson_hasselbalch_ph(hco3, mmhg(paco2));
+      REQUIRE(ph.ok());
+      CHECK(std::isfinite(ph.value()));
+      CHECK(ph.value() < previous);
+      previous = ph.value();
+    }
+  }
+  for (Compensation c : {Compensation::Acute, Compensation::Chronic}) {
+    for (double paco2 : sweep::grid(5, 80, 75)) {
+      Result<AcidBase> ab = compensated_acid_base(mmhg(paco2), c);
+      REQUIRE(ab.ok());
+      CHECK(ab->bicarbonate_mmol_l > 0.0);
+      CHECK(std::isfinite(ab->ph));
+      CHECK(std::isfinite(ab->base_excess_mmol_l));
+    }
+  }
+}
+
+TEST_CASE("sweep: the whole cascade over pressure, FiO2 and exposure", "[cascade][sweep]") {
+  // Valid: PB 100…1300 hPa, FiO2 0.15…1, as long as PiO2 ≥ 35 mmHg (below it, the documented
+  // "inspired PO2" error; acute below ~41 mmHg, the "arterial PO2" one). Every figure finite, SaO2 0–100 %, PaO2 ≥ 1 mmHg, paths ordered, and
+  // more pressure never gives less oxygen.
+  for (Exposure exposure : {Exposure::Acute, Exposure::Acclimatised}) {
+    for (double f : sweep::grid(0.15, 1.0, 17)) {
+      double previous = 0.0;
+      for (double pb : sweep::grid(100, 1300, 120)) {
+        CascadeInputs in;
+        in.barometric = hectopascals(pb);
+        in.fio2 = fraction(f);
+        in.exposure = exposure;
+        Result<Cascade> c = oxygen_cascade(in);
+        double pio2 = f * (hectopascals(pb).in(mmhg) - kWaterVapourMmhg);
+        if (pio2 < 35.0) {
+          CHECK_REFUSED_NAMING(c, "between 35 and 1000 mmHg");
+          continue;
+        }
+        INFO("PB " << pb << " hPa, FiO2 " << f << ", " << exposure_key(exposure));
+        // Acute with PiO2 below ~41 mmHg: the documented "arterial PO2 below 1 mmHg" refusal.
+        if (exposure == Exposure::Acute && pio2 < 41.0 && !c.ok()) {
+          CHECK_THAT(c.error().message, Catch::Contains("arterial PO2"));
+          continue;
+        }
+        REQUIRE(c.ok());
+        for (const CascadePath* path : {&c->lowest, &c->middle, &c->highest}) {
+          CHECK(path->arterial.in(mmhg) >= 1.0);
+          CHECK(path->arterial <= path->alveolar);
+          CHECK(std::isfinite(path->acid_base.ph));
+          CHECK(path->sao2.in(percent) >= 0.0);
+          CHECK(path->sao2.in(percent) <= 100.0);
+        }
+        CHECK(c->lowest.sao2 <= c->middle.sao2);
+        CHECK(c->middle.sao2 <= c->highest.sao2);
+        CHECK(c->middle.sao2.in(percent) >= previous - 1e-9);
+        previous = c->middle.sao2.in(percent);
+      }
+    }
+  }
+}
+
+TEST_CASE("sweep: just outside every cascade range the message names it",
+          "[cascade][sweep][errors]") {
+  Fraction air = dry_air_fio2();
+  CHECK_REFUSED_NAMING(inspired_po2(hectopascals(99.99), air), "between 100 and 1300 hPa");
+  CHECK_REFUSED_NAMING(inspired_po2(hectopascals(1300.01), air), "between 100 and 1300 hPa");
+  CHECK_REFUSED_NAMING(inspired_po2(hectopascals(600), fraction(0.1499)), "between 0.15 and 1 (fraction)");
+  CHECK_REFUSED_NAMING(inspired_po2(hectopascals(600), fraction(1.0001)), "between 0.15 and 1 (fraction)");
+  CHECK_REFUSED_NAMING(alveolar_po2(mmhg(100), mmhg(4.99), air), "between 5 and 80 mmHg");
+  CHECK_REFUSED_NAMING(alveolar_po2(mmhg(100), mmhg(80.01), air), "between 5 and 80 mmHg");
+  CHECK_REFUSED_NAMING(alveolar_po2(mmhg(100), mmhg(40), air, 0.599), "between 0.6 and 1.2 (no unit)");
+  CHECK_REFUSED_NAMING(alveolar_po2(mmhg(100), mmhg(40), air, 1.201), "between 0.6 and 1.2 (no unit)");
+  // Sweep finding: these said "between 35 and 1000 mmHg" while 0…35 was accepted.
+  CHECK_REFUSED_NAMING(alveolar_po2(mmhg(-0.01), mmhg(40), air), "between 0 and 1000 mmHg");
+  CHECK_REFUSED_NAMING(alveolar_po2_simplified(mmhg(1000.01), mmhg(40)), "between 0 and 1000 mmHg");
+  CHECK_REFUSED_NAMING(expected_paco2(mmhg(34.99), Exposure::Acute), "between 35 and 1000 mmHg");
+  CHECK_REFUSED_NAMING(expected_paco2(mmhg(1000.01), Exposure::Acclimatised), "between 35 and 1000 mmHg");
+  CHECK_REFUSED_NAMING(expected_aa_gradient(mmhg(34.99)), "between 35 and 1000 mmHg");
+  CHECK_REFUSED_NAMING(expected_aa_gradient(mmhg(1000.01)), "between 35 and 1000 mmHg");
+  CHECK_REFUSED_NAMING(henderson_hasselbalch_ph(1.99, mmhg(40)), "between 2 and 60 mmol/L");
+  CHECK_REFUSED_NAMING(henderson_hasselbalch_ph(60.01, mmhg(40)), "between 2 and 60 mmol/L");
+  CHECK_REFUSED_NAMING(henderson_hasselbalch_ph(24, mmhg(4.99)), "between 5 and 80 mmHg");
+  CHECK_REFUSED_NAMING(compensated_acid_base(mmhg(80.01), Compensation::Acute), "between 5 and 80 mmHg");
 }

@@ -3,6 +3,7 @@
 // The models themselves are checked against published values in their own test files.
 #include <catch2/catch.hpp>
 
+#include <cctype>
 #include <cmath>
 #include <string>
 
@@ -14,6 +15,7 @@
 #include "model/oxygen_cascade.hpp"
 #include "model/pocket_card.hpp"
 #include "model/team_profile.hpp"
+#include "sweep.hpp"
 
 using namespace firn;
 using namespace firn::units;
@@ -178,4 +180,99 @@ TEST_CASE("CSV tables hold the card's cells", "[card]") {
   CHECK(count_of(csv, "\r\n") == card.tables[2].rows.size() + 1);
   Table quoted{"t", "T", {"a,b", "say \"hi\""}, {{"1", "2"}}, {}};
   CHECK(table_csv(quoted) == "\"a,b\",\"say \"\"hi\"\"\"\r\n1,2\r\n");
+}
+
+namespace {
+// A printed cell: a figure (digits, maybe a range "90–94" or a '*'), or one of the card's words.
+bool is_card_cell(const std::string& cell) {
+  if (cell == out_of_range_text || cell == "below sea level" || cell == "at reserve") return true;
+  if (cell.empty()) return false;
+  for (unsigned char c : cell) {
+    bool figure = std::isdigit(c) || c == '.' || c == '-' || c == '*' || c == 0xE2 || c == 0x80 || c == 0x93;
+    if (!figure) return false;
+  }
+  return std::isdigit(static_cast<unsigned char>(cell[0])) || cell[0] == '-';
+}
+}  // namespace
+
+TEST_CASE("sweep: cards over the whole altitude range, both unit systems and models, and every "
+          "fill, reserve and flow", "[card][sweep]") {
+  // Card altitudes 0…9000 m in steps 50…1000 m (≤ 40 rows), fills 50…300 bar, reserve 0…100 bar,
+  // flows 0.25…25 L/min: every model figure finite and plausible, every altitude-table and
+  // bag-table cell a figure or a word, never a "nan".
+  struct Range { double from, to, step; };
+  for (Range r : {Range{0, 9000, 250}, Range{0, 1950, 50}, Range{7000, 9000, 1000}, Range{4050, 6000, 65}}) {
+    for (auto units : {team_profile::UnitSystem::Metric, team_profile::UnitSystem::Us}) {
+      for (auto model : {atmosphere::Model::West1996, atmosphere::Model::Isa}) {
+        team_profile::TeamProfile p = team_profile::demo_profile();
+        p.card = {metres(r.from), metres(r.to), metres(r.step), {}};
+        p.units = units;
+        p.atmosphere_model = model;
+        Card card = build_card(p, "2025-01-31");
+        REQUIRE(card.altitudes.size() <= 40);
+        for (const AltitudeRow& row : card.altitudes) {
+          REQUIRE(row.pb_west);
+          REQUIRE(row.pb_isa);
+          REQUIRE(row.pio2);
+          // Acute below PiO2 ~41 mmHg (ISA above ~8800 m) the cascade refuses: "out of range".
+          if (row.pio2->in(mmhg) >= 41.0) REQUIRE(row.spo2_acute);
+          REQUIRE(row.spo2_acclimatised);
+          if (row.spo2_acute) CHECK(row.spo2_acute->low.in(percent) >= 0.0);
+          CHECK(row.spo2_acclimatised->high.in(percent) <= 100.0);
+          REQUIRE(row.bag_inside);
+          CHECK(row.bag_min_flush->in(litres_per_minute) >= 0.0);
+        }
+        for (const Table& t : {card.tables[0], card.tables[1]}) {
+          for (const auto& cells : t.rows) {
+            for (const std::string& cell : cells) CHECK(is_card_cell(cell));
+          }
+        }
+        CHECK(render_html(card, Size::Wallet).find("nan") == std::string::npos);
+      }
+    }
+  }
+  for (double fill : sweep::grid(50, 300, 5)) {
+    for (double reserve : sweep::grid(0, 100, 4)) {
+      team_profile::TeamProfile p = team_profile::demo_profile();
+      for (auto& c : p.cylinders) c.fill_pressure_gauge = bar(fill);
+      p.reserve_pressure_gauge = bar(reserve);
+      p.flows = {litres_per_minute(0.25), litres_per_minute(6), litres_per_minute(25)};
+      Card card = build_card(p, "2025-01-31");
+      for (const DurationRow& row : card.durations) {
+        for (const DurationCell& cell : row.by_flow) {
+          // A cell is minutes (≥ 0) or says why not: at or below the reserve, or out of range.
+          if (cell.full) CHECK(cell.full->in(minutes) >= 0.0);
+          if (!cell.full) CHECK((cell.full_note == "at reserve" || cell.full_note == out_of_range_text));
+          if (!cell.half) CHECK((cell.half_note == "at reserve" || cell.half_note == out_of_range_text));
+          if (fill > reserve) CHECK(cell.full.has_value());
+        }
+      }
+      for (const auto& cells : card.tables[2].rows) {
+        for (size_t i = 2; i < cells.size(); ++i) CHECK(is_card_cell(cells[i]));
+      }
+    }
+  }
+}
+
+TEST_CASE("sweep: just outside the card's ranges the message names them", "[card][sweep][errors]") {
+  auto card_problems = [](const std::string& from, const std::string& to, const std::string& step) {
+    team_profile::TeamProfile p = team_profile::demo_profile();
+    std::string text = team_profile::serialize_profile(p);
+    auto replace = [&](const std::string& key, const std::string& value) {
+      size_t at = text.find("\"" + key + "\": ");
+      REQUIRE(at != std::string::npos);
+      size_t end = text.find(',', at);
+      text.replace(at, end - at, "\"" + key + "\": \"" + value + "\"");
+    };
+    replace("altitude_from", from);
+    replace("altitude_to", to);
+    replace("altitude_step", step);
+    return team_profile::parse_profile(text);
+  };
+  CHECK_REFUSED_NAMING(card_problems("-0.01m", "6000m", "250m"), "outside 0\xE2\x80\xA6" "9000 m");
+  CHECK_REFUSED_NAMING(card_problems("1500m", "9000.01m", "250m"), "outside 0\xE2\x80\xA6" "9000 m");
+  CHECK_REFUSED_NAMING(card_problems("1500m", "3000m", "49.99m"), "outside 50\xE2\x80\xA6" "1000 m");
+  CHECK_REFUSED_NAMING(card_problems("1500m", "6000m", "1000.01m"), "outside 50\xE2\x80\xA6" "1000 m");
+  CHECK_REFUSED_NAMING(card_problems("0m", "9000m", "225m"), "41 card rows is more than 40");
+  CHECK_REFUSED_NAMING(parse_size("a5"), "use a6 or wallet");
 }

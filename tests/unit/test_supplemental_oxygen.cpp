@@ -5,6 +5,7 @@
 
 #include "model/atmosphere.hpp"
 #include "model/supplemental_oxygen.hpp"
+#include "sweep.hpp"
 
 using namespace firn;
 using namespace firn::units;
@@ -82,4 +83,67 @@ TEST_CASE("lowest flow for the WMS target", "[oxygen][target]") {
   CHECK(no->flow.in(litres_per_minute) == Approx(6.0));
   CHECK(no->at_flow.spo2.low.in(percent) < 98.0);
   CHECK_FALSE(lowest_flow_for_target(west(4000), Exposure::Acute, Device::NasalCannula, percent(100)).ok());
+}
+
+TEST_CASE("sweep: every device over its flows, pressures and targets", "[oxygen][sweep]") {
+  for (Device d : {Device::NasalCannula, Device::SimpleMask, Device::NonRebreather}) {
+    FlowRange range = valid_flows(d);
+    double previous = 0.0;
+    for (double lpm : sweep::grid(range.low.in(litres_per_minute), range.high.in(litres_per_minute), 50)) {
+      Result<Fraction> f = delivered_fio2(d, litres_per_minute(lpm));
+      REQUIRE(f.ok());
+      CHECK(f->in(fraction) >= 0.21);  // never less than air
+      CHECK(f->in(fraction) <= 0.90);
+      CHECK(f->in(fraction) > previous);
+      previous = f->in(fraction);
+    }
+    // Prediction and lowest flow over PB 100…1300 hPa and targets 80…99 %. Where the device's
+    // lowest FiO2 still gives PiO2 < 35 mmHg the cascade refuses (its documented range).
+    for (Exposure exposure : {Exposure::Acute, Exposure::Acclimatised}) {
+      for (double pb : sweep::grid(100, 1300, 24)) {
+        INFO(device_key(d) << " at PB " << pb << " hPa");
+        for (double lpm : sweep::grid(range.low.in(litres_per_minute), range.high.in(litres_per_minute), 4)) {
+          Result<Prediction> p = predict(hectopascals(pb), exposure, d, litres_per_minute(lpm));
+          if (!p.ok()) {  // the cascade's documented refusals (expected_spo2.hpp)
+            CHECK_THAT(p.error().message, Catch::Contains("inspired PO2") || Catch::Contains("arterial PO2"));
+            continue;
+          }
+          CHECK(p->spo2.low.in(percent) >= 0.0);
+          CHECK(p->spo2.high.in(percent) <= 100.0);
+          CHECK(p->spo2.low <= p->spo2.high);
+        }
+        for (double target : sweep::grid(80, 99, 4)) {
+          Result<FlowForTarget> t = lowest_flow_for_target(hectopascals(pb), exposure, d, percent(target));
+          // Devices never give less than air, so where air is inside the cascade's range (PiO2
+          // ≥ 35 mmHg, ≥ 41 acute) all succeed.
+          double air_pio2 = 0.2095 * (hectopascals(pb).in(mmhg) - 47.0);
+          if (air_pio2 >= (exposure == Exposure::Acute ? 41.0 : 35.0)) REQUIRE(t.ok());
+          if (!t.ok()) {
+            CHECK_THAT(t.error().message, Catch::Contains("inspired PO2") || Catch::Contains("arterial PO2"));
+            continue;
+          }
+          CHECK(t->flow >= range.low);
+          CHECK(t->flow <= range.high);
+          if (t->reachable) CHECK(t->at_flow.spo2.low.in(percent) >= target - 1e-9);
+        }
+      }
+    }
+  }
+}
+
+TEST_CASE("sweep: just outside every oxygen range the message names it", "[oxygen][sweep][errors]") {
+  CHECK_REFUSED_NAMING(delivered_fio2(Device::NasalCannula, litres_per_minute(0.49)), "between 0.5 and 6 L/min");
+  CHECK_REFUSED_NAMING(delivered_fio2(Device::NasalCannula, litres_per_minute(6.01)), "between 0.5 and 6 L/min");
+  CHECK_REFUSED_NAMING(delivered_fio2(Device::SimpleMask, litres_per_minute(4.99)), "between 5 and 10 L/min");
+  CHECK_REFUSED_NAMING(delivered_fio2(Device::SimpleMask, litres_per_minute(10.01)), "between 5 and 10 L/min");
+  CHECK_REFUSED_NAMING(delivered_fio2(Device::NonRebreather, litres_per_minute(9.99)), "between 10 and 15 L/min");
+  CHECK_REFUSED_NAMING(delivered_fio2(Device::NonRebreather, litres_per_minute(15.01)), "between 10 and 15 L/min");
+  CHECK_REFUSED_NAMING(predict(hectopascals(99.99), Exposure::Acute, Device::SimpleMask, litres_per_minute(6)),
+                       "between 100 and 1300 hPa");
+  CHECK_REFUSED_NAMING(predict(hectopascals(1300.01), Exposure::Acute, Device::SimpleMask, litres_per_minute(6)),
+                       "between 100 and 1300 hPa");
+  CHECK_REFUSED_NAMING(lowest_flow_for_target(west(4000), Exposure::Acute, Device::NasalCannula, percent(79.99)),
+                       "between 80 and 99 %");
+  CHECK_REFUSED_NAMING(lowest_flow_for_target(west(4000), Exposure::Acute, Device::NasalCannula, percent(99.01)),
+                       "between 80 and 99 %");
 }

@@ -2,11 +2,13 @@
 // The valid ranges are Firn's own (docs/team-profile.md), not published values.
 #include <catch2/catch.hpp>
 
+#include <cmath>
 #include <fstream>
 #include <sstream>
 #include <string>
 
 #include "model/team_profile.hpp"
+#include "sweep.hpp"
 
 using namespace firn;
 using namespace firn::units;
@@ -266,4 +268,74 @@ TEST_CASE("Bad schema 1 files name the schema 1 field", "[profile][migration][ba
   text = version_1_file;
   text.replace(text.find("\"model\""), 7, "\"modle\"");
   CHECK(problems_of(text).find("modle: unknown field in a schema 1 file") != std::string::npos);
+}
+
+namespace {
+// One numeric field of the demo profile: its text in the demo, how to write a value, its limits.
+struct LimitedField {
+  const char* demo_text;  // as in the demo file, replaced by the value
+  const char* key;        // "\"fill_pressure\": "
+  const char* unit;       // written after the number ("bar"); "" for a bare count
+  double low, high;
+  const char* range;      // as the message shows it: "50…300 bar"
+};
+
+const LimitedField limited_fields[] = {
+    {"\"water_capacity\": \"2L\"", "\"water_capacity\": ", "L", 0.5, 50, "0.5\xE2\x80\xA6" "50 L"},
+    {"\"fill_pressure\": \"200bar\"", "\"fill_pressure\": ", "bar", 50, 300, "50\xE2\x80\xA6" "300 bar"},
+    {"\"count\": 4", "\"count\": ", "", 0, 99, "0\xE2\x80\xA6" "99"},
+    {"\"reserve_pressure\": \"20bar\"", "\"reserve_pressure\": ", "bar", 0, 100, "0\xE2\x80\xA6" "100 bar"},
+    {"\"2L/min\",", "", "L/min", 0.25, 25, "0.25\xE2\x80\xA6" "25 L/min"},
+    {"\"gauge_pressure\": \"2psi\"", "\"gauge_pressure\": ", "hPa", 50, 250, "50\xE2\x80\xA6" "250 hPa"},
+    {"\"pump_stroke_volume\": \"3L\"", "\"pump_stroke_volume\": ", "L", 0.1, 10, "0.1\xE2\x80\xA6" "10 L"},
+    {"\"co2_limit\": \"1%\"", "\"co2_limit\": ", "%", 0.2, 3, "0.2\xE2\x80\xA6" "3 %"},
+    {"\"duration\": \"6h\"", "\"duration\": ", "h", 0.25, 72, "0.25\xE2\x80\xA6" "72 h"},
+    {"\"altitude\": \"4200m\"", "\"altitude\": ", "m", 0, 9000, "0\xE2\x80\xA6" "9000 m"},
+    {"\"pressure\": \"190bar\"", "\"pressure\": ", "bar", 0, 300, "0\xE2\x80\xA6" "300 bar"},
+    {"\"temperature\": \"-10C\"", "\"temperature\": ", "C", -40, 60, "-40\xE2\x80\xA6" "60 \xC2\xB0" "C"},
+    {"\"flow\": \"15L/min\"", "\"flow\": ", "L/min", 0, 25, "0\xE2\x80\xA6" "25 L/min"},
+    {"\"duration\": \"1h\"", "\"duration\": ", "min", 1, 4320, "1\xE2\x80\xA6" "4320 min"},
+};
+
+std::string with_value(const LimitedField& f, double value) {
+  std::string number = format_number(value, 4);
+  std::string written = *f.unit ? "\"" + number + f.unit + "\"" : number;
+  std::string tail = std::string(f.demo_text).back() == ',' ? "," : "";
+  return demo_with(f.demo_text, f.key + written + tail);
+}
+}  // namespace
+
+TEST_CASE("sweep: every limited profile field over its range, and just outside it",
+          "[profile][sweep]") {
+  for (const LimitedField& f : limited_fields) {
+    INFO(f.demo_text);
+    // Across the range: the file loads, and writing it out reads back the same profile.
+    for (double v : sweep::grid(f.low, f.high, 6)) {
+      if (!*f.unit) v = std::round(v);  // a count is a whole number
+      Result<TeamProfile> p = parse_profile(with_value(f, v));
+      INFO(v << " " << f.unit << ": " << (p.ok() ? "" : p.error().message));
+      REQUIRE(p.ok());
+      // Sweep finding: 83.3333 hPa was written with 15 digits and did not read back equal.
+      Result<TeamProfile> back = parse_profile(serialize_profile(p.value()));
+      REQUIRE(back.ok());
+      CHECK(back.value() == p.value());
+    }
+    // Just outside each end: the problem names the range and unit.
+    double step = *f.unit ? 0.01 : 1.0;
+    for (double outside : {f.low - step, f.high + step}) {
+      std::string message = problems_of(with_value(f, outside));
+      CHECK_THAT(message, Catch::Contains(std::string("is outside ") + f.range));
+    }
+  }
+}
+
+TEST_CASE("Fuzz finding: problem lines are UTF-8 even when the file is not", "[profile][bad]") {
+  // fuzz_profile: a lone byte 0xEF was quoted raw in "not valid JSON ... near '\xEF'", and a
+  // value shortened to 37 bytes could end inside a character; both broke the screen and JSON.
+  std::string message = problems_of("\xEF");
+  CHECK(message == "the file is not valid JSON: line 1, column 1 near '?'");
+  // The dump is a quote, 35 x, then "é" across bytes 37 and 38: the cut now falls before it.
+  std::string long_name = "\"" + std::string(35, 'x') + "\xC3\xA9\xC3\xA9\"";
+  message = problems_of(demo_with("\"count\": 4", "\"count\": " + long_name));
+  CHECK(message.find("got \"" + std::string(35, 'x') + "...") != std::string::npos);
 }

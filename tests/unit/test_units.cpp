@@ -72,3 +72,22 @@ TEST_CASE("error messages format numbers plainly", "[units][errors]") {
   CHECK(range_error("flow", 0, 25, "L/min", -1).message ==
         "flow must be between 0 and 25 L/min (got -1 L/min)");
 }
+
+TEST_CASE("fuzz and sweep findings: huge figures, bounds typed in other units", "[units][errors]") {
+  // fuzz_units: "2e101m" was echoed as 63 digits cut from the buffer, a wrong number.
+  CHECK(format_number(2e101) == "2e+101");
+  CHECK(format_number(-1.234567e15, 0) == "-1.23457e+15");
+  CHECK(format_number(9.99e14, 0) == "999000000000000");
+  Result<Length> huge = parse_length("2e101m");
+  REQUIRE(huge.ok());
+  CHECK(range_error("altitude", -500, 20000, "m", huge->in(metres)).message ==
+        "altitude must be between -500 and 20000 m (got 2e+101 m)");
+  // Sweep: 1000 mmHg is 1000.0000000000001 mmHg after the trip through pascals, and was refused
+  // with "must be between 0 and 1000 mmHg (got 1000 mmHg)".
+  CHECK(in_range(mmhg(1000).in(mmhg), 0, 1000));
+  CHECK_FALSE(in_range(1000.001, 0, 1000));
+  CHECK_FALSE(in_range(-1e-6, 0, 1000));
+  // Sweep: a count has no unit, and the message had a stray space before ")".
+  CHECK(range_error("number of cylinders", 1, 50, "", 0).message ==
+        "number of cylinders must be between 1 and 50 (got 0)");
+}
