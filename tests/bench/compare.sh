@@ -52,7 +52,10 @@ quiet() {  # name, command...: output to a log, shown only on failure (which sto
 echo "# Firn vs the bare ImGui example — $(date -u '+%Y-%m-%d %H:%M UTC')"
 echo "source: $(git rev-parse --short HEAD)$(git diff --quiet HEAD -- . 2>/dev/null || echo ' + uncommitted changes in the work tree')"
 echo "machine: $(nproc) cores, $(awk '/MemTotal/ {printf "%.0f GiB", $2/1048576}' /proc/meminfo), load average at start $(cut -d' ' -f1-3 /proc/loadavg)"
-echo "tools: emscripten $(em++ --version | head -1 | grep -o '[0-9]*\.[0-9]*\.[0-9]*' | head -1), $(node --version | sed 's/^/node /'), $("${FIRN_CHROMIUM:-/usr/bin/chromium}" --version 2>/dev/null | head -1), $(g++ --version | head -1)"
+# sed -n reads to the end: `| head -1` closes the pipe early and emcc prints a traceback.
+first_version() { "$@" 2>/dev/null | sed -n '1s/[^0-9]*\([0-9][0-9.]*\).*/\1/p'; }
+echo "tools: emscripten $(first_version em++ --version), node $(first_version node --version)," \
+     "Chromium $(first_version "${FIRN_CHROMIUM:-/usr/bin/chromium}" --version), g++ $(first_version g++ --version)"
 
 echo
 echo "== building (logs in $log)"
