@@ -2,7 +2,8 @@
 # Firn's one set-up script (Debian 12, as root or with sudo). Idempotent and quiet when nothing
 # is left to do.
 #   ./firn.sh start   install what is missing, build, serve the offline page and open the app
-#   ./firn.sh test    install what is missing, build native + web, run every test layer
+#   ./firn.sh test    install what is missing, build native + web (+ sanitizer and fuzz trees),
+#                     run every test layer
 #   ./firn.sh deps    only install what is missing
 #   ./firn.sh build   only build (native in build/native, web in build/web)
 set -euo pipefail
@@ -14,11 +15,12 @@ LOGS="$ROOT/build/logs"
 
 # Debian packages: compilers and build tools, Emscripten, GLFW, Catch2, JSON and argument
 # parsing, stb, the UI font, fonttools (font subsetting), Xvfb + Mesa (software GL), Chromium
-# (browser tests, card PDF), poppler (PDF checks), librsvg (icons), dpkg-dev (apt-get source).
+# (browser tests, card PDF), poppler (PDF checks), librsvg (icons), dpkg-dev (apt-get source),
+# clang-14 + libclang-rt-14-dev (ASan/UBSan unit tests and libFuzzer targets, docs/hardening.md).
 PACKAGES=(build-essential cmake pkg-config git ca-certificates xz-utils dpkg-dev
   emscripten libglfw3-dev libgl-dev libegl-dev libgl1-mesa-dri catch2 nlohmann-json3-dev
   libcli11-dev libstb-dev fonts-dejavu-core fonttools xvfb xauth chromium poppler-utils
-  librsvg2-bin)
+  librsvg2-bin clang-14 libclang-rt-14-dev)
 
 say() { printf 'firn: %s\n' "$*"; }
 as_root() { if [ "$(id -u)" -eq 0 ]; then "$@"; else sudo "$@"; fi; }
@@ -77,6 +79,8 @@ run_logged() {  # name, command...: output to a log, shown only on failure
   fi
 }
 
+ASAN=build/asan FUZZ=build/fuzz  # hardening trees (clang-14), built by `test` only
+
 build() {
   export NODE_PATH=/usr/share/nodejs  # emcc needs Debian's acorn (see DEVELOPERS.md)
   local web=build/web native=build/native
@@ -85,11 +89,27 @@ build() {
       -DCMAKE_CROSSCOMPILING_EMULATOR=/usr/bin/node
   fi
   run_logged build-web cmake --build $web -j "$JOBS"
-  if [ ! -f $native/CMakeCache.txt ]; then
+  # Configured again when a tree made before the hardening layers lacks their directories.
+  if [ ! -f $native/CMakeCache.txt ] || ! grep -q "^FIRN_FUZZ_BUILD_DIR:PATH=$ROOT/$FUZZ\$" $native/CMakeCache.txt; then
     run_logged configure-native cmake -S . -B $native -DCMAKE_BUILD_TYPE=Release \
-      -DFIRN_WEB_BUILD_DIR="$ROOT/$web"
+      -DFIRN_WEB_BUILD_DIR="$ROOT/$web" -DFIRN_SANITIZED_BUILD_DIR="$ROOT/$ASAN" \
+      -DFIRN_FUZZ_BUILD_DIR="$ROOT/$FUZZ"
   fi
   run_logged build-native cmake --build $native -j "$JOBS"
+}
+
+# The unit tests with ASan+UBSan (ctest unit_sanitized) and the libFuzzer targets (fuzz_smoke):
+# only core/model, the CLI layer and the test programs, at -O1 (docs/hardening.md).
+build_hardening() {
+  local flags=(-DCMAKE_BUILD_TYPE=Debug -DCMAKE_CXX_FLAGS_DEBUG=-O1)
+  if [ ! -f $ASAN/CMakeCache.txt ]; then
+    run_logged configure-asan env CC=clang-14 CXX=clang++-14 cmake -S . -B $ASAN -DFIRN_SANITIZE=ON "${flags[@]}"
+  fi
+  run_logged build-asan cmake --build $ASAN -j "$JOBS" --target firn_unit_tests
+  if [ ! -f $FUZZ/CMakeCache.txt ]; then
+    run_logged configure-fuzz env CC=clang-14 CXX=clang++-14 cmake -S . -B $FUZZ -DFIRN_FUZZ=ON "${flags[@]}"
+  fi
+  run_logged build-fuzz cmake --build $FUZZ -j "$JOBS"
 }
 
 case "${1:-}" in
@@ -102,9 +122,9 @@ case "${1:-}" in
     exec node tests/browser/serve.mjs build/web/site / "$PORT"
     ;;
   test)
-    deps; build
+    deps; build; build_hardening
     cd build/native
     exec ctest --output-on-failure --timeout 1200
     ;;
-  *) sed -n '2,8p' "$0"; exit 2 ;;
+  *) sed -n '2,9p' "$0"; exit 2 ;;
 esac
