@@ -12,6 +12,25 @@ namespace {
 using internal::Json;
 using namespace units;
 
+// 17 significant digits of `value`, or of a neighbouring double, whose text `reads_back` to the
+// exact value written: 17 digits name a double exactly, but a unit's scale can cost the last bit
+// on the way back (fuzz and sweep findings: 15 digits, then a 6-decimal percentage, read back a
+// rounding off and broke write → read = the same profile).
+template <class ReadsBack>
+std::string exact_digits(double value, const ReadsBack& reads_back) {
+  char buffer[64];
+  for (int steps = 0; steps <= 4; ++steps) {
+    for (double direction : {INFINITY, -INFINITY}) {
+      double candidate = value;
+      for (int i = 0; i < steps; ++i) candidate = std::nextafter(candidate, direction);
+      std::snprintf(buffer, sizeof buffer, "%.17g", candidate);
+      if (reads_back(std::string(buffer))) return buffer;
+    }
+  }
+  std::snprintf(buffer, sizeof buffer, "%.17g", value);
+  return buffer;
+}
+
 // The shortest text of `q` that reads back to exactly the same value: the candidate unit
 // needing the fewest decimals (≤ 3) wins, earlier candidates on a tie; so "2psi" stays "2psi"
 // and "200bar" stays "200bar". `spellings` are what we write (ASCII, parseable).
@@ -33,12 +52,12 @@ std::string quantity_text(Quantity<D> q,
     }
   }
   if (!best.empty()) return best;
-  // No short exact form: 17 significant digits, which read back as the same double (15 did not:
-  // "83.3333hPa" came back a rounding off, breaking write → read = same profile; sweep finding).
-  auto [unit, spelling] = *candidates.begin();
-  char buffer[64];
-  std::snprintf(buffer, sizeof buffer, "%.17g", q.in(*unit));
-  return std::string(buffer) + spelling;
+  const Unit<D>* unit = candidates.begin()->first;  // plain names: clang 14 cannot capture
+  const std::string spelling = candidates.begin()->second;  // structured bindings
+  return exact_digits(q.in(*unit), [&](const std::string& digits) {
+           Result<Quantity<D>> back = parse(digits + spelling);
+           return back && back.value() == q;
+         }) + spelling;
 }
 
 std::string length_text(Length l, UnitSystem system) {
@@ -81,8 +100,17 @@ std::string duration_text(Duration d) {
                                           parse);
 }
 
+// Read back as the reader does: a number, then percent().
 std::string percent_text(Fraction f) {
-  return format_number(f.in(percent), 6) + "%";
+  auto reads_back = [&](const std::string& digits) {
+    Result<double> back = parse_number(digits, "CO2 limit");
+    return back && percent(back.value()) == f;
+  };
+  for (int decimals = 0; decimals <= 6; ++decimals) {
+    std::string text = format_number(f.in(percent), decimals);
+    if (reads_back(text)) return text + "%";
+  }
+  return exact_digits(f.in(percent), reads_back) + "%";
 }
 
 }  // namespace

@@ -339,3 +339,14 @@ TEST_CASE("Fuzz finding: problem lines are UTF-8 even when the file is not", "[p
   message = problems_of(demo_with("\"count\": 4", "\"count\": " + long_name));
   CHECK(message.find("got \"" + std::string(35, 'x') + "...") != std::string::npos);
 }
+
+TEST_CASE("Fuzz finding: a CO2 limit with many digits reads back equal", "[profile]") {
+  // fuzz_profile: "0.5555…%" was written with 6 decimals ("0.555556%") and read back different.
+  std::string text = demo_with("\"co2_limit\": \"1%\"", "\"co2_limit\": \"0.5555555555555555555%\"");
+  Result<TeamProfile> p = parse_profile(text);
+  REQUIRE(p.ok());
+  Result<TeamProfile> back = parse_profile(serialize_profile(p.value()));
+  REQUIRE(back.ok());
+  CHECK(back->bag.co2_limit == p->bag.co2_limit);
+  CHECK(back.value() == p.value());
+}
