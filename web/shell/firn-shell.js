@@ -146,6 +146,13 @@
     }
   }
 
+  // Emscripten 3.1.6 leaves a failed firn.wasm download as an unhandled rejection ("Failed to
+  // fetch"), never calling onAbort: before the calculator runs, any such failure is a load
+  // problem the user must be told about, not a page stuck on "Firn is starting…".
+  window.addEventListener('unhandledrejection', function (event) {
+    if (!running && !window.firnProblem) showProblem('wasm', String(event.reason));
+  });
+
   function start() {
     if (typeof WebAssembly !== 'object') return showProblem('wasm', 'no WebAssembly in this browser');
     if (!hasWebGL2()) return showProblem('webgl');

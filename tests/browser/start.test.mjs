@@ -1,0 +1,77 @@
+// A start that cannot work says so in words (issue 5: "a clear message, not a blank canvas"):
+// a browser without WebGL 2, and a calculator (firn.wasm) that does not arrive. Each case runs
+// in a fresh profile on a first visit, so no service worker can hide the failure.
+// Env: FIRN_SITE (built site folder), FIRN_SCREENSHOTS (output folder).
+import assert from 'node:assert/strict';
+import {join} from 'node:path';
+import {test} from 'node:test';
+
+import {launch, requiredEnv, screenshotDir} from './browser.mjs';
+import {serveSite} from './serve.mjs';
+
+const site = requiredEnv('FIRN_SITE', 'the built site folder (build/web/site)');
+
+async function problemShown(page) {
+  await page.waitForFunction(() => window.firnProblem !== undefined, null, {timeout: 30000});
+  return page.evaluate(() => {
+    const box = document.getElementById('problem');
+    return {kind: window.firnProblem, hidden: box.hidden, text: box.textContent,
+            canvasHidden: document.getElementById('canvas').hidden,
+            loadingHidden: document.getElementById('loading').hidden};
+  });
+}
+
+async function withPage(setUp, check) {
+  const server = await serveSite(site);
+  const browser = await launch();
+  try {
+    await setUp(browser);
+    await browser.page.goto(server.url);
+    await check(browser.page);
+  } finally {
+    await browser.close();
+    await server.close();
+  }
+}
+
+test('no WebGL 2: the page says the browser cannot draw Firn and what to try', async () => {
+  await withPage(async ({context}) => {
+    // A browser (or a policy) that offers no WebGL 2 context at all.
+    await context.addInitScript(() => {
+      const original = HTMLCanvasElement.prototype.getContext;
+      HTMLCanvasElement.prototype.getContext = function (kind, ...rest) {
+        return kind === 'webgl2' ? null : original.call(this, kind, ...rest);
+      };
+    });
+  }, async (page) => {
+    const shown = await problemShown(page);
+    assert.equal(shown.kind, 'webgl');
+    assert.equal(shown.hidden, false, 'the message is visible');
+    assert.equal(shown.canvasHidden, true, 'no blank canvas left on screen');
+    assert.equal(shown.loadingHidden, true, '"starting" is gone');
+    assert.match(shown.text, /cannot draw Firn/);
+    assert.match(shown.text, /WebGL 2/);
+    assert.match(shown.text, /pocket card|command-line/, 'it names a fallback');
+    const file = join(screenshotDir(), 'web-start-no-webgl2.png');
+    await page.screenshot({path: file});
+    console.log(`screenshot: ${file}`);
+  });
+});
+
+test('the calculator does not arrive: the page says it could not load and what to try',
+     async () => {
+  await withPage(async ({context}) => {
+    // First visit, so the request reaches the network, where it fails.
+    await context.route(/firn\.wasm/, (route) => route.abort('connectionfailed'));
+  }, async (page) => {
+    const shown = await problemShown(page);
+    assert.equal(shown.kind, 'wasm');
+    assert.equal(shown.hidden, false, 'the message is visible');
+    assert.equal(shown.canvasHidden, true, 'no blank canvas left on screen');
+    assert.match(shown.text, /could not load/);
+    assert.match(shown.text, /connect once and reload/);
+    const file = join(screenshotDir(), 'web-start-no-wasm.png');
+    await page.screenshot({path: file});
+    console.log(`screenshot: ${file}`);
+  });
+});
