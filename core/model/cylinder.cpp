@@ -136,9 +136,6 @@ Result<DurationEstimate> duration(const Reading& reading, Pressure reserve_gauge
   if (!in_range(reserve_bar, 0.0, gauge_bar)) {
     return range_error("reserve pressure (gauge)", 0.0, gauge_bar, "bar", reserve_bar);
   }
-  // in_range lets a reserve a rounding above the reading through (typed at the bound): it is
-  // the reading then, or the usable gas came out a hair below zero (fuzz finding).
-  if (reserve_gauge > reading.gauge_pressure) reserve_gauge = reading.gauge_pressure;
   Reading at_reserve = reading;
   at_reserve.gauge_pressure = reserve_gauge;
   Contents reserve = contents_checked(at_reserve);

@@ -69,7 +69,7 @@ Result<Curve> make_curve(const CurveShift& shift) {
 
 Result<Fraction> saturation(Pressure po2, const CurveShift& shift) {
   double p = po2.in(mmhg);
-  if (!in_range(p, 0.0, kPo2MaxMmhg)) return range_error("PO2", 0, kPo2MaxMmhg, "mmHg", p);
+  if (!within(po2, 0.0, kPo2MaxMmhg, mmhg)) return range_error("PO2", 0, kPo2MaxMmhg, "mmHg", p);
   Result<Curve> curve = make_curve(shift);
   if (!curve) return curve.error();
   return curve->saturation(po2);

@@ -125,7 +125,7 @@ Result<Pressure> alveolar_po2(Pressure inspired, Pressure paco2, Fraction fio2,
   double f = fio2.in(fraction);
   if (!in_range(f, 0.15, 1.0)) return range_error("FiO2", 0.15, 1.0, "(fraction)", f);
   double pio2 = inspired.in(mmhg);
-  if (!in_range(pio2, 0.0, kPio2HighMmhg)) return alveolar_pio2_error(pio2);
+  if (!within(inspired, 0.0, kPio2HighMmhg, mmhg)) return alveolar_pio2_error(pio2);
   return positive_alveolar(pio2 - c.value() * (f + (1.0 - f) / r.value()));
 }
 
@@ -136,13 +136,13 @@ Result<Pressure> alveolar_po2_simplified(Pressure inspired, Pressure paco2,
   Result<double> r = checked_quotient(respiratory_quotient);
   if (!r) return r.error();
   double pio2 = inspired.in(mmhg);
-  if (!in_range(pio2, 0.0, kPio2HighMmhg)) return alveolar_pio2_error(pio2);
+  if (!within(inspired, 0.0, kPio2HighMmhg, mmhg)) return alveolar_pio2_error(pio2);
   return positive_alveolar(pio2 - c.value() / r.value());
 }
 
 Result<Paco2Estimate> expected_paco2(Pressure inspired, Exposure exposure) {
   double pio2 = inspired.in(mmhg);
-  if (!in_range(pio2, kPio2LowMmhg, kPio2HighMmhg)) return pio2_error(pio2);
+  if (!within(inspired, kPio2LowMmhg, kPio2HighMmhg, mmhg)) return pio2_error(pio2);
   Paco2Estimate acclimatised = interpolate(kAcclimatisedRows, pio2);
   if (exposure == Exposure::Acclimatised) return acclimatised;
   Paco2Estimate acute = interpolate(kAcuteRows, pio2);
@@ -157,7 +157,7 @@ Result<Paco2Estimate> expected_paco2(Pressure inspired, Exposure exposure) {
 
 Result<PressureBand> expected_aa_gradient(Pressure inspired) {
   double pio2 = inspired.in(mmhg);
-  if (!in_range(pio2, kPio2LowMmhg, kPio2HighMmhg)) return pio2_error(pio2);
+  if (!within(inspired, kPio2LowMmhg, kPio2HighMmhg, mmhg)) return pio2_error(pio2);
   double sea_level = table_pio2_mmhg(0.0);
   double altitude = table_pio2_mmhg(3000.0);
   double t = std::clamp((pio2 - altitude) / (sea_level - altitude), 0.0, 1.0);

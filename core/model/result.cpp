@@ -1,6 +1,5 @@
 #include "model/result.hpp"
 
-#include <algorithm>
 #include <cmath>
 #include <cstdio>
 
@@ -28,10 +27,7 @@ std::string format_number(double value, int decimals) {
 }
 
 bool in_range(double value, double low, double high) {
-  // A bound typed in another unit comes back from the conversion a rounding off ("1000mmHg" is
-  // 1000.0000000000001 mmHg inside): allow a part in 10^12 (sweep finding, docs/hardening.md).
-  double slack = 1e-12 * std::max(std::fabs(low), std::fabs(high));
-  return std::isfinite(value) && value >= low - slack && value <= high + slack;
+  return std::isfinite(value) && value >= low && value <= high;
 }
 
 Error range_error(std::string_view what, double low, double high, std::string_view unit) {

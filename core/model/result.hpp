@@ -75,8 +75,8 @@ Error range_error(std::string_view what, double low, double high, std::string_vi
 // (in size) with 6 significant digits in scientific notation ("2e+101").
 std::string format_number(double value, int decimals = 4);
 
-// True when `value` is finite and within [low, high] (give or take a part in 10^12 of the
-// bounds: unit-conversion rounding of a value typed at a bound).
+// True when `value` is finite and within [low, high]. For a quantity checked in a unit that is not
+// SI, units::within (units.hpp) also takes a value typed exactly at a bound.
 bool in_range(double value, double low, double high);
 
 }  // namespace firn

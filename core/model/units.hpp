@@ -112,6 +112,15 @@ constexpr Duration operator/(Volume volume, VolumeFlow flow) {
   return minutes(volume.in(litres) / flow.in(litres_per_minute));
 }
 
+// True when `q` is finite and within [low, high] of `unit`, compared in SI. Reading a value back
+// in its unit can be a rounding off ("1000mmHg" reads back as 1000.0000000000001 mmHg, and was
+// refused as outside 0…1000 mmHg: sweep finding); the bound converted the same way is not.
+template <class Dimension>
+bool within(Quantity<Dimension> q, double low, double high, const Unit<Dimension>& unit) {
+  constexpr Unit<Dimension> si{1.0, 0.0, "", ""};
+  return in_range(q.in(si), unit(low).in(si), unit(high).in(si));
+}
+
 // [SECTION] Parsing "number + unit" text typed by a user or passed on the command line.
 
 inline constexpr std::array<const Unit<LengthDimension>*, 3> length_units{&metres, &feet,

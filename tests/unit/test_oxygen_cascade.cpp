@@ -317,6 +317,8 @@ TEST_CASE("sweep: just outside every cascade range the message names it",
   CHECK_REFUSED_NAMING(expected_paco2(mmhg(1000.01), Exposure::Acclimatised), "between 35 and 1000 mmHg");
   CHECK_REFUSED_NAMING(expected_aa_gradient(mmhg(34.99)), "between 35 and 1000 mmHg");
   CHECK_REFUSED_NAMING(expected_aa_gradient(mmhg(1000.01)), "between 35 and 1000 mmHg");
+  CHECK(expected_aa_gradient(mmhg(1000)).ok());  // the bound itself (sweep finding, units::within)
+  CHECK(alveolar_po2(mmhg(1000), mmhg(40), air).ok());
   CHECK_REFUSED_NAMING(henderson_hasselbalch_ph(1.99, mmhg(40)), "between 2 and 60 mmol/L");
   CHECK_REFUSED_NAMING(henderson_hasselbalch_ph(60.01, mmhg(40)), "between 2 and 60 mmol/L");
   CHECK_REFUSED_NAMING(henderson_hasselbalch_ph(24, mmhg(4.99)), "between 5 and 80 mmHg");
