@@ -11,7 +11,6 @@ namespace {
 using namespace units;
 
 constexpr double kR = oxygen_eos::gas_constant_j_per_mol_k;
-constexpr double kMinFlowLpm = 0.1;
 
 Result<double> check_reading(const Reading& r) {
   double wc = r.water_capacity.in(litres);
@@ -35,8 +34,8 @@ Result<double> check_reading(const Reading& r) {
 
 Result<double> check_flow(VolumeFlow flow, std::string_view what = "flow") {
   double f = flow.in(litres_per_minute);
-  if (!in_range(f, kMinFlowLpm, max_flow_lpm)) {
-    return range_error(what, kMinFlowLpm, max_flow_lpm, "L/min", f);
+  if (!in_range(f, min_flow_lpm, max_flow_lpm)) {
+    return range_error(what, min_flow_lpm, max_flow_lpm, "L/min", f);
   }
   return f;
 }

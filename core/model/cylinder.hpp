@@ -30,7 +30,7 @@ inline constexpr Temperature reference_temperature = units::celsius(15.0);
 inline constexpr double min_water_capacity_l = 0.1, max_water_capacity_l = 100.0;
 inline constexpr double max_gauge_bar = 350.0;  // highest fill in use is 300 bar
 inline constexpr double min_temperature_c = -40.0, max_temperature_c = 60.0;
-inline constexpr double max_flow_lpm = 30.0;
+inline constexpr double min_flow_lpm = 0.1, max_flow_lpm = 30.0;  // a flowmeter's range
 // Ambient (absolute) pressure the gauge is referenced to: 150…1100 hPa (sea level to above
 // Everest's summit).
 inline constexpr double min_ambient_hpa = 150.0, max_ambient_hpa = 1100.0;

@@ -47,6 +47,13 @@ Result<Stock> resolve(const CylinderSpec& spec, const PlanInput& input) {
   return s;
 }
 
+Error tiny_flow_error(std::size_t phase, double lpm) {
+  return Error{"flow of phase " + std::to_string(phase + 1) + " must be 0 (oxygen off) or " +
+               "between " + format_number(cylinder::min_flow_lpm) + " and " +
+               format_number(cylinder::max_flow_lpm) + " L/min (got " + format_number(lpm, 6) +
+               " L/min)"};
+}
+
 Result<double> check_input(const PlanInput& in) {
   if (in.cylinders.empty() || in.cylinders.size() > kMaxCylinders) {
     return range_error("number of cylinders", 1, kMaxCylinders, "",
@@ -62,6 +69,8 @@ Result<double> check_input(const PlanInput& in) {
       return range_error("flow of phase " + std::to_string(i + 1), 0, cylinder::max_flow_lpm,
                          "L/min", f);
     }
+    // Fuzz finding: 1e-310 L/min made the spare time infinite (and the CLI assert on it).
+    if (f > 0.0 && f < cylinder::min_flow_lpm) return tiny_flow_error(i, f);
     double d = in.phases[i].duration.in(minutes);
     if (i + 1 < in.phases.size() && !in_range(d, 1.0, kMaxEvacuationH * 60.0)) {
       return range_error("duration of phase " + std::to_string(i + 1), 1, kMaxEvacuationH * 60,

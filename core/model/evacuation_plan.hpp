@@ -41,7 +41,7 @@ struct CylinderSpec {
 // beyond, when the spare time is computed), so "15 L/min for 1 h, then 6 L/min" is two phases
 // with the second duration ignored.
 struct FlowPhase {
-  VolumeFlow flow;    // free gas, 0…30 L/min (0 = oxygen off for this phase)
+  VolumeFlow flow;    // free gas: 0 (oxygen off) or 0.1…30 L/min
   Duration duration;  // > 0 (ignored for the last phase)
 };
 

@@ -410,6 +410,10 @@ std::optional<EvacuationPlan> read_evacuation(Reader& r, const Json& value,
                                   Limits::evacuation_high_h * 60.0, "60min");
           if (!phase_time) { ok = false; continue; }
         }
+        if (flow && *flow > litres_per_minute(0) && *flow < litres_per_minute(cylinder::min_flow_lpm)) {
+          r.fail(child(p, "flow"), "is below 0.1 L/min: write 0 (oxygen off) or at least 0.1L/min");
+          flow.reset();
+        }
         if (!flow) { ok = false; continue; }
         plan.phases.push_back({*flow, phase_time});
       }

@@ -230,6 +230,11 @@ TEST_CASE("sweep: just outside every plan range the message names it", "[evacuat
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.phases.resize(21, in.phases[0]); }), "between 1 and 20");
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.phases[0].flow = litres_per_minute(-0.01); }), "between 0 and 30 L/min");
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.phases[1].flow = litres_per_minute(30.01); }), "between 0 and 30 L/min");
+  // Fuzz finding: a flow of 1e-310 L/min at arrival made the spare time infinite.
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.phases[1].flow = litres_per_minute(0.099); }),
+                       "must be 0 (oxygen off) or between 0.1 and 30 L/min");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.phases[1].flow = litres_per_minute(1e-310); }),
+                       "must be 0 (oxygen off) or between 0.1 and 30 L/min");
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.phases[0].duration = minutes(0.99); }), "between 1 and 4320 min");
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.phases[0].duration = minutes(4320.01); }), "between 1 and 4320 min");
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.evacuation = minutes(0.99); }), "between 1 and 4320 min");

@@ -350,3 +350,10 @@ TEST_CASE("Fuzz finding: a CO2 limit with many digits reads back equal", "[profi
   CHECK(back->bag.co2_limit == p->bag.co2_limit);
   CHECK(back.value() == p.value());
 }
+
+TEST_CASE("Fuzz finding: a phase flow above 0 but below a flowmeter's 0.1 L/min", "[profile][bad]") {
+  // The plan made the spare time at 1e-310 L/min infinite; the file is refused instead.
+  CHECK(problems_of(demo_with("\"flow\": \"6L/min\"", "\"flow\": \"1e-310L/min\"")) ==
+        "evacuation.phases[1].flow: is below 0.1 L/min: write 0 (oxygen off) or at least 0.1L/min");
+  CHECK(parse_profile(demo_with("\"flow\": \"6L/min\"", "\"flow\": \"0L/min\"")).ok());
+}
