@@ -18,7 +18,7 @@ set +e
   "$work/corpus" "$here/corpus/$target" >"$work/log" 2>&1
 status=$?
 set -e
-grep -aE '^stat::|^#[0-9]+ +DONE' "$work/log" || true
+grep -aE '^stat::|^#[0-9]+[[:space:]]+DONE' "$work/log" || true
 if [ $status -ne 0 ]; then
   tail -n 20 "$work/log"
   for crash in "$work"/crash-* "$work"/leak-* "$work"/timeout-* "$work"/oom-*; do
