@@ -2,6 +2,8 @@
 
 #include <cmath>
 #include <cstdio>
+#include <exception>
+#include <string>
 #include <iostream>
 
 namespace firn::cli {
@@ -100,6 +102,24 @@ int fail(bool json, const std::string& message) {
   return 2;
 }
 
+// CLI::Range lets NaN through (every comparison with it is false): the app's own options are
+// checked here, finite and in range, with the unit named like every other message.
+CLI::Validator finite_between(double low, double high, const std::string& unit) {
+  return CLI::Validator(
+      [=](std::string& text) -> std::string {
+        double value = 0.0;
+        try {
+          std::size_t used = 0;
+          value = std::stod(text, &used);
+          if (used != text.size()) value = std::nan("");
+        } catch (const std::exception&) {
+          value = std::nan("");
+        }
+        if (in_range(value, low, high)) return {};
+        return range_error("value", low, high, unit).message;
+      },
+      "", "finite_between");
+}
 }  // namespace
 
 int run(int argc, char** argv, AppOptions& app_options) {
@@ -111,12 +131,17 @@ int run(int argc, char** argv, AppOptions& app_options) {
                   "App: render a few frames, write this PNG and exit");
   root.add_option("--screen", app_options.screen, "App: screen to open");
   root.add_option("--theme", app_options.theme, "App: day, night or projector");
-  root.add_option("--width", app_options.width, "App: window width (logical pixels)");
-  root.add_option("--height", app_options.height, "App: window height (logical pixels)");
-  root.add_option("--frames", app_options.frames, "App: frames to draw before --screenshot");
-  root.add_option("--pixel-ratio", app_options.pixel_ratio, "App: override the display scale");
+  root.add_option("--width", app_options.width, "App: window width (logical pixels)")
+      ->check(finite_between(200, 16384, "px"));
+  root.add_option("--height", app_options.height, "App: window height (logical pixels)")
+      ->check(finite_between(200, 16384, "px"));
+  root.add_option("--frames", app_options.frames, "App: frames to draw before --screenshot")
+      ->check(finite_between(1, 1000, "frames"));
+  root.add_option("--pixel-ratio", app_options.pixel_ratio, "App: override the display scale")
+      ->check(finite_between(0.5, 8, ""));
   root.add_option("--idle-report", app_options.idle_seconds,
-                  "App: wait this many seconds without input, print frames drawn, exit");
+                  "App: wait this many seconds without input, print frames drawn, exit")
+      ->check(finite_between(0.1, 600, "s"));
   root.add_option("--test-items", app_options.test_items_path,
                   "App: write the labelled item rectangles of the last frame to this file");
 

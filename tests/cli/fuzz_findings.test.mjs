@@ -27,3 +27,20 @@ test('--json taken as the value of an option still gets a JSON error', () => {
   assert.equal(r.code, 2);
   assert.match(JSON.parse(r.stdout).error, /cannot read profile '--json'/);
 });
+
+test('the app options refuse NaN, infinity and out-of-range sizes with the range and unit', () => {
+  // Was: --pixel-ratio nan or --width 1e9 reached the native window code unchecked.
+  const cases = [
+    [['--pixel-ratio', 'nan'], /--pixel-ratio: value must be between 0\.5 and 8/],
+    [['--pixel-ratio', 'inf'], /--pixel-ratio: value must be between 0\.5 and 8/],
+    [['--width', '1e9'], /--width: value must be between 200 and 16384 px/],
+    [['--height', '10'], /--height: value must be between 200 and 16384 px/],
+    [['--frames', '0'], /--frames: value must be between 1 and 1000 frames/],
+    [['--idle-report', '-1'], /--idle-report: value must be between 0\.1 and 600 s/]
+  ];
+  for (const [args, message] of cases) {
+    const { code, stderr } = runFirn(['--screenshot', '/nonexistent/never-written.png', ...args]);
+    assert.equal(code, 2, `${args.join(' ')}: ${stderr}`);
+    assert.match(stderr, message);
+  }
+});
