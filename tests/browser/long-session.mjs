@@ -86,6 +86,16 @@ test(`long session: ${STEPS} random interactions, no error, heap level`, async (
     };
     const tapLabel = async (label) => tapFound(await findOnScreen(label, 0));
     const goTo = async (screen) => { await tapLabel(screen); };
+    // A tapped option shows "selected" a frame or two after the frames `settle` waits for.
+    const selectedSoon = async (label) => {
+      try {
+        await page.waitForFunction((wanted) => (window.firnTestItems ?? [])
+          .find((i) => i.label === wanted)?.text === 'selected', label, {timeout: 2000});
+        return true;
+      } catch {
+        return false;
+      }
+    };
 
     // The state both heap readings are taken in: Day theme, the Here screen, settled. The
     // font atlas lives on the heap and its size follows the theme, so only like is compared
@@ -103,13 +113,19 @@ test(`long session: ${STEPS} random interactions, no error, heap level`, async (
           await settle(before);
         }
         await goTo('Settings');
+        await selectedSoon('Settings');
         if (!(await selected('Day'))) await tapLabel('Day');
-        day = await selected('Day');
+        day = await selectedSoon('Day');
         await goTo('Here');
-        if (day && (await selected('Here')) && !(await page.evaluate(() => window.firnWantsText))) break;
+        if (day && (await selectedSoon('Here')) && !(await page.evaluate(() => window.firnWantsText))) break;
       }
-      assert.equal(day, true, 'Day theme for the heap reading');
-      assert.equal(await selected('Here'), true, 'back on the Here screen for the heap reading');
+      if (!day || !(await selected('Here'))) {
+        const file = join(screenshotDir(), 'web-long-session-stuck.png');
+        await page.screenshot({path: file});
+        const labels = await page.evaluate(() => (window.firnTestItems ?? []).map((i) => i.label));
+        assert.fail(`could not get back to Day theme + Here screen (seed ${SEED}); ` +
+                    `screenshot ${file}; items: ${labels.join(', ')}`);
+      }
       await pause(300);
       return page.evaluate(() => ({
         inUse: Module._firn_heap_in_use(), memory: Module.HEAP8.length,
