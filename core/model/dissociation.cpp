@@ -53,7 +53,7 @@ Result<Curve> make_curve(const CurveShift& shift) {
     // pH has no unit: say so rather than print an empty one.
     Error e = range_error("pH", 6.8, 7.8, "(no unit)");
     e.message += std::isfinite(shift.ph) ? " (got " + format_number(shift.ph, 3) + ")"
-                                         : " (got a value that is not a number)";
+                                         : std::string(got_not_a_number);
     return e;
   }
   if (!in_range(shift.base_excess_mmol_l, -30.0, 30.0)) {

@@ -43,7 +43,7 @@ Error range_error(std::string_view what, double low, double high, std::string_vi
   if (std::isfinite(got)) {
     error.message += " (got " + format_number(got) + (unit.empty() ? "" : " ") + std::string(unit) + ")";
   } else {
-    error.message += " (got a value that is not a number)";
+    error.message += got_not_a_number;
   }
   return error;
 }

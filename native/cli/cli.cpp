@@ -47,20 +47,43 @@ Error missing(const std::string& option, const std::string& what) {
 
 }  // namespace
 
-Result<units::Length> required_length(const std::optional<std::string>& text,
-                                      const std::string& option, const std::string& what) {
-  if (!text) return missing(option, what + ", e.g. 4000m or 13120ft");
-  Result<units::Length> parsed = units::parse_length(*text, what);
-  if (!parsed) return Error{option + ": " + parsed.error().message};
+namespace {
+
+template <class Q, class Parse>
+Result<Q> required_quantity(const std::optional<std::string>& text, const std::string& option,
+                            const std::string& what, const std::string& examples, Parse parse,
+                            const RangeProbe<Q>& probe) {
+  if (!text) return with_valid_range(missing(option, what + ", e.g. " + examples), probe);
+  Result<Q> parsed = parse(*text, what);
+  if (!parsed) return with_valid_range(Error{option + ": " + parsed.error().message}, probe);
   return parsed;
 }
 
+}  // namespace
+
+Result<units::Length> required_length(const std::optional<std::string>& text,
+                                      const std::string& option, const std::string& what,
+                                      const RangeProbe<units::Length>& probe) {
+  return required_quantity(text, option, what, "4000m or 13120ft", units::parse_length, probe);
+}
+
 Result<units::Pressure> required_pressure(const std::optional<std::string>& text,
-                                          const std::string& option, const std::string& what) {
-  if (!text) return missing(option, what + ", e.g. 616hPa, 462mmHg or 2psi");
-  Result<units::Pressure> parsed = units::parse_pressure(*text, what);
-  if (!parsed) return Error{option + ": " + parsed.error().message};
-  return parsed;
+                                          const std::string& option, const std::string& what,
+                                          const RangeProbe<units::Pressure>& probe) {
+  return required_quantity(text, option, what, "616hPa, 462mmHg or 2psi", units::parse_pressure,
+                           probe);
+}
+
+Result<units::Temperature> required_temperature(const std::optional<std::string>& text,
+                                                const std::string& option, const std::string& what,
+                                                const RangeProbe<units::Temperature>& probe) {
+  return required_quantity(text, option, what, "-5C or 23F", units::parse_temperature, probe);
+}
+
+Result<units::Volume> required_volume(const std::optional<std::string>& text,
+                                      const std::string& option, const std::string& what,
+                                      const RangeProbe<units::Volume>& probe) {
+  return required_quantity(text, option, what, "4.6 or 4.6L", units::parse_volume, probe);
 }
 
 Result<double> required_number(const std::optional<std::string>& text, const std::string& option,
@@ -71,7 +94,10 @@ Result<double> required_number(const std::optional<std::string>& text, const std
                                format_number(high) + (unit.empty() ? "" : " " + unit));
   }
   Result<double> number = units::parse_number(*text, what);
-  if (!number) return Error{option + ": " + number.error().message};
+  if (!number) {
+    return Error{option + ": " + number.error().message + "; " +
+                 range_error(what, low, high, unit).message};
+  }
   if (!in_range(number.value(), low, high)) {
     return Error{option + ": " + range_error(what, low, high, unit, number.value()).message};
   }

@@ -7,6 +7,7 @@
 #include <nlohmann/json.hpp>
 
 #include <functional>
+#include <limits>
 #include <optional>
 #include <string>
 #include <utility>
@@ -47,11 +48,50 @@ void register_bag_commands(CommandTable& table);           // bag
 void register_cylinder_commands(CommandTable& table);      // cylinder
 void register_profile_commands(CommandTable& table);       // plan, card, profile
 
-// Options that hold "number + unit" text are parsed by the core, so messages name the unit.
+// The valid range of an option, asked of the model that judges the value: every model refuses
+// a value that is not a number with its range and unit ("altitude must be between 0 and 9000 m
+// for the West 1996 model"; the [sweep] tests check each one). So a missing or unreadable option
+// names its range from the same check that would judge it, with no second copy of the limits.
+template <class Q>
+using RangeProbe = std::function<std::optional<Error>(Q)>;
+
+template <class Q, class Check>
+RangeProbe<Q> range_of(Check check) {
+  return [check](Q value) -> std::optional<Error> {
+    auto judged = check(value);
+    if (judged) return std::nullopt;
+    return judged.error();
+  };
+}
+
+// `error` + "; " + what the probe's model says to NaN, without its "(got ...)" part.
+template <class Q>
+Error with_valid_range(Error error, const RangeProbe<Q>& probe) {
+  if (!probe) return error;
+  std::optional<Error> refusal = probe(Q() * std::numeric_limits<double>::quiet_NaN());
+  if (!refusal) return error;
+  std::string range = refusal->message;
+  if (size_t got = range.find(got_not_a_number); got != std::string::npos) {
+    range.erase(got, got_not_a_number.size());
+  }
+  return Error{error.message + "; " + range};
+}
+
+// Options that hold "number + unit" text are parsed by the core, so messages name the unit, and
+// with a probe the valid range.
 Result<units::Length> required_length(const std::optional<std::string>& text,
-                                      const std::string& option, const std::string& what);
+                                      const std::string& option, const std::string& what,
+                                      const RangeProbe<units::Length>& probe = {});
 Result<units::Pressure> required_pressure(const std::optional<std::string>& text,
-                                          const std::string& option, const std::string& what);
+                                          const std::string& option, const std::string& what,
+                                          const RangeProbe<units::Pressure>& probe = {});
+Result<units::Temperature> required_temperature(const std::optional<std::string>& text,
+                                                const std::string& option, const std::string& what,
+                                                const RangeProbe<units::Temperature>& probe = {});
+Result<units::Volume> required_volume(const std::optional<std::string>& text,
+                                      const std::string& option, const std::string& what,
+                                      const RangeProbe<units::Volume>& probe = {});
+// A plain number in [low, high]; every message names that range and the unit.
 Result<double> required_number(const std::optional<std::string>& text, const std::string& option,
                                const std::string& what, double low, double high,
                                const std::string& unit);

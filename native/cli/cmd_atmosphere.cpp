@@ -40,21 +40,30 @@ void add_pressure_rows(Report& report, const std::string& prefix, const std::str
 }
 
 Result<Report> run_pressure(const PressureOptions& o) {
-  Result<Length> altitude = required_length(o.altitude, "--altitude", "altitude");
-  if (!altitude) return altitude.error();
   Result<atm::Model> model = model_option(o.model);
   if (!model) return model.error();
+  const Pressure standard_qnh = atmospheres(1);
+  Result<Length> altitude = required_length(
+      o.altitude, "--altitude", "altitude",
+      o.qnh ? range_of<Length>([&](Length a) { return atm::pressure_from_qnh(a, standard_qnh); })
+            : range_of<Length>([&](Length a) { return atm::pressure_at(a, model.value()); }));
+  if (!altitude) return altitude.error();
 
   Report report;
   report.add("altitude_m", altitude->in(metres), 1, "Altitude", "m");
   Result<Pressure> pressure = Error{""};
   std::string method;
   if (o.qnh) {
-    Result<Pressure> qnh = parse_pressure(*o.qnh, "QNH");
-    if (!qnh) return Error{"--qnh: " + qnh.error().message};
+    Result<Pressure> qnh = required_pressure(o.qnh, "--qnh", "QNH", range_of<Pressure>([](Pressure q) {
+      return atm::pressure_from_qnh(metres(0), q);
+    }));
+    if (!qnh) return qnh.error();
     if (o.temperature) {
-      Result<Temperature> t = parse_temperature(*o.temperature, "air temperature");
-      if (!t) return Error{"--temperature: " + t.error().message};
+      Result<Temperature> t = required_temperature(
+          o.temperature, "--temperature", "air temperature", range_of<Temperature>([&](Temperature t) {
+            return atm::pressure_from_qnh(metres(0), standard_qnh, t, atm::TemperatureAt::SeaLevel);
+          }));
+      if (!t) return t.error();
       atm::TemperatureAt where = atm::TemperatureAt::SeaLevel;
       if (o.temperature_at && *o.temperature_at == "station") {
         where = atm::TemperatureAt::Station;
@@ -94,10 +103,12 @@ Result<Report> run_pressure(const PressureOptions& o) {
 }
 
 Result<Report> run_altitude(const AltitudeOptions& o) {
-  Result<Pressure> pressure = required_pressure(o.pressure, "--pressure", "barometric pressure");
-  if (!pressure) return pressure.error();
   Result<atm::Model> model = model_option(o.model);
   if (!model) return model.error();
+  Result<Pressure> pressure = required_pressure(
+      o.pressure, "--pressure", "barometric pressure",
+      range_of<Pressure>([&](Pressure p) { return atm::altitude_at(p, model.value()); }));
+  if (!pressure) return pressure.error();
   Result<Length> altitude = atm::altitude_at(pressure.value(), model.value());
   if (!altitude) return altitude.error();
   Report report;

@@ -18,18 +18,26 @@ struct BagOptions {
 };
 
 Result<Report> run_bag(const BagOptions& o) {
-  Result<Length> altitude = required_length(o.altitude, "--altitude", "altitude");
-  if (!altitude) return altitude.error();
   atm::Model model = atm::default_medical_model;
   if (o.model) {
     Result<atm::Model> m = atm::parse_model(*o.model);
     if (!m) return Error{"--model: " + m.error().message};
     model = m.value();
   }
+  Result<Length> altitude = required_length(o.altitude, "--altitude", "altitude",
+                                            range_of<Length>([&](Length a) {
+                                              return hb::bag_at_altitude(a, model, hb::Settings{});
+                                            }));
+  if (!altitude) return altitude.error();
   hb::Settings s;
   if (o.gauge) {
-    Result<Pressure> g = parse_pressure(*o.gauge, "bag gauge pressure");
-    if (!g) return Error{"--gauge: " + g.error().message};
+    Result<Pressure> g = required_pressure(o.gauge, "--gauge", "bag gauge pressure",
+                                           range_of<Pressure>([&](Pressure gauge) {
+                                             hb::Settings probe;
+                                             probe.gauge = gauge;
+                                             return hb::bag_at_altitude(altitude.value(), model, probe);
+                                           }));
+    if (!g) return g.error();
     s.gauge = g.value();
   }
   if (o.flush) {

@@ -27,6 +27,17 @@ Result<Report> run_cylinder(const CylinderOptions& o) {
                  format_number(cyl::min_water_capacity_l) + " to " +
                  format_number(cyl::max_water_capacity_l) + " L) is required"};
   }
+  atm::Model model = atm::default_medical_model;
+  if (o.model) {
+    Result<atm::Model> m = atm::parse_model(*o.model);
+    if (!m) return Error{"--model: " + m.error().message};
+    model = m.value();
+  }
+  // Each option's range is probed on a full E cylinder at sea level with everything else valid.
+  const cyl::Reading typical{cyl::letter_size_info(cyl::LetterSize::E).water_capacity, bar(137),
+                             celsius(15), atmospheres(1)};
+  const VolumeFlow typical_flow = litres_per_minute(2);
+  auto contents_with = [](cyl::Reading r) { return cyl::contents(r); };
   Volume water;
   if (o.size) {
     Result<cyl::LetterSize> s = cyl::parse_letter_size(*o.size);
@@ -34,36 +45,54 @@ Result<Report> run_cylinder(const CylinderOptions& o) {
     size = s.value();
     water = cyl::letter_size_info(*size).water_capacity;
   } else {
-    Result<Volume> v = parse_volume(*o.water_capacity, "water capacity");
-    if (!v) return Error{"--water-capacity: " + v.error().message};
+    Result<Volume> v = required_volume(o.water_capacity, "--water-capacity", "water capacity",
+                                       range_of<Volume>([&](Volume w) {
+                                         cyl::Reading r = typical;
+                                         r.water_capacity = w;
+                                         return contents_with(r);
+                                       }));
+    if (!v) return v.error();
     water = v.value();
   }
-  Result<Pressure> gauge = required_pressure(o.pressure, "--pressure", "cylinder gauge pressure");
+  Result<Pressure> gauge = required_pressure(o.pressure, "--pressure", "cylinder gauge pressure",
+                                             range_of<Pressure>([&](Pressure g) {
+                                               cyl::Reading r = typical;
+                                               r.gauge_pressure = g;
+                                               return contents_with(r);
+                                             }));
   if (!gauge) return gauge.error();
-  Result<double> flow = required_number(o.flow, "--flow", "flow", 0.1, cyl::max_flow_lpm, "L/min");
+  Result<double> flow = required_number(o.flow, "--flow", "flow", cyl::min_flow_lpm,
+                                        cyl::max_flow_lpm, "L/min");
   if (!flow) return flow.error();
   Pressure reserve = cyl::field_rule_residual_gauge;
   if (o.reserve) {
-    Result<Pressure> r = parse_pressure(*o.reserve, "reserve pressure");
-    if (!r) return Error{"--reserve: " + r.error().message};
+    Result<Pressure> r = required_pressure(o.reserve, "--reserve", "reserve pressure",
+                                           range_of<Pressure>([&](Pressure res) {
+                                             cyl::Reading at = typical;
+                                             at.gauge_pressure = gauge.value();
+                                             return cyl::duration(at, res, typical_flow);
+                                           }));
+    if (!r) return r.error();
     reserve = r.value();
   }
   Temperature temperature = celsius(15);
   if (o.temperature) {
-    Result<Temperature> t = parse_temperature(*o.temperature, "cylinder temperature");
-    if (!t) return Error{"--temperature: " + t.error().message};
+    Result<Temperature> t = required_temperature(o.temperature, "--temperature",
+                                                 "cylinder temperature",
+                                                 range_of<Temperature>([&](Temperature c) {
+                                                   cyl::Reading r = typical;
+                                                   r.temperature = c;
+                                                   return contents_with(r);
+                                                 }));
+    if (!t) return t.error();
     temperature = t.value();
-  }
-  atm::Model model = atm::default_medical_model;
-  if (o.model) {
-    Result<atm::Model> m = atm::parse_model(*o.model);
-    if (!m) return Error{"--model: " + m.error().message};
-    model = m.value();
   }
   Pressure ambient = atmospheres(1);
   std::optional<Length> altitude;
   if (o.altitude) {
-    Result<Length> a = required_length(o.altitude, "--altitude", "altitude");
+    Result<Length> a = required_length(
+        o.altitude, "--altitude", "altitude",
+        range_of<Length>([&](Length at) { return atm::pressure_at(at, model); }));
     if (!a) return a.error();
     Result<Pressure> p = atm::pressure_at(a.value(), model);
     if (!p) return Error{"--altitude: " + p.error().message};

@@ -29,21 +29,23 @@ struct CurveOptions {
 
 // A number that may carry a trailing '%': "0.3" → 0.3, "30%" → 0.3 when `percent_sign_scales`.
 Result<double> number_or_percent(const std::string& text, const std::string& option,
-                                 const std::string& what, bool percent_sign_scales) {
+                                 const std::string& what, bool percent_sign_scales,
+                                 const RangeProbe<double>& probe) {
   std::string body = text;
   bool had_percent = !body.empty() && body.back() == '%';
   if (had_percent) body.pop_back();
   Result<double> n = parse_number(body, what);
-  if (!n) return Error{option + ": " + n.error().message};
+  if (!n) return with_valid_range(Error{option + ": " + n.error().message}, probe);
   return had_percent && percent_sign_scales ? n.value() / 100.0 : n.value();
 }
 
 // An optional plain number; the model checks its range and names it.
 Result<std::optional<double>> optional_number(const std::optional<std::string>& text,
-                                              const std::string& option, const std::string& what) {
+                                              const std::string& option, const std::string& what,
+                                              const RangeProbe<double>& probe) {
   if (!text) return std::optional<double>{};
   Result<double> n = parse_number(*text, what);
-  if (!n) return Error{option + ": " + n.error().message};
+  if (!n) return with_valid_range(Error{option + ": " + n.error().message}, probe);
   return std::optional<double>{n.value()};
 }
 
@@ -51,13 +53,17 @@ Result<Pressure> barometric_pressure(const OxygenationOptions& o, atm::Model mod
                                      Report& report) {
   if (o.altitude && o.pressure) return Error{"give --altitude or --pressure, not both"};
   if (o.pressure) {
-    Result<Pressure> p = required_pressure(o.pressure, "--pressure", "barometric pressure");
+    Result<Pressure> p = required_pressure(
+        o.pressure, "--pressure", "barometric pressure",
+        range_of<Pressure>([](Pressure at) { return atm::pressure_from_station_reading(at); }));
     if (!p) return p.error();
     Result<Pressure> checked = atm::pressure_from_station_reading(p.value());
     if (!checked) return Error{"--pressure: " + checked.error().message};
     return checked;
   }
-  Result<Length> altitude = required_length(o.altitude, "--altitude or --pressure", "altitude");
+  Result<Length> altitude = required_length(
+      o.altitude, o.altitude ? "--altitude" : "--altitude or --pressure", "altitude",
+      range_of<Length>([&](Length at) { return atm::pressure_at(at, model); }));
   if (!altitude) return altitude.error();
   Result<Pressure> p = atm::pressure_at(altitude.value(), model);
   if (!p) return Error{"--altitude: " + p.error().message};
@@ -73,7 +79,13 @@ std::optional<Error> add_oxygen_rows(Report& report, const OxygenationOptions& o
   report.add_text("device", std::string(o2::device_key(device.value())), "Oxygen device");
   if (o.flow) {
     Result<double> lpm = parse_number(*o.flow, "oxygen flow");
-    if (!lpm) return Error{"--flow: " + lpm.error().message};
+    if (!lpm) {
+      return with_valid_range(Error{"--flow: " + lpm.error().message},
+                              range_of<double>([&](double flow) {
+                                return o2::predict(pb, exposure, device.value(),
+                                                   litres_per_minute(flow));
+                              }));
+    }
     Result<o2::Prediction> p =
         o2::predict(pb, exposure, device.value(), litres_per_minute(lpm.value()));
     if (!p) return Error{"--flow: " + p.error().message};
@@ -85,7 +97,10 @@ std::optional<Error> add_oxygen_rows(Report& report, const OxygenationOptions& o
   }
   Fraction target = percent(o2::kDefaultTargetPercent);
   if (o.target) {
-    Result<double> t = number_or_percent(*o.target, "--target", "target SpO2", false);
+    Result<double> t = number_or_percent(
+        *o.target, "--target", "target SpO2", false, range_of<double>([&](double pct) {
+          return o2::lowest_flow_for_target(pb, exposure, device.value(), percent(pct));
+        }));
     if (!t) return t.error();
     target = percent(t.value());
   }
@@ -115,7 +130,10 @@ Result<Report> run_oxygenation(const OxygenationOptions& o) {
   if (!pb) return pb.error();
   Fraction fio2 = cascade::dry_air_fio2();
   if (o.fio2) {
-    Result<double> f = number_or_percent(*o.fio2, "--fio2", "FiO2", true);
+    Result<double> f = number_or_percent(*o.fio2, "--fio2", "FiO2", true,
+                                         range_of<double>([&](double value) {
+                                           return cascade::inspired_po2(pb.value(), fraction(value));
+                                         }));
     if (!f) return f.error();
     if (!in_range(f.value(), 0.15, 1.0)) {
       return Error{"--fio2: " + range_error("FiO2", 0.15, 1.0, "(fraction; or 15% to 100%)",
@@ -153,7 +171,10 @@ Result<Report> run_oxygenation(const OxygenationOptions& o) {
   }
 
   if (o.spo2) {
-    Result<double> s = number_or_percent(*o.spo2, "--spo2", "measured SpO2", false);
+    Result<double> s = number_or_percent(*o.spo2, "--spo2", "measured SpO2", false,
+                                         range_of<double>([&](double pct) {
+                                           return expected_spo2::assess(percent(pct), e->band);
+                                         }));
     if (!s) return s.error();
     Result<expected_spo2::Assessment> a = expected_spo2::assess(percent(s.value()), e->band);
     if (!a) return Error{"--spo2: " + a.error().message};
@@ -179,22 +200,41 @@ Result<Report> run_oxygenation(const OxygenationOptions& o) {
 }
 
 Result<Report> run_curve(const CurveOptions& o) {
-  Result<Pressure> po2 = required_pressure(o.po2, "--po2", "PO2");
+  const dissociation::CurveShift standard;
+  Result<Pressure> po2 = required_pressure(o.po2, "--po2", "PO2", range_of<Pressure>([&](Pressure p) {
+    return dissociation::saturation(p, standard);
+  }));
   if (!po2) return po2.error();
   dissociation::CurveShift shift;
-  Result<std::optional<double>> ph = optional_number(o.ph, "--ph", "pH");
+  auto curve_with = [&](auto set) {
+    return [&, set](auto value) {
+      dissociation::CurveShift probe = standard;
+      set(probe, value);
+      return dissociation::make_curve(probe);
+    };
+  };
+  Result<std::optional<double>> ph = optional_number(
+      o.ph, "--ph", "pH",
+      range_of<double>(curve_with([](dissociation::CurveShift& c, double v) { c.ph = v; })));
   if (!ph) return ph.error();
   if (ph.value()) shift.ph = **ph;
-  Result<std::optional<double>> be = optional_number(o.base_excess, "--base-excess", "base excess");
+  Result<std::optional<double>> be = optional_number(
+      o.base_excess, "--base-excess", "base excess",
+      range_of<double>(curve_with([](dissociation::CurveShift& c, double v) { c.base_excess_mmol_l = v; })));
   if (!be) return be.error();
   if (be.value()) shift.base_excess_mmol_l = **be;
   if (o.temperature) {
-    Result<Temperature> t = parse_temperature(*o.temperature, "body temperature");
-    if (!t) return Error{"--temperature: " + t.error().message};
+    Result<Temperature> t = required_temperature(
+        o.temperature, "--temperature", "body temperature",
+        range_of<Temperature>(
+            curve_with([](dissociation::CurveShift& c, Temperature v) { c.temperature = v; })));
+    if (!t) return t.error();
     shift.temperature = t.value();
   }
   if (o.p50) {
-    Result<Pressure> p50 = required_pressure(o.p50, "--p50", "P50");
+    Result<Pressure> p50 = required_pressure(
+        o.p50, "--p50", "P50",
+        range_of<Pressure>(curve_with([](dissociation::CurveShift& c, Pressure v) { c.p50 = v; })));
     if (!p50) return p50.error();
     shift.p50 = p50.value();
   }
