@@ -86,6 +86,13 @@ Result<units::Volume> required_volume(const std::optional<std::string>& text,
   return required_quantity(text, option, what, "4.6 or 4.6L", units::parse_volume, probe);
 }
 
+Result<atmosphere::Model> model_option(const std::optional<std::string>& text) {
+  if (!text) return atmosphere::default_medical_model;
+  Result<atmosphere::Model> model = atmosphere::parse_model(*text);
+  if (!model) return Error{"--model: " + model.error().message};
+  return model;
+}
+
 Result<double> required_number(const std::optional<std::string>& text, const std::string& option,
                                const std::string& what, double low, double high,
                                const std::string& unit) {

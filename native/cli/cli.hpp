@@ -13,6 +13,7 @@
 #include <utility>
 #include <vector>
 
+#include "model/atmosphere.hpp"
 #include "model/result.hpp"
 #include "model/units.hpp"
 
@@ -95,6 +96,9 @@ Result<units::Volume> required_volume(const std::optional<std::string>& text,
 Result<double> required_number(const std::optional<std::string>& text, const std::string& option,
                                const std::string& what, double low, double high,
                                const std::string& unit);
+
+// --model: West 1996 (the medical default) when not given.
+Result<atmosphere::Model> model_option(const std::optional<std::string>& text);
 
 // Rounds for output: JSON carries the same figures the table shows, never NaN.
 double rounded(double value, int decimals);

@@ -19,13 +19,6 @@ struct AltitudeOptions {
   std::optional<std::string> pressure, model;
 };
 
-Result<atm::Model> model_option(const std::optional<std::string>& text) {
-  if (!text) return atm::default_medical_model;
-  Result<atm::Model> model = atm::parse_model(*text);
-  if (!model) return Error{"--model: " + model.error().message};
-  return model;
-}
-
 void add_caution(Report& report) {
   report.json["caution"] = std::string(cautions::short_line);
   report.notes.emplace_back(cautions::short_line);

@@ -18,12 +18,9 @@ struct BagOptions {
 };
 
 Result<Report> run_bag(const BagOptions& o) {
-  atm::Model model = atm::default_medical_model;
-  if (o.model) {
-    Result<atm::Model> m = atm::parse_model(*o.model);
-    if (!m) return Error{"--model: " + m.error().message};
-    model = m.value();
-  }
+  Result<atm::Model> chosen_model = model_option(o.model);
+  if (!chosen_model) return chosen_model.error();
+  const atm::Model model = chosen_model.value();
   Result<Length> altitude = required_length(o.altitude, "--altitude", "altitude",
                                             range_of<Length>([&](Length a) {
                                               return hb::bag_at_altitude(a, model, hb::Settings{});

@@ -27,12 +27,9 @@ Result<Report> run_cylinder(const CylinderOptions& o) {
                  format_number(cyl::min_water_capacity_l) + " to " +
                  format_number(cyl::max_water_capacity_l) + " L) is required"};
   }
-  atm::Model model = atm::default_medical_model;
-  if (o.model) {
-    Result<atm::Model> m = atm::parse_model(*o.model);
-    if (!m) return Error{"--model: " + m.error().message};
-    model = m.value();
-  }
+  Result<atm::Model> chosen_model = model_option(o.model);
+  if (!chosen_model) return chosen_model.error();
+  const atm::Model model = chosen_model.value();
   // Each option's range is probed on a full E cylinder at sea level with everything else valid.
   const cyl::Reading typical{cyl::letter_size_info(cyl::LetterSize::E).water_capacity, bar(137),
                              celsius(15), atmospheres(1)};

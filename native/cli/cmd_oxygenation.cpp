@@ -119,12 +119,9 @@ std::optional<Error> add_oxygen_rows(Report& report, const OxygenationOptions& o
 }
 
 Result<Report> run_oxygenation(const OxygenationOptions& o) {
-  atm::Model model = atm::default_medical_model;
-  if (o.model) {
-    Result<atm::Model> m = atm::parse_model(*o.model);
-    if (!m) return Error{"--model: " + m.error().message};
-    model = m.value();
-  }
+  Result<atm::Model> chosen_model = model_option(o.model);
+  if (!chosen_model) return chosen_model.error();
+  const atm::Model model = chosen_model.value();
   Report report;
   Result<Pressure> pb = barometric_pressure(o, model, report);
   if (!pb) return pb.error();
