@@ -40,7 +40,22 @@ function generator(seed) {
   };
 }
 
+// A fresh headless Chromium now and then runs this page ~9× slower than usual with an idle CPU
+// (seen once in four clean-clone runs: 500 steps in 568 s instead of 65 s; not reproduced with the
+// same seed afterwards). Such a browser is replaced once, early, by a new one running the same
+// seeded session from the start; the check is only on the first attempt, so it never fails a run.
+const SLOW_CHECK_STEP = 50;
+const SLOW_CHECK_MS = 30000;  // 50 steps take 6–7 s here; a slow browser takes ~55 s
+const SLOW_STEP_MS = 3000;    // steps slower than this are listed at the end
+
 test(`long session: ${STEPS} random interactions, no error, heap level`, async () => {
+  for (let attempt = 1; attempt <= 2; ++attempt) {
+    if ((await runSession(attempt === 1)) !== 'slow browser') return;
+    console.log(`attempt ${attempt}: the browser ran slowly from the start; a fresh one runs the same session`);
+  }
+});
+
+async function runSession(checkSpeed) {
   const random = generator(SEED);
   const pick = (list) => list[Math.floor(random() * list.length)];
   console.log(`seed ${SEED} (replay: FIRN_SESSION_SEED=${SEED})`);
@@ -180,15 +195,24 @@ test(`long session: ${STEPS} random interactions, no error, heap level`, async (
 
     let baseline = null;
     const started = Date.now();
+    const slowSteps = [];
     for (let step = 1; step <= STEPS; ++step) {
       const name = chooseAction();
       counts[name] = (counts[name] ?? 0) + 1;
+      const stepStarted = Date.now();
       try {
         await actions[name]();
       } catch (error) {
         throw new Error(`step ${step} (${name}, seed ${SEED}): ${error.message}`);
       }
       assert.deepEqual(errors, [], `errors by step ${step} (seed ${SEED})`);
+      const stepMs = Date.now() - stepStarted;
+      if (stepMs > SLOW_STEP_MS) slowSteps.push(`${step} ${name} ${stepMs} ms`);
+      if (process.env.FIRN_SESSION_TRACE) console.log(`${step} ${name} ${Date.now() - started}`);
+      if (checkSpeed && step === SLOW_CHECK_STEP && Date.now() - started > SLOW_CHECK_MS) {
+        console.log(`${SLOW_CHECK_STEP} steps took ${Date.now() - started} ms`);
+        return 'slow browser';
+      }
       if (step === BASELINE_STEP) baseline = await canonicalHeap();
       if (step % 500 === 0) {
         console.log(`step ${step}: ${((Date.now() - started) / 1000).toFixed(0)} s`);
@@ -206,6 +230,9 @@ test(`long session: ${STEPS} random interactions, no error, heap level`, async (
     const end = await canonicalHeap();
     const drift = (end.inUse - baseline.inUse) / baseline.inUse;
     console.log(`actions: ${JSON.stringify(counts)}; ${((Date.now() - started) / 1000).toFixed(0)} s`);
+    if (slowSteps.length > 0) {
+      console.log(`steps over ${SLOW_STEP_MS} ms (${slowSteps.length}): ${slowSteps.slice(0, 20).join('; ')}`);
+    }
     console.log(`heap in use after ${BASELINE_STEP}: ${baseline.inUse} B; after ${STEPS}: ` +
                 `${end.inUse} B (${(drift * 100).toFixed(2)} %); wasm memory ${baseline.memory} → ` +
                 `${end.memory} B; JS heap ${baseline.js} → ${end.js} B`);
@@ -218,4 +245,5 @@ test(`long session: ${STEPS} random interactions, no error, heap level`, async (
     await browser.close();
     await server.close();
   }
-});
+  return 'done';
+}
