@@ -71,7 +71,6 @@ async function runSession(checkSpeed) {
     if (message.type() === 'error') errors.push(`console: ${message.text()}`);
   });
   page.on('pageerror', (error) => errors.push(`pageerror: ${error.message}`));
-  const cdp = await context.newCDPSession(page);
 
   try {
     await page.goto(server.url);
@@ -93,9 +92,25 @@ async function runSession(checkSpeed) {
                                      : shown[Math.floor(pickAt * shown.length)];
       return {target, frames: window.firnFramesDrawn || 0};
     }, [label, r, viewport.width, viewport.height, [...LEAVES_THE_PAGE]]);
+    // Touches are made in the page as DOM TouchEvents on the canvas, the events the page shell
+    // turns into ImGui input. Through CDP (Input.dispatchTouchEvent, what touchscreen.tap uses),
+    // a headless Chromium now and then fell into a state where every touch waited 2 s for its
+    // ack with the renderer idle (strace of a stuck run): 2,000 steps then overran the ctest
+    // timeout. Real browser taps are covered by the `browser` layer.
+    const touch = (type, x, y) => page.evaluate(([kind, cx, cy]) => {
+      const canvas = document.getElementById('canvas');
+      const point = new Touch({identifier: 1, target: canvas, clientX: cx, clientY: cy,
+                               screenX: cx, screenY: cy});
+      const down = kind !== 'touchend';
+      canvas.dispatchEvent(new TouchEvent(kind, {
+        bubbles: true, cancelable: true, composed: true, touches: down ? [point] : [],
+        targetTouches: down ? [point] : [], changedTouches: [point]}));
+    }, [type, x, y]);
     const tapFound = async ({target, frames: before}) => {
       if (!target) return false;
-      await page.touchscreen.tap(target.x + target.w / 2, target.y + target.h / 2);
+      const x = target.x + target.w / 2, y = target.y + target.h / 2;
+      await touch('touchstart', x, y);
+      await touch('touchend', x, y);
       await settle(before);
       return true;
     };
@@ -174,13 +189,12 @@ async function runSession(checkSpeed) {
         const y = 200 + random() * 400;
         const dy = (random() - 0.5) * 600;
         const before = await frames();
-        await cdp.send('Input.dispatchTouchEvent', {type: 'touchStart', touchPoints: [{x, y}]});
+        await touch('touchstart', x, y);
         for (let k = 1; k <= 4; ++k) {
           await pause(30);
-          await cdp.send('Input.dispatchTouchEvent',
-                         {type: 'touchMove', touchPoints: [{x, y: y - (dy * k) / 4}]});
+          await touch('touchmove', x, y - (dy * k) / 4);
         }
-        await cdp.send('Input.dispatchTouchEvent', {type: 'touchEnd', touchPoints: []});
+        await touch('touchend', x, y - dy);
         await settle(before);
       }
     };
