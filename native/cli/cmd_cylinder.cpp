@@ -34,7 +34,14 @@ Result<Report> run_cylinder(const CylinderOptions& o) {
   const cyl::Reading typical{cyl::letter_size_info(cyl::LetterSize::E).water_capacity, bar(137),
                              celsius(15), atmospheres(1)};
   const VolumeFlow typical_flow = litres_per_minute(2);
-  auto contents_with = [](cyl::Reading r) { return cyl::contents(r); };
+  // The contents of the typical cylinder with one field set to the probed value.
+  auto contents_with = [&typical](auto set) {
+    return [&typical, set](auto value) {
+      cyl::Reading r = typical;
+      set(r, value);
+      return cyl::contents(r);
+    };
+  };
   Volume water;
   if (o.size) {
     Result<cyl::LetterSize> s = cyl::parse_letter_size(*o.size);
@@ -43,20 +50,14 @@ Result<Report> run_cylinder(const CylinderOptions& o) {
     water = cyl::letter_size_info(*size).water_capacity;
   } else {
     Result<Volume> v = required_volume(o.water_capacity, "--water-capacity", "water capacity",
-                                       range_of<Volume>([&](Volume w) {
-                                         cyl::Reading r = typical;
-                                         r.water_capacity = w;
-                                         return contents_with(r);
-                                       }));
+                                       range_of<Volume>(contents_with(
+                                           [](cyl::Reading& r, Volume w) { r.water_capacity = w; })));
     if (!v) return v.error();
     water = v.value();
   }
   Result<Pressure> gauge = required_pressure(o.pressure, "--pressure", "cylinder gauge pressure",
-                                             range_of<Pressure>([&](Pressure g) {
-                                               cyl::Reading r = typical;
-                                               r.gauge_pressure = g;
-                                               return contents_with(r);
-                                             }));
+                                             range_of<Pressure>(contents_with(
+                                                 [](cyl::Reading& r, Pressure g) { r.gauge_pressure = g; })));
   if (!gauge) return gauge.error();
   Result<double> flow = required_number(o.flow, "--flow", "flow", cyl::min_flow_lpm,
                                         cyl::max_flow_lpm, "L/min");
@@ -76,11 +77,8 @@ Result<Report> run_cylinder(const CylinderOptions& o) {
   if (o.temperature) {
     Result<Temperature> t = required_temperature(o.temperature, "--temperature",
                                                  "cylinder temperature",
-                                                 range_of<Temperature>([&](Temperature c) {
-                                                   cyl::Reading r = typical;
-                                                   r.temperature = c;
-                                                   return contents_with(r);
-                                                 }));
+                                                 range_of<Temperature>(contents_with(
+                                                     [](cyl::Reading& r, Temperature c) { r.temperature = c; })));
     if (!t) return t.error();
     temperature = t.value();
   }
