@@ -21,7 +21,7 @@ constexpr double kTropopauseTemperature = 216.65;  // K
 constexpr double kExponent = kG0 * kMolarMass / (kGasConstant * kLapse);
 
 // West 1996: PB[Torr] = exp(a − b·h − c·h²), h in km.
-constexpr double kWestA = 6.63328;
+constexpr double kWestA = 6.63268;  // sea level 759.5 Torr
 constexpr double kWestB = 0.1112;
 constexpr double kWestC = 0.00149;
 

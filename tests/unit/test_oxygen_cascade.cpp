@@ -20,7 +20,7 @@ Cascade run(double pb_mmhg, Exposure exposure, std::optional<double> paco2 = std
   REQUIRE(c.ok());
   return c.value();
 }
-double west_pb_mmhg(double km) { return std::exp(6.63328 - 0.1112 * km - 0.00149 * km * km); }
+double west_pb_mmhg(double km) { return std::exp(6.63268 - 0.1112 * km - 0.00149 * km * km); }
 }  // namespace
 
 TEST_CASE("inspired PO2", "[cascade]") {
