@@ -7,6 +7,7 @@
 
 #include "model/cautions.hpp"
 #include "ui/test_hook.hpp"
+#include "ui/theme.hpp"
 
 namespace firn::ui {
 
@@ -141,6 +142,62 @@ void message_line(const AppState&, const std::string& text, bool warning) {
   ImGui::PopTextWrapPos();
   if (warning) ImGui::PopStyleColor();
   test_hook::item_text(warning ? "Warning" : "Message", text);
+}
+
+const char* tone_word(Tone tone) {
+  switch (tone) {
+    case Tone::Good: return "OK";
+    case Tone::Caution: return "CHECK";
+    case Tone::Danger: return "DANGER";
+    case Tone::Neutral: return "NO VERDICT";
+  }
+  return "";
+}
+
+namespace {
+ImVec4 tone_colour(const Palette& p, Tone tone) {
+  switch (tone) {
+    case Tone::Good: return p.accent;
+    case Tone::Caution: return p.warning;
+    case Tone::Danger: return p.danger;
+    case Tone::Neutral: return p.text_dim;
+  }
+  return p.text;
+}
+
+// The tone's shape, one em square, drawn where the cursor is.
+void tone_shape(Tone tone, ImU32 colour) {
+  const float size = em();
+  const ImVec2 p = ImGui::GetCursorScreenPos();
+  const ImVec2 c(p.x + size * 0.5f, p.y + size * 0.5f);
+  ImDrawList* draw = ImGui::GetWindowDrawList();
+  switch (tone) {
+    case Tone::Good: draw->AddCircleFilled(c, size * 0.42f, colour); break;
+    case Tone::Caution:
+      draw->AddTriangleFilled(ImVec2(c.x, p.y + size * 0.08f), ImVec2(p.x + size * 0.95f, p.y + size * 0.92f),
+                              ImVec2(p.x + size * 0.05f, p.y + size * 0.92f), colour);
+      break;
+    case Tone::Danger:
+      draw->AddRectFilled(ImVec2(p.x + size * 0.1f, p.y + size * 0.1f),
+                          ImVec2(p.x + size * 0.9f, p.y + size * 0.9f), colour);
+      break;
+    case Tone::Neutral: draw->AddCircle(c, size * 0.4f, colour, 0, size * 0.12f); break;
+  }
+  ImGui::Dummy(ImVec2(size, size));
+}
+}  // namespace
+
+void verdict_line(const AppState& state, Tone tone, const std::string& text) {
+  const ImVec4 colour = tone_colour(palette(state.settings.theme), tone);
+  tone_shape(tone, ImGui::GetColorU32(colour));
+  ImGui::SameLine();
+  ImGui::PushStyleColor(ImGuiCol_Text, colour);
+  ImGui::PushTextWrapPos(0.0f);
+  const std::string shown = std::string(tone_word(tone)) + ": " + text;
+  ImGui::TextUnformatted(shown.c_str());
+  ImGui::PopTextWrapPos();
+  ImGui::PopStyleColor();
+  test_hook::item_text("Verdict", shown);
 }
 
 void bullet_line(std::string_view text) {

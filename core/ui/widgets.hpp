@@ -44,6 +44,20 @@ bool toggle_row(const AppState& state, const char* id, const char* off_label, co
 bool int_stepper(const AppState& state, const char* label, const char* id, int* value, int low,
                  int high);
 
+// How a verdict reads at a glance. Each tone has its own word, shape and colour so that "short"
+// never looks like "enough", in every theme and without colour.
+enum class Tone {
+  Good,     // enough / within / bag safe: a filled circle
+  Caution,  // below / extrapolated / check: a triangle
+  Danger,   // short / flush more / well below: a filled square
+  Neutral,  // no verdict (nothing entered, extrapolated band): an outlined circle
+};
+// The word a tone leads with ("OK", "CHECK", "DANGER", "NO VERDICT"), shown before the text.
+const char* tone_word(Tone tone);
+// A verdict line in large type: shape, word, then `text` wrapped. Recorded as "Verdict" with
+// "<word>: <text>" so tests read the tone back.
+void verdict_line(const AppState& state, Tone tone, const std::string& text);
+
 // Wrapped text; `warning` colours it as a caution.
 void message_line(const AppState& state, const std::string& text, bool warning = false);
 // A bullet with wrapped text (ImGui::BulletText runs off a phone's edge). Not recorded.
