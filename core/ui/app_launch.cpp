@@ -14,6 +14,7 @@ constexpr std::array<std::pair<std::string_view, Screen>, kScreenCount> kScreens
     {"bag", Screen::Bag},
     {"oxygen", Screen::Oxygen},
     {"ams", Screen::Ams},
+    {"record", Screen::Record},
     {"teaching", Screen::Teaching},
     {"team", Screen::Team},
     {"settings", Screen::Settings},

@@ -4,12 +4,14 @@
 #pragma once
 
 #include <map>
+#include <optional>
 #include <string>
 #include <vector>
 
 #include "model/atmosphere.hpp"
 #include "model/team_profile.hpp"
 #include "model/units.hpp"
+#include "ui/record_store.hpp"
 
 struct ImFont;
 
@@ -18,8 +20,8 @@ namespace firn::ui {
 enum class Theme { Day, Night, Projection };
 
 // Order = order in the navigation bar.
-enum class Screen { Here, Casualty, Curve, Bag, Oxygen, Ams, Teaching, Team, Settings };
-inline constexpr int kScreenCount = 9;
+enum class Screen { Here, Casualty, Curve, Bag, Oxygen, Ams, Record, Teaching, Team, Settings };
+inline constexpr int kScreenCount = 10;
 
 // Units a user reads and types in. Values are stored as typed quantities (SI inside), so
 // switching units never rounds an entered value away.
@@ -88,6 +90,20 @@ struct TeachingInputs {
   units::Length altitude = units::metres(4000.0);
 };
 
+// The Record screen: the incident's casualty record (ui/record_store.hpp keeps it) and the
+// observation being written. Findings start empty: a value nobody entered is never saved.
+struct RecordInputs {
+  RecordStore store;
+  bool loaded = false;
+  std::optional<double> spo2_pct, heart_rate, breathing_rate;
+  int on = -1;  // 0 air, 1 cannula, 2 mask, 3 non-rebreather; -1: take the last setting
+  units::VolumeFlow flow = units::litres_per_minute(2.0);
+  int avpu = -1;          // -1 not assessed
+  int minutes_ago = 0;    // an entry written up late
+  units::Duration check_interval = units::minutes(15.0);  // next SpO2 check
+  bool confirm_new = false, confirm_delete = false;
+};
+
 // The in-app numeric keypad (the canvas cannot summon a phone keyboard). One field at a time.
 struct Keypad {
   bool open = false;
@@ -122,6 +138,7 @@ struct AppState {
   AmsInputs ams;
   TeachingInputs teaching;
   TeamState team;
+  RecordInputs record;
   Screen screen = Screen::Here;
   Keypad keypad;
   std::map<std::string, std::string> field_errors;  // field id → message naming range and unit
@@ -137,6 +154,10 @@ struct AppState {
   float built_font_scale = 0.0f;
   ImFont* font_large = nullptr;  // results; owned by ImGui's font atlas
   bool wide_layout = false;      // two columns this frame
+
+  // Set by a screen that shows a running timer: wake the idle app after this many seconds
+  // (0: sleep until input). Cleared at the start of every frame.
+  double wake_after_seconds = 0.0;
 
   int frames_drawn = 0;  // counted by draw_frame; tests read it to check idle frames
 };

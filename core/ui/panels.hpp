@@ -12,6 +12,7 @@ void draw_curve_panel(AppState& state, Platform& platform);     // dissociation 
 void draw_bag_panel(AppState& state, Platform& platform);       // hyperbaric bag
 void draw_oxygen_panel(AppState& state, Platform& platform);    // cylinder, evacuation plan
 void draw_ams_panel(AppState& state, Platform& platform);       // Lake Louise 2018
+void draw_record_panel(AppState& state, Platform& platform);    // casualty record, handover
 void draw_teaching_panel(AppState& state, Platform& platform);  // cascade sweep
 void draw_team_panel(AppState& state, Platform& platform);      // team profile, pocket card
 void draw_settings_panel(AppState& state, Platform& platform);  // units, theme
