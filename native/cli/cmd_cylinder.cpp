@@ -181,7 +181,7 @@ Result<Report> run_cylinder(const CylinderOptions& o) {
   report.add("contents_l", d->contents.free_gas.in(litres), 0, "Contents (free gas)", "L");
   report.add("ideal_contents_l", d->contents.ideal_free_gas.in(litres), 0,
              "Contents, ideal-gas rule", "L");
-  report.add("cold_gain_pct", d->contents.cold_gain * 100.0, 1, "Gain from the cold vs 15 °C", "%");
+  report.add("cold_gain_pct", d->contents.cold_gain * 100.0, 1, "Extra gas the cold temperature claims", "%");
   report.json["extrapolated"] = d->contents.extrapolated;
   report.add("reserve_bar", reserve.in(bar), 1, "Reserve pressure (gauge)", "bar");
   report.add("reserve_psi", reserve.in(psi), 0, "Reserve pressure", "psi (gauge)");
