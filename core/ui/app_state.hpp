@@ -67,10 +67,13 @@ struct BagInputs {
 };
 
 struct OxygenInputs {
+  int cylinder_source = 0;  // 0 one of the team's types, 1 a US letter size, 2 a water capacity
+  int team_type = 0;        // index into the team profile's cylinders
+  int letter_size = 1;      // D, E, M, H
   units::Volume water_capacity = units::litres(2.0);
   units::Pressure gauge = units::bar(200.0);
   units::Temperature cylinder_temperature = units::celsius(0.0);
-  units::Pressure reserve = units::bar(20.0);
+  units::Pressure reserve = cylinder::default_reserve_gauge;  // the one default (model)
   units::VolumeFlow flow = units::litres_per_minute(4.0);
   int cylinder_count = 3;
   units::Duration evacuation = units::hours(4.0);
