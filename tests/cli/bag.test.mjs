@@ -78,7 +78,7 @@ test('bad input: exit 2, range and unit on stderr, {"error"} with --json', () =>
   assert.match(high.stderr, /between 0 and 9000 m/);
   const missing = firn('bag');
   assert.equal(missing.code, 2);
-  assert.match(missing.stderr, /--altitude is required/);
+  assert.match(missing.stderr, /--altitude or --pressure is required/);
   const nan = firn('bag', '--altitude', '4000m', '--flush', 'nan');
   assert.equal(nan.code, 2);
 });
@@ -103,7 +103,7 @@ test('4000 m, flush 5 L/min: O2 14.1 %, CO2 5.8 %, PiO2 75 vs 90 mmHg → flush 
   assert.equal(r.descent_equivalent_m, null);
   assert.equal(r.limited_by, 'oxygen');
   assert.ok(r.oxygen_equivalent_altitude_m > 4000);
-  assert.ok(Math.abs(r.oxygen_equivalent_altitude_m - oxygenAltitude(r.pio2_mmhg)) <= 2);
+  assert.ok(Math.abs(r.oxygen_equivalent_altitude_m - oxygenAltitude(r.pio2_mmhg)) <= 5);
   assert.equal(r.equivalent_altitude_m, r.oxygen_equivalent_altitude_m);
   assert.equal(r.verdict_text, 'Flush more: at least 30 L/min');
   assert.match(r.reason, /CO2 inside 5\.8 %.*PiO2 75 vs 90 mmHg/);
@@ -119,7 +119,8 @@ test('52 L/min (gas-balance study): ok; the oxygen inside limits the descent', (
   assert.equal(r.verdict, 'ok');
   const pIn = westMmhg(4000) + 2 * 6894.757293168 / (101325 / 760);
   assert.ok(Math.abs(r.pressure_equivalent_altitude_m - westAltitude(pIn)) <= 1);
-  assert.ok(Math.abs(r.oxygen_equivalent_altitude_m - oxygenAltitude(r.pio2_mmhg)) <= 2);
+  // pio2_mmhg is printed to 0.1 mmHg: about 3 m of altitude near 2600 m.
+  assert.ok(Math.abs(r.oxygen_equivalent_altitude_m - oxygenAltitude(r.pio2_mmhg)) <= 5);
   assert.ok(r.oxygen_equivalent_altitude_m > r.pressure_equivalent_altitude_m);
   assert.equal(r.limited_by, 'oxygen');
   assert.equal(r.equivalent_altitude_m, r.oxygen_equivalent_altitude_m);
@@ -165,5 +166,5 @@ test('--pressure: a measured ambient pressure gives the same bag as its West alt
   assert.match(both.stderr, /--altitude or --pressure, not both/);
   const low = firn('bag', '--pressure', '300hPa');
   assert.equal(low.code, 2);
-  assert.match(low.stderr, /between 330\.1 and 1013\.2 hPa/);
+  assert.match(low.stderr, /between 330 and 1012\.6 hPa/);
 });
