@@ -46,8 +46,12 @@ Result<double> check(const Settings& s) {
     return range_error("CO2 limit", min_co2_limit_pct, max_co2_limit_pct, "%", limit);
   }
   double vco2 = s.vco2_stpd.in(litres_per_minute), vo2 = s.vo2_stpd.in(litres_per_minute);
-  if (!in_range(vco2, 0.05, 2.0)) return range_error("VCO2", 0.05, 2, "L/min", vco2);
-  if (!in_range(vo2, 0.05, 2.5)) return range_error("VO2", 0.05, 2.5, "L/min", vo2);
+  if (!in_range(vco2, min_vco2_lpm, max_vco2_lpm)) {
+    return range_error("VCO2", min_vco2_lpm, max_vco2_lpm, "L/min", vco2);
+  }
+  if (!in_range(vo2, min_vo2_lpm, max_vo2_lpm)) {
+    return range_error("VO2", min_vo2_lpm, max_vo2_lpm, "L/min", vo2);
+  }
   if (s.stroke_volume) {
     double sv = s.stroke_volume->in(litres);
     if (!in_range(sv, min_stroke_l, max_stroke_l)) {
@@ -61,6 +65,25 @@ Pressure pio2(double o2_fraction, Pressure total) {
   return mmhg(o2_fraction * (total.in(mmhg) - kWaterVapourMmhg));
 }
 
+// The altitude whose dry ambient air gives `inspired`: PB = PiO2/0.2095 + 47 mmHg, inverted by
+// the same model. Absent outside the model's pressures (below sea level, above its top).
+std::optional<Length> oxygen_equivalent(Pressure inspired, atmosphere::Model model) {
+  Result<Length> h = atmosphere::altitude_at(
+      mmhg(inspired.in(mmhg) / air_o2_fraction + kWaterVapourMmhg), model);
+  if (!h) return std::nullopt;
+  return h.value();
+}
+
+// Moles of fresh air per minute that bring O2 inside up to `needed` (a dry fraction):
+//   (n·0.2095 + n_feed − n_o2) / (n + n_feed − n_o2 + n_co2) ≥ needed.
+// Absent when no air flush can (needed at least the air's own 20.95 % and the feed too small).
+std::optional<double> air_for_o2(double needed, double n_feed, double n_o2, double n_co2) {
+  double shortfall = needed * (n_feed - n_o2 + n_co2) - (n_feed - n_o2);
+  if (shortfall <= 0.0) return 0.0;
+  if (air_o2_fraction - needed <= 0.0) return std::nullopt;
+  return shortfall / (air_o2_fraction - needed);
+}
+
 // Strokes per minute for a flush at chamber pressure: each stroke moves `stroke` of ambient air,
 // which occupies stroke·PB/P_inside inside (same temperature).
 std::optional<double> strokes(const Settings& s, VolumeFlow flush_chamber, Pressure ambient,
@@ -68,6 +91,33 @@ std::optional<double> strokes(const Settings& s, VolumeFlow flush_chamber, Press
   if (!s.stroke_volume) return std::nullopt;
   double per_stroke_inside_l = s.stroke_volume->in(litres) * (ambient / inside);
   return flush_chamber.in(litres_per_minute) / per_stroke_inside_l;
+}
+
+// The one place the verdict, the limiting equivalent altitude and the fire risk are decided.
+void decide(BagResult& r, const Settings& s) {
+  constexpr double tolerance = 1e-9;  // a flush set exactly to the requirement is enough
+  r.co2_limit = s.co2_limit;
+  if (r.gas) {
+    r.oxygen_equivalent_altitude = oxygen_equivalent(r.pio2_inside, r.model);
+    r.co2_above_limit = r.gas->co2.in(fraction) > s.co2_limit.in(fraction) * (1 + tolerance);
+    r.oxygen_below_outside = r.pio2_inside.in(mmhg) < r.pio2_ambient.in(mmhg) * (1 - tolerance);
+  }
+  r.verdict = r.gas && !r.co2_above_limit && !r.oxygen_below_outside ? Verdict::Ok : Verdict::FlushMore;
+
+  const bool better_inside = r.pio2_inside.in(mmhg) > r.pio2_ambient.in(mmhg) * (1 + tolerance);
+  const std::optional<Length>& by_pressure = r.pressure_equivalent_altitude;
+  const std::optional<Length>& by_oxygen = r.oxygen_equivalent_altitude;
+  // Absent figures are below sea level when the inside is better (a lower altitude than any).
+  bool oxygen_higher = by_oxygen && (!by_pressure || *by_oxygen > *by_pressure);
+  if (!better_inside && r.gas) oxygen_higher = true;  // an absent figure is then above the top
+  r.limited_by = oxygen_higher ? Limit::Oxygen : Limit::Pressure;
+  r.equivalent_altitude = oxygen_higher ? by_oxygen : by_pressure;
+  if (better_inside && r.equivalent_altitude) {
+    r.descent_equivalent = r.ambient_altitude - *r.equivalent_altitude;
+  }
+
+  r.fire_risk = r.gas ? r.inside_o2.in(fraction) > fire_risk_o2_fraction
+                      : s.oxygen_feed.in(litres_per_minute) > 0.0;
 }
 
 Result<BagResult> compute(Pressure ambient, Length ambient_altitude, atmosphere::Model model,
@@ -79,12 +129,11 @@ Result<BagResult> compute(Pressure ambient, Length ambient_altitude, atmosphere:
   r.inside_pressure = ambient + s.gauge;
   Result<Length> equivalent = atmosphere::altitude_at(r.inside_pressure, model);
   if (equivalent) {
-    r.equivalent_altitude = equivalent.value();
-    r.descent_equivalent = ambient_altitude - equivalent.value();
+    r.pressure_equivalent_altitude = equivalent.value();
   } else {
     r.notes.push_back("The pressure inside is above sea-level pressure in the " +
                       std::string(atmosphere::model_name(model)) +
-                      " model: the equivalent altitude is below sea level (not shown).");
+                      " model: the pressure-equivalent altitude is below sea level (not shown).");
   }
 
   // Molar balance at steady state, per minute (dry gas): in = air flush + oxygen feed;
@@ -102,6 +151,15 @@ Result<BagResult> compute(Pressure ambient, Length ambient_altitude, atmosphere:
   n_air_min = std::max(0.0, n_air_min);
   r.min_flush = litres_per_minute(n_air_min * kR * t_ch / p_in * 1000.0);
   r.min_flush_strokes_per_minute = strokes(s, r.min_flush, ambient, r.inside_pressure);
+  // The flush for the verdict ok also keeps PiO2 inside at least PiO2 outside.
+  r.pio2_ambient = pio2(air_o2_fraction, ambient);
+  double o2_needed = r.pio2_ambient.in(mmhg) / (r.inside_pressure.in(mmhg) - kWaterVapourMmhg);
+  if (std::optional<double> n_air_o2 = air_for_o2(o2_needed, n_feed, n_o2, n_co2)) {
+    double n_air = std::max(n_air_min, *n_air_o2);
+    VolumeFlow required = litres_per_minute(n_air * kR * t_ch / p_in * 1000.0);
+    r.required_flush = std::max(required, litres_per_minute(min_flush_lpm));
+    r.required_flush_strokes_per_minute = strokes(s, *r.required_flush, ambient, r.inside_pressure);
+  }
 
   r.inside_o2 = fraction(air_o2_fraction);
   if (s.flush) {
@@ -109,8 +167,10 @@ Result<BagResult> compute(Pressure ambient, Length ambient_altitude, atmosphere:
     double n_out = n_air + n_feed - n_o2 + n_co2;
     double o2_out = n_air * air_o2_fraction + n_feed - n_o2;
     if (o2_out <= 0.0 || n_out <= 0.0) {
-      return Error{"flush flow is too low for the casualty's oxygen uptake: use at least " +
-                   format_number(r.min_flush.in(litres_per_minute), 0) + " L/min"};
+      // No steady state: the casualty takes up more oxygen than the flush brings.
+      VolumeFlow needed = r.required_flush ? *r.required_flush : r.min_flush;
+      return Error{"flush flow is too low for the casualty's oxygen uptake: flush more, at least " +
+                   format_number(std::ceil(needed.in(litres_per_minute)), 0) + " L/min"};
     }
     GasBalance g;
     g.co2 = fraction((n_air * air_co2_fraction + n_co2) / n_out);
@@ -122,14 +182,17 @@ Result<BagResult> compute(Pressure ambient, Length ambient_altitude, atmosphere:
     r.inside_o2 = g.o2;
     r.gas = g;
     r.notes.push_back("Steady state after about 3 time constants (95 %); CO2 and O2 are dry-gas "
-                      "fractions; VCO2 0.20 and VO2 0.25 L/min STPD are resting values from "
-                      "memory.");
+                      "fractions. VCO2 " + format_number(s.vco2_stpd.in(litres_per_minute), 2) +
+                      " and VO2 " + format_number(s.vo2_stpd.in(litres_per_minute), 2) +
+                      " L/min STPD (resting " + format_number(rest_vco2_lpm, 2) + " and " +
+                      format_number(rest_vo2_lpm, 2) +
+                      ", from memory; shivering or distress several times more).");
   } else if (s.oxygen_feed.in(litres_per_minute) > 0.0) {
     r.notes.push_back("An oxygen feed is only balanced together with a fresh-air flush "
                       "(give the flush).");
   }
-  r.pio2_ambient = pio2(air_o2_fraction, ambient);
   r.pio2_inside = pio2(r.inside_o2.in(fraction), r.inside_pressure);
+  decide(r, s);
   r.notes.push_back("Bag volume " + format_number(s.bag_volume.in(litres), 0) +
                     " L is an assumption unless entered for the device.");
   r.notes.push_back("Sessions are commonly 1-2 h, then reassess (common practice). The bag buys "
@@ -138,6 +201,65 @@ Result<BagResult> compute(Pressure ambient, Length ambient_altitude, atmosphere:
 }
 
 }  // namespace
+
+std::string_view verdict_key(Verdict verdict) {
+  return verdict == Verdict::Ok ? "ok" : "flush_more";
+}
+
+std::string_view limit_key(Limit limit) { return limit == Limit::Oxygen ? "oxygen" : "pressure"; }
+
+std::string verdict_text(const BagResult& r, const Unit<LengthDimension>& unit) {
+  std::string u(unit.symbol);
+  if (r.verdict == Verdict::FlushMore) {
+    if (!r.required_flush) {
+      return "Flush more: no flush is enough at this bag pressure; check the bag is pressurised";
+    }
+    // Rounded up: "at least" must be enough.
+    std::string text = "Flush more: at least " +
+                       format_number(std::ceil(r.required_flush->in(litres_per_minute)), 0) + " L/min";
+    if (r.required_flush_strokes_per_minute) {
+      text += ", or " + format_number(std::ceil(*r.required_flush_strokes_per_minute), 0) +
+              " strokes/min";
+    }
+    return text;
+  }
+  if (!r.equivalent_altitude) {
+    return "Equivalent altitude below sea level: a descent of at least " +
+           format_number(std::floor(r.ambient_altitude.in(unit)), 0) + " " + u;
+  }
+  if (!r.descent_equivalent) return "No descent equivalent: the bag is worth no more than outside air";
+  // Conservative rounding: the descent down, the altitude it is equivalent to up.
+  return "Descent equivalent " + format_number(std::floor(r.descent_equivalent->in(unit)), 0) + " " + u +
+         " (to " + format_number(std::ceil(r.equivalent_altitude->in(unit)), 0) + " " + u + "): the " +
+         (r.limited_by == Limit::Oxygen ? "oxygen inside" : "pressure") + " limits it";
+}
+
+std::string flush_more_reason(const BagResult& r) {
+  if (r.verdict == Verdict::Ok) return "";
+  if (!r.gas) return "No flush entered: without fresh air the casualty's CO2 builds up in the bag.";
+  std::string reason;
+  if (r.co2_above_limit) {
+    reason = "CO2 inside " + format_number(r.gas->co2.in(percent), 1) + " % is above the " +
+             format_number(r.co2_limit.in(percent), 2) + " % limit. ";
+  }
+  if (r.oxygen_below_outside) {
+    reason += "The oxygen inside is worth less than outside air (PiO2 " +
+              format_number(r.pio2_inside.in(mmhg), 0) + " vs " +
+              format_number(r.pio2_ambient.in(mmhg), 0) + " mmHg). ";
+  }
+  if (!reason.empty()) reason.pop_back();
+  return reason;
+}
+
+std::string fire_caution_text(const BagResult& r) {
+  if (!r.fire_risk) return "";
+  std::string threshold = format_number(fire_risk_o2_fraction * 100.0, 1) + " %";
+  std::string what = r.gas ? "Oxygen inside " + format_number(r.inside_o2.in(percent), 1) +
+                                 " % is above " + threshold
+                           : "Oxygen fed into the bag without a flush builds up above " + threshold;
+  return what + " (oxygen-enriched, NFPA 99): fire risk. No flame, stove or sparks near the bag; "
+                "common practice is a mask inside the bag with exhaled gas vented out.";
+}
 
 // The bag's own range: the model's, cut where the ambient pressure falls below min_ambient_hpa.
 // Found by fuzzing: ISA to 20 000 m gave a negative PiO2 outside (PB below 47 mmHg).

@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "model/atmosphere.hpp"
+#include "model/hyperbaric_bag.hpp"
 #include "model/team_profile.hpp"
 #include "model/units.hpp"
 #include "ui/record_store.hpp"
@@ -64,6 +65,10 @@ struct BagInputs {
   units::Pressure gauge = units::psi(2.0);  // bag pressure above ambient
   units::VolumeFlow flush = units::litres_per_minute(40.0);
   units::Duration time_in_bag = units::minutes(60.0);
+  // The casualty's gas exchange (STPD) and the gas temperature inside: the bag model's defaults.
+  units::VolumeFlow vco2 = units::litres_per_minute(hyperbaric_bag::rest_vco2_lpm);
+  units::VolumeFlow vo2 = units::litres_per_minute(hyperbaric_bag::rest_vo2_lpm);
+  units::Temperature chamber_temperature = units::celsius(hyperbaric_bag::default_chamber_c);
 };
 
 struct OxygenInputs {

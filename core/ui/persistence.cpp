@@ -99,7 +99,10 @@ std::string state_to_json(const AppState& state) {
   const BagInputs& b = state.bag;
   j["bag"] = {{"gauge_pa", b.gauge.in(pascals)},
               {"flush_lpm", b.flush.in(litres_per_minute)},
-              {"time_min", b.time_in_bag.in(minutes)}};
+              {"time_min", b.time_in_bag.in(minutes)},
+              {"vco2_lpm", b.vco2.in(litres_per_minute)},
+              {"vo2_lpm", b.vo2.in(litres_per_minute)},
+              {"chamber_temperature_c", b.chamber_temperature.in(celsius)}};
   const OxygenInputs& o = state.oxygen;
   j["oxygen"] = {{"water_capacity_l", o.water_capacity.in(litres)},
                  {"gauge_pa", o.gauge.in(pascals)},
@@ -157,6 +160,11 @@ bool state_from_json(AppState& state, const std::string& text) {
   read(b, "gauge_pa", pascals, 0, 30000, state.bag.gauge);
   read(b, "flush_lpm", litres_per_minute, 0, 200, state.bag.flush);
   read(b, "time_min", minutes, 0, 1440, state.bag.time_in_bag);
+  namespace hb = hyperbaric_bag;
+  read(b, "vco2_lpm", litres_per_minute, hb::min_vco2_lpm, hb::max_vco2_lpm, state.bag.vco2);
+  read(b, "vo2_lpm", litres_per_minute, hb::min_vo2_lpm, hb::max_vo2_lpm, state.bag.vo2);
+  read(b, "chamber_temperature_c", celsius, hb::min_chamber_c, hb::max_chamber_c,
+       state.bag.chamber_temperature);
 
   const Json o = child(j, "oxygen");
   OxygenInputs& ox = state.oxygen;

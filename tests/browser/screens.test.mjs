@@ -362,18 +362,25 @@ for (const device of DEVICES) {
       await d.shot('curve');
     });
 
-    test('Bag: 2 psi typed with the keypad unit toggle; equivalent altitude matches the CLI',
+    test('Bag: 2 psi typed with the keypad unit toggle; verdict and equivalent altitudes match the CLI',
          async () => {
       await d.screen('Bag');
       await d.enter('Bag pressure (gauge)', '2', {unit: 'psi'});
-      await d.waitText('Bag pressure (gauge)', (t) => /^(2\.0 psi|138 mbar|138 hPa)$/.test(t));
-      const b = firn('bag', '--altitude', alt, '--gauge', '2psi', '--flush', '40');
-      assertNear(await d.text('Equivalent altitude'), b.equivalent_altitude_m,
-                 {cliDecimals: 0, what: 'equivalent altitude m'});
-      assertNear(await d.text('Descent equivalent'), b.descent_equivalent_m,
-                 {cliDecimals: 0, what: 'descent equivalent m'});
+      // Shown in the Settings' pressure unit (hPa by default).
+      await d.waitText('Bag pressure (gauge)', (t) => t === '138 hPa');
+      const b = firn('bag', '--altitude', alt, '--gauge', '2psi', '--flush', '40', '--stroke-volume',
+                     '3', '--co2-limit', '1');  // the demo team profile's pump and limit
+      // One verdict function: the screen shows the CLI's verdict text after the tone word.
+      const verdict = await d.text('Verdict');
+      assert.equal(verdict, `${b.verdict === 'ok' ? 'OK' : 'DANGER'}: ${b.verdict_text}`);
+      assertNear(await d.text('Pressure-equivalent altitude'), b.pressure_equivalent_altitude_m,
+                 {cliDecimals: 0, what: 'pressure-equivalent altitude m'});
+      assertNear(await d.text('Oxygen-equivalent altitude'), b.oxygen_equivalent_altitude_m,
+                 {cliDecimals: 0, what: 'oxygen-equivalent altitude m'});
       assertNear(await d.text('CO2 inside (steady state)'), b.co2_pct, {cliDecimals: 2, what: 'CO2 %'});
-      assertNear(await d.text('Minimum flush for CO2 below 1 %'), b.min_flush_lpm, {what: 'min flush'});
+      const needed = number(await d.text('Flush needed')).value;
+      assert.ok(needed >= b.required_flush_lpm - 0.05 && needed - b.required_flush_lpm < 1.05,
+                `flush needed: page ${needed}, CLI ${b.required_flush_lpm}`);
       await d.item('Altitude ladder');
       await d.cautionReachable('Bag');
       await d.shot('bag');

@@ -101,12 +101,27 @@ inline void check_bag(const hyperbaric_bag::BagResult& r) {
   require_finite(r.ambient_altitude, "bag.ambient_altitude");
   require_positive(r.inside_pressure, "bag.inside_pressure");
   require(r.inside_pressure >= r.ambient_pressure, "bag inside below ambient");
-  if (r.equivalent_altitude) {
-    require_finite(*r.equivalent_altitude, "bag.equivalent_altitude");
-    require(r.descent_equivalent.has_value(), "bag: equivalent altitude without descent");
+  if (r.equivalent_altitude) require_finite(*r.equivalent_altitude, "bag.equivalent_altitude");
+  if (r.pressure_equivalent_altitude) {
+    require_finite(*r.pressure_equivalent_altitude, "bag.pressure_equivalent_altitude");
+  }
+  if (r.oxygen_equivalent_altitude) {
+    require_finite(*r.oxygen_equivalent_altitude, "bag.oxygen_equivalent_altitude");
+  }
+  // A descent only when the inside is better than outside, and never negative.
+  if (r.descent_equivalent) {
+    require(r.equivalent_altitude.has_value(), "bag: descent without equivalent altitude");
     require_finite(*r.descent_equivalent, "bag.descent_equivalent");
     require(r.descent_equivalent->in(metres) >= -1e-6, "bag: negative descent equivalent");
+    require(r.pio2_inside > r.pio2_ambient, "bag: descent with the inside no better");
   }
+  if (r.required_flush) require_non_negative(r.required_flush->in(litres_per_minute), "bag.required_flush");
+  if (r.required_flush_strokes_per_minute) {
+    require_non_negative(*r.required_flush_strokes_per_minute, "bag.required_flush_strokes");
+  }
+  require_clean_text(hyperbaric_bag::verdict_text(r, metres), "bag verdict");
+  require_clean_text(hyperbaric_bag::flush_more_reason(r), "bag reason");
+  require_clean_text(hyperbaric_bag::fire_caution_text(r), "bag fire caution");
   require_saturation(r.inside_o2, "bag.inside_o2");
   require_positive(r.pio2_ambient, "bag.pio2_ambient");
   require_positive(r.pio2_inside, "bag.pio2_inside");
