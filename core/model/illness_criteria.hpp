@@ -35,8 +35,8 @@ inline constexpr int kHapeSymptomsNeeded = 2;
 inline constexpr int kHapeSignsNeeded = 2;
 
 inline constexpr std::string_view kSource =
-    "Lake Louise consensus criteria as given by Hackett PH & Roach RC, N Engl J Med "
-    "2001;345:107; WMS guidelines, Luks AM et al., Wilderness Environ Med 2019/2024.";
+    "Lake Louise consensus criteria as given by Hackett PH & Roach RC (N Engl J Med "
+    "2001;345:107) and the WMS guidelines (Luks AM et al. 2019, updated 2024).";
 
 struct Outcome {
   int hape_symptoms = 0;

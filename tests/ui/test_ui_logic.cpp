@@ -266,3 +266,37 @@ TEST_CASE("AMS: no score or verdict before all four items are answered") {
   CHECK(verdict.rfind("CHECK: No AMS", 0) == 0);
   CHECK(ui.text(state, "Warning").find("hyponatraemia") != std::string::npos);
 }
+
+TEST_CASE("Casualty: the HAPE/HACE checklist counts the Lake Louise consensus criteria") {
+  // Hackett PH & Roach RC, N Engl J Med 2001;345:107: two symptoms and two signs after a recent
+  // ascent meet the criteria for HAPE.
+  Headless ui;
+  ui.panel = draw_casualty_panel;
+  ImGui::GetIO().DisplaySize = ImVec2(390, 3000);  // the whole screen without scrolling
+  AppState state;
+  ui.click(state, "HAPE / HACE checklist");
+  for (const char* item : {"Breathless at rest", "Cough", "Crackles or wheeze (one lung field or more)"}) {
+    ui.click(state, item);
+  }
+  auto verdicts = [&] {
+    std::vector<std::string> out;
+    for (const auto& i : ui.frame(state)) {
+      // Later verdict lines are recorded as "Verdict#2", "Verdict#3" (test_hook).
+      if (i["label"].get<std::string>().rfind("Verdict", 0) == 0) out.push_back(i["text"]);
+    }
+    return out;
+  };
+  auto has = [](const std::vector<std::string>& lines, const std::string& start) {
+    for (const std::string& l : lines) {
+      if (l.find(start) != std::string::npos) return true;
+    }
+    return false;
+  };
+  CHECK(state.criteria.dyspnoea_at_rest);
+  CHECK(state.criteria.cough);
+  CHECK(state.criteria.crackles_or_wheezing);
+  CHECK_FALSE(has(verdicts(), "Meets the criteria for HAPE"));
+  CHECK(has(verdicts(), "HAPE criteria not met (2 of 2 symptoms, 1 of 2 signs)"));
+  ui.click(state, "Central cyanosis");
+  CHECK(has(verdicts(), "DANGER: Meets the criteria for HAPE"));
+}
