@@ -49,6 +49,7 @@ Result<Score> score(const Answers& answers) {
   result.total = total;
   // Roach 2018: AMS = recent gain in altitude, headache, and a total of 3 or more.
   result.meets_ams_definition = answers.recent_ascent && answers.headache >= 1 && total >= 3;
+  result.consider_other_causes = answers.headache == 0 && total >= 3;
   if (result.meets_ams_definition) {
     result.category = total >= 10 ? Category::Severe
                       : total >= 6 ? Category::Moderate

@@ -31,7 +31,14 @@ struct Score {
   int total = 0;                // 0–12
   bool meets_ams_definition = false;  // recent ascent + headache ≥ 1 + total ≥ 3
   Category category = Category::None;
+  bool consider_other_causes = false;  // total ≥ 3 without headache: see kOtherCauses
 };
+
+// A score of 3 or more without headache is not AMS by definition (Roach 2018); the symptoms
+// still need a cause. The list is common practice in altitude medicine (as named in issue 11).
+inline constexpr std::string_view kOtherCauses =
+    "Symptoms without headache are not AMS by the 2018 definition: think of other causes - "
+    "exhaustion, dehydration, hypothermia, hyponatraemia, carbon monoxide (stoves in tents).";
 
 // Items outside 0–3 (or a missing headache item for AMS) are errors naming the valid range.
 Result<Score> score(const Answers& answers);

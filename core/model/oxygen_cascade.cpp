@@ -106,6 +106,29 @@ std::string_view exposure_key(Exposure exposure) {
   return exposure == Exposure::Acute ? "acute" : "acclimatised";
 }
 
+Result<Acclimatisation> acclimatisation_after(Duration time_at_altitude) {
+  double d = time_at_altitude.in(units::days);
+  if (!within(time_at_altitude, 0.0, kTimeAtAltitudeMaxDays, units::days)) {
+    return range_error("time at altitude", 0, kTimeAtAltitudeMaxDays, "days", d);
+  }
+  auto rise = [](double days_at) { return 1.0 - std::exp(-days_at / kAcclimatisationTimeConstantDays); };
+  return Acclimatisation{std::min(1.0, rise(d) / rise(kFullyAcclimatisedDays))};
+}
+
+Acclimatisation acclimatisation_of(Exposure exposure) {
+  return {exposure == Exposure::Acute ? 0.0 : 1.0};
+}
+
+Duration preset_time_at_altitude(Exposure exposure) {
+  return exposure == Exposure::Acute ? hours(0.0) : units::days(kFullyAcclimatisedDays);
+}
+
+std::string_view acclimatisation_key(Acclimatisation a) {
+  if (a.share <= 0.0) return "acute";
+  if (a.share >= 1.0) return "acclimatised";
+  return "partly acclimatised";
+}
+
 Result<Pressure> inspired_po2(Pressure barometric, Fraction fio2) {
   double pb = barometric.in(hectopascals);
   if (!in_range(pb, kPbLowHpa, kPbHighHpa)) {
@@ -138,6 +161,20 @@ Result<Pressure> alveolar_po2_simplified(Pressure inspired, Pressure paco2,
   double pio2 = inspired.in(mmhg);
   if (!within(inspired, 0.0, kPio2HighMmhg, mmhg)) return alveolar_pio2_error(pio2);
   return positive_alveolar(pio2 - c.value() / r.value());
+}
+
+Result<Paco2Estimate> expected_paco2(Pressure inspired, Acclimatisation acclimatisation) {
+  Result<Paco2Estimate> acute = expected_paco2(inspired, Exposure::Acute);
+  if (!acute) return acute.error();
+  Paco2Estimate acclimatised = expected_paco2(inspired, Exposure::Acclimatised).value();
+  double s = std::clamp(acclimatisation.share, 0.0, 1.0);
+  auto mix = [s](Pressure a, Pressure b) { return a * (1.0 - s) + b * s; };
+  Paco2Estimate out;
+  out.paco2.low = mix(acute->paco2.low, acclimatised.paco2.low);
+  out.paco2.high = mix(acute->paco2.high, acclimatised.paco2.high);
+  out.paco2.mid = (out.paco2.low + out.paco2.high) / 2.0;
+  out.extrapolated = acclimatised.extrapolated || (acute->extrapolated && 1.0 - s >= 0.05);
+  return out;
 }
 
 Result<Paco2Estimate> expected_paco2(Pressure inspired, Exposure exposure) {
@@ -180,14 +217,14 @@ Result<double> henderson_hasselbalch_ph(double bicarbonate_mmol_l, Pressure paco
 }
 
 Result<AcidBase> compensated_acid_base(Pressure paco2, Compensation compensation) {
+  return compensated_acid_base(paco2, Acclimatisation{compensation == Compensation::Acute ? 0.0 : 1.0});
+}
+
+Result<AcidBase> compensated_acid_base(Pressure paco2, Acclimatisation acclimatisation) {
   Result<double> c = checked_paco2(paco2);
   if (!c) return c.error();
-  double change_per_10 = 0.0;
-  if (c.value() < 40.0) {
-    change_per_10 = compensation == Compensation::Acute ? 2.0 : 4.5;
-  } else {
-    change_per_10 = compensation == Compensation::Acute ? 1.0 : 3.5;
-  }
+  double s = std::clamp(acclimatisation.share, 0.0, 1.0);
+  double change_per_10 = c.value() < 40.0 ? 2.0 + s * (4.5 - 2.0) : 1.0 + s * (3.5 - 1.0);
   double bicarbonate = 24.0 + change_per_10 * (c.value() - 40.0) / 10.0;
   Result<double> ph = henderson_hasselbalch_ph(bicarbonate, paco2);
   if (!ph) return ph.error();
@@ -206,13 +243,14 @@ Result<Cascade> oxygen_cascade(const CascadeInputs& in) {
   Result<PressureBand> aa = expected_aa_gradient(pio2.value());
   if (!aa) return aa.error();
   Cascade cascade{in.barometric, pio2.value(), {}, {}, {}, false};
+  const Acclimatisation share = in.acclimatisation ? *in.acclimatisation : acclimatisation_of(in.exposure);
   PressureBand paco2;
   if (in.measured_paco2) {
     Result<double> checked = checked_paco2(*in.measured_paco2);
     if (!checked) return checked.error();
     paco2 = {*in.measured_paco2, *in.measured_paco2, *in.measured_paco2};
   } else {
-    Result<Paco2Estimate> expected = expected_paco2(pio2.value(), in.exposure);
+    Result<Paco2Estimate> expected = expected_paco2(pio2.value(), share);
     if (!expected) return expected.error();
     paco2 = expected->paco2;
     cascade.paco2_extrapolated = expected->extrapolated;
@@ -226,7 +264,7 @@ Result<Cascade> oxygen_cascade(const CascadeInputs& in) {
       return Error{"arterial PO2 comes out below 1 mmHg: these inputs are outside what the "
                    "cascade model can describe"};
     }
-    Result<AcidBase> acid_base = compensated_acid_base(co2, compensation_for(in.exposure));
+    Result<AcidBase> acid_base = compensated_acid_base(co2, share);
     if (!acid_base) return acid_base.error();
     dissociation::CurveShift shift;
     shift.temperature = in.body_temperature;

@@ -32,6 +32,26 @@ enum class Exposure {
 };
 std::string_view exposure_key(Exposure exposure);  // "acute" / "acclimatised"
 
+// Ventilatory acclimatisation as a share from 0 (the acute calibration) to 1 (the acclimatised
+// one); the PaCO2 band, the renal compensation and the field P50 move along it linearly.
+// Time course, from memory: in lowlanders at 4300 m (the Pikes Peak studies reviewed by Dempsey JA
+// & Forster HV, Physiol Rev 1982;62:262–346) ventilation rises and PaCO2 falls over the first days,
+// most of the change within about a week, little after 2–3 weeks. Modelled as 1 − e^(−t/τ),
+// τ = 2 days, scaled to reach 1 at 21 days. Time counts at (or above) this altitude.
+struct Acclimatisation {
+  double share = 0.0;
+};
+inline constexpr double kAcclimatisationTimeConstantDays = 2.0;
+inline constexpr double kFullyAcclimatisedDays = 21.0;
+inline constexpr double kTimeAtAltitudeMaxDays = 365.0;
+// Time valid 0…365 days.
+Result<Acclimatisation> acclimatisation_after(units::Duration time_at_altitude);
+// The two presets: acute = on arrival (share 0), acclimatised = 21 days (share 1).
+Acclimatisation acclimatisation_of(Exposure exposure);
+units::Duration preset_time_at_altitude(Exposure exposure);
+// "acute" (share 0), "acclimatised" (share 1) or "partly acclimatised".
+std::string_view acclimatisation_key(Acclimatisation a);
+
 // PiO2 = FiO2·(PB − 47). PB valid 100…1300 hPa (1300 allows a pressurised bag at sea level),
 // FiO2 valid 0.15…1.
 Result<Pressure> inspired_po2(Pressure barometric, Fraction fio2);
@@ -64,6 +84,10 @@ struct Paco2Estimate {
 // altitude with the same PiO2 is used, which predicts slightly less oxygen, never more.
 // Inspired PO2 valid 35…300 mmHg.
 Result<Paco2Estimate> expected_paco2(Pressure inspired, Exposure exposure);
+// Between the two: each edge linear in the share. Extrapolated when the acclimatised line is, or
+// when the acute line is and it carries at least 5 % of the weight (a smaller share moves the
+// band by well under a point of SpO2).
+Result<Paco2Estimate> expected_paco2(Pressure inspired, Acclimatisation acclimatisation);
 
 // Resting A–a gradient, from memory: ~5–10 mmHg at sea level, ~2–6 at altitude; taken as the
 // altitude value from the PiO2 of 3000 m (West 1996) upwards, linear in PiO2 below that. Wider
@@ -89,12 +113,15 @@ Result<double> henderson_hasselbalch_ph(double bicarbonate_mmol_l, Pressure paco
 // Standard base excess (Siggaard-Andersen's Van Slyke equation, from memory):
 //   SBE = 0.93·(HCO3⁻ − 24.4 + 14.8·(pH − 7.40)).
 Result<AcidBase> compensated_acid_base(Pressure paco2, Compensation compensation);
+// With the renal change per 10 mmHg moved from the acute to the chronic rule by the share.
+Result<AcidBase> compensated_acid_base(Pressure paco2, Acclimatisation acclimatisation);
 
 // Everything the cascade needs. PaCO2 is the expected band unless a measured value is given.
 struct CascadeInputs {
   Pressure barometric;
   Fraction fio2 = dry_air_fio2();
   Exposure exposure = Exposure::Acute;
+  std::optional<Acclimatisation> acclimatisation;  // when set, used instead of `exposure`
   double respiratory_quotient = kRestingRespiratoryQuotient;
   std::optional<Pressure> measured_paco2;
   Temperature body_temperature = units::celsius(37.0);

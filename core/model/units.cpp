@@ -149,4 +149,8 @@ Result<Duration> parse_duration(std::string_view text, std::string_view what) {
   return parse_quantity(text, what, duration_units, nullptr);
 }
 
+Result<Duration> parse_long_duration(std::string_view text, std::string_view what) {
+  return parse_quantity(text, what, long_duration_units, nullptr);
+}
+
 }  // namespace firn::units

@@ -101,6 +101,7 @@ inline constexpr Unit<VolumeFlowDimension> litres_per_minute{1e-3 / 60.0, 0.0, "
 inline constexpr Unit<DurationDimension> seconds{1.0, 0.0, "s", "s"};
 inline constexpr Unit<DurationDimension> minutes{60.0, 0.0, "min", "min"};
 inline constexpr Unit<DurationDimension> hours{3600.0, 0.0, "h", "h"};
+inline constexpr Unit<DurationDimension> days{86400.0, 0.0, "d", "d"};
 
 inline constexpr Unit<FractionDimension> fraction{1.0, 0.0, "", ""};
 inline constexpr Unit<FractionDimension> percent{0.01, 0.0, "%", "%"};
@@ -161,5 +162,9 @@ Result<Volume> parse_volume(std::string_view text, std::string_view what = "volu
 Result<VolumeFlow> parse_volume_flow(std::string_view text, std::string_view what = "flow");
 // A duration: "90min", "1.5h", "30s". The unit is required.
 Result<Duration> parse_duration(std::string_view text, std::string_view what = "duration");
+// A longer span such as time at altitude: "2d", "36h", "90min". The unit is required.
+inline constexpr std::array<const Unit<DurationDimension>*, 3> long_duration_units{&days, &hours,
+                                                                                   &minutes};
+Result<Duration> parse_long_duration(std::string_view text, std::string_view what = "duration");
 
 }  // namespace firn::units

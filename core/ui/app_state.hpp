@@ -10,6 +10,7 @@
 
 #include "model/atmosphere.hpp"
 #include "model/hyperbaric_bag.hpp"
+#include "model/illness_criteria.hpp"
 #include "model/team_profile.hpp"
 #include "model/units.hpp"
 #include "ui/record_store.hpp"
@@ -52,9 +53,10 @@ struct Situation {
   bool qnh_temperature_known = false;
   units::Temperature air_temperature = units::celsius(0.0);  // at the station
 
-  bool spo2_measured = false;
-  units::Fraction spo2 = units::percent(88.0);
-  bool acclimatised = false;
+  bool spo2_measured = false;                    // false: nothing entered, no verdict
+  units::Fraction spo2 = units::percent(88.0);   // meaningful only when spo2_measured
+  units::Duration time_at_altitude = units::hours(0.0);  // at (or above) this altitude
+  bool distress = false;  // breathing fast and deep: lowers the FiO2 a device gives
   bool on_oxygen = false;
   int oxygen_device = 0;  // index into the supplemental-oxygen model's device list
   units::VolumeFlow oxygen_flow = units::litres_per_minute(2.0);
@@ -86,11 +88,13 @@ struct OxygenInputs {
   units::Duration first_phase = units::hours(1.0);
 };
 
+// Each Lake Louise item 0–3, or kUnanswered until the casualty has answered it.
 struct AmsInputs {
-  int headache = 0;
-  int gastrointestinal = 0;
-  int fatigue = 0;
-  int dizziness = 0;
+  static constexpr int kUnanswered = -1;
+  int headache = kUnanswered;
+  int gastrointestinal = kUnanswered;
+  int fatigue = kUnanswered;
+  int dizziness = kUnanswered;
   bool recent_ascent = true;
 };
 
@@ -153,6 +157,9 @@ struct AppState {
   std::map<std::string, std::string> last_results;  // label → text, saved for the next start
   std::string status_message;  // e.g. "saved state could not be read"
   bool caution_open = false;   // the "Read more" text below a result screen
+  bool casualty_why_open = false;  // Casualty screen: the reasons and cautions under the verdict
+  bool casualty_criteria_open = false;     // Casualty screen: the HAPE/HACE checklist
+  illness_criteria::Findings criteria;     // what the medic ticked on it (this run only)
 
   // Persistence: the JSON last written, so we only write when something changed.
   std::string saved_json;

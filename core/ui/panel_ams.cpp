@@ -1,6 +1,7 @@
 // Screen "AMS": the 2018 Lake Louise acute mountain sickness score (Roach 2018), four
-// self-reported items 0–3 tapped in big buttons, the total and its category, and what the
-// score is not (HACE/HAPE signs override it).
+// self-reported items 0–3 tapped in big buttons. Every item starts unanswered and there is no
+// score or verdict until all four are answered; then the total, its category as a verdict, the
+// prompt for other causes when the symptoms come without headache, and what the score is not.
 #include "ui/panels.hpp"
 
 #include <imgui.h>
@@ -15,11 +16,12 @@ namespace firn::ui {
 
 namespace {
 
-// 0–3 buttons recorded as "<item> 0" … "<item> 3" so tests can tell the rows apart.
+// 0–3 buttons recorded as "<item> 0" … "<item> 3" so tests can tell the rows apart; none is
+// selected while the item is unanswered.
 void score_row(AppState& state, const char* item, const char* hint, int* value) {
   ImGui::TextUnformatted(item);
   ImGui::SameLine();
-  ImGui::TextDisabled("%s", hint);
+  ImGui::TextDisabled("%s", *value == AmsInputs::kUnanswered ? "not answered" : hint);
   const char* words[] = {"0", "1", "2", "3"};
   float spacing = ImGui::GetStyle().ItemSpacing.x;
   float width = (ImGui::GetContentRegionAvail().x - 3 * spacing) / 4;
@@ -37,6 +39,16 @@ void score_row(AppState& state, const char* item, const char* hint, int* value) 
   ImGui::PopID();
 }
 
+Tone tone_of(const lake_louise::Score& s) {
+  switch (s.category) {
+    case lake_louise::Category::None: return s.consider_other_causes ? Tone::Caution : Tone::Good;
+    case lake_louise::Category::Mild: return Tone::Caution;
+    case lake_louise::Category::Moderate:
+    case lake_louise::Category::Severe: return Tone::Danger;
+  }
+  return Tone::Neutral;
+}
+
 }  // namespace
 
 void draw_ams_panel(AppState& state, Platform&) {
@@ -49,14 +61,26 @@ void draw_ams_panel(AppState& state, Platform&) {
   score_row(state, "Dizziness", "light-headedness", &in.dizziness);
   toggle_row(state, "ascent", "No recent ascent", "Recent ascent", &in.recent_ascent);
 
-  lake_louise::Answers answers{in.headache, in.gastrointestinal, in.fatigue, in.dizziness,
-                               in.recent_ascent};
-  Result<lake_louise::Score> score = lake_louise::score(answers);
-  if (!score) {
-    result_error(state, "Lake Louise score", score.error().message);
+  const int items[] = {in.headache, in.gastrointestinal, in.fatigue, in.dizziness};
+  int answered = static_cast<int>(std::count_if(std::begin(items), std::end(items),
+                                                [](int v) { return v != AmsInputs::kUnanswered; }));
+  if (answered < 4) {
+    verdict_line(state, Tone::Neutral,
+                 "no score yet: " + std::to_string(answered) + " of 4 items answered");
   } else {
-    result_value(state, "Lake Louise score", std::to_string(score->total) + " of 12");
-    result_value(state, "Assessment", std::string(lake_louise::category_name(score->category)));
+    lake_louise::Answers answers{in.headache, in.gastrointestinal, in.fatigue, in.dizziness,
+                                 in.recent_ascent};
+    Result<lake_louise::Score> score = lake_louise::score(answers);
+    if (!score) {
+      result_error(state, "Lake Louise score", score.error().message);
+    } else {
+      verdict_line(state, tone_of(score.value()), std::string(lake_louise::category_name(score->category)));
+      result_value(state, "Lake Louise score", std::to_string(score->total) + " of 12");
+      if (score->consider_other_causes) message_line(state, std::string(lake_louise::kOtherCauses), true);
+    }
+  }
+  if (answered > 0 && big_button(state, "Clear the answers")) {
+    in.headache = in.gastrointestinal = in.fatigue = in.dizziness = AmsInputs::kUnanswered;
   }
   for (std::string_view caveat : lake_louise::caveats) bullet_line(caveat);
   caution_line(state);

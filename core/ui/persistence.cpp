@@ -9,6 +9,8 @@
 #include <cmath>
 #include <string_view>
 
+#include "model/oxygen_cascade.hpp"
+
 namespace firn::ui {
 
 using Json = nlohmann::json;
@@ -92,7 +94,8 @@ std::string state_to_json(const AppState& state) {
                     {"air_temperature_k", s.air_temperature.in(kelvin)},
                     {"spo2_measured", s.spo2_measured},
                     {"spo2", s.spo2.in(fraction)},
-                    {"acclimatised", s.acclimatised},
+                    {"time_at_altitude_h", s.time_at_altitude.in(hours)},
+                    {"distress", s.distress},
                     {"on_oxygen", s.on_oxygen},
                     {"oxygen_device", s.oxygen_device},
                     {"oxygen_flow_lpm", s.oxygen_flow.in(litres_per_minute)}};
@@ -151,7 +154,11 @@ bool state_from_json(AppState& state, const std::string& text) {
   read(si, "air_temperature_k", kelvin, 213.15, 323.15, s.air_temperature);
   read(si, "spo2_measured", s.spo2_measured);
   read(si, "spo2", fraction, 0.3, 1.0, s.spo2);
-  read(si, "acclimatised", s.acclimatised);
+  bool acclimatised = false;  // saved by versions with two states only: the preset
+  read(si, "acclimatised", acclimatised);
+  if (acclimatised) s.time_at_altitude = cascade::preset_time_at_altitude(cascade::Exposure::Acclimatised);
+  read(si, "time_at_altitude_h", hours, 0, 8760, s.time_at_altitude);
+  read(si, "distress", s.distress);
   read(si, "on_oxygen", s.on_oxygen);
   read(si, "oxygen_device", 0, 9, s.oxygen_device);
   read(si, "oxygen_flow_lpm", litres_per_minute, 0, 30, s.oxygen_flow);
@@ -179,10 +186,10 @@ bool state_from_json(AppState& state, const std::string& text) {
   read(o, "first_phase_min", minutes, 0, 4320, ox.first_phase);
 
   const Json a = child(j, "ams");
-  read(a, "headache", 0, 3, state.ams.headache);
-  read(a, "gastrointestinal", 0, 3, state.ams.gastrointestinal);
-  read(a, "fatigue", 0, 3, state.ams.fatigue);
-  read(a, "dizziness", 0, 3, state.ams.dizziness);
+  read(a, "headache", AmsInputs::kUnanswered, 3, state.ams.headache);
+  read(a, "gastrointestinal", AmsInputs::kUnanswered, 3, state.ams.gastrointestinal);
+  read(a, "fatigue", AmsInputs::kUnanswered, 3, state.ams.fatigue);
+  read(a, "dizziness", AmsInputs::kUnanswered, 3, state.ams.dizziness);
   read(a, "recent_ascent", state.ams.recent_ascent);
 
   read(child(j, "teaching"), "altitude_m", metres, 0, 8000, state.teaching.altitude);

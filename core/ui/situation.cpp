@@ -47,7 +47,7 @@ std::string situation_summary(const AppState& state) {
   if (s.source == PressureSource::Qnh) text += " (QNH)";
   text += " \xC2\xB7 ";
   text += s.spo2_measured ? "SpO2 " + percent_text(s.spo2) : std::string("no SpO2");
-  text += s.acclimatised ? " \xC2\xB7 acclimatised" : " \xC2\xB7 acute";
+  text += " \xC2\xB7 " + time_at_altitude_text(s.time_at_altitude);
   text += s.on_oxygen ? " \xC2\xB7 on O2 " + flow_text(s.oxygen_flow) : std::string(" \xC2\xB7 air");
   return text;
 }
@@ -78,8 +78,21 @@ void draw_situation_strip(AppState& state) {
 
 namespace firn::ui {
 
+cascade::Acclimatisation situation_acclimatisation(const AppState& state) {
+  Result<cascade::Acclimatisation> a = cascade::acclimatisation_after(state.situation.time_at_altitude);
+  return a ? a.value() : cascade::acclimatisation_of(cascade::Exposure::Acute);
+}
+
 cascade::Exposure situation_exposure(const AppState& state) {
-  return state.situation.acclimatised ? cascade::Exposure::Acclimatised : cascade::Exposure::Acute;
+  return situation_acclimatisation(state).share >= 1.0 ? cascade::Exposure::Acclimatised
+                                                       : cascade::Exposure::Acute;
+}
+
+std::string time_at_altitude_text(units::Duration time) {
+  double h = time.in(units::hours);
+  if (h <= 0.0) return "acute (on arrival)";
+  if (h < 48.0) return shown_number(h, 0) + " h at altitude";
+  return shown_number(time.in(units::days), 1) + " d at altitude";
 }
 
 supplemental_oxygen::Device situation_device(const AppState& state) {
@@ -91,9 +104,20 @@ supplemental_oxygen::Device situation_device(const AppState& state) {
   return supplemental_oxygen::Device::NasalCannula;
 }
 
+supplemental_oxygen::Breathing situation_breathing(const AppState& state) {
+  return state.situation.distress ? supplemental_oxygen::Breathing::Distress
+                                  : supplemental_oxygen::Breathing::Rest;
+}
+
 Result<units::Fraction> situation_fio2(const AppState& state) {
   if (!state.situation.on_oxygen) return cascade::dry_air_fio2();
-  return supplemental_oxygen::delivered_fio2(situation_device(state), state.situation.oxygen_flow);
+  Result<units::Pressure> pb = situation_pressure(state);
+  if (!pb) return pb.error();
+  Result<supplemental_oxygen::DeliveredFio2> d = supplemental_oxygen::delivered_fio2_at(
+      situation_device(state), state.situation.oxygen_flow, pb.value(),
+      situation_acclimatisation(state), situation_breathing(state));
+  if (!d) return d.error();
+  return d->fio2;
 }
 
 Result<expected_spo2::Expectation> situation_expectation(const AppState& state) {
@@ -101,7 +125,7 @@ Result<expected_spo2::Expectation> situation_expectation(const AppState& state) 
   if (!pb) return pb.error();
   Result<units::Fraction> fio2 = situation_fio2(state);
   if (!fio2) return fio2.error();
-  return expected_spo2::expected(pb.value(), situation_exposure(state), fio2.value());
+  return expected_spo2::expected(pb.value(), situation_acclimatisation(state), fio2.value());
 }
 
 }  // namespace firn::ui

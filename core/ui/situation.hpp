@@ -28,9 +28,16 @@ void draw_situation_strip(AppState& state);
 
 namespace firn::ui {
 
+// Where on the acclimatisation time course the casualty is (from the time at altitude).
+cascade::Acclimatisation situation_acclimatisation(const AppState& state);
+// The nearer preset, for screens that show only the two ends: acclimatised only at share 1.
 cascade::Exposure situation_exposure(const AppState& state);
+// "acute (on arrival)", "36 h at altitude", "2.5 d at altitude".
+std::string time_at_altitude_text(units::Duration time);
 supplemental_oxygen::Device situation_device(const AppState& state);
-// FiO2 the casualty breathes: dry air, or the device's rule-of-thumb value at its flow.
+supplemental_oxygen::Breathing situation_breathing(const AppState& state);
+// FiO2 the casualty breathes: dry air, or what the device gives at its flow here (gas expansion
+// and this breathing: supplemental_oxygen::delivered_fio2_at), the same FiO2 the verdict uses.
 Result<units::Fraction> situation_fio2(const AppState& state);
 // Healthy-lowlander expectation for the situation (pressure, exposure, FiO2).
 Result<expected_spo2::Expectation> situation_expectation(const AppState& state);

@@ -49,6 +49,11 @@ Result<Report> run_ams(const AmsOptions& o) {
   report.json["ams"] = s->meets_ams_definition;
   report.json["recent_ascent"] = answers.recent_ascent;
   report.rows.emplace_back("Meets AMS definition", s->meets_ams_definition ? "yes" : "no");
+  report.json["consider_other_causes"] = s->consider_other_causes;
+  if (s->consider_other_causes) {
+    report.json["other_causes"] = std::string(lake_louise::kOtherCauses);
+    report.notes.emplace_back(lake_louise::kOtherCauses);
+  }
   Json caveats = Json::array();
   for (std::string_view c : lake_louise::caveats) {
     caveats.push_back(std::string(c));

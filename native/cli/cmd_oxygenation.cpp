@@ -5,6 +5,8 @@
 
 #include "cli/cli.hpp"
 #include "model/atmosphere.hpp"
+#include "model/casualty_oxygen.hpp"
+#include "model/casualty_spo2.hpp"
 #include "model/cautions.hpp"
 #include "model/dissociation.hpp"
 #include "model/expected_spo2.hpp"
@@ -20,6 +22,7 @@ namespace o2 = firn::supplemental_oxygen;
 
 struct OxygenationOptions {
   std::optional<std::string> altitude, pressure, model, fio2, spo2, device, flow, target;
+  std::optional<std::string> time_at_altitude, breathing;
   bool acclimatised = false;
 };
 
@@ -72,11 +75,52 @@ Result<Pressure> barometric_pressure(const OxygenationOptions& o, atm::Model mod
 }
 
 // Adds the device rows; returns the error if an option is bad.
+Result<o2::Breathing> breathing_option(const OxygenationOptions& o) {
+  if (!o.breathing) return o2::Breathing::Rest;
+  Result<o2::Breathing> b = o2::parse_breathing(*o.breathing);
+  if (!b) return Error{"--breathing: " + b.error().message};
+  return b;
+}
+
+// This casualty's own flow from the SpO2 measured on air (casualty_oxygen): an estimate.
+std::optional<Error> add_casualty_flow_rows(Report& report, Pressure pb,
+                                            cascade::Acclimatisation exposure, o2::Device device,
+                                            Fraction spo2_on_air, Fraction target,
+                                            o2::Breathing breathing) {
+  casualty_oxygen::Casualty c{pb, exposure, spo2_on_air, breathing};
+  Result<casualty_oxygen::CasualtyFlow> f = casualty_oxygen::lowest_flow(c, device, target);
+  if (!f) return Error{"--spo2: " + f.error().message};
+  report.add("casualty_virtual_shunt_pct", f->shunt.fraction * 100.0, 0,
+             "Virtual shunt of this casualty (estimate)", "%");
+  report.json["casualty_target_reachable"] = f->reachable;
+  report.json["casualty_flow_is_estimate"] = true;
+  if (f->reachable) {
+    report.add("casualty_lowest_flow_lpm", f->flow.in(litres_per_minute), 1,
+               "Lowest flow for this casualty (estimate)", "L/min");
+  } else {
+    report.json["casualty_lowest_flow_lpm"] = nullptr;
+    report.rows.emplace_back("Lowest flow for this casualty (estimate)", "not reachable with this device");
+  }
+  report.add("casualty_predicted_spo2_pct", f->predicted.in(percent), 0,
+             "SpO2 predicted at that flow (estimate)", "%");
+  Json table = Json::array();
+  for (const casualty_oxygen::FlowPoint& p : f->by_flow) {
+    table.push_back({{"flow_lpm", rounded(p.flow.in(litres_per_minute), 1)},
+                     {"spo2_pct", rounded(p.spo2.in(percent), 0)}});
+  }
+  report.json["casualty_spo2_by_flow"] = table;
+  report.notes.emplace_back(casualty_oxygen::kEstimateNote);
+  return std::nullopt;
+}
+
 std::optional<Error> add_oxygen_rows(Report& report, const OxygenationOptions& o, Pressure pb,
-                                     cascade::Exposure exposure) {
+                                     cascade::Acclimatisation exposure) {
   Result<o2::Device> device = o2::parse_device(*o.device);
   if (!device) return Error{"--device: " + device.error().message};
+  Result<o2::Breathing> breathing = breathing_option(o);
+  if (!breathing) return breathing.error();
   report.add_text("device", std::string(o2::device_key(device.value())), "Oxygen device");
+  report.add_text("breathing", std::string(o2::breathing_key(breathing.value())), "Breathing");
   if (o.flow) {
     Result<double> lpm = parse_number(*o.flow, "oxygen flow");
     if (!lpm) {
@@ -90,7 +134,14 @@ std::optional<Error> add_oxygen_rows(Report& report, const OxygenationOptions& o
         o2::predict(pb, exposure, device.value(), litres_per_minute(lpm.value()));
     if (!p) return Error{"--flow: " + p.error().message};
     report.add("flow_lpm", lpm.value(), 1, "Oxygen flow", "L/min");
-    report.add("device_fio2", p->fio2.in(fraction), 2, "FiO2 with device (rule of thumb)", "");
+    report.add("device_fio2", p->fio2.in(fraction), 2, "FiO2 with device (sea-level rule of thumb)", "");
+    Result<o2::DeliveredFio2> here = o2::delivered_fio2_at(device.value(), litres_per_minute(lpm.value()),
+                                                           pb, exposure, breathing.value());
+    if (!here) return Error{"--flow: " + here.error().message};
+    report.add("device_fio2_at_altitude", here->fio2.in(fraction), 2,
+               "FiO2 with device here (gas expansion, ventilation)", "");
+    report.add("minute_ventilation_lpm", here->ventilation.in(litres_per_minute), 1,
+               "Minute ventilation assumed", "L/min");
     report.add("spo2_with_oxygen_low_pct", p->spo2.low.in(percent), 0, "SpO2 on oxygen, low", "%");
     report.add("spo2_with_oxygen_pct", p->spo2.mid.in(percent), 0, "SpO2 on oxygen", "%");
     report.add("spo2_with_oxygen_high_pct", p->spo2.high.in(percent), 0, "SpO2 on oxygen, high", "%");
@@ -104,7 +155,8 @@ std::optional<Error> add_oxygen_rows(Report& report, const OxygenationOptions& o
     if (!t) return t.error();
     target = percent(t.value());
   }
-  Result<o2::FlowForTarget> f = o2::lowest_flow_for_target(pb, exposure, device.value(), target);
+  Result<o2::FlowForTarget> f =
+      o2::lowest_flow_for_target(pb, exposure, device.value(), target, breathing.value());
   if (!f) return Error{"--target: " + f.error().message};
   report.add("target_spo2_pct", target.in(percent), 0, "Target SpO2 (WMS: > 90 %)", "%");
   report.json["target_reachable"] = f->reachable;
@@ -114,7 +166,86 @@ std::optional<Error> add_oxygen_rows(Report& report, const OxygenationOptions& o
     report.json["lowest_flow_lpm"] = nullptr;
     report.rows.emplace_back("Lowest flow for target", "not reachable with this device");
   }
+  if (o.spo2 && !o.flow) {  // measured on air: this casualty's own estimate
+    Result<double> s = number_or_percent(*o.spo2, "--spo2", "measured SpO2", false, {});
+    if (!s) return s.error();
+    if (std::optional<Error> bad = add_casualty_flow_rows(report, pb, exposure, device.value(),
+                                                          percent(s.value()), target, breathing.value())) {
+      return bad;
+    }
+  }
   report.notes.emplace_back(o2::kRuleOfThumbNote);
+  return std::nullopt;
+}
+
+// --time-at-altitude (2d, 36h) or the --acclimatised preset; acute (on arrival) by default.
+Result<Duration> time_at_altitude(const OxygenationOptions& o) {
+  if (o.acclimatised && o.time_at_altitude) {
+    return Error{"give --acclimatised or --time-at-altitude, not both"};
+  }
+  if (o.acclimatised) return cascade::preset_time_at_altitude(cascade::Exposure::Acclimatised);
+  if (!o.time_at_altitude) return cascade::preset_time_at_altitude(cascade::Exposure::Acute);
+  Result<Duration> t = parse_long_duration(*o.time_at_altitude, "time at altitude");
+  if (!t) {
+    return with_valid_range(Error{"--time-at-altitude: " + t.error().message},
+                            range_of<Duration>([](Duration d) { return cascade::acclimatisation_after(d); }));
+  }
+  return t.value();
+}
+
+// The measured SpO2 against the band for the oxygen actually given (casualty_spo2::assess): on
+// oxygen when --device and --flow are given, else room air.
+std::optional<Error> add_spo2_rows(Report& report, const OxygenationOptions& o, Pressure pb,
+                                   cascade::Acclimatisation exposure) {
+  casualty_spo2::Reading reading{pb, exposure, std::nullopt, percent(NAN)};
+  Result<o2::Breathing> breathing = breathing_option(o);
+  if (!breathing) return breathing.error();
+  reading.breathing = breathing.value();
+  if (o.device && o.flow) {
+    Result<o2::Device> device = o2::parse_device(*o.device);
+    if (!device) return Error{"--device: " + device.error().message};
+    Result<double> lpm = parse_number(*o.flow, "oxygen flow");
+    if (lpm) reading.oxygen = casualty_spo2::OxygenGiven{device.value(), litres_per_minute(lpm.value())};
+  }
+  auto judged = [&](double pct) {
+    casualty_spo2::Reading r = reading;
+    r.measured = percent(pct);
+    return casualty_spo2::assess(r);
+  };
+  Result<double> s = number_or_percent(*o.spo2, "--spo2", "measured SpO2", false,
+                                       range_of<double>([&](double pct) {
+                                         return expected_spo2::assess(percent(pct), {});
+                                       }));
+  if (!s) return s.error();
+  Result<casualty_spo2::Verdict> v = judged(s.value());
+  if (!v) {
+    bool spo2_fault = v.error().message.find("measured SpO2") != std::string::npos;
+    return Error{(spo2_fault ? "--spo2: " : "--flow: ") + v.error().message};
+  }
+  const expected_spo2::Assessment& a = v->assessment;
+  report.add("spo2_measured_pct", s.value(), 0, "Measured SpO2", "%");
+  report.add_text("spo2_compared_with", v->on_oxygen ? "oxygen" : "air", "Compared with the band on");
+  report.add("spo2_band_low_pct", v->band.low.in(percent), 0, "Band compared with, low", "%");
+  report.add("spo2_band_high_pct", v->band.high.in(percent), 0, "Band compared with, high", "%");
+  report.json["spo2_band_extrapolated"] = a.extrapolated;
+  report.add("spo2_gap_pct", a.gap_points, 1, "Gap to expected band", "% points");
+  report.add_text("spo2_assessment", std::string(expected_spo2::position_key(a.position)),
+                  "Assessment");
+  report.add_text("spo2_verdict", v->headline, "Verdict");
+  report.add_text("spo2_action", v->action, "What to do");
+  report.json["hape_suspected"] = a.hape_suspected;
+  report.json["oximeter_unreliable"] = a.oximeter_unreliable;
+  report.json["below_oxygen_target"] = v->below_oxygen_target;
+  Json why = Json::array();
+  for (std::string_view w : a.why) {
+    why.push_back(std::string(w));
+    report.notes.emplace_back("Why: " + std::string(w));
+  }
+  report.json["why"] = why;
+  Json list = Json::array();
+  for (std::string_view c : a.cautions) list.push_back(std::string(c));
+  report.json["cautions"] = list;
+  for (std::string_view c : a.cautions) report.notes.emplace_back(c);
   return std::nullopt;
 }
 
@@ -138,14 +269,19 @@ Result<Report> run_oxygenation(const OxygenationOptions& o) {
     }
     fio2 = fraction(f.value());
   }
-  cascade::Exposure exposure =
-      o.acclimatised ? cascade::Exposure::Acclimatised : cascade::Exposure::Acute;
-  Result<expected_spo2::Expectation> e = expected_spo2::expected(pb.value(), exposure, fio2);
+  Result<Duration> time = time_at_altitude(o);
+  if (!time) return time.error();
+  Result<cascade::Acclimatisation> exposure = cascade::acclimatisation_after(time.value());
+  if (!exposure) return Error{"--time-at-altitude: " + exposure.error().message};
+  Result<expected_spo2::Expectation> e = expected_spo2::expected(pb.value(), exposure.value(), fio2);
   if (!e) return e.error();
   const cascade::CascadePath& mid = e->cascade.middle;
 
   report.add_text("model", std::string(atm::model_key(model)), "Atmosphere model");
-  report.add_text("exposure", std::string(cascade::exposure_key(exposure)), "Exposure");
+  report.add_text("exposure", std::string(cascade::acclimatisation_key(exposure.value())), "Exposure");
+  report.add("time_at_altitude_h", time->in(hours), 1, "Time at this altitude", "h");
+  report.add("acclimatisation_share", exposure->share, 2,
+             "Ventilatory acclimatisation (0 acute, 1 acclimatised)", "");
   report.add("pressure_hpa", pb->in(hectopascals), 1, "Barometric pressure", "hPa");
   report.add("pressure_mmhg", pb->in(mmhg), 1, "Barometric pressure", "mmHg");
   report.add("fio2", fio2.in(fraction), 4, "FiO2", "");
@@ -168,28 +304,12 @@ Result<Report> run_oxygenation(const OxygenationOptions& o) {
   }
 
   if (o.spo2) {
-    Result<double> s = number_or_percent(*o.spo2, "--spo2", "measured SpO2", false,
-                                         range_of<double>([&](double pct) {
-                                           return expected_spo2::assess(percent(pct), e->band);
-                                         }));
-    if (!s) return s.error();
-    Result<expected_spo2::Assessment> a = expected_spo2::assess(percent(s.value()), e->band);
-    if (!a) return Error{"--spo2: " + a.error().message};
-    report.add("spo2_measured_pct", s.value(), 0, "Measured SpO2", "%");
-    report.add("spo2_gap_pct", a->gap_points, 1, "Gap to expected band", "% points");
-    report.add_text("spo2_assessment", std::string(expected_spo2::position_key(a->position)),
-                    "Assessment");
-    report.json["hape_suspected"] = a->hape_suspected;
-    report.json["oximeter_unreliable"] = a->oximeter_unreliable;
-    Json list = Json::array();
-    for (std::string_view c : a->cautions) list.push_back(std::string(c));
-    report.json["cautions"] = list;
-    for (std::string_view c : a->cautions) report.notes.emplace_back(c);
+    if (std::optional<Error> bad = add_spo2_rows(report, o, pb.value(), exposure.value())) return *bad;
   } else {
     report.notes.emplace_back(cautions::short_line);
   }
   if (o.device) {
-    if (std::optional<Error> bad = add_oxygen_rows(report, o, pb.value(), exposure)) return *bad;
+    if (std::optional<Error> bad = add_oxygen_rows(report, o, pb.value(), exposure.value())) return *bad;
   } else if (o.flow || o.target) {
     return Error{"--flow and --target need --device (cannula, mask or non-rebreather)"};
   }
@@ -262,12 +382,17 @@ void register_oxygenation_commands(CommandTable& table) {
   ox->add_option("--altitude", o->altitude, "Altitude, e.g. 4000m or 13120ft");
   ox->add_option("--pressure", o->pressure, "Measured barometric pressure, e.g. 616hPa");
   ox->add_option("--model", o->model, "Atmosphere model for --altitude: west (default) or isa");
-  ox->add_flag("--acclimatised", o->acclimatised, "Days to weeks at this altitude (default: acute)");
+  ox->add_flag("--acclimatised", o->acclimatised,
+               "Preset: 3 weeks at this altitude (default: acute, on arrival)");
+  ox->add_option("--time-at-altitude", o->time_at_altitude,
+                 "Time at (or above) this altitude, e.g. 36h or 2d (default 0 h)");
   ox->add_option("--fio2", o->fio2, "Inspired O2 fraction, e.g. 0.21 or 30% (default 0.2095)");
   ox->add_option("--spo2", o->spo2, "Measured SpO2 in %, compared with the expected band");
   ox->add_option("--device", o->device, "Oxygen device: cannula, mask or non-rebreather");
   ox->add_option("--flow", o->flow, "Oxygen flow in L/min with --device");
   ox->add_option("--target", o->target, "Target SpO2 in % with --device (default 90)");
+  ox->add_option("--breathing", o->breathing,
+                 "rest (default) or distress: minute ventilation for the FiO2 a device gives here");
 
   auto c = std::make_shared<CurveOptions>();
   CLI::App* curve = table.add("curve", "Oxygen saturation at a PO2 (dissociation curve)",

@@ -324,7 +324,9 @@ for (const device of DEVICES) {
 
     test('Casualty: measured SpO2 against the expected band matches the CLI', async () => {
       await d.screen('Casualty');
-      await d.tap('SpO2 measured');
+      // Issue 12: the field starts empty and there is no verdict until a value is entered.
+      assert.equal(await d.text('Measured SpO2'), 'not entered');
+      assert.match(await d.text('Verdict'), /^NO VERDICT/);
       await d.enter('Measured SpO2', String(device.spo2));
       await d.waitText('Measured SpO2', (t) => t === `${device.spo2} %`);
       const o = firn('oxygenation', '--altitude', alt, '--spo2', String(device.spo2));
@@ -334,9 +336,10 @@ for (const device of DEVICES) {
       assertNear(await d.text('Middle of the band'), o.spo2_expected_pct,
                  {cliDecimals: 0, what: 'band middle'});
       assertNear(await d.text('Gap to the band'), o.spo2_gap_pct, {what: 'gap'});
-      const words = {within: /^Within/, below: /^Below/, well_below: /^Well below/, above: /^Above/};
-      assert.match(await d.text('Measured vs expected'), words[o.spo2_assessment] ?? /^$/,
-                   `CLI assessment ${o.spo2_assessment}`);
+      // The same verdict as the CLI (casualty_spo2::assess in both).
+      assert.ok((await d.text('Verdict')).includes(o.spo2_verdict),
+                `CLI verdict ${o.spo2_verdict}`);
+      assert.equal(await d.text('What to do'), o.spo2_action);
       if (o.oximeter_unreliable) {
         const warnings = (await d.items()).filter((i) => i.label.startsWith('Warning'));
         assert.ok(warnings.some((w) => /80 %/.test(w.text)),
@@ -408,6 +411,9 @@ for (const device of DEVICES) {
 
     test('AMS: tapped answers give the CLI Lake Louise score and category', async () => {
       await d.screen('AMS');
+      // Issue 12: nothing answered, nothing scored.
+      assert.equal(await d.find('Lake Louise score'), undefined);
+      assert.match(await d.text('Verdict'), /^NO VERDICT/);
       const answers = {Headache: 2, Gastrointestinal: 1, Fatigue: 2, Dizziness: 1};
       for (const [item, value] of Object.entries(answers)) {
         await d.tap(`${item} ${value}`);
@@ -415,7 +421,7 @@ for (const device of DEVICES) {
       }
       const a = firn('ams', '--headache', '2', '--gi', '1', '--fatigue', '2', '--dizziness', '1');
       assert.equal(await d.text('Lake Louise score'), `${a.total} of 12`);
-      assert.match(await d.text('Assessment'), new RegExp(a.category, 'i'));
+      assert.match(await d.text('Verdict'), new RegExp(a.category, 'i'));
       await d.cautionReachable('AMS');
       await d.shot('ams');
     });

@@ -42,3 +42,11 @@ test('bad items are exit 2 naming the 0–3 range', () => {
   assert.match(firnError(['ams', '--headache', '1', '--gi', '0', '--fatigue', '0', '--dizziness', 'nan']),
     /not a number/);
 });
+
+test('a score of 3 or more without headache prompts other causes (Roach 2018; common practice)', () => {
+  const out = ams(0, 2, 2, 1);
+  assert.equal(out.ams, false);
+  assert.equal(out.consider_other_causes, true);
+  assert.match(out.other_causes, /exhaustion, dehydration, hypothermia, hyponatraemia, carbon monoxide/);
+  assert.equal(ams(1, 1, 1, 0).consider_other_causes, false);
+});

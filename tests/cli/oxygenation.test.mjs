@@ -77,7 +77,8 @@ test('ISA gives lower pressure and SpO2 than West 1996 at 5000 m (West 1996)', (
 });
 
 test('a measured SpO2 far below the band flags HAPE suspicion and oximeter error (WMS 2019; Luks & Swenson 2011)', () => {
-  const out = firnJson(['oxygenation', '--altitude', '4000m', '--spo2', '62']);
+  // 68 %: well below the ~79–86 % band but above the 65 % critical line (Tannheimer 2002).
+  const out = firnJson(['oxygenation', '--altitude', '4000m', '--spo2', '68']);
   assert.equal(out.spo2_assessment, 'well-below');
   assert.equal(out.hape_suspected, true);
   assert.equal(out.oximeter_unreliable, true);
@@ -100,6 +101,100 @@ test('oxygen: cannula flow for the WMS target SpO2 > 90 % (Luks 2019) and "not r
   const high = firnJson(['oxygenation', '--pressure', '330hPa', '--device', 'cannula', '--target', '98']);
   assert.equal(high.target_reachable, false);
   assert.equal(high.lowest_flow_lpm, null);
+});
+
+test('SpO2 on oxygen is compared with the band on that oxygen (issue 11: 4500 m, 86 % on cannula 4 L/min)', () => {
+  // The cannula rule of thumb (common practice) gives FiO2 0.37; a healthy lowlander on it sits
+  // above 90 %. 86 % is well below: hypoxaemia out of proportion (WMS, Luks 2019/2024), and below
+  // the WMS target of 90 % on oxygen. It must never read "above" (the room-air band).
+  const out = firnJson(['oxygenation', '--altitude', '4500m', '--spo2', '86', '--device', 'cannula', '--flow', '4']);
+  assert.equal(out.spo2_compared_with, 'oxygen');
+  assert.ok(out.spo2_band_low_pct > 90, `band on oxygen ${out.spo2_band_low_pct}`);
+  assert.equal(out.spo2_assessment, 'well-below');
+  assert.equal(out.hape_suspected, true);
+  assert.equal(out.below_oxygen_target, true);
+  assert.ok(out.why.some((w) => w.includes('WMS')));
+  const air = firnJson(['oxygenation', '--altitude', '4500m', '--spo2', '86']);
+  assert.equal(air.spo2_compared_with, 'air');
+  assert.equal(air.spo2_assessment, 'above');
+});
+
+test('5200 m two days after arrival, 68 % on air: never "within" (issue 11)', () => {
+  const out = firnJson(['oxygenation', '--altitude', '5200m', '--time-at-altitude', '2d', '--spo2', '68']);
+  assert.equal(out.extrapolated, true);  // beyond the calibration data (3000–5000 m)
+  assert.ok(['well-below', 'critical'].includes(out.spo2_assessment), out.spo2_assessment);
+  assert.equal(out.hape_suspected, true);
+  assert.equal(out.oximeter_unreliable, true);
+  assert.ok(out.cautions.some((c) => c.includes('Carbon monoxide')));
+  // Inside an extrapolated band there is no verdict at all.
+  const inside = firnJson(['oxygenation', '--altitude', '5200m', '--spo2', '70']);
+  assert.equal(inside.extrapolated, true);
+  assert.equal(inside.spo2_assessment, 'extrapolated');
+  assert.match(inside.spo2_verdict, /^No verdict/);
+});
+
+test('below 65 % is critical at any altitude (Tannheimer M et al., Int J Sports Med 2002)', () => {
+  const out = firnJson(['oxygenation', '--altitude', '4850m', '--spo2', '64', '--acclimatised']);
+  assert.equal(out.spo2_assessment, 'critical');
+  assert.equal(out.hape_suspected, true);
+  assert.ok(out.why.some((w) => w.includes('Tannheimer')));
+  assert.ok(out.spo2_action.length > 0);
+});
+
+test('time at altitude moves the band between the presets (acclimatisation time course)', () => {
+  const acute = firnJson(['oxygenation', '--altitude', '4500m']);
+  const partly = firnJson(['oxygenation', '--altitude', '4500m', '--time-at-altitude', '36h']);
+  const week = firnJson(['oxygenation', '--altitude', '4500m', '--time-at-altitude', '7d']);
+  const accl = firnJson(['oxygenation', '--altitude', '4500m', '--acclimatised']);
+  assert.equal(acute.exposure, 'acute');
+  assert.equal(acute.time_at_altitude_h, 0);
+  assert.equal(partly.exposure, 'partly acclimatised');
+  assert.equal(partly.time_at_altitude_h, 36);
+  assert.equal(accl.exposure, 'acclimatised');
+  assert.equal(accl.time_at_altitude_h, 504);
+  assert.ok(acute.spo2_expected_pct < partly.spo2_expected_pct);
+  assert.ok(partly.spo2_expected_pct < week.spo2_expected_pct);
+  assert.ok(week.spo2_expected_pct <= accl.spo2_expected_pct);
+  assert.ok(partly.paco2_mmhg < acute.paco2_mmhg && partly.paco2_mmhg > accl.paco2_mmhg);
+  // 21 days is the acclimatised preset itself.
+  assert.equal(firnJson(['oxygenation', '--altitude', '4500m', '--time-at-altitude', '21d']).spo2_expected_pct,
+    accl.spo2_expected_pct);
+  assert.match(firnError(['oxygenation', '--altitude', '4500m', '--time-at-altitude', '2d', '--acclimatised']), /not both/);
+  assert.match(firnError(['oxygenation', '--altitude', '4500m', '--time-at-altitude', '400d']),
+    /between 0 and 365 days/);
+});
+
+test('flow for this casualty from the SpO2 on air: virtual shunt (Benatar, Hewlett & Nunn 1973), an estimate', () => {
+  const out = firnJson(['oxygenation', '--altitude', '4500m', '--spo2', '62', '--device', 'cannula']);
+  assert.equal(out.casualty_flow_is_estimate, true);
+  assert.ok(out.casualty_virtual_shunt_pct > 0);
+  // The healthy-lowlander figure underestimates what this casualty needs (issue 11 §4).
+  assert.ok(out.casualty_lowest_flow_lpm === null || out.casualty_lowest_flow_lpm > out.lowest_flow_lpm,
+    `casualty ${out.casualty_lowest_flow_lpm} vs healthy ${out.lowest_flow_lpm}`);
+  if (out.casualty_lowest_flow_lpm !== null) {
+    assert.equal((out.casualty_lowest_flow_lpm * 2) % 1, 0);  // a 0.5 L/min flowmeter step
+    const at = out.casualty_spo2_by_flow.find((p) => p.flow_lpm === out.casualty_lowest_flow_lpm);
+    assert.ok(at.spo2_pct >= 90);
+  }
+  assert.equal(out.casualty_spo2_by_flow.length, 12);  // 0.5…6 L/min
+  const { stdout } = runFirn(['oxygenation', '--altitude', '4500m', '--spo2', '62', '--device', 'cannula']);
+  assert.match(stdout, /titrate to the oximeter/);
+  // On oxygen (with --flow) the reading is not on air: no casualty flow from it.
+  const onO2 = firnJson(['oxygenation', '--altitude', '4500m', '--spo2', '86', '--device', 'cannula', '--flow', '4']);
+  assert.equal(onO2.casualty_lowest_flow_lpm, undefined);
+});
+
+test('FiO2 at altitude: free-gas litres expand by P0/P; only distress lowers it (issue 11 §4)', () => {
+  const rest = firnJson(['oxygenation', '--altitude', '4500m', '--device', 'cannula', '--flow', '2']);
+  assert.equal(rest.breathing, 'rest');
+  assert.ok(rest.device_fio2_at_altitude > rest.device_fio2, `${rest.device_fio2_at_altitude} vs ${rest.device_fio2}`);
+  const distress = firnJson(['oxygenation', '--altitude', '4500m', '--device', 'cannula', '--flow', '2', '--breathing', 'distress']);
+  assert.ok(distress.device_fio2_at_altitude < distress.device_fio2);
+  assert.ok(distress.minute_ventilation_lpm > rest.minute_ventilation_lpm);
+  // Planning in distress never asks for less flow than at rest.
+  assert.ok(distress.lowest_flow_lpm === null || distress.lowest_flow_lpm >= rest.lowest_flow_lpm);
+  assert.match(firnError(['oxygenation', '--altitude', '4500m', '--device', 'cannula', '--breathing', 'panting']),
+    /rest or distress/);
 });
 
 test('human-readable output carries the cautions', () => {

@@ -8,9 +8,12 @@
 
 #include <map>
 
+#include "model/atmosphere.hpp"
+#include "model/casualty_spo2.hpp"
 #include "ui/app_state.hpp"
 #include "ui/fields.hpp"
 #include "ui/keypad.hpp"
+#include "ui/panels.hpp"
 #include "ui/persistence.hpp"
 #include "ui/platform.hpp"
 #include "ui/test_hook.hpp"
@@ -52,6 +55,10 @@ struct Headless {
   }
   ~Headless() { ImGui::DestroyContext(); }
 
+  // When set, the frame draws this screen instead of the lone altitude field.
+  void (*panel)(AppState&, Platform&) = nullptr;
+  MemoryPlatform platform;
+
   // One frame with the altitude field and the keypad; returns the labelled items.
   nlohmann::json frame(AppState& state) {
     ImGuiIO& io = ImGui::GetIO();
@@ -62,7 +69,11 @@ struct Headless {
     ImGui::SetNextWindowPos(ImVec2(0, 0));
     ImGui::SetNextWindowSize(io.DisplaySize);
     ImGui::Begin("test", nullptr, ImGuiWindowFlags_NoDecoration);
-    edit_quantity(state, altitude_field(state, "Altitude", "altitude"), state.situation.altitude);
+    if (panel) {
+      panel(state, platform);
+    } else {
+      edit_quantity(state, altitude_field(state, "Altitude", "altitude"), state.situation.altitude);
+    }
     ImGui::End();
     draw_keypad(state, io.DisplaySize.x, io.DisplaySize.y);
     ImGui::Render();
@@ -199,4 +210,93 @@ TEST_CASE("saved state: out-of-range and wrong-type values keep their defaults")
   CHECK(state.situation.altitude.in(units::metres) == Approx(3000.0));
   CHECK(state.situation.spo2.in(units::percent) == Approx(88.0));
   CHECK(state.settings.theme == Theme::Day);
+}
+
+TEST_CASE("Casualty: the SpO2 field starts empty, no verdict until a value is typed") {
+  // Issue 12: a value nobody entered is visibly empty and produces no verdict.
+  Headless ui;
+  ui.panel = draw_casualty_panel;
+  AppState state;
+  state.situation.altitude = units::metres(5200);
+  state.situation.time_at_altitude = units::days(2);
+  CHECK(ui.text(state, "Measured SpO2") == "not entered");
+  CHECK(ui.text(state, "Verdict").rfind("NO VERDICT", 0) == 0);
+  CHECK(ui.text(state, "What to do") == "(absent)");
+  ui.click(state, "Measured SpO2");
+  REQUIRE(state.keypad.open);
+  CHECK_FALSE(state.situation.spo2_measured);  // opening the keypad fills nothing in
+  for (const char* k : {"Key 6", "Key 8", "Key OK"}) ui.click(state, k);
+  REQUIRE(state.situation.spo2_measured);
+  CHECK(ui.text(state, "Measured SpO2") == "68 %");
+  // The screen shows the model's verdict (the CLI prints the same: tests/cli/oxygenation).
+  auto pb = atmosphere::pressure_at(units::metres(5200), state.settings.model).value();
+  auto v = casualty_spo2::assess({pb, cascade::acclimatisation_after(units::days(2)).value(),
+                                  std::nullopt, units::percent(68)}).value();
+  std::string verdict = ui.text(state, "Verdict");
+  CHECK(verdict.rfind("DANGER: " + v.headline, 0) == 0);
+  CHECK(ui.text(state, "What to do") == v.action);
+  ui.click(state, "Clear SpO2");
+  CHECK_FALSE(state.situation.spo2_measured);
+  CHECK(ui.text(state, "Verdict").rfind("NO VERDICT", 0) == 0);
+}
+
+TEST_CASE("Casualty: the presets set the time at altitude") {
+  Headless ui;
+  ui.panel = draw_casualty_panel;
+  AppState state;
+  ui.click(state, "3 weeks (acclimatised)");
+  CHECK(state.situation.time_at_altitude.in(units::days) == Approx(21.0));
+  CHECK(ui.text(state, "Time at this altitude") == "21.0 d");
+  ui.click(state, "On arrival (acute)");
+  CHECK(state.situation.time_at_altitude.in(units::hours) == 0.0);
+}
+
+TEST_CASE("AMS: no score or verdict before all four items are answered") {
+  Headless ui;
+  ui.panel = draw_ams_panel;
+  AppState state;
+  CHECK(ui.text(state, "Lake Louise score") == "(absent)");
+  CHECK(ui.text(state, "Verdict").rfind("NO VERDICT", 0) == 0);
+  for (const char* k : {"Headache 0", "Gastrointestinal 2", "Fatigue 2"}) ui.click(state, k);
+  CHECK(ui.text(state, "Lake Louise score") == "(absent)");
+  ui.click(state, "Dizziness 1");
+  CHECK(ui.text(state, "Lake Louise score") == "5 of 12");
+  // Roach 2018: no headache, not AMS; the symptoms prompt other causes.
+  std::string verdict = ui.text(state, "Verdict");
+  CHECK(verdict.rfind("CHECK: No AMS", 0) == 0);
+  CHECK(ui.text(state, "Warning").find("hyponatraemia") != std::string::npos);
+}
+
+TEST_CASE("Casualty: the HAPE/HACE checklist counts the Lake Louise consensus criteria") {
+  // Hackett PH & Roach RC, N Engl J Med 2001;345:107: two symptoms and two signs after a recent
+  // ascent meet the criteria for HAPE.
+  Headless ui;
+  ui.panel = draw_casualty_panel;
+  ImGui::GetIO().DisplaySize = ImVec2(390, 3000);  // the whole screen without scrolling
+  AppState state;
+  ui.click(state, "HAPE / HACE checklist");
+  for (const char* item : {"Breathless at rest", "Cough", "Crackles or wheeze (one lung field or more)"}) {
+    ui.click(state, item);
+  }
+  auto verdicts = [&] {
+    std::vector<std::string> out;
+    for (const auto& i : ui.frame(state)) {
+      // Later verdict lines are recorded as "Verdict#2", "Verdict#3" (test_hook).
+      if (i["label"].get<std::string>().rfind("Verdict", 0) == 0) out.push_back(i["text"]);
+    }
+    return out;
+  };
+  auto has = [](const std::vector<std::string>& lines, const std::string& start) {
+    for (const std::string& l : lines) {
+      if (l.find(start) != std::string::npos) return true;
+    }
+    return false;
+  };
+  CHECK(state.criteria.dyspnoea_at_rest);
+  CHECK(state.criteria.cough);
+  CHECK(state.criteria.crackles_or_wheezing);
+  CHECK_FALSE(has(verdicts(), "Meets the criteria for HAPE"));
+  CHECK(has(verdicts(), "HAPE criteria not met (2 of 2 symptoms, 1 of 2 signs)"));
+  ui.click(state, "Central cyanosis");
+  CHECK(has(verdicts(), "DANGER: Meets the criteria for HAPE"));
 }

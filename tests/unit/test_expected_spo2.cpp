@@ -118,6 +118,39 @@ TEST_CASE("assessing a measured SpO2", "[expected-spo2][assess]") {
   CHECK_FALSE(above.oximeter_unreliable);
 }
 
+TEST_CASE("a partly acclimatised band lies between the presets", "[expected-spo2][acclimatisation]") {
+  // Issue 11: trekkers a week into an ascent fell between the two bands. The band moves with the
+  // acclimatisation share (time course: oxygen_cascade.hpp); Botella 2005's two regressions
+  // bound it at 4000 m.
+  for (double h : {3000.0, 4000.0, 4850.0}) {
+    double acute = mid_pct(h, Exposure::Acute), accl = mid_pct(h, Exposure::Acclimatised);
+    double previous = acute - 1e-9;
+    for (double s : {0.1, 0.3, 0.5, 0.7, 0.9}) {
+      Band b = expected(west(h), Acclimatisation{s})->band;
+      CHECK(b.mid.in(percent) >= previous);
+      CHECK(b.mid.in(percent) <= accl + 1e-9);
+      previous = b.mid.in(percent);
+    }
+  }
+  CHECK(field_p50(Acclimatisation{0.5}).in(mmhg) == Approx((25.6 + 23.7) / 2));
+  // The presets are the two ends of the continuous band.
+  CHECK(expected(west(4000), Acclimatisation{1.0})->band.mid == band_at(4000, Exposure::Acclimatised).mid);
+}
+
+TEST_CASE("the calibration range: above 5000 m the band is extrapolated", "[expected-spo2]") {
+  // Botella de Maglia 2005 (regressions evaluated at 3000–5000 m) and Tannheimer 2002 (4850 m):
+  // outside them the band is marked, on air, for both presets.
+  CHECK_FALSE(expected(west(4900), Exposure::Acclimatised)->extrapolated);
+  CHECK(expected(west(5200), Exposure::Acclimatised)->extrapolated);
+  CHECK(expected(west(5200), Exposure::Acute)->extrapolated);
+  // Oxygen brings the inspired PO2 back inside the data: 5500 m on FiO2 0.30.
+  CHECK_FALSE(expected(west(5500), Exposure::Acclimatised, fraction(0.30))->extrapolated);
+  // assess() on an extrapolated band: no "within", concern kept.
+  Band b = band_at(5800, Exposure::Acclimatised);
+  CHECK(assess(b.mid, b, true)->position == Position::Extrapolated);
+  CHECK(assess(percent(b.low.in(percent) - 8), b, true)->position == Position::WellBelow);
+}
+
 TEST_CASE("expected-SpO2 input errors", "[expected-spo2][errors]") {
   Band b = band_at(3000, Exposure::Acute);
   Result<Assessment> high = assess(percent(101), b);
@@ -170,7 +203,12 @@ TEST_CASE("sweep: band and assessment over pressure, FiO2, exposure and measured
           REQUIRE(a.ok());
           CHECK(std::isfinite(a->gap_points));
           CHECK_FALSE(a->cautions.empty());
-          CHECK((a->position == Position::Within) == (a->gap_points == 0.0));
+          if (a->position == Position::Within) CHECK(a->gap_points == 0.0);
+          if (a->gap_points == 0.0) {
+            CHECK((a->position == Position::Within || a->position == Position::Critical));
+          }
+          // Tannheimer 2002: below 65 % is critical whatever the band.
+          CHECK((a->position == Position::Critical) == (measured < 65.0));
         }
       }
     }

@@ -83,3 +83,16 @@ TEST_CASE("sweep: just outside 0–3 on every item the message names it", "[lake
     CHECK_REFUSED_NAMING(score({0, 0, 0, bad, true}), "dizziness/light-headedness item must be between 0 and 3 points");
   }
 }
+
+TEST_CASE("a high score without headache prompts other causes", "[lake-louise]") {
+  // Roach 2018: AMS needs a headache. Symptoms scoring 3 or more without it prompt other causes
+  // (exhaustion, dehydration, hypothermia, hyponatraemia, carbon monoxide: common practice).
+  lake_louise::Answers a{0, 2, 2, 1, true};
+  lake_louise::Score s = lake_louise::score(a).value();
+  CHECK(s.total == 5);
+  CHECK_FALSE(s.meets_ams_definition);
+  CHECK(s.consider_other_causes);
+  CHECK(std::string(lake_louise::kOtherCauses).find("carbon monoxide") != std::string::npos);
+  CHECK_FALSE(lake_louise::score({0, 1, 1, 0, true})->consider_other_causes);  // total 2
+  CHECK_FALSE(lake_louise::score({1, 1, 1, 0, true})->consider_other_causes);  // AMS, headache
+}

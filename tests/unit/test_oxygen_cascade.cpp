@@ -324,3 +324,52 @@ TEST_CASE("sweep: just outside every cascade range the message names it",
   CHECK_REFUSED_NAMING(henderson_hasselbalch_ph(24, mmhg(4.99)), "between 5 and 80 mmHg");
   CHECK_REFUSED_NAMING(compensated_acid_base(mmhg(80.01), Compensation::Acute), "between 5 and 80 mmHg");
 }
+
+TEST_CASE("acclimatisation time course: presets, shape and range", "[cascade][acclimatisation]") {
+  // The documented model (oxygen_cascade.hpp): share = (1 − e^(−t/2 d)) / (1 − e^(−21/2)),
+  // capped at 1. Shape from memory: most of the PaCO2 fall within about a week at 4300 m
+  // (Pikes Peak studies reviewed by Dempsey & Forster, Physiol Rev 1982;62:262).
+  auto share = [](Duration t) { return acclimatisation_after(t).value().share; };
+  CHECK(share(hours(0)) == 0.0);
+  CHECK(share(days(21)) == Approx(1.0).margin(1e-12));
+  CHECK(share(days(60)) == 1.0);
+  CHECK(share(days(2)) == Approx((1 - std::exp(-1.0)) / (1 - std::exp(-10.5))).epsilon(1e-9));
+  CHECK(share(days(7)) > 0.95);   // "most of it within about a week"
+  CHECK(share(hours(12)) < 0.25);  // the first hours are close to the acute calibration
+  double previous = -1.0;
+  for (double h : sweep::grid(0, 24 * 30, 120)) {
+    double s = share(hours(h));
+    CHECK(s >= previous);
+    CHECK(s <= 1.0);
+    previous = s;
+  }
+  // Presets: acute = on arrival, acclimatised = 3 weeks.
+  CHECK(acclimatisation_of(Exposure::Acute).share == 0.0);
+  CHECK(acclimatisation_of(Exposure::Acclimatised).share == 1.0);
+  CHECK(share(preset_time_at_altitude(Exposure::Acute)) == 0.0);
+  CHECK(share(preset_time_at_altitude(Exposure::Acclimatised)) == Approx(1.0).margin(1e-12));
+  CHECK(acclimatisation_key(Acclimatisation{0.4}) == "partly acclimatised");
+  CHECK_REFUSED_NAMING(acclimatisation_after(days(365.01)), "between 0 and 365 days");
+  CHECK_REFUSED_NAMING(acclimatisation_after(hours(-1)), "between 0 and 365 days");
+  CHECK_FALSE(acclimatisation_after(hours(NAN)).ok());
+}
+
+TEST_CASE("PaCO2 moves continuously between the acute and acclimatised rows",
+          "[cascade][acclimatisation]") {
+  // Rahn & Otis 1949 soft ranges (from memory), 4000 m: acute 34–36, acclimatised 29–31 mmHg.
+  Pressure pio2 = inspired_po2(mmhg(west_pb_mmhg(4.0)), dry_air_fio2()).value();
+  Paco2Estimate acute = expected_paco2(pio2, Exposure::Acute).value();
+  Paco2Estimate accl = expected_paco2(pio2, Exposure::Acclimatised).value();
+  CHECK(expected_paco2(pio2, Acclimatisation{0.0})->paco2.mid.in(mmhg) == Approx(acute.paco2.mid.in(mmhg)));
+  CHECK(expected_paco2(pio2, Acclimatisation{1.0})->paco2.mid.in(mmhg) == Approx(accl.paco2.mid.in(mmhg)));
+  Paco2Estimate half = expected_paco2(pio2, Acclimatisation{0.5}).value();
+  CHECK(half.paco2.mid.in(mmhg) == Approx((acute.paco2.mid.in(mmhg) + accl.paco2.mid.in(mmhg)) / 2));
+  // Renal compensation between the acute (2) and chronic (4.5 per 10 mmHg) rules (common practice).
+  double hco3_half = compensated_acid_base(mmhg(30), Acclimatisation{0.5})->bicarbonate_mmol_l;
+  CHECK(hco3_half == Approx(24.0 - (2.0 + 4.5) / 2.0));
+  // 5200 m: beyond the acute table (5000 m) the band is flagged while the acute line carries
+  // weight, not once it carries less than 5 %.
+  Pressure high = inspired_po2(mmhg(west_pb_mmhg(5.2)), dry_air_fio2()).value();
+  CHECK(expected_paco2(high, Acclimatisation{0.5})->extrapolated);
+  CHECK_FALSE(expected_paco2(high, Acclimatisation{0.96})->extrapolated);
+}

@@ -147,3 +147,66 @@ TEST_CASE("sweep: just outside every oxygen range the message names it", "[oxyge
   CHECK_REFUSED_NAMING(lowest_flow_for_target(west(4000), Exposure::Acute, Device::NasalCannula, percent(99.01)),
                        "between 80 and 99 %");
 }
+
+TEST_CASE("minute ventilation from the alveolar ventilation equation", "[oxygen][fio2-altitude]") {
+  // VA (BTPS) = 0.863 · VCO2 (mL/min STPD) / PaCO2 (physiology texts); VCO2 0.20 L/min at rest
+  // and dead-space ventilation 2 L/min (from memory): at PaCO2 40 mmHg VE = 4.3 + 2 = 6.3 L/min,
+  // the textbook resting ~6 L/min.
+  CHECK(minute_ventilation(mmhg(40), Breathing::Rest)->in(litres_per_minute) ==
+        Approx(0.863 * 200 / 40 + 2.0));
+  CHECK(minute_ventilation(mmhg(30), Breathing::Rest)->in(litres_per_minute) >
+        minute_ventilation(mmhg(40), Breathing::Rest)->in(litres_per_minute));
+  CHECK(minute_ventilation(mmhg(40), Breathing::Distress)->in(litres_per_minute) ==
+        Approx(3.0 * (0.863 * 200 / 40 + 2.0)));
+  CHECK_REFUSED_NAMING(minute_ventilation(mmhg(4), Breathing::Rest), "between 5 and 80 mmHg");
+  CHECK(parse_breathing("distress").value() == Breathing::Distress);
+  CHECK_FALSE(parse_breathing("panting").ok());
+}
+
+TEST_CASE("FiO2 at altitude: free-gas litres expand, ventilation dilutes", "[oxygen][fio2-altitude]") {
+  // Flowmeters pass sea-level litres, which expand by P0/P at altitude (Boyle's law); at rest a
+  // setting gives the same or a higher FiO2 than at sea level, only a high minute ventilation a
+  // lower one (issue 11 §4; derivation in docs/expected-spo2.md §7).
+  const Acclimatisation acute{0.0};
+  auto at = [&](double metres_value, Device d, double lpm, Breathing b) {
+    return delivered_fio2_at(d, litres_per_minute(lpm), west(metres_value), acute, b).value();
+  };
+  // Sea level at rest: the rule of thumb itself (West 1996 sea level 759.5 Torr ≈ 1012.6 hPa).
+  CHECK(at(0, Device::NasalCannula, 2, Breathing::Rest).fio2.in(fraction) == Approx(0.29).margin(0.002));
+  // 4500 m, cannula 2 L/min: P0/P ≈ 1.70 (West 1996), VE ≈ 7.1 L/min at PaCO2 34: excess
+  // 0.08 × 1.70 × 6.3/7.1 ≈ 0.12 → FiO2 ≈ 0.33, above the sea-level 0.29.
+  DeliveredFio2 rest = at(4500, Device::NasalCannula, 2, Breathing::Rest);
+  CHECK(rest.expansion == Approx(1013.25 / west(4500).in(hectopascals)));
+  CHECK(rest.fio2.in(fraction) > rest.sea_level_rule.in(fraction));
+  CHECK(rest.fio2.in(fraction) == Approx(0.2095 + 0.08 * rest.expansion * 6.315 /
+                                                      rest.ventilation.in(litres_per_minute)));
+  CHECK(rest.for_planning() == rest.sea_level_rule);
+  DeliveredFio2 distress = at(4500, Device::NasalCannula, 2, Breathing::Distress);
+  CHECK(distress.fio2.in(fraction) < distress.sea_level_rule.in(fraction));
+  CHECK(distress.for_planning() == distress.fio2);
+  // Never above the device's highest rule-of-thumb FiO2, never below air, rest never below the
+  // rule: over altitude 0…8000 m, every device and flow.
+  for (Device d : {Device::NasalCannula, Device::SimpleMask, Device::NonRebreather}) {
+    FlowRange r = valid_flows(d);
+    double ceiling = delivered_fio2(d, r.high)->in(fraction);
+    for (double h : sweep::grid(0, 8000, 16)) {
+      for (double lpm : sweep::grid(r.low.in(litres_per_minute), r.high.in(litres_per_minute), 5)) {
+        INFO(device_key(d) << " " << lpm << " L/min at " << h << " m");
+        DeliveredFio2 x = at(h, d, lpm, Breathing::Rest);
+        CHECK(x.fio2.in(fraction) <= ceiling + 1e-12);
+        CHECK(x.fio2.in(fraction) >= x.sea_level_rule.in(fraction) - 0.001);
+        DeliveredFio2 y = at(h, d, lpm, Breathing::Distress);
+        CHECK(y.fio2.in(fraction) >= 0.2095);
+        CHECK(y.fio2 <= x.fio2);
+      }
+    }
+  }
+  // Planning in distress asks for at least the flow the rule gives.
+  Result<FlowForTarget> calm = lowest_flow_for_target(west(5000), acute, Device::NasalCannula,
+                                                      percent(90), Breathing::Rest);
+  Result<FlowForTarget> breathless = lowest_flow_for_target(west(5000), acute, Device::NasalCannula,
+                                                            percent(90), Breathing::Distress);
+  REQUIRE(calm.ok());
+  REQUIRE(breathless.ok());
+  CHECK(breathless->flow >= calm->flow);
+}
