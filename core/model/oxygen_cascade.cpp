@@ -176,7 +176,12 @@ Result<double> henderson_hasselbalch_ph(double bicarbonate_mmol_l, Pressure paco
   }
   Result<double> c = checked_paco2(paco2);
   if (!c) return c.error();
-  return 6.1 + std::log10(bicarbonate_mmol_l / (0.0307 * c.value()));
+  // CO2 solubility 0.03 mmol/L per mmHg, the teaching form (Guyton AC & Hall JE, Textbook of
+  // Medical Physiology, acid-base chapter; from memory): pH 7.40 at HCO3⁻ 24 / PaCO2 40, the normal
+  // values the compensation rules and base excess below are anchored on. (0.0307, the measured
+  // plasma solubility at 37 °C, gives 7.39 there.)
+  constexpr double kCo2SolubilityMmolPerLMmhg = 0.03;
+  return 6.1 + std::log10(bicarbonate_mmol_l / (kCo2SolubilityMmolPerLMmhg * c.value()));
 }
 
 Result<AcidBase> compensated_acid_base(Pressure paco2, Compensation compensation) {

@@ -15,6 +15,7 @@ namespace hb = firn::hyperbaric_bag;
 struct BagOptions {
   std::optional<std::string> altitude, gauge, model, flush, o2_feed, bag_volume, stroke_volume,
       co2_limit;
+  LatitudeMonthOptions where;
 };
 
 Result<Report> run_bag(const BagOptions& o) {
@@ -67,11 +68,15 @@ Result<Report> run_bag(const BagOptions& o) {
     if (!v) return v.error();
     s.co2_limit = percent(v.value());
   }
-  Result<hb::BagResult> bag = hb::bag_at_altitude(altitude.value(), model, s);
+  Report report;
+  // With --latitude/--month the ambient pressure is NRLMSISE-00's; altitudes stay on `model`'s scale.
+  Result<Pressure> latitude_pb = ambient_pressure(altitude.value(), model, o.where, report);
+  if (!latitude_pb) return latitude_pb.error();
+  Result<hb::BagResult> bag = o.where.latitude ? hb::bag_at_pressure(latitude_pb.value(), model, s)
+                                               : hb::bag_at_altitude(altitude.value(), model, s);
   if (!bag) return bag.error();
   const hb::BagResult& r = bag.value();
 
-  Report report;
   report.add_text("model", std::string(atm::model_key(model)), "Model");
   report.add("altitude_m", r.ambient_altitude.in(metres), 1, "Altitude", "m");
   report.add("ambient_pressure_hpa", r.ambient_pressure.in(hectopascals), 1, "Ambient pressure",
@@ -130,6 +135,7 @@ void register_bag_commands(CommandTable& table) {
   bag->add_option("--altitude", o->altitude, "Altitude of the bag, e.g. 4243m or 13920ft");
   bag->add_option("--gauge", o->gauge, "Bag gauge pressure, e.g. 2psi (default) or 140mbar");
   bag->add_option("--model", o->model, "Atmosphere model: west (default) or isa");
+  add_latitude_month_options(bag, o->where);
   bag->add_option("--flush", o->flush, "Fresh-air flush, L/min at bag pressure (5-300)");
   bag->add_option("--o2-feed", o->o2_feed, "Oxygen fed into the bag, L/min (0-15)");
   bag->add_option("--bag-volume", o->bag_volume, "Gas volume of the bag, L (default 480, assumed)");

@@ -21,6 +21,7 @@ namespace o2 = firn::supplemental_oxygen;
 struct OxygenationOptions {
   std::optional<std::string> altitude, pressure, model, fio2, spo2, device, flow, target;
   bool acclimatised = false;
+  LatitudeMonthOptions where;
 };
 
 struct CurveOptions {
@@ -52,6 +53,7 @@ Result<std::optional<double>> optional_number(const std::optional<std::string>& 
 Result<Pressure> barometric_pressure(const OxygenationOptions& o, atm::Model model,
                                      Report& report) {
   if (o.altitude && o.pressure) return Error{"give --altitude or --pressure, not both"};
+  if (o.pressure && (o.where.latitude || o.where.month)) return Error{"--latitude/--month go with --altitude, not --pressure"};
   if (o.pressure) {
     Result<Pressure> p = required_pressure(
         o.pressure, "--pressure", "barometric pressure",
@@ -65,8 +67,8 @@ Result<Pressure> barometric_pressure(const OxygenationOptions& o, atm::Model mod
       o.altitude, o.altitude ? "--altitude" : "--altitude or --pressure", "altitude",
       range_of<Length>([&](Length at) { return atm::pressure_at(at, model); }));
   if (!altitude) return altitude.error();
-  Result<Pressure> p = atm::pressure_at(altitude.value(), model);
-  if (!p) return Error{"--altitude: " + p.error().message};
+  Result<Pressure> p = ambient_pressure(altitude.value(), model, o.where, report);
+  if (!p) return p.error();
   report.add("altitude_m", altitude->in(metres), 1, "Altitude", "m");
   return p;
 }
@@ -262,6 +264,7 @@ void register_oxygenation_commands(CommandTable& table) {
   ox->add_option("--altitude", o->altitude, "Altitude, e.g. 4000m or 13120ft");
   ox->add_option("--pressure", o->pressure, "Measured barometric pressure, e.g. 616hPa");
   ox->add_option("--model", o->model, "Atmosphere model for --altitude: west (default) or isa");
+  add_latitude_month_options(ox, o->where);
   ox->add_flag("--acclimatised", o->acclimatised, "Days to weeks at this altitude (default: acute)");
   ox->add_option("--fio2", o->fio2, "Inspired O2 fraction, e.g. 0.21 or 30% (default 0.2095)");
   ox->add_option("--spo2", o->spo2, "Measured SpO2 in %, compared with the expected band");

@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include "model/atmosphere.hpp"
+#include "model/latitude_month.hpp"
 #include "sweep.hpp"
 
 using namespace firn;
@@ -115,6 +116,62 @@ TEST_CASE("pressure from QNH", "[atmosphere][qnh]") {
                           TemperatureAt::Station)->in(hectopascals) == Approx(isa_hpa(3000)).margin(0.5));
   CHECK_FALSE(pressure_from_qnh(metres(3000), hectopascals(500)).ok());
   CHECK_FALSE(pressure_from_qnh(metres(3000), hectopascals(1013), celsius(90), TemperatureAt::Station).ok());
+}
+
+TEST_CASE("QNH with a temperature says what it cannot know", "[atmosphere][qnh]") {
+  // ICAO Doc 8168 (altimeter setting procedures): QNH is the station pressure reduced to sea level
+  // with the standard atmosphere, so from that station the standard-lapse formula returns the
+  // station pressure exactly, whatever the temperature. Round trip: 690 hPa at 3000 m.
+  double ratio = isa_hpa(3000) / 1013.25;
+  double qnh = 690.0 / ratio;
+  CHECK(pressure_from_qnh(metres(3000), hectopascals(qnh))->in(hectopascals) ==
+        Approx(690.0).margin(1e-6));
+  // With a cold station temperature the hypsometric figure treats QNH as a true sea-level
+  // pressure and comes out lower (AMS Glossary, hypsometric equation): both are kept and the note
+  // says which applies when.
+  QnhWithTemperature cold = qnh_with_temperature(metres(3000), hectopascals(qnh), celsius(-25),
+                                                 TemperatureAt::Station).value();
+  CHECK(cold.standard_lapse.in(hectopascals) == Approx(690.0).margin(1e-6));
+  CHECK(cold.with_temperature.in(hectopascals) < 690.0 - 3.0);
+  CHECK_THAT(cold.note, Catch::Contains("standard-atmosphere reduction, not a true sea-level pressure"));
+  CHECK_THAT(cold.note, Catch::Contains("690.0 hPa"));
+  // The error grows with the station's height and the cold (hypsometric equation).
+  auto gap = [](double z, double c) {
+    QnhWithTemperature q = qnh_with_temperature(metres(z), hectopascals(1013.25), celsius(c),
+                                                TemperatureAt::Station).value();
+    return std::fabs(q.with_temperature.in(hectopascals) - q.standard_lapse.in(hectopascals));
+  };
+  CHECK(gap(4000, -30) > gap(2000, -30));
+  CHECK(gap(4000, -30) > gap(4000, -15));
+  CHECK_FALSE(qnh_with_temperature(metres(3000), hectopascals(1013), celsius(90), TemperatureAt::Station).ok());
+}
+
+TEST_CASE("a station reading is checked against a known altitude", "[atmosphere][station]") {
+  // Issue 11 §6 rule: above 950 hPa with a known altitude over 1,500 m is a sea-level figure.
+  StationCheck qnh_typed = check_station_reading(hectopascals(1013), metres(3000), Model::West1996).value();
+  CHECK(qnh_typed.verdict == ReadingCheck::LooksLikeSeaLevel);
+  CHECK_THAT(qnh_typed.message, Catch::Contains("probably a sea-level figure"));
+  CHECK(check_station_reading(hectopascals(955), metres(1600), Model::West1996)->verdict ==
+        ReadingCheck::LooksLikeSeaLevel);
+  // ISA at 3000 m is 701.2 hPa (USSA 1976 Table I): consistent, and its pressure altitude by ISA
+  // is the altitude itself.
+  StationCheck isa = check_station_reading(hectopascals(701.21), metres(3000), Model::Isa).value();
+  CHECK(isa.verdict == ReadingCheck::Consistent);
+  REQUIRE(isa.pressure_altitude_known);
+  CHECK(isa.pressure_altitude.in(metres) == Approx(3000).margin(1));
+  // 60°N in January at 5 km, 511.5 hPa (NRLMSISE-00, python3-fluids): a real reading, consistent.
+  CHECK(check_station_reading(hectopascals(511.5), metres(5000), Model::West1996)->verdict ==
+        ReadingCheck::Consistent);
+  // ISA at 5000 m (540.5 hPa) typed for a 3000 m camp: no latitude or month gives that.
+  StationCheck wrong = check_station_reading(hectopascals(540.5), metres(3000), Model::West1996).value();
+  CHECK(wrong.verdict == ReadingCheck::Mismatch);
+  CHECK_THAT(wrong.message, Catch::Contains("do not agree"));
+  // Sea level with a sea-level reading is fine.
+  CHECK(check_station_reading(hectopascals(1013), metres(0), Model::West1996)->verdict ==
+        ReadingCheck::Consistent);
+  CHECK_FALSE(check_station_reading(hectopascals(50), metres(3000), Model::West1996).ok());
+  CHECK_REFUSED_NAMING(check_station_reading(hectopascals(700), metres(9500), Model::West1996),
+                       "between 0 and 9000 m");
 }
 
 TEST_CASE("a station reading is PB itself", "[atmosphere]") {
