@@ -150,7 +150,10 @@ void draw_pressure(AppState& state) {
   Result<Pressure> pb = situation_pressure(state);
   std::string label = "Barometric pressure";
   if (s.source == PressureSource::Altitude) {
-    label += " (" + situation_pressure_source(state) + ")";
+    // The place and month are in the fields just above: the label names the model only (fits a phone).
+    label += situation_latitude_month(state)
+                 ? " (" + std::string(atmosphere::latitude_month_model_name()) + ")"
+                 : " (" + std::string(atmosphere::model_name(state.settings.model)) + ")";
   } else {
     label += s.source == PressureSource::Station ? " (barometer)" : " (QNH)";
   }

@@ -134,15 +134,19 @@ TEST_CASE("QNH with a temperature says what it cannot know", "[atmosphere][qnh]"
   CHECK(cold.standard_lapse.in(hectopascals) == Approx(690.0).margin(1e-6));
   CHECK(cold.with_temperature.in(hectopascals) < 690.0 - 3.0);
   CHECK_THAT(cold.note, Catch::Contains("standard-atmosphere reduction, not a true sea-level pressure"));
-  CHECK_THAT(cold.note, Catch::Contains("690.0 hPa"));
-  // The error grows with the station's height and the cold (hypsometric equation).
-  auto gap = [](double z, double c) {
-    QnhWithTemperature q = qnh_with_temperature(metres(z), hectopascals(1013.25), celsius(c),
-                                                TemperatureAt::Station).value();
+  CHECK_THAT(cold.note, Catch::Contains("standard-lapse figure (690 hPa)"));
+  // The error grows with the station's height and the cold (hypsometric equation): the same
+  // 20 K below the ISA temperature (15 °C − 6.5 K/km) at a higher station, or colder still.
+  auto gap = [](double z, double below_isa_k) {
+    double isa_c = 15.0 - 0.0065 * geopotential_from_geometric_m(z);
+    QnhWithTemperature q = qnh_with_temperature(metres(z), hectopascals(1013.25),
+                                                celsius(isa_c - below_isa_k), TemperatureAt::Station)
+                               .value();
     return std::fabs(q.with_temperature.in(hectopascals) - q.standard_lapse.in(hectopascals));
   };
-  CHECK(gap(4000, -30) > gap(2000, -30));
-  CHECK(gap(4000, -30) > gap(4000, -15));
+  CHECK(gap(4000, 20) > gap(2000, 20));
+  CHECK(gap(4000, 30) > gap(4000, 20));
+  CHECK(gap(4000, 0) < 0.5);  // at the ISA temperature the two agree
   CHECK_FALSE(qnh_with_temperature(metres(3000), hectopascals(1013), celsius(90), TemperatureAt::Station).ok());
 }
 
