@@ -76,6 +76,7 @@ Result<Report> run_bag(const BagOptions& o) {
                                                : hb::bag_at_altitude(altitude.value(), model, s);
   if (!bag) return bag.error();
   const hb::BagResult& r = bag.value();
+  if (o.where.latitude) report.notes.emplace_back("With --latitude/--month the altitudes are " + std::string(atm::model_name(model)) + " pressure altitudes of that pressure: in a cold atmosphere the real descent to the inside pressure is shorter (firn altitude --pressure <inside> --latitude --month).");
 
   report.add_text("model", std::string(atm::model_key(model)), "Model");
   report.add("altitude_m", r.ambient_altitude.in(metres), 1, "Altitude", "m");
