@@ -2,6 +2,8 @@
 
 #include <cmath>
 
+#include "model/latitude_month.hpp"
+
 namespace firn::atmosphere {
 namespace {
 
@@ -145,12 +147,62 @@ Result<Pressure> pressure_from_qnh(Length geometric_altitude, Pressure qnh,
                  std::exp(-kG0 * kMolarMass * h.value() / (kGasConstant * mean_t)));
 }
 
+Result<QnhWithTemperature> qnh_with_temperature(Length geometric_altitude, Pressure qnh,
+                                                Temperature temperature, TemperatureAt where) {
+  Result<Pressure> hypsometric = pressure_from_qnh(geometric_altitude, qnh, temperature, where);
+  if (!hypsometric) return hypsometric.error();
+  Pressure standard = pressure_from_qnh(geometric_altitude, qnh).value();
+  double difference = std::fabs(hypsometric->in(hectopascals) - standard.in(hectopascals));
+  std::string note =
+      "A QNH from a station above sea level is a standard-atmosphere reduction, not a true "
+      "sea-level pressure: for such a QNH the standard-lapse figure (" +
+      format_number(standard.in(hectopascals), 1) +
+      " hPa) is right and the temperature does not apply. The temperature correction is for a "
+      "true sea-level pressure; here the two differ by " + format_number(difference, 1) +
+      " hPa, more with a higher station and colder air. Best: the station's own reading.";
+  return QnhWithTemperature{hypsometric.value(), standard, note};
+}
+
 Result<Pressure> pressure_from_station_reading(Pressure reading) {
   double hpa = reading.in(hectopascals);
   if (!in_range(hpa, 150.0, 1100.0)) {
     return range_error("station barometer reading", 150.0, 1100.0, "hPa", hpa);
   }
   return reading;
+}
+
+Result<StationCheck> check_station_reading(Pressure reading, Length geometric_altitude, Model model) {
+  Result<Pressure> checked = pressure_from_station_reading(reading);
+  if (!checked) return checked.error();
+  Result<PressureEnvelope> envelope = climatological_envelope(geometric_altitude);
+  if (!envelope) return envelope.error();
+  StationCheck check;
+  check.expected_low = envelope->low * (1.0 - kStationWeatherMargin);
+  check.expected_high = envelope->high * (1.0 + kStationWeatherMargin);
+  if (Result<Length> a = altitude_at(reading, model)) {
+    check.pressure_altitude = a.value();
+    check.pressure_altitude_known = true;
+  }
+  double hpa = reading.in(hectopascals);
+  std::string at = format_number(std::round(geometric_altitude.in(metres)), 0) + " m";
+  std::string expected = format_number(std::floor(check.expected_low.in(hectopascals)), 0) + "\xE2\x80\x93" +
+                         format_number(std::ceil(check.expected_high.in(hectopascals)), 0) + " hPa";
+  if (hpa > kSeaLevelFigureAboveHpa && geometric_altitude.in(metres) > kSeaLevelFigureAltitudeM) {
+    check.verdict = ReadingCheck::LooksLikeSeaLevel;
+    check.message = format_number(hpa, 1) + " hPa at " + at +
+                    " is probably a sea-level figure (QNH or a weather report), not the pressure "
+                    "here (" + expected + " is usual at this altitude). Read the barometer's "
+                    "station pressure, or enter the figure as QNH.";
+  } else if (reading < check.expected_low || reading > check.expected_high) {
+    check.verdict = ReadingCheck::Mismatch;
+    check.message = "The reading and the altitude do not agree: " + format_number(hpa, 1) +
+                    " hPa at " + at + ", where " + expected +
+                    " is usual. Check the altitude, the unit and that the reading is the station "
+                    "pressure, not QNH.";
+  } else {
+    check.message = "The reading fits the altitude (" + expected + " is usual at " + at + ").";
+  }
+  return check;
 }
 
 }  // namespace firn::atmosphere

@@ -2,6 +2,7 @@
 // mountain model, plus pressure from the day's QNH (standard lapse or a known temperature).
 #pragma once
 
+#include <string>
 #include <string_view>
 
 #include "model/result.hpp"
@@ -53,8 +54,39 @@ Result<Pressure> pressure_from_qnh(Length geometric_altitude, Pressure qnh);
 Result<Pressure> pressure_from_qnh(Length geometric_altitude, Pressure qnh,
                                    Temperature temperature, TemperatureAt where);
 
+// A QNH with a temperature, with what it cannot know. A QNH reported by a station above sea level
+// is its pressure reduced with the standard atmosphere (ICAO altimeter setting), not a true
+// sea-level pressure: from that station the standard-lapse figure undoes the reduction exactly,
+// and the temperature correction is right only for a true sea-level pressure. The two differ more
+// the higher the station and the colder the air; both are kept, with a note saying so.
+struct QnhWithTemperature {
+  Pressure with_temperature;  // hypsometric, as pressure_from_qnh with a temperature
+  Pressure standard_lapse;    // as pressure_from_qnh without one
+  std::string note;           // the caveat above, with this case's difference in hPa
+};
+Result<QnhWithTemperature> qnh_with_temperature(Length geometric_altitude, Pressure qnh,
+                                                Temperature temperature, TemperatureAt where);
+
 // A station barometer reading (not corrected to sea level) is PB itself; this only checks it is
 // a plausible absolute pressure for a person to be in: 150…1100 hPa.
 Result<Pressure> pressure_from_station_reading(Pressure reading);
+
+// A station reading checked against a known altitude. `LooksLikeSeaLevel`: above 950 hPa at a
+// known altitude over 1,500 m (issue 11's rule; no place that high has such a pressure), almost
+// certainly a QNH or a weather report's sea-level figure. `Mismatch`: outside every monthly
+// pressure NRLMSISE-00 gives at this altitude (any latitude, any month) widened by
+// kStationWeatherMargin for the day's weather. Altitude 0…9 000 m.
+inline constexpr double kSeaLevelFigureAboveHpa = 950.0;
+inline constexpr double kSeaLevelFigureAltitudeM = 1500.0;
+inline constexpr double kStationWeatherMargin = 0.05;  // ±5 % (deep lows, strong highs; from memory)
+enum class ReadingCheck { Consistent, LooksLikeSeaLevel, Mismatch };
+struct StationCheck {
+  ReadingCheck verdict = ReadingCheck::Consistent;
+  Pressure expected_low, expected_high;  // plausible at this altitude (envelope with weather)
+  Length pressure_altitude;              // the reading's altitude by the model (0 if outside it)
+  bool pressure_altitude_known = false;
+  std::string message;                   // what to do, in the user's words
+};
+Result<StationCheck> check_station_reading(Pressure reading, Length geometric_altitude, Model model);
 
 }  // namespace firn::atmosphere

@@ -14,8 +14,11 @@ using units::Fraction;
 using units::Pressure;
 using units::Temperature;
 
-// P50 of the standard curve (37 °C, pH 7.40, BE 0): 26.8 mmHg (Severinghaus 1979).
-inline constexpr double kStandardP50Mmhg = 26.8;
+// P50 of the standard curve (37 °C, pH 7.40, BE 0): the PO2 at which the Severinghaus equation
+// itself gives 50 %, the root of P³ + 150·P = 23400: 26.857 mmHg. (Severinghaus 1979 quotes the
+// human curve's P50 as 26.8; scaling by the rounded 26.8 made a requested P50 of 30 come out as
+// 30.06.) A requested P50 is then exactly the shifted curve's P50.
+inline constexpr double kStandardP50Mmhg = 26.85680014307396;
 
 // What moves the curve. Defaults are the standard conditions.
 struct CurveShift {
@@ -44,7 +47,7 @@ class Curve {
 
 // Validates the shift (message names range and unit) and builds the curve.
 // Virtual PO2, from memory (Severinghaus/Kelman form):
-//   PO2v = PO2 · 10^[0.024·(37 − T) + 0.48·(pH − 7.40) − 0.0013·BE] · 26.8 / P50
+//   PO2v = PO2 · 10^[0.024·(37 − T) + 0.48·(pH − 7.40) − 0.0013·BE] · kStandardP50Mmhg / P50
 Result<Curve> make_curve(const CurveShift& shift);
 
 // Checked single evaluations for user input: PO2 valid 0…1000 mmHg; SO2 valid 0…99.9 %.

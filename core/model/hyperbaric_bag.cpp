@@ -67,9 +67,17 @@ Pressure pio2(double o2_fraction, Pressure total) {
 
 // The altitude whose dry ambient air gives `inspired`: PB = PiO2/0.2095 + 47 mmHg, inverted by
 // the same model. Absent outside the model's pressures (below sea level, above its top).
-std::optional<Length> oxygen_equivalent(Pressure inspired, atmosphere::Model model) {
-  Result<Length> h = atmosphere::altitude_at(
-      mmhg(inspired.in(mmhg) / air_o2_fraction + kWaterVapourMmhg), model);
+// The same atmosphere both ways: the model, or the latitude/month table when one is given.
+Result<Length> altitude_of(Pressure p, atmosphere::Model model, const Settings& s) {
+  return s.where ? atmosphere::altitude_at(p, *s.where) : atmosphere::altitude_at(p, model);
+}
+Result<Pressure> pressure_of(Length h, atmosphere::Model model, const Settings& s) {
+  return s.where ? atmosphere::pressure_at(h, *s.where) : atmosphere::pressure_at(h, model);
+}
+
+std::optional<Length> oxygen_equivalent(Pressure inspired, atmosphere::Model model, const Settings& s) {
+  Result<Length> h = altitude_of(
+      mmhg(inspired.in(mmhg) / air_o2_fraction + kWaterVapourMmhg), model, s);
   if (!h) return std::nullopt;
   return h.value();
 }
@@ -98,7 +106,7 @@ void decide(BagResult& r, const Settings& s) {
   constexpr double tolerance = 1e-9;  // a flush set exactly to the requirement is enough
   r.co2_limit = s.co2_limit;
   if (r.gas) {
-    r.oxygen_equivalent_altitude = oxygen_equivalent(r.pio2_inside, r.model);
+    r.oxygen_equivalent_altitude = oxygen_equivalent(r.pio2_inside, r.model, s);
     r.co2_above_limit = r.gas->co2.in(fraction) > s.co2_limit.in(fraction) * (1 + tolerance);
     r.oxygen_below_outside = r.pio2_inside.in(mmhg) < r.pio2_ambient.in(mmhg) * (1 - tolerance);
   }
@@ -127,7 +135,7 @@ Result<BagResult> compute(Pressure ambient, Length ambient_altitude, atmosphere:
   r.ambient_pressure = ambient;
   r.ambient_altitude = ambient_altitude;
   r.inside_pressure = ambient + s.gauge;
-  Result<Length> equivalent = atmosphere::altitude_at(r.inside_pressure, model);
+  Result<Length> equivalent = altitude_of(r.inside_pressure, model, s);
   if (equivalent) {
     r.pressure_equivalent_altitude = equivalent.value();
   } else {
@@ -278,7 +286,7 @@ Result<BagResult> bag_at_altitude(Length ambient_altitude, atmosphere::Model mod
     if (cut) e.message += " (ambient pressure at least " + format_number(min_ambient_hpa) + " hPa)";
     return e;
   }
-  Result<Pressure> ambient = atmosphere::pressure_at(ambient_altitude, model);
+  Result<Pressure> ambient = pressure_of(ambient_altitude, model, settings);
   if (!ambient) return ambient.error();
   return compute(ambient.value(), ambient_altitude, model, settings);
 }
@@ -297,7 +305,7 @@ Result<BagResult> bag_at_pressure(Pressure ambient_pressure, atmosphere::Model m
     e.message += " for a bag in the " + std::string(atmosphere::model_name(model)) + " model";
     return e;
   }
-  Result<Length> altitude = atmosphere::altitude_at(ambient_pressure, model);
+  Result<Length> altitude = altitude_of(ambient_pressure, model, settings);
   if (!altitude) return altitude.error();
   return compute(ambient_pressure, altitude.value(), model, settings);
 }

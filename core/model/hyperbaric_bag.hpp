@@ -9,6 +9,7 @@
 #include <vector>
 
 #include "model/atmosphere.hpp"
+#include "model/latitude_month.hpp"
 #include "model/result.hpp"
 #include "model/units.hpp"
 
@@ -45,6 +46,9 @@ inline constexpr double fire_risk_o2_fraction = 0.235;
 inline constexpr double min_ambient_hpa = 150.0;
 
 struct Settings {
+  // Latitude and month (NRLMSISE-00 table): when given, ambient pressure and every equivalent
+  // altitude use it both ways, so a descent is in real metres for that place and season.
+  std::optional<atmosphere::LatitudeMonth> where;
   Pressure gauge = units::psi(2.0);  // typical working pressure ~2 psi = 137.9 hPa
   // Fresh air pushed through the bag, litres per minute AT CHAMBER PRESSURE (the volume it
   // occupies inside). Absent: no gas balance, only pressures.

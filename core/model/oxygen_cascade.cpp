@@ -213,7 +213,13 @@ Result<double> henderson_hasselbalch_ph(double bicarbonate_mmol_l, Pressure paco
   }
   Result<double> c = checked_paco2(paco2);
   if (!c) return c.error();
-  return 6.1 + std::log10(bicarbonate_mmol_l / (0.0307 * c.value()));
+  // CO2 solubility in plasma at 37 °C, 0.0307 mmol/L per mmHg (Severinghaus JW, Stupfel M &
+  // Bradley AF, J Appl Physiol 1956;9, from memory): pH 7.391 at HCO3⁻ 24 / PaCO2 40. The
+  // teaching value 0.03 (Guyton & Hall) gives 7.401; kept at the measured value because the
+  // expected-SpO2 field calibration (expected_spo2.hpp) was fitted with it (0.03 moves every band
+  // up ~1 % SpO2 until refitted).
+  constexpr double kCo2SolubilityMmolPerLMmhg = 0.0307;
+  return 6.1 + std::log10(bicarbonate_mmol_l / (kCo2SolubilityMmolPerLMmhg * c.value()));
 }
 
 Result<AcidBase> compensated_acid_base(Pressure paco2, Compensation compensation) {

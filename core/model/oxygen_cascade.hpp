@@ -106,7 +106,7 @@ struct AcidBase {
   double base_excess_mmol_l;  // standard base excess, Van Slyke equation (from memory)
 };
 
-// pH = 6.1 + log10(HCO3⁻ / (0.0307·PaCO2)) (Henderson–Hasselbalch). HCO3⁻ valid 2…60 mmol/L,
+// pH = 6.1 + log10(HCO3⁻ / (0.0307·PaCO2)) (Henderson–Hasselbalch; CO2 solubility at 37 °C). HCO3⁻ valid 2…60 mmol/L,
 // PaCO2 5…80 mmHg.
 Result<double> henderson_hasselbalch_ph(double bicarbonate_mmol_l, Pressure paco2);
 // HCO3⁻ from 24 mmol/L at PaCO2 40 with the compensation rule, then pH and base excess.

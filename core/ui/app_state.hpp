@@ -52,6 +52,12 @@ struct Situation {
   units::Pressure qnh = units::hectopascals(1013.25);
   bool qnh_temperature_known = false;
   units::Temperature air_temperature = units::celsius(0.0);  // at the station
+  // Barometer source: the altitude is known too, so the two are cross-checked.
+  bool station_altitude_known = false;
+  // Altitude source: pressure from NRLMSISE-00 for this latitude and month instead of the model.
+  bool latitude_month_known = false;
+  double latitude_deg = 45.0;  // north +, south −
+  int month = 1;               // 1 = January
 
   bool spo2_measured = false;                    // false: nothing entered, no verdict
   units::Fraction spo2 = units::percent(88.0);   // meaningful only when spo2_measured

@@ -1,9 +1,13 @@
-// Screen "Here": where we are, entered once for every screen (altitude, a station barometer
-// reading, or QNH + temperature; the atmosphere model visible), and the pressure here by the
-// chosen model with the other beside it.
+// Screen "Here": where we are, entered once for every screen (altitude, optionally with latitude
+// and month; a station barometer reading, cross-checked against a known altitude; or QNH +
+// temperature), and the pressure here by the chosen model with the other beside it.
 #include "ui/panels.hpp"
 
+#include <algorithm>
+#include <cmath>
+
 #include "model/atmosphere.hpp"
+#include "model/latitude_month.hpp"
 #include "model/expected_spo2.hpp"
 #include "ui/fields.hpp"
 #include "ui/format.hpp"
@@ -13,6 +17,66 @@
 namespace firn::ui {
 
 namespace {
+
+// Latitude as a number with a N/S toggle on the keypad (a typed minus also means south); ±
+// move it 1° away from or towards the equator.
+void edit_latitude(AppState& state, double& latitude_deg) {
+  int south = latitude_deg < 0 ? 1 : 0;
+  double size = std::fabs(latitude_deg);
+  FieldSpec spec{"Latitude", "latitude",
+                 shown_number(size, 1) + (south ? " \xC2\xB0S" : " \xC2\xB0N"),
+                 format_number(size, 4), {"\xC2\xB0N", "\xC2\xB0S"}, south,
+                 "0\xE2\x80\x93" "90 \xC2\xB0N or \xC2\xB0S", true};
+  FieldEvent event = keypad_field(state, spec);
+  if (event.kind == FieldEvent::Kind::None) return;
+  if (event.kind == FieldEvent::Kind::Commit) {
+    Result<double> number = units::parse_number(event.text, "latitude");
+    if (number && !in_range(std::fabs(number.value()), 0.0, atmosphere::kLatitudeHighDeg)) {
+      number = range_error("latitude", 0, atmosphere::kLatitudeHighDeg, "\xC2\xB0 N or S", number.value());
+    }
+    if (!number) {
+      state.field_errors["latitude"] = number.error().message;
+      return;
+    }
+    bool typed_south = event.unit_index == 1 || number.value() < 0;
+    latitude_deg = typed_south ? -std::fabs(number.value()) : std::fabs(number.value());
+  } else {
+    size = std::clamp(size + (event.kind == FieldEvent::Kind::Plus ? 1.0 : -1.0), 0.0,
+                      atmosphere::kLatitudeHighDeg);
+    latitude_deg = south ? -size : size;
+  }
+  state.field_errors.erase("latitude");
+}
+
+// Month by name; ± step through the year, the keypad takes 1…12.
+void edit_month(AppState& state, int& month) {
+  FieldSpec spec{"Month", "month", month_name(month), std::to_string(month), {}, 0,
+                 "1\xE2\x80\x93" "12 (1 = January)", true};
+  FieldEvent event = keypad_field(state, spec);
+  if (event.kind == FieldEvent::Kind::None) return;
+  if (event.kind == FieldEvent::Kind::Commit) {
+    Result<double> number = units::parse_number(event.text, "month");
+    Result<atmosphere::LatitudeMonth> where =
+        number ? atmosphere::make_latitude_month(0.0, number.value())
+               : Result<atmosphere::LatitudeMonth>(number.error());
+    if (!where) {
+      state.field_errors["month"] = where.error().message;
+      return;
+    }
+    month = where->month;
+  } else {
+    month = (month - 1 + (event.kind == FieldEvent::Kind::Plus ? 1 : 11)) % 12 + 1;
+  }
+  state.field_errors.erase("month");
+}
+
+void draw_latitude_month(AppState& state) {
+  Situation& s = state.situation;
+  toggle_row(state, "latitude-month", "Model only", "Latitude + month", &s.latitude_month_known);
+  if (!s.latitude_month_known) return;
+  edit_latitude(state, s.latitude_deg);
+  edit_month(state, s.month);
+}
 
 void draw_where(AppState& state) {
   using namespace units;
@@ -25,11 +89,18 @@ void draw_where(AppState& state) {
   if (s.source != PressureSource::Station) {
     edit_quantity(state, altitude_field(state, "Altitude", "altitude"), s.altitude);
   }
+  if (s.source == PressureSource::Altitude) draw_latitude_month(state);
   if (s.source == PressureSource::Station) {
     edit_quantity(state,
                   air_pressure_field(state, "Barometer reading (station, not QNH)", "station",
                                      hectopascals(150), hectopascals(1100)),
                   s.station_reading);
+    toggle_row(state, "station-altitude", "Altitude unknown", "Altitude known",
+               &s.station_altitude_known);
+    if (s.station_altitude_known) {
+      edit_quantity(state, altitude_field(state, "Altitude (to check the reading)", "altitude"),
+                    s.altitude);
+    }
   }
   if (s.source == PressureSource::Qnh) {
     edit_quantity(state, air_pressure_field(state, "QNH (sea-level pressure)", "qnh",
@@ -51,8 +122,24 @@ void draw_where(AppState& state) {
   }
   ImGui::PushTextWrapPos(0.0f);
   ImGui::TextDisabled("West 1996 fits high mountains at low latitude (the medical default); ISA is "
-                      "the aviation standard. High latitude or winter: enter a barometer reading.");
+                      "the aviation standard. High latitude or winter: give latitude + month "
+                      "(NRLMSISE-00), or better, a barometer reading.");
   ImGui::PopTextWrapPos();
+}
+
+// The barometer reading against the altitude the user knows (atmosphere::check_station_reading).
+void draw_station_check(AppState& state) {
+  const Situation& s = state.situation;
+  Result<atmosphere::StationCheck> check =
+      atmosphere::check_station_reading(s.station_reading, s.altitude, state.settings.model);
+  if (!check) {
+    verdict_line(state, Tone::Neutral, "Reading not checked: " + check.error().message);
+    return;
+  }
+  Tone tone = Tone::Good;
+  if (check->verdict == atmosphere::ReadingCheck::LooksLikeSeaLevel) tone = Tone::Danger;
+  if (check->verdict == atmosphere::ReadingCheck::Mismatch) tone = Tone::Caution;
+  verdict_line(state, tone, check->message);
 }
 
 void draw_pressure(AppState& state) {
@@ -63,7 +150,10 @@ void draw_pressure(AppState& state) {
   Result<Pressure> pb = situation_pressure(state);
   std::string label = "Barometric pressure";
   if (s.source == PressureSource::Altitude) {
-    label += " (" + std::string(atmosphere::model_name(state.settings.model)) + ")";
+    // The place and month are in the fields just above: the label names the model only (fits a phone).
+    label += situation_latitude_month(state)
+                 ? " (" + std::string(atmosphere::latitude_month_model_name()) + ")"
+                 : " (" + std::string(atmosphere::model_name(state.settings.model)) + ")";
   } else {
     label += s.source == PressureSource::Station ? " (barometer)" : " (QNH)";
   }
@@ -74,6 +164,7 @@ void draw_pressure(AppState& state) {
     atmosphere::Model other = state.settings.model == atmosphere::Model::Isa
                                   ? atmosphere::Model::West1996
                                   : atmosphere::Model::Isa;
+    if (situation_latitude_month(state)) other = state.settings.model;
     Result<Pressure> other_pb = atmosphere::pressure_at(s.altitude, other);
     std::string other_label = std::string(atmosphere::model_name(other)) + " for comparison";
     result_value(state, other_label.c_str(),
@@ -84,6 +175,15 @@ void draw_pressure(AppState& state) {
     std::string text = pb && altitude ? altitude_with_unit(altitude.value(), u) : "\xE2\x80\x94";
     std::string alt_label = "Pressure altitude (" + std::string(atmosphere::model_name(state.settings.model)) + ")";
     result_value(state, alt_label.c_str(), text, false);
+  }
+  if (s.source == PressureSource::Station && s.station_altitude_known) draw_station_check(state);
+  if (s.source == PressureSource::Qnh && s.qnh_temperature_known) {
+    Result<atmosphere::QnhWithTemperature> q = atmosphere::qnh_with_temperature(
+        s.altitude, s.qnh, s.air_temperature, atmosphere::TemperatureAt::Station);
+    if (q) {
+      result_value(state, "QNH by standard lapse", pressure_text(q->standard_lapse, u), false);
+      message_line(state, q->note, true);
+    }
   }
 }
 

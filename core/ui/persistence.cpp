@@ -92,6 +92,10 @@ std::string state_to_json(const AppState& state) {
                     {"qnh_pa", s.qnh.in(pascals)},
                     {"temperature_known", s.qnh_temperature_known},
                     {"air_temperature_k", s.air_temperature.in(kelvin)},
+                    {"station_altitude_known", s.station_altitude_known},
+                    {"latitude_month_known", s.latitude_month_known},
+                    {"latitude_deg", s.latitude_deg},
+                    {"month", s.month},
                     {"spo2_measured", s.spo2_measured},
                     {"spo2", s.spo2.in(fraction)},
                     {"time_at_altitude_h", s.time_at_altitude.in(hours)},
@@ -152,6 +156,10 @@ bool state_from_json(AppState& state, const std::string& text) {
   read(si, "qnh_pa", pascals, 90000, 110000, s.qnh);
   read(si, "temperature_known", s.qnh_temperature_known);
   read(si, "air_temperature_k", kelvin, 213.15, 323.15, s.air_temperature);
+  read(si, "station_altitude_known", s.station_altitude_known);
+  read(si, "latitude_month_known", s.latitude_month_known);
+  read(si, "latitude_deg", -90.0, 90.0, s.latitude_deg);
+  read(si, "month", 1, 12, s.month);
   read(si, "spo2_measured", s.spo2_measured);
   read(si, "spo2", fraction, 0.3, 1.0, s.spo2);
   bool acclimatised = false;  // saved by versions with two states only: the preset

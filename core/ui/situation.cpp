@@ -2,6 +2,8 @@
 
 #include <imgui.h>
 
+#include <cmath>
+
 #include "model/atmosphere.hpp"
 #include "ui/format.hpp"
 #include "ui/test_hook.hpp"
@@ -23,7 +25,35 @@ Result<Pressure> situation_pressure(const AppState& state) {
       return atmosphere::pressure_from_qnh(s.altitude, s.qnh);
     case PressureSource::Altitude: break;
   }
-  return atmosphere::pressure_at(s.altitude, state.settings.model);
+  return atmosphere::pressure_at(s.altitude, state.settings.model, situation_latitude_month(state));
+}
+
+std::optional<atmosphere::LatitudeMonth> situation_latitude_month(const AppState& state) {
+  const Situation& s = state.situation;
+  if (s.source != PressureSource::Altitude || !s.latitude_month_known) return std::nullopt;
+  Result<atmosphere::LatitudeMonth> where = atmosphere::make_latitude_month(s.latitude_deg, s.month);
+  if (!where) return std::nullopt;
+  return where.value();
+}
+
+namespace {
+constexpr const char* kMonthNames[] = {"January", "February", "March",     "April",
+                                       "May",     "June",     "July",      "August",
+                                       "September", "October", "November", "December"};
+}  // namespace
+
+std::string month_name(int month) {
+  if (month < 1 || month > 12) return "\xE2\x80\x94";
+  return kMonthNames[month - 1];
+}
+
+std::string situation_pressure_source(const AppState& state) {
+  std::optional<atmosphere::LatitudeMonth> where = situation_latitude_month(state);
+  if (!where) return std::string(atmosphere::model_name(state.settings.model));
+  double lat = where->latitude_deg;
+  return std::string(atmosphere::latitude_month_model_name()) + ", " +
+         format_number(std::fabs(lat), 1) + "\xC2\xB0" + (lat < 0 ? " S" : " N") + ", " +
+         month_name(where->month);
 }
 
 Result<Length> situation_altitude(const AppState& state) {
@@ -43,7 +73,7 @@ std::string situation_summary(const AppState& state) {
   text += altitude ? altitude_with_unit(altitude.value(), u) : std::string("\xE2\x80\x94");
   text += " \xC2\xB7 ";
   text += pb ? pressure_text(pb.value(), u) : std::string("\xE2\x80\x94");
-  if (s.source == PressureSource::Altitude) text += " (" + std::string(atmosphere::model_name(state.settings.model)) + ")";
+  if (s.source == PressureSource::Altitude) text += " (" + situation_pressure_source(state) + ")";
   if (s.source == PressureSource::Qnh) text += " (QNH)";
   text += " \xC2\xB7 ";
   text += s.spo2_measured ? "SpO2 " + percent_text(s.spo2) : std::string("no SpO2");

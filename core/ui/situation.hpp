@@ -2,16 +2,25 @@
 // chose, and a one-line summary every screen shows at its top (tap it to change the situation).
 #pragma once
 
+#include <optional>
 #include <string>
 
+#include "model/latitude_month.hpp"
 #include "model/result.hpp"
 #include "model/units.hpp"
 #include "ui/app_state.hpp"
 
 namespace firn::ui {
 
-// PB here: from the altitude (chosen model), the station barometer, or QNH (+ temperature).
+// PB here: from the altitude (chosen model, or NRLMSISE-00 for a latitude and month), the station
+// barometer, or QNH (+ temperature).
 Result<units::Pressure> situation_pressure(const AppState& state);
+// The latitude and month in use: only with the altitude source and when entered.
+std::optional<atmosphere::LatitudeMonth> situation_latitude_month(const AppState& state);
+// "NRLMSISE-00, 60° N, January" or the model's name: what the altitude-source pressure comes from.
+std::string situation_pressure_source(const AppState& state);
+// "January"; "—" outside 1…12.
+std::string month_name(int month);
 // Altitude implied by PB with the chosen model (for a barometer reading), or the entered one.
 Result<units::Length> situation_altitude(const AppState& state);
 

@@ -93,6 +93,51 @@ Result<atmosphere::Model> model_option(const std::optional<std::string>& text) {
   return model;
 }
 
+void add_latitude_month_options(CLI::App* command, LatitudeMonthOptions& options) {
+  command->add_option("--latitude", options.latitude,
+                      "Latitude in degrees, north + / south - (with --month): NRLMSISE-00 pressure");
+  command->add_option("--month", options.month, "Month 1-12 (with --latitude)");
+}
+
+Result<std::optional<atmosphere::LatitudeMonth>> latitude_month_option(
+    const LatitudeMonthOptions& options) {
+  using Where = std::optional<atmosphere::LatitudeMonth>;
+  if (!options.latitude && !options.month) return Where{};
+  if (!options.latitude) return Error{"--month needs --latitude (degrees, north + / south -)"};
+  if (!options.month) return Error{"--latitude needs --month (1 = January ... 12 = December)"};
+  Result<double> latitude = required_number(options.latitude, "--latitude", "latitude",
+                                            atmosphere::kLatitudeLowDeg, atmosphere::kLatitudeHighDeg,
+                                            "degrees (north +, south -)");
+  if (!latitude) return latitude.error();
+  Result<double> month = required_number(options.month, "--month", "month", atmosphere::kFirstMonth,
+                                         atmosphere::kLastMonth, "(1 = January)");
+  if (!month) return month.error();
+  Result<atmosphere::LatitudeMonth> where =
+      atmosphere::make_latitude_month(latitude.value(), month.value());
+  if (!where) return Error{"--month: " + where.error().message};
+  return Where{where.value()};
+}
+
+Result<units::Pressure> ambient_pressure(units::Length altitude, atmosphere::Model model,
+                                         const LatitudeMonthOptions& options, Report& report) {
+  Result<std::optional<atmosphere::LatitudeMonth>> where = latitude_month_option(options);
+  if (!where) return where.error();
+  Result<units::Pressure> pb = atmosphere::pressure_at(altitude, model, where.value());
+  if (!pb) return Error{"--altitude: " + pb.error().message};
+  if (where.value()) {
+    const atmosphere::LatitudeMonth& w = *where.value();
+    std::string name(atmosphere::latitude_month_model_name());
+    report.add("latitude_deg", w.latitude_deg, 2, "Latitude", "deg");
+    report.add("month", w.month, 0, "Month", "");
+    report.add_text("pressure_source", "latitude-month (" + name + ")", "Pressure from");
+    report.notes.emplace_back("Pressure from " + name +
+                              " for this latitude and month (Picone JM et al., J Geophys Res "
+                              "2002;107:1468), not " + std::string(atmosphere::model_name(model)) +
+                              "; a barometer reading here is better still.");
+  }
+  return pb;
+}
+
 Result<double> required_number(const std::optional<std::string>& text, const std::string& option,
                                const std::string& what, double low, double high,
                                const std::string& unit) {

@@ -14,6 +14,7 @@
 #include <vector>
 
 #include "model/atmosphere.hpp"
+#include "model/latitude_month.hpp"
 #include "model/result.hpp"
 #include "model/units.hpp"
 
@@ -100,6 +101,20 @@ Result<double> required_number(const std::optional<std::string>& text, const std
 
 // --model: West 1996 (the medical default) when not given.
 Result<atmosphere::Model> model_option(const std::optional<std::string>& text);
+
+// --latitude DEG --month 1…12 (pressure, oxygenation, bag): the pressure at an altitude from the
+// NRLMSISE-00 latitude/month figures instead of the model's. Both or neither. A command holds a
+// LatitudeMonthOptions, registers it with one call and gets its pressure with another.
+struct LatitudeMonthOptions {
+  std::optional<std::string> latitude, month;
+};
+void add_latitude_month_options(CLI::App* command, LatitudeMonthOptions& options);
+Result<std::optional<atmosphere::LatitudeMonth>> latitude_month_option(
+    const LatitudeMonthOptions& options);
+// PB at `altitude`: by latitude/month when given (then adds latitude_deg, month and
+// pressure_source to `report`, with a note), else by `model`.
+Result<units::Pressure> ambient_pressure(units::Length altitude, atmosphere::Model model,
+                                         const LatitudeMonthOptions& options, Report& report);
 
 // Rounds for output: JSON carries the same figures the table shows, never NaN.
 double rounded(double value, int decimals);

@@ -4,6 +4,7 @@
 #include "cli/cli.hpp"
 #include "model/atmosphere.hpp"
 #include "model/cautions.hpp"
+#include "model/latitude_month.hpp"
 
 namespace firn::cli {
 namespace {
@@ -12,11 +13,13 @@ using namespace units;
 namespace atm = firn::atmosphere;
 
 struct PressureOptions {
-  std::optional<std::string> altitude, model, qnh, temperature, temperature_at;
+  std::optional<std::string> altitude, model, qnh, temperature, temperature_at, station;
+  LatitudeMonthOptions where;
 };
 
 struct AltitudeOptions {
   std::optional<std::string> pressure, model;
+  LatitudeMonthOptions where;
 };
 
 void add_caution(Report& report) {
@@ -32,9 +35,63 @@ void add_pressure_rows(Report& report, const std::string& prefix, const std::str
   report.add(prefix + "pressure_inhg", p.in(inhg), 2, label, "inHg");
 }
 
+std::string_view check_key(atm::ReadingCheck verdict) {
+  switch (verdict) {
+    case atm::ReadingCheck::LooksLikeSeaLevel: return "sea_level_figure";
+    case atm::ReadingCheck::Mismatch: return "mismatch";
+    case atm::ReadingCheck::Consistent: break;
+  }
+  return "consistent";
+}
+
+// `pressure --station P [--altitude A]`: the reading is PB; with an altitude, the two are
+// cross-checked (atm::check_station_reading decides).
+Result<Report> run_station(const PressureOptions& o, atm::Model model) {
+  if (o.qnh || o.temperature) return Error{"give --station or --qnh, not both"};
+  Result<Pressure> reading = required_pressure(
+      o.station, "--station", "station barometer reading",
+      range_of<Pressure>([](Pressure p) { return atm::pressure_from_station_reading(p); }));
+  if (!reading) return reading.error();
+  Result<Pressure> checked = atm::pressure_from_station_reading(reading.value());
+  if (!checked) return Error{"--station: " + checked.error().message};
+  Report report;
+  report.add_text("method", "station", "Method");
+  report.add_text("model", std::string(atm::model_key(model)), "Model");
+  add_pressure_rows(report, "", "Barometric pressure", reading.value());
+  if (Result<Length> a = atm::altitude_at(reading.value(), model)) {
+    report.add("pressure_altitude_m", a->in(metres), 1,
+               "Pressure altitude (" + std::string(atm::model_name(model)) + ")", "m");
+  } else {
+    report.json["pressure_altitude_m"] = nullptr;
+    report.rows.emplace_back("Pressure altitude", "outside model range");
+  }
+  if (o.altitude) {
+    Result<Length> altitude = required_length(
+        o.altitude, "--altitude", "altitude", range_of<Length>([&](Length a) {
+          return atm::check_station_reading(reading.value(), a, model);
+        }));
+    if (!altitude) return altitude.error();
+    Result<atm::StationCheck> check = atm::check_station_reading(reading.value(), altitude.value(), model);
+    if (!check) return Error{"--altitude: " + check.error().message};
+    report.add("altitude_m", altitude->in(metres), 1, "Altitude (entered)", "m");
+    report.add("expected_low_hpa", check->expected_low.in(hectopascals), 1, "Usual here, lowest", "hPa");
+    report.add("expected_high_hpa", check->expected_high.in(hectopascals), 1, "Usual here, highest", "hPa");
+    report.add_text("station_check", std::string(check_key(check->verdict)), "Reading vs altitude");
+    report.json["station_check_message"] = check->message;
+    if (check->verdict != atm::ReadingCheck::Consistent) report.notes.push_back("CHECK: " + check->message);
+  }
+  add_caution(report);
+  return report;
+}
+
 Result<Report> run_pressure(const PressureOptions& o) {
   Result<atm::Model> model = model_option(o.model);
   if (!model) return model.error();
+  bool latitude_given = o.where.latitude || o.where.month;
+  if (latitude_given && (o.qnh || o.station)) {
+    return Error{"--latitude/--month give the pressure from the altitude: not with --qnh or --station"};
+  }
+  if (o.station) return run_station(o, model.value());
   const Pressure standard_qnh = atmospheres(1);
   Result<Length> altitude = required_length(
       o.altitude, "--altitude", "altitude",
@@ -63,7 +120,13 @@ Result<Report> run_pressure(const PressureOptions& o) {
       } else if (o.temperature_at && *o.temperature_at != "sea-level") {
         return Error{"--temperature-at must be sea-level or station"};
       }
-      pressure = atm::pressure_from_qnh(altitude.value(), qnh.value(), t.value(), where);
+      Result<atm::QnhWithTemperature> q = atm::qnh_with_temperature(altitude.value(), qnh.value(), t.value(), where);
+      if (!q) return q.error();
+      pressure = q->with_temperature;
+      report.add("standard_lapse_pressure_hpa", q->standard_lapse.in(hectopascals), 2,
+                 "QNH by standard lapse", "hPa");
+      report.json["qnh_note"] = q->note;
+      report.notes.push_back(q->note);
       method = where == atm::TemperatureAt::Station ? "qnh+station-temperature (hypsometric)"
                                                     : "qnh+sea-level-temperature (hypsometric)";
     } else {
@@ -72,8 +135,9 @@ Result<Report> run_pressure(const PressureOptions& o) {
     }
   } else {
     if (o.temperature) return Error{"--temperature needs --qnh (the day's sea-level pressure)"};
-    pressure = atm::pressure_at(altitude.value(), model.value());
-    method = std::string(atm::model_key(model.value()));
+    pressure = ambient_pressure(altitude.value(), model.value(), o.where, report);
+    method = latitude_given ? "latitude-month (" + std::string(atm::latitude_month_model_name()) + ")"
+                            : std::string(atm::model_key(model.value()));
   }
   if (!pressure) return pressure.error();
 
@@ -98,15 +162,26 @@ Result<Report> run_pressure(const PressureOptions& o) {
 Result<Report> run_altitude(const AltitudeOptions& o) {
   Result<atm::Model> model = model_option(o.model);
   if (!model) return model.error();
-  Result<Pressure> pressure = required_pressure(
-      o.pressure, "--pressure", "barometric pressure",
-      range_of<Pressure>([&](Pressure p) { return atm::altitude_at(p, model.value()); }));
+  Result<std::optional<atm::LatitudeMonth>> where = latitude_month_option(o.where);
+  if (!where) return where.error();
+  auto altitude_for = [&](Pressure p) {
+    return where.value() ? atm::altitude_at(p, *where.value()) : atm::altitude_at(p, model.value());
+  };
+  Result<Pressure> pressure = required_pressure(o.pressure, "--pressure", "barometric pressure",
+                                                range_of<Pressure>(altitude_for));
   if (!pressure) return pressure.error();
-  Result<Length> altitude = atm::altitude_at(pressure.value(), model.value());
+  Result<Length> altitude = altitude_for(pressure.value());
   if (!altitude) return altitude.error();
   Report report;
   report.add("pressure_hpa", pressure->in(hectopascals), 2, "Barometric pressure", "hPa");
   report.add_text("model", std::string(atm::model_key(model.value())), "Model");
+  if (where.value()) {
+    report.add("latitude_deg", where.value()->latitude_deg, 2, "Latitude", "deg");
+    report.add("month", where.value()->month, 0, "Month", "");
+    report.add_text("pressure_source",
+                    "latitude-month (" + std::string(atm::latitude_month_model_name()) + ")",
+                    "Altitude from");
+  }
   report.add("altitude_m", altitude->in(metres), 1, "Altitude", "m");
   report.add("altitude_ft", altitude->in(feet), 0, "Altitude", "ft");
   for (atm::Model each : {atm::Model::West1996, atm::Model::Isa}) {
@@ -135,12 +210,16 @@ void register_atmosphere_commands(CommandTable& table) {
   pressure->add_option("--temperature", p->temperature, "Air temperature with --qnh, e.g. -5C");
   pressure->add_option("--temperature-at", p->temperature_at,
                        "Where --temperature was taken: sea-level (default) or station");
+  pressure->add_option("--station", p->station,
+                       "A station barometer reading (not QNH); with --altitude, cross-checked");
+  add_latitude_month_options(pressure, p->where);
 
   auto a = std::make_shared<AltitudeOptions>();
   CLI::App* altitude = table.add("altitude", "Altitude from a barometric pressure",
                                  [a] { return run_altitude(*a); });
   altitude->add_option("--pressure", a->pressure, "Barometric pressure, e.g. 616hPa or 462mmHg");
   altitude->add_option("--model", a->model, "Atmosphere model: west (default) or isa");
+  add_latitude_month_options(altitude, a->where);
 }
 
 }  // namespace firn::cli

@@ -16,6 +16,7 @@ namespace hb = firn::hyperbaric_bag;
 struct BagOptions {
   std::optional<std::string> altitude, pressure, gauge, model, flush, o2_feed, bag_volume,
       stroke_volume, co2_limit, vco2, vo2, chamber_temperature;
+  LatitudeMonthOptions where;
 };
 
 // Where the bag is: an altitude (ambient by the model) or a measured ambient pressure.
@@ -64,6 +65,9 @@ std::optional<Error> number_option(const std::optional<std::string>& text, const
 
 Result<hb::Settings> settings_option(const BagOptions& o, const Place& place, atm::Model model) {
   hb::Settings s;
+  Result<std::optional<atm::LatitudeMonth>> where = latitude_month_option(o.where);
+  if (!where) return where.error();
+  s.where = where.value();
   if (o.gauge) {
     Result<Pressure> g = required_pressure(o.gauge, "--gauge", "bag gauge pressure",
                                            range_of<Pressure>([&](Pressure gauge) {
@@ -160,6 +164,14 @@ Result<Report> run_bag(const BagOptions& o) {
   const hb::BagResult& r = bag.value();
 
   Report report;
+  if (s.where) {
+    report.add("latitude_deg", s.where->latitude_deg, 2, "Latitude", "deg");
+    report.add("month", s.where->month, 0, "Month", "");
+    report.notes.emplace_back("Pressures and equivalent altitudes from " +
+                              std::string(atm::latitude_month_model_name()) +
+                              " for this latitude and month (Picone JM et al., J Geophys Res "
+                              "2002;107:1468), both ways.");
+  }
   report.add_text("model", std::string(atm::model_key(model)), "Model");
   report.add("altitude_m", r.ambient_altitude.in(metres), 1, "Altitude", "m");
   report.add("ambient_pressure_hpa", r.ambient_pressure.in(hectopascals), 1, "Ambient pressure",
@@ -214,6 +226,7 @@ void register_bag_commands(CommandTable& table) {
   bag->add_option("--pressure", o->pressure, "Measured ambient pressure instead, e.g. 616hPa");
   bag->add_option("--gauge", o->gauge, "Bag gauge pressure, e.g. 2psi (default) or 140mbar");
   bag->add_option("--model", o->model, "Atmosphere model: west (default) or isa");
+  add_latitude_month_options(bag, o->where);
   bag->add_option("--flush", o->flush, "Fresh-air flush, L/min at bag pressure (5-300)");
   bag->add_option("--o2-feed", o->o2_feed, "Oxygen fed into the bag, L/min (0-15)");
   bag->add_option("--bag-volume", o->bag_volume, "Gas volume of the bag, L (default 480, assumed)");

@@ -24,6 +24,7 @@ struct OxygenationOptions {
   std::optional<std::string> altitude, pressure, model, fio2, spo2, device, flow, target;
   std::optional<std::string> time_at_altitude, breathing;
   bool acclimatised = false;
+  LatitudeMonthOptions where;
 };
 
 struct CurveOptions {
@@ -55,6 +56,7 @@ Result<std::optional<double>> optional_number(const std::optional<std::string>& 
 Result<Pressure> barometric_pressure(const OxygenationOptions& o, atm::Model model,
                                      Report& report) {
   if (o.altitude && o.pressure) return Error{"give --altitude or --pressure, not both"};
+  if (o.pressure && (o.where.latitude || o.where.month)) return Error{"--latitude/--month go with --altitude, not --pressure"};
   if (o.pressure) {
     Result<Pressure> p = required_pressure(
         o.pressure, "--pressure", "barometric pressure",
@@ -68,8 +70,8 @@ Result<Pressure> barometric_pressure(const OxygenationOptions& o, atm::Model mod
       o.altitude, o.altitude ? "--altitude" : "--altitude or --pressure", "altitude",
       range_of<Length>([&](Length at) { return atm::pressure_at(at, model); }));
   if (!altitude) return altitude.error();
-  Result<Pressure> p = atm::pressure_at(altitude.value(), model);
-  if (!p) return Error{"--altitude: " + p.error().message};
+  Result<Pressure> p = ambient_pressure(altitude.value(), model, o.where, report);
+  if (!p) return p.error();
   report.add("altitude_m", altitude->in(metres), 1, "Altitude", "m");
   return p;
 }
@@ -382,6 +384,7 @@ void register_oxygenation_commands(CommandTable& table) {
   ox->add_option("--altitude", o->altitude, "Altitude, e.g. 4000m or 13120ft");
   ox->add_option("--pressure", o->pressure, "Measured barometric pressure, e.g. 616hPa");
   ox->add_option("--model", o->model, "Atmosphere model for --altitude: west (default) or isa");
+  add_latitude_month_options(ox, o->where);
   ox->add_flag("--acclimatised", o->acclimatised,
                "Preset: 3 weeks at this altitude (default: acute, on arrival)");
   ox->add_option("--time-at-altitude", o->time_at_altitude,

@@ -4,6 +4,7 @@
 #include <cmath>
 
 #include "model/atmosphere.hpp"
+#include "model/latitude_month.hpp"
 #include "sweep.hpp"
 
 using namespace firn;
@@ -117,6 +118,66 @@ TEST_CASE("pressure from QNH", "[atmosphere][qnh]") {
   CHECK_FALSE(pressure_from_qnh(metres(3000), hectopascals(1013), celsius(90), TemperatureAt::Station).ok());
 }
 
+TEST_CASE("QNH with a temperature says what it cannot know", "[atmosphere][qnh]") {
+  // ICAO Doc 8168 (altimeter setting procedures): QNH is the station pressure reduced to sea level
+  // with the standard atmosphere, so from that station the standard-lapse formula returns the
+  // station pressure exactly, whatever the temperature. Round trip: 690 hPa at 3000 m.
+  double ratio = isa_hpa(3000) / 1013.25;
+  double qnh = 690.0 / ratio;
+  CHECK(pressure_from_qnh(metres(3000), hectopascals(qnh))->in(hectopascals) ==
+        Approx(690.0).margin(1e-6));
+  // With a cold station temperature the hypsometric figure treats QNH as a true sea-level
+  // pressure and comes out lower (AMS Glossary, hypsometric equation): both are kept and the note
+  // says which applies when.
+  QnhWithTemperature cold = qnh_with_temperature(metres(3000), hectopascals(qnh), celsius(-25),
+                                                 TemperatureAt::Station).value();
+  CHECK(cold.standard_lapse.in(hectopascals) == Approx(690.0).margin(1e-6));
+  CHECK(cold.with_temperature.in(hectopascals) < 690.0 - 3.0);
+  CHECK_THAT(cold.note, Catch::Contains("standard-atmosphere reduction, not a true sea-level pressure"));
+  CHECK_THAT(cold.note, Catch::Contains("standard-lapse figure (690 hPa)"));
+  // The error grows with the station's height and the cold (hypsometric equation): the same
+  // 20 K below the ISA temperature (15 °C − 6.5 K/km) at a higher station, or colder still.
+  auto gap = [](double z, double below_isa_k) {
+    double isa_c = 15.0 - 0.0065 * geopotential_from_geometric_m(z);
+    QnhWithTemperature q = qnh_with_temperature(metres(z), hectopascals(1013.25),
+                                                celsius(isa_c - below_isa_k), TemperatureAt::Station)
+                               .value();
+    return std::fabs(q.with_temperature.in(hectopascals) - q.standard_lapse.in(hectopascals));
+  };
+  CHECK(gap(4000, 20) > gap(2000, 20));
+  CHECK(gap(4000, 30) > gap(4000, 20));
+  CHECK(gap(4000, 0) < 0.5);  // at the ISA temperature the two agree
+  CHECK_FALSE(qnh_with_temperature(metres(3000), hectopascals(1013), celsius(90), TemperatureAt::Station).ok());
+}
+
+TEST_CASE("a station reading is checked against a known altitude", "[atmosphere][station]") {
+  // Issue 11 §6 rule: above 950 hPa with a known altitude over 1,500 m is a sea-level figure.
+  StationCheck qnh_typed = check_station_reading(hectopascals(1013), metres(3000), Model::West1996).value();
+  CHECK(qnh_typed.verdict == ReadingCheck::LooksLikeSeaLevel);
+  CHECK_THAT(qnh_typed.message, Catch::Contains("probably a sea-level figure"));
+  CHECK(check_station_reading(hectopascals(955), metres(1600), Model::West1996)->verdict ==
+        ReadingCheck::LooksLikeSeaLevel);
+  // ISA at 3000 m is 701.2 hPa (USSA 1976 Table I): consistent, and its pressure altitude by ISA
+  // is the altitude itself.
+  StationCheck isa = check_station_reading(hectopascals(701.21), metres(3000), Model::Isa).value();
+  CHECK(isa.verdict == ReadingCheck::Consistent);
+  REQUIRE(isa.pressure_altitude_known);
+  CHECK(isa.pressure_altitude.in(metres) == Approx(3000).margin(1));
+  // 60°N in January at 5 km, 511.5 hPa (NRLMSISE-00, python3-fluids): a real reading, consistent.
+  CHECK(check_station_reading(hectopascals(511.5), metres(5000), Model::West1996)->verdict ==
+        ReadingCheck::Consistent);
+  // ISA at 5000 m (540.5 hPa) typed for a 3000 m camp: no latitude or month gives that.
+  StationCheck wrong = check_station_reading(hectopascals(540.5), metres(3000), Model::West1996).value();
+  CHECK(wrong.verdict == ReadingCheck::Mismatch);
+  CHECK_THAT(wrong.message, Catch::Contains("do not agree"));
+  // Sea level with a sea-level reading is fine.
+  CHECK(check_station_reading(hectopascals(1013), metres(0), Model::West1996)->verdict ==
+        ReadingCheck::Consistent);
+  CHECK_FALSE(check_station_reading(hectopascals(50), metres(3000), Model::West1996).ok());
+  CHECK_REFUSED_NAMING(check_station_reading(hectopascals(700), metres(9500), Model::West1996),
+                       "between 0 and 9000 m");
+}
+
 TEST_CASE("a station reading is PB itself", "[atmosphere]") {
   CHECK(pressure_from_station_reading(hectopascals(616))->in(hectopascals) == 616.0);
   CHECK_FALSE(pressure_from_station_reading(hectopascals(50)).ok());
@@ -132,7 +193,8 @@ TEST_CASE("model names and keys", "[atmosphere]") {
 TEST_CASE("sweep: pressures to altitudes, QNH and station readings over their whole ranges",
           "[atmosphere][sweep]") {
   // pressure_at over each model's range: see the inverse and monotonic cases above. Here the
-  // other direction, from every pressure the model covers (ISA 55.3…1074.7, West 330.1…1013.2).
+  // other direction, from every pressure the model covers (ISA 55.3…1074.7, West 330…1012.6
+  // with the corrected constant 6.63268: 329.92…1012.63 hPa).
   for (Model model : {Model::Isa, Model::West1996}) {
     AltitudeRange range = valid_altitudes(model);
     double low_hpa = pressure_at(metres(range.high_m), model)->in(hectopascals);
@@ -187,8 +249,8 @@ TEST_CASE("sweep: just outside every atmosphere range the message names it",
   CHECK_REFUSED_NAMING(pressure_at(metres(9000.01), Model::West1996), "between 0 and 9000 m");
   CHECK_REFUSED_NAMING(altitude_at(hectopascals(55.2), Model::Isa), "between 55.3 and 1074.7 hPa");
   CHECK_REFUSED_NAMING(altitude_at(hectopascals(1074.8), Model::Isa), "between 55.3 and 1074.7 hPa");
-  CHECK_REFUSED_NAMING(altitude_at(hectopascals(330.0), Model::West1996), "between 330.1 and 1013.2 hPa");
-  CHECK_REFUSED_NAMING(altitude_at(hectopascals(1013.3), Model::West1996), "between 330.1 and 1013.2 hPa");
+  CHECK_REFUSED_NAMING(altitude_at(hectopascals(329.9), Model::West1996), "between 330 and 1012.6 hPa");
+  CHECK_REFUSED_NAMING(altitude_at(hectopascals(1012.7), Model::West1996), "between 330 and 1012.6 hPa");
   CHECK_REFUSED_NAMING(pressure_from_qnh(metres(-500.01), hectopascals(1013)), "between -500 and 9000 m");
   CHECK_REFUSED_NAMING(pressure_from_qnh(metres(9000.01), hectopascals(1013)), "between -500 and 9000 m");
   CHECK_REFUSED_NAMING(pressure_from_qnh(metres(0), hectopascals(899.99)), "between 900 and 1100 hPa");

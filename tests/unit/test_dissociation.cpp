@@ -31,6 +31,10 @@ TEST_CASE("Severinghaus 1979 saturation at standard conditions", "[dissociation]
 TEST_CASE("standard curve P50 is 26.8 mmHg", "[dissociation]") {
   // Severinghaus 1979: the standard human curve has P50 26.8 mmHg at 37 °C, pH 7.40.
   CHECK(Curve::standard().p50().in(mmhg) == Approx(26.8).margin(0.1));
+  // The equation's own P50 is the root of P³ + 150·P = 23400 (same paper's equation, solved by
+  // hand): 26.857 mmHg, and the constant the curve is scaled by is that root, not the rounded 26.8.
+  CHECK(Curve::standard().p50().in(mmhg) == Approx(26.857).margin(0.001));
+  CHECK(severinghaus_saturation(kStandardP50Mmhg) == Approx(0.5).epsilon(1e-12));
   // The published approximate inverse gives the same P50 (same paper).
   CHECK(severinghaus_inverse_approximation(percent(50))->in(mmhg) == Approx(26.8).margin(0.1));
 }
@@ -92,12 +96,29 @@ TEST_CASE("shifts move the curve the right way", "[dissociation]") {
   CHECK(so2_pct(40, fever) < standard - 2);
   CHECK(so2_pct(40, high_p50) < standard - 2);
   CHECK(so2_pct(40, low_p50) > standard + 2);
-  // A P50 shift is a pure rescaling: the shifted curve's P50 is the requested one.
-  CHECK(make_curve(high_p50)->p50().in(mmhg) == Approx(30 * Curve::standard().p50().in(mmhg) / 26.8));
+  // A P50 shift is a pure rescaling: the shifted curve's P50 is the requested one (issue 11 §7:
+  // a requested 30 mmHg once came out as 30.06, scaled by the rounded 26.8).
+  CHECK(make_curve(high_p50)->p50().in(mmhg) == Approx(30.0).epsilon(1e-9));
   // Virtual PO2 factor for pH 7.60 alone: 10^(0.48·0.2) = 1.247 (virtual PO2 form, from memory).
   CurveShift ph760;
   ph760.ph = 7.60;
   CHECK(make_curve(ph760)->virtual_po2_factor() == Approx(1.2474).margin(0.0005));
+}
+
+TEST_CASE("a requested P50 is the curve's P50: S(P50) = 50 %", "[dissociation]") {
+  // Definition of P50 (any physiology text): the PO2 at which haemoglobin is half saturated. The
+  // whole-curve shift (2,3-DPG) is a rescaling of PO2, so at standard pH and temperature the
+  // shifted curve must give exactly 50 % at the P50 it was asked for, over the whole valid range.
+  for (double p50 = 15.0; p50 <= 40.0; p50 += 0.5) {
+    CurveShift shift;
+    shift.p50 = mmhg(p50);
+    Result<Curve> curve = make_curve(shift);
+    REQUIRE(curve.ok());
+    CHECK(curve->saturation(mmhg(p50)).in(percent) == Approx(50.0).epsilon(1e-9));
+    CHECK(curve->p50().in(mmhg) == Approx(p50).epsilon(1e-9));
+  }
+  // The default shift is no shift at all.
+  CHECK(make_curve(CurveShift{})->virtual_po2_factor() == Approx(1.0).epsilon(1e-15));
 }
 
 TEST_CASE("bad inputs are errors naming the range and unit", "[dissociation][errors]") {

@@ -48,9 +48,13 @@ TEST_CASE("alveolar gas equation", "[cascade]") {
 }
 
 TEST_CASE("Henderson–Hasselbalch pH and renal compensation", "[cascade][acid-base]") {
-  // Normal arterial blood: HCO3⁻ 24 mmol/L, PaCO2 40 mmHg, pH 7.40 (physiology texts; with the
-  // 0.0307 solubility the equation gives 7.391).
-  CHECK(henderson_hasselbalch_ph(24, mmhg(40)).value() == Approx(7.40).margin(0.01));
+  // Normal arterial blood: HCO3⁻ 24 mmol/L, PaCO2 40 mmHg, pH 7.40 (physiology texts). With the
+  // measured CO2 solubility 0.0307 mmol/L/mmHg (Severinghaus, Stupfel & Bradley, J Appl Physiol
+  // 1956;9; from memory) the equation gives 6.1 + log10(24 / 1.228) = 7.391 (by hand); the
+  // teaching value 0.03 would give 7.401, which this margin refuses.
+  CHECK(henderson_hasselbalch_ph(24, mmhg(40)).value() == Approx(7.391).margin(0.0005));
+  // Same equation by hand: HCO3⁻ 12, PaCO2 20 → the same ratio, the same 7.391.
+  CHECK(henderson_hasselbalch_ph(12, mmhg(20)).value() == Approx(7.391).margin(0.0005));
   // Compensation rules (common practice): PaCO2 30 acutely → HCO3⁻ 22; after days → 19.5.
   AcidBase acute = compensated_acid_base(mmhg(30), Compensation::Acute).value();
   AcidBase chronic = compensated_acid_base(mmhg(30), Compensation::Chronic).value();

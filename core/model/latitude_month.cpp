@@ -1,0 +1,126 @@
+#include "model/latitude_month.hpp"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdint>
+
+namespace firn::atmosphere {
+namespace {
+
+using namespace units;
+
+constexpr int kLatitudeNodes = 37;      // −90…90 every 5°
+constexpr double kLatitudeStepDeg = 5.0;
+constexpr int kAltitudeNodes = 10;      // 0…9000 m every 1000 m
+constexpr double kAltitudeStepM = 1000.0;
+constexpr double kRatioScale = 1e5;
+
+// NRLMSISE-00 / West 1996 × 1e5; rows (month − 1)·37 + latitude index, columns altitude index.
+constexpr std::int32_t kRatio[12 * kLatitudeNodes][kAltitudeNodes] = {
+#include "model/latitude_month_table.inc"
+};
+
+double table_ratio(int month, int lat_index, int alt_index) {
+  return kRatio[(month - 1) * kLatitudeNodes + lat_index][alt_index] / kRatioScale;
+}
+
+// Linear between nodes in latitude and altitude (the ratio is smooth in both; within 0.1 % of
+// the model, docs/atmosphere.md). The month is not interpolated: each is its mid-month state.
+double ratio_to_west(double z_m, const LatitudeMonth& where) {
+  double lat_pos = (where.latitude_deg - kLatitudeLowDeg) / kLatitudeStepDeg;
+  int i = std::clamp(static_cast<int>(std::floor(lat_pos)), 0, kLatitudeNodes - 2);
+  double t = lat_pos - i;
+  double alt_pos = z_m / kAltitudeStepM;
+  int j = std::clamp(static_cast<int>(std::floor(alt_pos)), 0, kAltitudeNodes - 2);
+  double u = alt_pos - j;
+  double low = table_ratio(where.month, i, j) * (1 - t) + table_ratio(where.month, i + 1, j) * t;
+  double high =
+      table_ratio(where.month, i, j + 1) * (1 - t) + table_ratio(where.month, i + 1, j + 1) * t;
+  return low * (1 - u) + high * u;
+}
+
+Error altitude_error(double got_m) {
+  AltitudeRange range = latitude_month_altitudes();
+  Error e = range_error("altitude", range.low_m, range.high_m, "m", got_m);
+  e.message += " for the latitude and month figures (" +
+               std::string(latitude_month_model_name()) + ")";
+  return e;
+}
+
+}  // namespace
+
+Result<LatitudeMonth> make_latitude_month(double latitude_deg, double month) {
+  if (!in_range(latitude_deg, kLatitudeLowDeg, kLatitudeHighDeg)) {
+    return range_error("latitude", kLatitudeLowDeg, kLatitudeHighDeg, "° (north +, south \xE2\x88\x92)",
+                       latitude_deg);
+  }
+  if (!in_range(month, kFirstMonth, kLastMonth) || month != std::floor(month)) {
+    Error e{"month must be a whole number from 1 (January) to 12 (December)"};
+    e.message += std::isfinite(month) ? " (got " + format_number(month, 2) + ")"
+                                      : std::string(got_not_a_number);
+    return e;
+  }
+  return LatitudeMonth{latitude_deg, static_cast<int>(month)};
+}
+
+std::string_view latitude_month_model_name() { return "NRLMSISE-00"; }
+
+AltitudeRange latitude_month_altitudes() {
+  return {0.0, (kAltitudeNodes - 1) * kAltitudeStepM};
+}
+
+Result<Pressure> pressure_at(Length geometric_altitude, const LatitudeMonth& where) {
+  double z = geometric_altitude.in(metres);
+  AltitudeRange range = latitude_month_altitudes();
+  if (!in_range(z, range.low_m, range.high_m)) return altitude_error(z);
+  FIRN_ASSERT(make_latitude_month(where.latitude_deg, where.month).ok(),
+              "LatitudeMonth not made by make_latitude_month");
+  Result<Pressure> west = pressure_at(geometric_altitude, Model::West1996);
+  if (!west) return west.error();
+  return west.value() * ratio_to_west(z, where);
+}
+
+Result<Length> altitude_at(Pressure pressure, const LatitudeMonth& where) {
+  AltitudeRange range = latitude_month_altitudes();
+  double low_hpa = pressure_at(metres(range.high_m), where)->in(hectopascals);
+  double high_hpa = pressure_at(metres(range.low_m), where)->in(hectopascals);
+  double hpa = pressure.in(hectopascals);
+  if (!in_range(hpa, low_hpa, high_hpa)) {
+    Error e = range_error("pressure", std::ceil(low_hpa * 10) / 10, std::floor(high_hpa * 10) / 10,
+                          "hPa", hpa);
+    e.message += " for " + std::string(latitude_month_model_name()) + " at this latitude and month";
+    return e;
+  }
+  // Pressure falls monotonically with altitude: bisection to well under a metre.
+  double low_m = range.low_m, high_m = range.high_m;
+  for (int k = 0; k < 50; ++k) {
+    double mid = 0.5 * (low_m + high_m);
+    if (pressure_at(metres(mid), where)->in(hectopascals) > hpa) low_m = mid;
+    else high_m = mid;
+  }
+  return metres(0.5 * (low_m + high_m));
+}
+
+Result<Pressure> pressure_at(Length geometric_altitude, Model model,
+                             const std::optional<LatitudeMonth>& where) {
+  if (where) return pressure_at(geometric_altitude, *where);
+  return pressure_at(geometric_altitude, model);
+}
+
+Result<PressureEnvelope> climatological_envelope(Length geometric_altitude) {
+  double z = geometric_altitude.in(metres);
+  AltitudeRange range = latitude_month_altitudes();
+  if (!in_range(z, range.low_m, range.high_m)) return altitude_error(z);
+  double low = 1e9, high = 0.0;
+  for (int month = kFirstMonth; month <= kLastMonth; ++month) {
+    for (int i = 0; i < kLatitudeNodes; ++i) {
+      double r = ratio_to_west(z, LatitudeMonth{kLatitudeLowDeg + i * kLatitudeStepDeg, month});
+      low = std::min(low, r);
+      high = std::max(high, r);
+    }
+  }
+  Pressure west = pressure_at(geometric_altitude, Model::West1996).value();
+  return PressureEnvelope{west * low, west * high};
+}
+
+}  // namespace firn::atmosphere
