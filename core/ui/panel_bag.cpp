@@ -169,6 +169,7 @@ void draw_bag_panel(AppState& state, Platform&) {
   settings.chamber_temperature = in.chamber_temperature;
   settings.co2_limit = team.co2_limit;
   settings.stroke_volume = team.pump_stroke_volume;
+  settings.where = situation_latitude_month(state);  // the same atmosphere both ways
   Result<bag::BagResult> result = Error{""};
   if (state.situation.source == PressureSource::Altitude) {
     result = bag::bag_at_altitude(state.situation.altitude, state.settings.model, settings);
