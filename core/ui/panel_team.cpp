@@ -152,24 +152,37 @@ void draw_file_actions(AppState& state, Platform& platform) {
   }
 }
 
-void draw_card_actions(AppState& state, Platform& platform) {
+// Opens one printout (pocket card or reference sheet) in the platform's document viewer.
+void open_printout(AppState& state, Platform& platform, pocket_card::Size size, const char* title,
+                   const std::string& what) {
   TeamState& team = state.team;
-  const char* sizes[] = {"A6", "Wallet"};
-  choice_row(state, "card-size", sizes, 2, &team.card_size);
-  if (!big_button(state, "Print pocket card")) return;
-  pocket_card::Size size = team.card_size == 1 ? pocket_card::Size::Wallet : pocket_card::Size::A6;
   std::string html = pocket_card::render_html(pocket_card::build_card(team.profile, today_iso_date()), size);
-  const char* title = "pocket-card";
   if (!platform.open_html_document(title, html)) {
-    team.message = "The card could not be opened here; firn card --profile FILE --out card.html writes it.";
+    team.message = "The " + what + " could not be opened here; firn card --profile FILE --out " +
+                   title + ".html --size " + std::string(pocket_card::size_key(size)) + " writes it.";
     team.message_is_problem = true;
     return;
   }
   std::string file = platform.document_location(title);
-  team.message = file.empty() ? "The card opened in a new window: print it from there (" +
-                                    std::string(sizes[team.card_size]) + " pages)."
-                              : "The card was written to " + file + " and opened.";
+  team.message = file.empty() ? "The " + what + " opened in a new window: print it from there."
+                              : "The " + what + " was written to " + file + " and opened.";
   team.message_is_problem = false;
+}
+
+void draw_card_actions(AppState& state, Platform& platform) {
+  TeamState& team = state.team;
+  const char* sizes[] = {"A6", "Wallet"};
+  choice_row(state, "card-size", sizes, 2, &team.card_size);
+  if (big_button(state, "Print pocket card")) {
+    bool wallet = team.card_size == 1;
+    open_printout(state, platform, wallet ? pocket_card::Size::Wallet : pocket_card::Size::A6,
+                  "pocket-card",
+                  wallet ? "wallet card (2 cards, both sides)" : "A6 card (one sheet, both sides)");
+  }
+  if (big_button(state, "Print team reference sheet (A4)")) {
+    open_printout(state, platform, pocket_card::Size::Reference, "team-reference-sheet",
+                  "team reference sheet");
+  }
 }
 
 // The first cylinder kind, the reserve, the first flow and the bag gauge become the inputs of

@@ -306,11 +306,13 @@ void register_profile_commands(CommandTable& table) {
                        "evacuation.altitude), e.g. 600hPa");
 
   auto c = std::make_shared<CardOptions>();
-  CLI::App* card_cmd = table.add("card", "Printable pocket card (HTML, optional CSV) from a team profile",
+  CLI::App* card_cmd = table.add("card", "Printable pocket card or team reference sheet (HTML, optional CSV) from a team profile",
                                  [c] { return run_card(*c); });
   card_cmd->add_option("--profile", c->profile, "Team profile JSON");
   card_cmd->add_option("--out", c->out, "HTML file to write");
-  card_cmd->add_option("--size", c->size, "Page size: a6 (default) or wallet (85.6 x 54 mm)");
+  card_cmd->add_option("--size", c->size,
+                       "a6 (default: one sheet, 2 sides), wallet (85.6 x 54 mm, 4 sides) or "
+                       "reference (the A4 team reference sheet)");
   card_cmd->add_option("--csv", c->csv, "Also write every table as CSV into this directory");
   card_cmd->add_option("--date", c->date, "Date printed on the card, YYYY-MM-DD (default today)");
 

@@ -1,7 +1,9 @@
-// The pocket card printed: Debian's headless Chromium renders the card HTML to PDF; poppler-utils
-// (pdfinfo, pdftotext, pdftoppm) check page count and size for each format, the printed figures
-// against the CLI, and write PNGs of pages to look at. Missing tools FAIL this test: a card that
-// was never printed is not a tested card.
+// The cards printed: Debian's headless Chromium renders the card HTML to PDF; poppler-utils
+// (pdfinfo, pdftotext, pdftoppm) check the page count a laminated card allows (A6: one sheet,
+// 2 sides; wallet: at most two double-sided cards, 4 sides; the A4 team reference sheet: 2
+// pages), the page size, the smallest printed text, the printed figures against the CLI, and
+// write a PNG of every page to look at. Missing tools FAIL this test: a card that was never
+// printed is not a tested card.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { spawnSync } from 'node:child_process';
@@ -41,59 +43,133 @@ function printToPdf(html, pdf) {
 
 const demoFile = path.join(work, 'demo.json');
 fs.writeFileSync(demoFile, runFirn(['profile', '--demo']).stdout);
+const demo = JSON.parse(fs.readFileSync(demoFile, 'utf8'));
+
+// The largest profile the schema allows (docs/team-profile.md): 40 card rows, 8 cylinder types
+// with 24-character labels, 8 flows, 6 notes of 90 characters, a 60-character team name.
+const largestFile = path.join(work, 'largest.json');
+fs.writeFileSync(largestFile, JSON.stringify({
+  ...demo,
+  team_name: 'DEMO ' + 'W'.repeat(55),
+  card: { altitude_from: '0m', altitude_to: '7800m', altitude_step: '200m',
+    notes: [0, 1, 2, 3, 4, 5].map((i) => 'N'.repeat(89) + i) },
+  cylinders: [0, 1, 2, 3, 4, 5, 6, 7].map((i) => ({
+    label: 'C'.repeat(23) + i, water_capacity: `${2 + i}L`, fill_pressure: '300bar', count: 99 })),
+  flows: ['0.25L/min', '1.5L/min', '2.5L/min', '4L/min', '6L/min', '12.5L/min', '15L/min', '25L/min'],
+  evacuation: undefined,
+}));
+assert.equal(firnJson(['profile', '--check', largestFile]).card_rows, 40);
+
 const mmToPt = (mm) => (mm * 72) / 25.4;
 
-// Expected sheet sizes: A6 105 × 148 mm (ISO 216); ID-1 card 85.6 × 53.98 mm (ISO/IEC 7810),
-// printed as 85.6 × 54 mm. Chromium rounds page sizes to whole CSS pixels: allow 1 pt.
-for (const [size, widthMm, heightMm] of [['a6', 105, 148], ['wallet', 85.6, 54]]) {
-  test(`card ${size}: page count, page size, printed figures, PNG`, () => {
-    const html = path.join(work, `card-${size}.html`);
-    const pdf = path.join(work, `card-${size}.pdf`);
-    const made = firnJson(['card', '--profile', demoFile, '--out', html, '--size', size, '--date', '2025-01-31']);
-    printToPdf(html, pdf);
+function printCard(profile, size, name) {
+  const html = path.join(work, `${name}.html`);
+  const pdf = path.join(work, `${name}.pdf`);
+  const made = firnJson(['card', '--profile', profile, '--out', html, '--size', size, '--date', '2025-01-31']);
+  printToPdf(html, pdf);
+  const info = run('pdfinfo', [pdf]);
+  const pages = Number(/Pages:\s+(\d+)/.exec(info)[1]);
+  return { made, pdf, info, pages };
+}
 
-    const info = run('pdfinfo', [pdf]);
-    const pages = Number(/Pages:\s+(\d+)/.exec(info)[1]);
-    // One PDF page per card section: nothing overflowed onto an extra page.
+// The smallest text on the page: pdftotext -bbox gives each word's box, whose height is the
+// font's ascent + descent (DejaVu Sans: 1.164 em). 8 pt text is 9.3 pt high; 7.5 pt would be 8.7.
+function smallestWordHeight(pdf) {
+  const xhtml = run('pdftotext', ['-bbox', pdf, '-']);
+  let smallest = Infinity;
+  for (const m of xhtml.matchAll(/yMin="([\d.]+)" xMax="[\d.]+" yMax="([\d.]+)">([^<]*)</g)) {
+    if (m[3].trim()) smallest = Math.min(smallest, Number(m[2]) - Number(m[1]));
+  }
+  return smallest;
+}
+
+function writePngs(pdf, name) {
+  run('pdftoppm', ['-r', '150', '-png', pdf, path.join(pngDir, name)]);
+  return fs.readdirSync(pngDir).filter((f) => f.startsWith(`${name}-`) && f.endsWith('.png'));
+}
+
+// Expected sheet sizes: A6 105 × 148 mm, A4 210 × 297 mm (ISO 216); ID-1 card 85.6 × 53.98 mm
+// (ISO/IEC 7810), printed as 85.6 × 54 mm. Chromium rounds page sizes to whole CSS pixels: 1 pt.
+const sizes = [['a6', 105, 148, 2], ['wallet', 85.6, 54, 4], ['reference', 210, 297, 2]];
+
+for (const [size, widthMm, heightMm, expectedPages] of sizes) {
+  test(`card ${size}: ${expectedPages} pages, page size, text ≥ 8 pt, figures equal the CLI's, PNGs`, () => {
+    const { made, pdf, info, pages } = printCard(demoFile, size, `card-${size}`);
+    // Nothing overflowed onto an extra page, and the card is what a team can laminate.
     assert.equal(pages, made.pages, `PDF has ${pages} pages, card has ${made.pages} sections`);
+    assert.equal(pages, expectedPages);
     const [, w, h] = /Page size:\s+([\d.]+) x ([\d.]+) pts/.exec(info);
     assert.ok(Math.abs(Number(w) - mmToPt(widthMm)) < 1, `width ${w} pt, expected ${mmToPt(widthMm)}`);
     assert.ok(Math.abs(Number(h) - mmToPt(heightMm)) < 1, `height ${h} pt, expected ${mmToPt(heightMm)}`);
+    assert.ok(smallestWordHeight(pdf) >= 9.0, `smallest text ${smallestWordHeight(pdf)} pt high: below 8 pt`);
 
     const text = run('pdftotext', ['-layout', pdf, '-']);
     const pageTexts = text.split('\f');
     for (let i = 1; i <= pages; ++i) {
-      assert.match(pageTexts[i - 1], new RegExp(`page ${i}/${pages}`), `footer of page ${i} not on page ${i}`);
+      assert.match(pageTexts[i - 1], new RegExp(`${i}/${pages}`), `footer of page ${i} not on page ${i}`);
+      // A wallet card carries the cautions on its back (sides 2 and 4); every other page has them.
+      if (size !== 'wallet' || i % 2 === 0) {
+        assert.match(pageTexts[i - 1].replace(/\s+/g, ' '), /[Dd]ecision support only/, `page ${i}: no caution line`);
+      }
     }
     const flat = text.replace(/\s+/g, ' ');  // headings may wrap
-    assert.match(flat, /DEMO DATA/);
-    assert.match(flat, /DEMO Skarnvald Valley Mountain Rescue/);
+    assert.match(flat, /DEMO/);
     assert.match(flat, /2025-01-31/);
     assert.match(flat, new RegExp(`Firn ${runFirn(['--version']).stdout.trim().split(' ')[1].replace(/\./g, '\\.')}`));
-    assert.match(flat, /Descent is the definitive treatment for serious altitude illness/);
-    assert.match(flat, /Follow your local protocols and medical direction/);
+    const last = pageTexts[pages - 1].replace(/\s+/g, ' ');
+    assert.match(last, /Descent is the definitive treatment for serious altitude illness/);
+    assert.match(last, /Follow your local protocols and medical direction/);
+    assert.doesNotMatch(flat, /psi/, 'a metric card prints no psi');
+    if (size !== 'wallet') assert.match(flat, /Acute: hours to 2 days at this altitude/);
 
     // Figures printed on the card equal the CLI's (rounded as the card rounds them).
-    const line = (first) => text.split('\n').map((l) => l.trim().split(/\s+/)).find((c) => c[0] === first);
-    const row4000 = line('4000');
-    const p = firnJson(['pressure', '--altitude', '4000m']);
+    const rows = text.split('\n').map((l) => l.trim().split(/\s+/));
     const oxy = firnJson(['oxygenation', '--altitude', '4000m']);
-    assert.deepEqual(row4000.slice(0, 5), ['4000', `${Math.round(p.west_pressure_hpa)}`,
-      `${Math.round(p.isa_pressure_hpa)}`, `${Math.round(oxy.pio2_mmhg)}`,
-      `${Math.round(oxy.spo2_expected_low_pct)}–${Math.round(oxy.spo2_expected_high_pct)}`]);
-    const bagRow = text.split('\n').map((l) => l.trim().split(/\s+/)).filter((c) => c[0] === '4250')[1];
-    const bag = firnJson(['bag', '--altitude', '4250m', '--gauge', '2psi']);
-    assert.equal(bagRow[1], `${Math.round(bag.inside_pressure_hpa)}`);
-    assert.ok(Math.abs(Number(bagRow[2]) - bag.equivalent_altitude_m) <= 5);
+    const acc = firnJson(['oxygenation', '--altitude', '4000m', '--acclimatised']);
+    const band = (o) => `${Math.round(o.spo2_expected_low_pct)}–${Math.round(o.spo2_expected_high_pct)}`;
+    // (The wallet prints the table in two blocks: the 4000 m row may start mid-line.)
+    const row4000 = rows.map((c) => c.slice(c.indexOf('4000'))).find((c) => c[0] === '4000' && c.length >= 3);
+    assert.ok(row4000, 'no 4000 m row');
+    assert.ok(row4000.includes(band(oxy)) && row4000.includes(band(acc)), `4000 m row ${row4000}`);
+    if (size !== 'wallet') {
+      const p = firnJson(['pressure', '--altitude', '4000m']);
+      assert.deepEqual(row4000.slice(0, 3), ['4000', `${Math.round(p.west_pressure_hpa)}`,
+        size === 'reference' ? `${Math.round(p.isa_pressure_hpa)}` : `${Math.round(oxy.pio2_mmhg)}`]);
+    }
     const cyl = firnJson(['cylinder', '--water-capacity', '2', '--pressure', '200bar', '--flow', '2', '--reserve', '20bar']);
     const cylRow = text.split('\n').find((l) => /2 L alloy ×4/.test(l)).trim().split(/\s+/);
-    const printed = Number(cylRow[cylRow.indexOf('bar') + 1]);
-    assert.ok(printed <= cyl.duration_min + 0.5 && printed >= cyl.duration_min - 1,
-      `card prints ${printed} min, firn cylinder ${cyl.duration_min} min`);
+    const printed = Number(cylRow[cylRow.indexOf('200') + 1]);
+    assert.ok(printed <= cyl.duration_min && printed >= cyl.duration_min - 1,
+      `card prints ${printed} min, firn cylinder ${cyl.duration_min} min (the card rounds down)`);
+    const bag = firnJson(['bag', '--altitude', '4500m', '--gauge', '2psi']);
+    // The bag table may be printed in two blocks side by side: find "4500 <equiv> <flush> <strokes>".
+    const flush = `${Math.ceil(bag.min_flush_lpm - 0.05)}`;
+    const bagCells = rows.map((c) => {
+      // (The reference sheet has the inside pressure between altitude and equivalent altitude.)
+      const i = c.findIndex((x, k) => x === '4500' && (c[k + 2] === flush || c[k + 3] === flush));
+      return i < 0 ? null : c.slice(i, c[i + 2] === flush ? i + 4 : i + 5);
+    }).find((c) => c);
+    assert.ok(bagCells, 'no 4500 m bag row');
+    const equiv = Number(bagCells[bagCells.indexOf(flush) - 1]);
+    assert.ok(Math.abs(equiv - bag.equivalent_altitude_m) <= 5, `bag row ${bagCells}`);
 
-    // A picture of the table pages, to look at (the test only checks they were written).
-    run('pdftoppm', ['-r', '110', '-png', '-f', '3', '-l', '3', pdf, path.join(pngDir, `card-${size}`)]);
-    const pngs = fs.readdirSync(pngDir).filter((f) => f.startsWith(`card-${size}`) && f.endsWith('.png'));
-    assert.ok(pngs.length >= 1, 'no PNG written');
+    const pngs = writePngs(pdf, `card-${size}`);
+    assert.equal(pngs.length, pages, 'one PNG per page');
+  });
+}
+
+// The wallet and the reference sheet of the largest profile do not fit yet (known limitation,
+// docs/team-profile.md): only the A6 card is held to it.
+for (const [size, , , expectedPages] of sizes.filter(([s]) => s === 'a6')) {
+  test(`card ${size} of the largest profile the schema allows still prints on ${expectedPages} pages`, () => {
+    const { made, pdf, pages } = printCard(largestFile, size, `largest-${size}`);
+    assert.equal(pages, made.pages, `PDF has ${pages} pages, card has ${made.pages} sections`);
+    assert.equal(pages, expectedPages);
+    assert.ok(smallestWordHeight(pdf) >= 9.0, 'smallest text below 8 pt');
+    const text = run('pdftotext', ['-layout', pdf, '-']).split('\f');
+    // Nothing cut off at the foot: every page still ends with its footer.
+    for (let i = 1; i <= pages; ++i) assert.match(text[i - 1], new RegExp(`${i}/${pages}`));
+    assert.match(text[0], /7800/, 'the highest altitude row is on side 1');
+    writePngs(pdf, `largest-${size}`);
   });
 }
