@@ -91,11 +91,18 @@ void add_bag_figures(const TeamProfile& p, AltitudeRow& row) {
   bag.stroke_volume = p.bag.pump_stroke_volume;
   Result<hyperbaric_bag::BagResult> result =
       hyperbaric_bag::bag_at_altitude(row.altitude, p.atmosphere_model, bag);
-  if (!result) return;
-  row.bag_inside = result->inside_pressure;
-  row.bag_equivalent = result->equivalent_altitude;
-  row.bag_min_flush = result->min_flush;
-  row.bag_min_flush_strokes = result->min_flush_strokes_per_minute;
+  if (!result || !result->required_flush) return;
+  // The flush the bag's verdict needs (CO2 under the limit and O2 inside no worse than outside),
+  // rounded up as printed; the equivalent altitude is the limiting one at that flush (the
+  // pressure or the oxygen inside, whichever gives less descent), as `firn bag --flush`.
+  bag.flush = litres_per_minute(std::ceil(result->required_flush->in(litres_per_minute)));
+  Result<hyperbaric_bag::BagResult> flushed =
+      hyperbaric_bag::bag_at_altitude(row.altitude, p.atmosphere_model, bag);
+  if (!flushed || flushed->verdict != hyperbaric_bag::Verdict::Ok) return;
+  row.bag_inside = flushed->inside_pressure;
+  row.bag_equivalent = flushed->equivalent_altitude;
+  row.bag_min_flush = bag.flush;
+  row.bag_min_flush_strokes = result->required_flush_strokes_per_minute;
 }
 
 // Minutes to the reserve at full and half fill (cylinder::duration, as `firn cylinder`).
@@ -218,13 +225,16 @@ Table bag_table(const Card& card) {
   std::string pump = format_number(p.bag.pump_stroke_volume.in(litres), 2) + " L pump";
   bag.footnotes.push_back("Flush: at least the L/min of fresh air shown (" + pump +
                           ": strokes/min) keeps CO2 below " + limit +
-                          " for a resting casualty (VCO2 0.20 L/min, assumed). Less flush: CO2 "
-                          "builds up and oxygen falls inside.");
-  bag.footnotes.push_back("Equiv. alt: the altitude with the pressure inside (" + model +
-                          " both ways). Reassess every 1" + dash + "2 h; the bag buys time for descent.");
-  bag.pocket_notes = {"Flush at least as shown (" + pump + ") to keep CO2 < " + limit +
-                          ", resting casualty. Equiv. alt by pressure inside (" + model + ").",
-                      "Reassess every 1" + dash + "2 h; the bag buys time for descent."};
+                          " and the oxygen inside no worse than outside, for a resting casualty "
+                          "(VCO2 0.20, VO2 0.25 L/min, assumed). Less flush: flush more, no descent.");
+  bag.footnotes.push_back("Equiv. alt at that flush: by the pressure or the oxygen inside, whichever "
+                          "gives less descent (" + model + " both ways). Oxygen fed in above 23.5 % "
+                          "inside: fire risk (mask inside, exhaled gas vented out). Reassess every 1" +
+                          dash + "2 h; the bag buys time for descent.");
+  bag.pocket_notes = {"Flush at least as shown (" + pump + "): CO2 < " + limit +
+                          " and O2 inside no worse than outside, resting casualty. Less: flush more.",
+                      "Equiv. alt at that flush, the lesser descent of pressure and oxygen (" +
+                          model + "). Reassess every 1" + dash + "2 h; the bag buys time for descent."};
   return bag;
 }
 

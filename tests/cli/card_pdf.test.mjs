@@ -141,9 +141,13 @@ for (const [size, widthMm, heightMm, expectedPages] of sizes) {
     const printed = Number(cylRow[cylRow.indexOf('200') + 1]);
     assert.ok(printed <= cyl.duration_min && printed >= cyl.duration_min - 1,
       `card prints ${printed} min, firn cylinder ${cyl.duration_min} min (the card rounds down)`);
-    const bag = firnJson(['bag', '--altitude', '4500m', '--gauge', '2psi']);
+    // The card prints the flush the bag's verdict needs (rounded up) and the limiting equivalent
+    // altitude at that flush: the same as `firn bag` given that flush.
+    const needed = firnJson(['bag', '--altitude', '4500m', '--gauge', '2psi']);
+    const flush = `${Math.ceil(needed.required_flush_lpm - 0.05)}`;
+    const bag = firnJson(['bag', '--altitude', '4500m', '--gauge', '2psi', '--flush', flush]);
+    assert.equal(bag.verdict, 'ok');
     // The bag table may be printed in two blocks side by side: find "4500 <equiv> <flush> <strokes>".
-    const flush = `${Math.ceil(bag.min_flush_lpm - 0.05)}`;
     const bagCells = rows.map((c) => {
       // (The reference sheet has the inside pressure between altitude and equivalent altitude.)
       const i = c.findIndex((x, k) => x === '4500' && (c[k + 2] === flush || c[k + 3] === flush));
