@@ -121,7 +121,13 @@ DurationRow duration_row(const TeamProfile& p, const team_profile::CylinderType&
       cylinder::Reading reading{row.water_capacity, gauge, celsius(15.0), atmospheres(1.0)};
       Result<cylinder::DurationEstimate> d = cylinder::duration(reading, p.reserve_pressure_gauge, flow);
       if (d) {
-        slot = d->to_reserve;
+        // A letter size also has the US field rule: the lower of the two leads, as on screen and
+        // in `firn cylinder` (the rule counts to its own 200 psi residual).
+        std::optional<Duration> rule;
+        if (c.letter_size) {
+          if (Result<Duration> r = cylinder::field_rule_duration(*c.letter_size, gauge, flow)) rule = r.value();
+        }
+        slot = cylinder::leading_duration(d.value(), rule).duration;
       } else {
         note = out_of_range_text;
       }
