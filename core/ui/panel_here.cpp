@@ -23,7 +23,7 @@ void draw_where(AppState& state) {
   if (choice_row(state, "source", sources, 3, &source)) s.source = static_cast<PressureSource>(source);
 
   if (s.source != PressureSource::Station) {
-    edit_quantity(state, altitude_field(state, "Altitude", "altitude"), s.altitude);
+    edit_quantity(state, situation_altitude_field(state, "Altitude"), s.altitude);
   }
   if (s.source == PressureSource::Station) {
     edit_quantity(state,
