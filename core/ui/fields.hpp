@@ -53,10 +53,14 @@ FieldSpec quantity_spec(const QuantityField<D>& f, const units::Quantity<D>& val
   std::string symbol(unit.symbol);
   std::string suffix = symbol.empty() ? "" : " " + symbol;
   bool empty = f.entered != nullptr && !*f.entered;
-  FieldSpec spec{f.label, f.id, empty ? empty_prompt(f.what) : shown_number(value.in(unit), f.decimals) + suffix,
-                 // The keypad starts from what the button shows, never "17060.3675 ft".
-                 empty ? std::string() : shown_number(value.in(unit), f.decimals), {}, f.unit_index,
-                 range_text(f.low.in(unit), f.high.in(unit), symbol, f.decimals), true};
+  FieldSpec spec{};
+  spec.label = f.label;
+  spec.id = f.id;
+  spec.shown = empty ? empty_prompt(f.what) : shown_number(value.in(unit), f.decimals) + suffix;
+  // The keypad starts from what the button shows, never "17060.3675 ft".
+  spec.edit_text = empty ? std::string() : shown_number(value.in(unit), f.decimals);
+  spec.unit_index = f.unit_index;
+  spec.hint = range_text(f.low.in(unit), f.high.in(unit), symbol, f.decimals);
   for (const units::Unit<D>* u : f.units) spec.unit_symbols.emplace_back(u->symbol);
   // − where the range goes below zero in any of the keypad's units (−4 °F is above −40 °C).
   spec.allow_negative = false;

@@ -389,17 +389,18 @@ TEST_CASE("keypad: '5.200' and '1.2.3' are refused with a plain message") {
 }
 
 TEST_CASE("keypad: − and . only where they mean something; values rounded to the field") {
-  Headless ui;
-  AppState state;
-  ui.draw = [](AppState& s) {
-    edit_quantity(s, flow_field("Flow", "flow", 25.0), s.oxygen.flow);
-  };
-  ui.click(state, "Flow");
-  CHECK(find_item(ui.frame(state), "Key .") != nullptr);
-  CHECK(find_item(ui.frame(state), "Key -") == nullptr);
-  CHECK(ui.text(state, "Keypad value") == "4.0 L/min");
-  ui.click(state, "Key Cancel");
-
+  {
+    Headless ui;  // one ImGui context at a time
+    AppState state;
+    ui.draw = [](AppState& s) {
+      edit_quantity(s, flow_field("Flow", "flow", 25.0), s.oxygen.flow);
+    };
+    ui.click(state, "Flow");
+    CHECK(find_item(ui.frame(state), "Key .") != nullptr);
+    CHECK(find_item(ui.frame(state), "Key -") == nullptr);
+    CHECK(ui.text(state, "Keypad value") == "4.0 L/min");
+    ui.click(state, "Key Cancel");
+  }
   Headless feet;
   AppState in_feet;
   in_feet.settings.units.altitude = UnitChoice::Altitude::Feet;
