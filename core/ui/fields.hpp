@@ -41,9 +41,9 @@ std::int64_t now_seconds();
 // Whether `next` differs from `last` by a factor of ten or more (values under `floor` count as
 // `floor`): 5,200 m → 52 m or 520 m asks, 5,200 → 3,000 does not.
 bool tenfold_change(double last, double next, double floor);
-// "52 m is a tenth of the last altitude (5,200 m). Use 52 m?"
+// "52 m is a tenth or less of the last altitude (5 200 m). Use 52 m?"
 std::string tenfold_question(const char* what, double last, double next, std::string_view symbol);
-// "12,000 m is not taken: the altitude goes from −500 to 9,000 m."
+// "12 000 m not taken: the altitude goes from −500 to 9 000 m."
 std::string out_of_range_message(const char* what, double low, double high, double got,
                                  std::string_view symbol, int decimals);
 

@@ -55,7 +55,9 @@ std::string grouped_number(double value, int decimals) {
   if (negative) plain.erase(0, 1);
   size_t integer_end = plain.find('.');
   if (integer_end == std::string::npos) integer_end = plain.size();
-  for (size_t i = integer_end; i > 3; i -= 3) plain.insert(i - 3, ",");
+  // Groups of three split by a no-break space (SI Brochure, 9th ed. 2019, 5.4.4: a space, never
+  // a dot or comma): reads the same in decimal-comma and decimal-point countries, never wraps.
+  for (size_t i = integer_end; i > 3; i -= 3) plain.insert(i - 3, "\xC2\xA0");
   return negative ? "\xE2\x88\x92" + plain : plain;
 }
 

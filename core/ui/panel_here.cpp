@@ -76,8 +76,9 @@ void draw_pressure(AppState& state) {
                                   : atmosphere::Model::Isa;
     Result<Pressure> other_pb = atmosphere::pressure_at(s.altitude, other);
     std::string other_label = std::string(atmosphere::model_name(other)) + " for comparison";
-    result_value(state, other_label.c_str(),
-                 other_pb ? pressure_text(other_pb.value(), u) : "outside model range", false);
+    // No altitude entered: no comparison either (a made-up place gives no number at all).
+    std::string other_text = !pb ? "\xE2\x80\x94" : other_pb ? pressure_text(other_pb.value(), u) : "outside model range";
+    result_value(state, other_label.c_str(), other_text, false);
   } else {
     // The altitude this pressure corresponds to, so a medic can sanity-check the reading.
     Result<Length> altitude = atmosphere::altitude_at(pb ? pb.value() : Pressure{}, state.settings.model);

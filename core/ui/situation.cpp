@@ -47,12 +47,15 @@ std::string situation_summary(const AppState& state) {
   Result<Length> altitude = situation_altitude(state);
   Result<Pressure> pb = situation_pressure(state);
   if (s.source == PressureSource::Station) text += "barometer ";
-  if (s.source != PressureSource::Station && !s.altitude_entered) text += "no altitude yet";
-  else text += altitude ? altitude_with_unit(altitude.value(), u) : std::string("\xE2\x80\x94");
-  text += " \xC2\xB7 ";
-  text += pb ? pressure_text(pb.value(), u) : std::string("\xE2\x80\x94");
-  if (s.source == PressureSource::Altitude) text += " (" + std::string(atmosphere::model_name(state.settings.model)) + ")";
-  if (s.source == PressureSource::Qnh) text += " (QNH)";
+  if (s.source != PressureSource::Station && !s.altitude_entered) {
+    text += "no altitude yet";  // no pressure either: nothing to show beside it
+  } else {
+    text += altitude ? altitude_with_unit(altitude.value(), u) : std::string("\xE2\x80\x94");
+    text += " \xC2\xB7 ";
+    text += pb ? pressure_text(pb.value(), u) : std::string("\xE2\x80\x94");
+    if (s.source == PressureSource::Altitude) text += " (" + std::string(atmosphere::model_name(state.settings.model)) + ")";
+    if (s.source == PressureSource::Qnh) text += " (QNH)";
+  }
   text += " \xC2\xB7 ";
   text += s.spo2_measured ? "SpO2 " + percent_text(s.spo2) : std::string("no SpO2");
   text += s.acclimatised ? " \xC2\xB7 acclimatised" : " \xC2\xB7 acute";
