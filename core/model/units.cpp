@@ -75,7 +75,11 @@ Result<Quantity<Dimension>> parse_quantity(std::string_view text, std::string_vi
                  format_number(number.value()) + std::string(units[0]->symbol) + ")"};
   }
   for (const Unit<Dimension>* candidate : units) {
-    if (unit == candidate->spelling) return (*candidate)(number.value());
+    if (unit != candidate->spelling) continue;
+    if (std::optional<Error> ambiguous = ambiguous_grouping(trimmed.substr(0, split), *candidate, what)) {
+      return *ambiguous;
+    }
+    return (*candidate)(number.value());
   }
   return Error{"unknown unit '" + std::string(trim(trimmed.substr(split))) + "' for " +
                std::string(what) + ": use " + accepted};
@@ -86,20 +90,73 @@ Result<Quantity<Dimension>> parse_quantity(std::string_view text, std::string_vi
 Result<double> parse_number(std::string_view text, std::string_view what) {
   std::string_view trimmed = trim(text);
   if (trimmed.empty()) return Error{std::string(what) + " is missing a number"};
+  const std::string quoted = "'" + std::string(trimmed) + "'";
+  size_t dots = 0, commas = 0;
+  for (char c : trimmed) {
+    if (!is_number_char(c)) return Error{std::string(what) + " is not a number: " + quoted};
+    dots += c == '.';
+    commas += c == ',';
+  }
+  // "1.2.3" or "1,234.5" has no one meaning: refused, never read as 1.23 or 1.
+  if (dots + commas > 1) {
+    return Error{std::string(what) + " " + quoted +
+                 " has more than one decimal mark: type it again with one (or none)"};
+  }
   std::string normalised(trimmed);
-  bool has_dot = normalised.find('.') != std::string::npos;
   for (char& c : normalised) {
-    if (c == ',' && !has_dot) c = '.';
-    if (!is_number_char(c) || c == ',') {
-      return Error{std::string(what) + " is not a number: '" + std::string(trimmed) + "'"};
-    }
+    if (c == ',') c = '.';
   }
   char* end = nullptr;
   double value = std::strtod(normalised.c_str(), &end);
   if (end != normalised.c_str() + normalised.size() || !std::isfinite(value)) {
-    return Error{std::string(what) + " is not a number: '" + std::string(trimmed) + "'"};
+    return Error{std::string(what) + " is not a number: " + quoted};
   }
   return value;
+}
+
+std::optional<double> thousands_reading(std::string_view number_text) {
+  std::string_view t = trim(number_text);
+  bool negative = !t.empty() && t.front() == '-';
+  if (!t.empty() && (t.front() == '-' || t.front() == '+')) t.remove_prefix(1);
+  size_t mark = t.find_first_of(".,");
+  if (mark == std::string_view::npos || mark == 0 || mark > 3 || t.size() != mark + 4) return std::nullopt;
+  if (t.front() == '0') return std::nullopt;  // "0.125" is a decimal, never a grouping
+  double value = 0.0;
+  for (size_t i = 0; i < t.size(); ++i) {
+    if (i == mark) continue;
+    if (!std::isdigit(static_cast<unsigned char>(t[i]))) return std::nullopt;
+    value = value * 10.0 + (t[i] - '0');
+  }
+  return negative ? -value : value;
+}
+
+namespace {
+template <class Dimension>
+std::optional<Error> refuse_if_plausible(std::string_view number_text, const Unit<Dimension>& unit,
+                                         std::string_view what, bool plausible_as_thousands) {
+  if (!plausible_as_thousands) return std::nullopt;
+  Result<double> as_decimal = parse_number(number_text, what);
+  if (!as_decimal) return std::nullopt;
+  std::string symbol = std::string(unit.symbol);
+  std::string suffix = symbol.empty() ? "" : " " + symbol;
+  return Error{"Did you mean " + format_number(*thousands_reading(number_text), 0) + suffix + " or " +
+               format_number(as_decimal.value()) + suffix + "? Type the " + std::string(what) +
+               " without a thousands separator"};
+}
+}  // namespace
+
+std::optional<Error> ambiguous_grouping(std::string_view number_text, const Unit<LengthDimension>& unit,
+                                        std::string_view what) {
+  std::optional<double> grouped = thousands_reading(number_text);
+  bool plausible = grouped && std::fabs(unit(*grouped).in(metres)) <= 30000.0;
+  return refuse_if_plausible(number_text, unit, what, plausible);
+}
+
+std::optional<Error> ambiguous_grouping(std::string_view number_text, const Unit<PressureDimension>& unit,
+                                        std::string_view what) {
+  std::optional<double> grouped = thousands_reading(number_text);
+  bool plausible = grouped && *grouped >= 0.0 && unit(*grouped).in(bar) <= 400.0;
+  return refuse_if_plausible(number_text, unit, what, plausible);
 }
 
 Result<Length> parse_length(std::string_view text, std::string_view what) {

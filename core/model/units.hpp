@@ -4,6 +4,7 @@
 #pragma once
 
 #include <array>
+#include <optional>
 #include <span>
 #include <string>
 #include <string_view>
@@ -141,9 +142,27 @@ inline constexpr std::array<const Unit<VolumeFlowDimension>*, 1> volume_flow_uni
 inline constexpr std::array<const Unit<DurationDimension>*, 3> duration_units{&minutes, &hours,
                                                                               &seconds};
 
-// Parses a decimal number (a comma is accepted as the decimal mark); rejects nan, inf, hex and
-// trailing junk. `what` names the field in the message.
+// Parses a decimal number (a comma is accepted as the decimal mark); rejects nan, inf, hex,
+// trailing junk and more than one separator ("1.2.3", "1,234.5"). `what` names the field in the
+// message.
 Result<double> parse_number(std::string_view text, std::string_view what);
+
+// "5.200" or "-1,640": one separator followed by exactly three digits, as a thousands separator
+// is written. Returns the number read that way (5200, -1640); nothing for any other shape
+// ("0.125" too: a thousands group never follows a lone 0).
+std::optional<double> thousands_reading(std::string_view number_text);
+
+// A length or pressure typed like "5.200" is refused as ambiguous when, read with a thousands
+// separator, it is a plausible altitude (|h| <= 30 km) or pressure (<= 400 bar, cylinders
+// included): "did you mean 5200 or 5.2?". Other quantities have no such habit to trap.
+std::optional<Error> ambiguous_grouping(std::string_view number_text,
+                                        const Unit<LengthDimension>& unit, std::string_view what);
+std::optional<Error> ambiguous_grouping(std::string_view number_text,
+                                        const Unit<PressureDimension>& unit, std::string_view what);
+template <class Dimension>
+std::optional<Error> ambiguous_grouping(std::string_view, const Unit<Dimension>&, std::string_view) {
+  return std::nullopt;
+}
 
 // "4000m", "13120 ft", "616hPa", "-5C", "-4°F", "200bar". The unit is required; `what` names the
 // field in error messages ("altitude", "cylinder pressure").

@@ -112,7 +112,18 @@ constexpr ScreenInfo kScreens[kScreenCount] = {
 
 const ScreenInfo& info(Screen screen) { return kScreens[static_cast<int>(screen)]; }
 
-float nav_rows(float width) { return width > 50.0f * em() ? 1 : 2; }
+// One row whenever all nine labels still read at 80 % of their size or more: a landscape phone
+// (844 CSS px) gets one row, where the two-row bar took a third of its height. Two rows (5 + 4)
+// on a phone held upright.
+float nav_rows(float width) {
+  const ImGuiStyle& style = ImGui::GetStyle();
+  float button = (width - 2 * style.WindowPadding.x - style.ItemSpacing.x * (kScreenCount - 1)) / kScreenCount;
+  for (const ScreenInfo& screen : kScreens) {
+    float needed = ImGui::CalcTextSize(screen.nav_label).x + 0.2f * em();  // the bar's padding
+    if (0.8f * needed > button) return 2;
+  }
+  return 1;
+}
 
 float nav_height(const AppState& state, float width) {
   float row = std::max(touch_target(state) * 1.1f, ImGui::GetFrameHeight() * 1.2f);
@@ -143,7 +154,7 @@ void draw_nav_bar(AppState& state, float width) {
     if (active) ImGui::PushStyleColor(ImGuiCol_Button, ImGui::GetStyleColorVec4(ImGuiCol_Header));
     if (current) ImGui::PushStyleColor(ImGuiCol_Border, ImGui::GetStyleColorVec4(ImGuiCol_CheckMark));
     if (current) ImGui::PushStyleVar(ImGuiStyleVar_FrameBorderSize, 2.0f * state.pixel_ratio);
-    if (ImGui::Button(kScreens[i].nav_label, ImVec2(button_width, row))) {
+    if (tap_button(kScreens[i].nav_label, ImVec2(button_width, row))) {
       state.screen = kScreens[i].screen;
       ImGui::SetScrollY(0.0f);
     }
@@ -157,11 +168,13 @@ void draw_nav_bar(AppState& state, float width) {
   ImGui::PopID();
 }
 
-// ImGui scrolls with the wheel and the scrollbar only; a thumb drags the page.
-void drag_to_scroll() {
+// ImGui scrolls with the wheel and the scrollbar only; a thumb drags the page. The page moves
+// exactly when the press has become a scroll (press_scrolls, beyond the tap slop), the same
+// moment the control under the thumb lets go: a move is a tap or a scroll, never both.
+void drag_to_scroll(const AppState& state) {
   ImGuiIO& io = ImGui::GetIO();
-  if (ImGui::IsWindowHovered(ImGuiHoveredFlags_AllowWhenBlockedByActiveItem) &&
-      ImGui::IsMouseDragging(ImGuiMouseButton_Left, em() * 0.5f) && io.MouseDelta.y != 0.0f) {
+  if (state.press_scrolling && io.MouseDown[0] &&
+      ImGui::IsWindowHovered(ImGuiHoveredFlags_AllowWhenBlockedByActiveItem) && io.MouseDelta.y != 0.0f) {
     ImGui::SetScrollY(ImGui::GetScrollY() - io.MouseDelta.y);
   }
 }
@@ -175,7 +188,7 @@ void draw_column(AppState& state, Platform& platform, Screen screen, const char*
   }
   info(screen).draw(state, platform);
   ImGui::Dummy(ImVec2(0, em()));  // the last widget never sits flush on the nav bar
-  drag_to_scroll();
+  drag_to_scroll(state);
   ImGui::EndChild();
 }
 
@@ -194,6 +207,7 @@ void draw_frame(AppState& state, Platform& platform, float width, float height) 
   Keypad& keypad = state.keypad;
   if (keypad.committed && state.frames_drawn > keypad.committed_at_frame + 1) keypad = Keypad{};
   bool modal = keypad.open && !keypad.committed;
+  press_scrolls(state);  // before any widget: a scroll lets go of what it started on
 
   ImGui::SetNextWindowPos(ImVec2(0, 0));
   ImGui::SetNextWindowSize(ImVec2(width, height));

@@ -45,7 +45,8 @@ Result<bool> apply_launch_options(AppState& state, const std::string& screen,
   if (screen == "keypad") {
     // The keypad open on the Here screen's altitude: for screenshots of the number entry.
     state.screen = Screen::Here;
-    state.keypad = Keypad{true, "altitude", "Altitude", "-500\xE2\x80\x93" "9000 m", "4250", false, {"m", "ft"}, 0, false, 0};
+    state.keypad = Keypad{true, "altitude", "Altitude", "\xE2\x88\x92" "500 to 9\xC2\xA0" "000 m", "4250", false, {"m", "ft"}, 0, false, 0,
+                          /*allow_negative=*/true, /*allow_decimal=*/false};
   } else if (!screen.empty()) {
     Result<Screen> s = lookup(kScreens, screen, "screen");
     if (!s) return s.error();

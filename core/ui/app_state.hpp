@@ -3,6 +3,7 @@
 // (ui/persistence.hpp); the rest is this run's working state.
 #pragma once
 
+#include <cstdint>
 #include <map>
 #include <optional>
 #include <string>
@@ -47,7 +48,9 @@ enum class PressureSource { Altitude, Station, Qnh };
 // The one situation every screen reads: where we are and who the casualty is.
 struct Situation {
   PressureSource source = PressureSource::Altitude;
-  units::Length altitude = units::metres(3000.0);
+  units::Length altitude = units::metres(3000.0);  // meaningless until altitude_entered
+  bool altitude_entered = false;      // nobody typed an altitude yet: shown empty, no verdicts
+  std::int64_t altitude_entered_at = 0;  // when (seconds since 1970 UTC); 0 unknown
   units::Pressure station_reading = units::hectopascals(700.0);
   units::Pressure qnh = units::hectopascals(1013.25);
   bool qnh_temperature_known = false;
@@ -134,6 +137,10 @@ struct Keypad {
   int unit_index = 0;
   bool committed = false;  // OK pressed: the field takes the text on its next draw
   int committed_at_frame = 0;  // dropped if its field was not drawn in the frame after
+  bool allow_negative = true;  // the − key: only for fields whose range goes below zero
+  bool allow_decimal = true;   // the . key: only where a fraction of the unit means something
+  std::string question;        // asked before OK applies (an altitude ten times the last one)
+  bool confirmed = false;      // OK pressed with the question shown
 };
 
 // The team profile in use (ui/team_store.hpp keeps it on the device) and the Team screen.
@@ -166,6 +173,7 @@ struct AppState {
   bool casualty_why_open = false;  // Casualty screen: the reasons and cautions under the verdict
   bool casualty_criteria_open = false;     // Casualty screen: the HAPE/HACE checklist
   illness_criteria::Findings criteria;     // what the medic ticked on it (this run only)
+  bool press_scrolling = false;  // this press has become a scroll (ui/widgets.hpp)
 
   // Persistence: the JSON last written, so we only write when something changed.
   std::string saved_json;

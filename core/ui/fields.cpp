@@ -1,5 +1,9 @@
 #include "ui/fields.hpp"
 
+#include <algorithm>
+#include <cctype>
+#include <ctime>
+
 namespace firn::ui {
 
 using namespace units;
@@ -9,6 +13,56 @@ QuantityField<LengthDimension> altitude_field(const AppState& state, const char*
   int index = state.settings.units.altitude == UnitChoice::Altitude::Feet ? 1 : 0;
   return {label, id, "altitude", {&metres, &feet}, index, metres(-500), metres(9000),
           {100.0, 500.0}, 0};
+}
+
+QuantityField<LengthDimension> situation_altitude_field(AppState& state, const char* label) {
+  QuantityField<LengthDimension> f = altitude_field(state, label, "altitude");
+  f.entered = &state.situation.altitude_entered;
+  f.entered_at = &state.situation.altitude_entered_at;
+  f.confirm_tenfold = true;
+  return f;
+}
+
+std::string empty_prompt(const char* what) {
+  return "\xE2\x80\x94  enter the " + std::string(what);
+}
+
+std::int64_t now_seconds() { return static_cast<std::int64_t>(std::time(nullptr)); }
+
+std::string entered_note(std::int64_t entered_at) {
+  if (entered_at <= 0) return {};
+  std::time_t when = static_cast<std::time_t>(entered_at);
+  std::time_t now = std::time(nullptr);
+  std::tm at{}, today{};
+  if (localtime_r(&when, &at) == nullptr || localtime_r(&now, &today) == nullptr) return {};
+  char buffer[48];
+  bool same_day = at.tm_year == today.tm_year && at.tm_yday == today.tm_yday;
+  std::strftime(buffer, sizeof buffer, same_day ? "entered %H:%M" : "entered %d %b, %H:%M", &at);
+  return buffer;
+}
+
+bool tenfold_change(double last, double next, double floor) {
+  double a = std::max(std::fabs(last), floor);
+  double b = std::max(std::fabs(next), floor);
+  return std::max(a, b) >= 10.0 * std::min(a, b);
+}
+
+std::string tenfold_question(const char* what, double last, double next, std::string_view symbol) {
+  std::string unit = symbol.empty() ? "" : " " + std::string(symbol);
+  std::string shown_next = grouped_number(next, 2 * (next != std::round(next))) + unit;
+  std::string relation = std::fabs(next) < std::fabs(last) ? "a tenth or less of" : "ten times or more";
+  return shown_next + " is " + relation + " the last " + what + " (" + grouped_number(last, 0) + unit +
+         "). Use " + shown_next + "?";
+}
+
+std::string out_of_range_message(const char* what, double low, double high, double got,
+                                 std::string_view symbol, int decimals) {
+  std::string unit = symbol.empty() ? "" : " " + std::string(symbol);
+  int got_decimals = got == std::round(got) ? 0 : std::max(decimals, 2);
+  std::string text = grouped_number(got, got_decimals) + unit + " not taken: the " + what + " goes from " +
+                     range_text(low, high, symbol, decimals) + ".";
+  text[0] = static_cast<char>(std::toupper(static_cast<unsigned char>(text[0])));
+  return text;
 }
 
 QuantityField<PressureDimension> air_pressure_field(const AppState& state, const char* label,

@@ -1,5 +1,6 @@
 #include "ui/format.hpp"
 
+#include <algorithm>
 #include <cmath>
 
 #include "model/result.hpp"
@@ -45,6 +46,46 @@ std::string pressure_text(Pressure pressure, const UnitChoice& u) {
     case UnitChoice::Pressure::Hectopascals: break;
   }
   return shown_number(pressure.in(hectopascals), 1) + " hPa";
+}
+
+std::string grouped_number(double value, int decimals) {
+  std::string plain = shown_number(value, decimals);
+  if (!std::isfinite(value)) return plain;
+  bool negative = !plain.empty() && plain[0] == '-';
+  if (negative) plain.erase(0, 1);
+  size_t integer_end = plain.find('.');
+  if (integer_end == std::string::npos) integer_end = plain.size();
+  // Groups of three split by a no-break space (SI Brochure, 9th ed. 2019, 5.4.4: a space, never
+  // a dot or comma): reads the same in decimal-comma and decimal-point countries, never wraps.
+  for (size_t i = integer_end; i > 3; i -= 3) plain.insert(i - 3, "\xC2\xA0");
+  return negative ? "\xE2\x88\x92" + plain : plain;
+}
+
+namespace {
+// Rounds toward the inside of the range (up for a low bound, down for a high one).
+double round_inward(double value, bool up, int decimals) {
+  if (value == 0.0 || !std::isfinite(value)) return value;
+  double magnitude = std::floor(std::log10(std::fabs(value)));
+  double step = std::max(std::pow(10.0, magnitude - 2.0), std::pow(10.0, -decimals));
+  double scaled = value / step;
+  return (up ? std::ceil(scaled - 1e-9) : std::floor(scaled + 1e-9)) * step;
+}
+int decimals_for(double value, int decimals) {
+  for (int d = 0; d < decimals; ++d) {
+    double scaled = value * std::pow(10.0, d);
+    if (std::fabs(scaled - std::round(scaled)) < 1e-6) return d;
+  }
+  return decimals;
+}
+}  // namespace
+
+std::string range_text(double low, double high, std::string_view symbol, int decimals) {
+  double shown_low = round_inward(low, true, decimals);
+  double shown_high = round_inward(high, false, decimals);
+  std::string text = grouped_number(shown_low, decimals_for(shown_low, decimals)) + " to " +
+                     grouped_number(shown_high, decimals_for(shown_high, decimals));
+  if (!symbol.empty()) text += " " + std::string(symbol);
+  return text;
 }
 
 }  // namespace firn::ui

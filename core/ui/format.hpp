@@ -19,6 +19,14 @@ std::string altitude_text(units::Length altitude, const UnitChoice& units);
 std::string altitude_with_unit(units::Length altitude, const UnitChoice& units);
 std::string pressure_text(units::Pressure pressure, const UnitChoice& units);
 
+// A number for reading, not editing: thousands grouped by a no-break space and a true minus
+// sign ("−1 640", "29.92"). Non-finite values become "—".
+std::string grouped_number(double value, int decimals);
+// A valid range in messages and on the keypad: bounds rounded inward to three significant
+// figures (never finer than `decimals`), so each shown bound is itself accepted:
+// "−1 640 to 29 500 ft", not "-1640.42–29527.56 ft". The one place a range is rounded for display.
+std::string range_text(double low, double high, std::string_view symbol, int decimals);
+
 }  // namespace firn::ui
 
 namespace firn::ui {

@@ -20,17 +20,27 @@ struct FieldSpec {
   int unit_index = 0;
   std::string hint;      // valid range in the current unit
   bool steppers = true;  // − / + beside the value, recorded as "<label> -" / "<label> +"
+  bool allow_negative = true;  // keypad shows the − key
+  bool allow_decimal = true;   // keypad shows the . key
+  bool empty = false;    // nothing entered yet: `shown` is a prompt, no steppers
+  std::string note;      // small line under the value ("entered 14:05")
 };
 
 struct FieldEvent {
   enum class Kind { None, Commit, Minus, Plus } kind = Kind::None;
   std::string text;    // typed number (Commit)
   int unit_index = 0;  // unit toggled on the keypad (Commit)
+  bool confirmed = false;  // the user answered the keypad's question with OK (Commit)
 };
 
 // Draws the field; returns what the user did to it this frame. Errors in
 // state.field_errors[spec.id] are shown under it.
 FieldEvent keypad_field(AppState& state, const FieldSpec& spec);
+
+// Opens the keypad again on the typed text with a question above it; OK then commits with
+// `confirmed` set, any key goes back to editing.
+void ask_on_keypad(AppState& state, const FieldSpec& spec, const FieldEvent& event,
+                   std::string question);
 
 // Draws the keypad over the bottom of the screen when open. Call after the panels.
 void draw_keypad(AppState& state, float width, float height);

@@ -87,7 +87,7 @@ void draw_where(AppState& state) {
   if (choice_row(state, "source", sources, 3, &source)) s.source = static_cast<PressureSource>(source);
 
   if (s.source != PressureSource::Station) {
-    edit_quantity(state, altitude_field(state, "Altitude", "altitude"), s.altitude);
+    edit_quantity(state, situation_altitude_field(state, "Altitude"), s.altitude);
   }
   if (s.source == PressureSource::Altitude) draw_latitude_month(state);
   if (s.source == PressureSource::Station) {
@@ -167,8 +167,9 @@ void draw_pressure(AppState& state) {
     if (situation_latitude_month(state)) other = state.settings.model;
     Result<Pressure> other_pb = atmosphere::pressure_at(s.altitude, other);
     std::string other_label = std::string(atmosphere::model_name(other)) + " for comparison";
-    result_value(state, other_label.c_str(),
-                 other_pb ? pressure_text(other_pb.value(), u) : "outside model range", false);
+    // No altitude entered: no comparison either (a made-up place gives no number at all).
+    std::string other_text = !pb ? "\xE2\x80\x94" : other_pb ? pressure_text(other_pb.value(), u) : "outside model range";
+    result_value(state, other_label.c_str(), other_text, false);
   } else {
     // The altitude this pressure corresponds to, so a medic can sanity-check the reading.
     Result<Length> altitude = atmosphere::altitude_at(pb ? pb.value() : Pressure{}, state.settings.model);

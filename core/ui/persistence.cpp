@@ -88,6 +88,8 @@ std::string state_to_json(const AppState& state) {
                    {"temperature_unit", word(kTemperatureUnits, st.units.temperature)}};
   j["situation"] = {{"source", word(kSourceKeys, s.source)},
                     {"altitude_m", s.altitude.in(metres)},
+                    {"altitude_entered", s.altitude_entered},
+                    {"altitude_entered_at", s.altitude_entered_at},
                     {"station_pa", s.station_reading.in(pascals)},
                     {"qnh_pa", s.qnh.in(pascals)},
                     {"temperature_known", s.qnh_temperature_known},
@@ -152,6 +154,13 @@ bool state_from_json(AppState& state, const std::string& text) {
   Situation& s = state.situation;
   read(si, "source", kSourceKeys, s.source);
   read(si, "altitude_m", metres, -500, 9000, s.altitude);
+  // Saves from before the flag: an altitude other than the old default of 3,000 m was typed
+  // or stepped by someone; 3,000 m may be the default nobody entered, so it shows empty.
+  s.altitude_entered = si.contains("altitude_m") && s.altitude.in(metres) != 3000.0;
+  read(si, "altitude_entered", s.altitude_entered);
+  double entered_at = static_cast<double>(s.altitude_entered_at);
+  read(si, "altitude_entered_at", 0.0, 4102444800.0, entered_at);  // up to the year 2100
+  s.altitude_entered_at = static_cast<std::int64_t>(entered_at);
   read(si, "station_pa", pascals, 15000, 110000, s.station_reading);
   read(si, "qnh_pa", pascals, 90000, 110000, s.qnh);
   read(si, "temperature_known", s.qnh_temperature_known);

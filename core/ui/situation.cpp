@@ -15,6 +15,10 @@ using namespace units;
 
 Result<Pressure> situation_pressure(const AppState& state) {
   const Situation& s = state.situation;
+  // No altitude typed yet: no pressure, so no screen shows a verdict for a made-up place.
+  if (s.source != PressureSource::Station && !s.altitude_entered) {
+    return Error{"No altitude entered yet: enter it on the Here screen (map, GPS or altimeter)."};
+  }
   switch (s.source) {
     case PressureSource::Station: return atmosphere::pressure_from_station_reading(s.station_reading);
     case PressureSource::Qnh:
@@ -57,7 +61,10 @@ std::string situation_pressure_source(const AppState& state) {
 }
 
 Result<Length> situation_altitude(const AppState& state) {
-  if (state.situation.source != PressureSource::Station) return state.situation.altitude;
+  if (state.situation.source != PressureSource::Station) {
+    if (!state.situation.altitude_entered) return situation_pressure(state).error();
+    return state.situation.altitude;
+  }
   Result<Pressure> pb = situation_pressure(state);
   if (!pb) return pb.error();
   return atmosphere::altitude_at(pb.value(), state.settings.model);
@@ -70,11 +77,15 @@ std::string situation_summary(const AppState& state) {
   Result<Length> altitude = situation_altitude(state);
   Result<Pressure> pb = situation_pressure(state);
   if (s.source == PressureSource::Station) text += "barometer ";
-  text += altitude ? altitude_with_unit(altitude.value(), u) : std::string("\xE2\x80\x94");
-  text += " \xC2\xB7 ";
-  text += pb ? pressure_text(pb.value(), u) : std::string("\xE2\x80\x94");
-  if (s.source == PressureSource::Altitude) text += " (" + situation_pressure_source(state) + ")";
-  if (s.source == PressureSource::Qnh) text += " (QNH)";
+  if (s.source != PressureSource::Station && !s.altitude_entered) {
+    text += "no altitude yet";  // no pressure either: nothing to show beside it
+  } else {
+    text += altitude ? altitude_with_unit(altitude.value(), u) : std::string("\xE2\x80\x94");
+    text += " \xC2\xB7 ";
+    text += pb ? pressure_text(pb.value(), u) : std::string("\xE2\x80\x94");
+    if (s.source == PressureSource::Altitude) text += " (" + situation_pressure_source(state) + ")";
+    if (s.source == PressureSource::Qnh) text += " (QNH)";
+  }
   text += " \xC2\xB7 ";
   text += s.spo2_measured ? "SpO2 " + percent_text(s.spo2) : std::string("no SpO2");
   text += " \xC2\xB7 " + time_at_altitude_text(s.time_at_altitude);
@@ -92,7 +103,7 @@ void draw_situation_strip(AppState& state) {
   height = std::max(height, size.y + 2 * ImGui::GetStyle().FramePadding.y);
   ImGui::PushID("situation-strip");
   ImVec2 pos = ImGui::GetCursorScreenPos();
-  bool pressed = ImGui::Button("##situation", ImVec2(width, height));
+  bool pressed = tap_button("##situation", ImVec2(width, height));
   ImGui::PopID();
   ImGui::PopStyleVar();
   ImGui::GetWindowDrawList()->AddText(

@@ -8,15 +8,17 @@ ImVec4 rgb(int r, int g, int b) { return ImVec4(r / 255.f, g / 255.f, b / 255.f,
 // Day: near-black on white, 18.9:1; dim text #3d3d3d on white 11:1 (WCAG 2.1 contrast formula).
 const Palette kDay{rgb(255, 255, 255), rgb(17, 17, 17),    rgb(61, 61, 61),   rgb(0, 70, 140),
                    rgb(100, 58, 0),    rgb(160, 0, 0),     rgb(232, 236, 241), rgb(196, 214, 236),
-                   rgb(80, 80, 80)};
-// Night: only red light. Text #ff3b30-ish on black; no blue or green components.
+                   rgb(80, 80, 80),    rgb(0, 100, 40)};
+// Night: only red light. Text #ff3b30-ish on black. Tones by lightness: caution is the
+// lightest red, danger a bright block, good the body red, no verdict the dim red.
 const Palette kNight{rgb(0, 0, 0),    rgb(230, 40, 30),  rgb(170, 30, 24), rgb(255, 80, 60),
-                     rgb(255, 110, 80), rgb(255, 60, 60), rgb(36, 4, 2),    rgb(80, 10, 6),
-                     rgb(120, 20, 12)};
+                     rgb(255, 135, 105), rgb(255, 60, 50), rgb(36, 4, 2),   rgb(80, 10, 6),
+                     rgb(120, 20, 12),  rgb(220, 40, 30)};
 // Projection: white on very dark blue, large type.
 const Palette kProjection{rgb(12, 18, 32),   rgb(255, 255, 255), rgb(215, 222, 232),
                           rgb(120, 190, 255), rgb(255, 200, 90),  rgb(255, 120, 110),
-                          rgb(32, 44, 70),    rgb(52, 80, 130),   rgb(140, 150, 170)};
+                          rgb(32, 44, 70),    rgb(52, 80, 130),   rgb(140, 150, 170),
+                          rgb(120, 225, 150)};
 
 }  // namespace
 
@@ -78,7 +80,10 @@ void apply_theme(Theme theme, float pixel_ratio) {
   c[ImGuiCol_SliderGrab] = p.accent;
   c[ImGuiCol_SliderGrabActive] = p.accent;
   c[ImGuiCol_Button] = p.surface;
-  c[ImGuiCol_ButtonHovered] = p.surface_active;
+  // Hover is a tint between plain and selected: a mouse over an option never looks chosen.
+  c[ImGuiCol_ButtonHovered] = ImVec4(p.surface.x + (p.surface_active.x - p.surface.x) * 0.35f,
+                                     p.surface.y + (p.surface_active.y - p.surface.y) * 0.35f,
+                                     p.surface.z + (p.surface_active.z - p.surface.z) * 0.35f, 1.0f);
   c[ImGuiCol_ButtonActive] = p.surface_active;
   c[ImGuiCol_Header] = p.surface_active;
   c[ImGuiCol_HeaderHovered] = p.surface_active;

@@ -10,6 +10,10 @@ namespace firn::ui {
 
 struct Palette {
   ImVec4 background, text, text_dim, accent, warning, danger, surface, surface_active, border;
+  // Verdict "OK". At night every colour is red, so the tones differ by lightness (danger is
+  // drawn as a bright block with dark text, caution in the lightest red, good mid, no verdict
+  // dim) and by shape; by day and on the projector they differ by hue as well.
+  ImVec4 good;
 };
 
 const Palette& palette(Theme theme);

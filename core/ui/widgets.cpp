@@ -1,5 +1,7 @@
 #include "ui/widgets.hpp"
 
+#include <imgui_internal.h>  // ClearActiveID: a press that became a scroll lets go of its item
+
 #include <algorithm>
 #include <cctype>
 #include <cmath>
@@ -27,6 +29,53 @@ std::string shown_number(double value, int decimals) {
   return text;
 }
 
+float tap_slop() {
+  const ImGuiIO& io = ImGui::GetIO();
+  // The body font is the first in the atlas; the large one must not widen the slop.
+  float body_em = io.Fonts->Fonts.empty() ? ImGui::GetFontSize() : io.Fonts->Fonts[0]->FontSize;
+  return body_em * (2.0f / 3.0f);
+}
+
+bool press_is_tap() {
+  const ImGuiIO& io = ImGui::GetIO();
+  // MouseDragMaxDistanceSqr covers the frames the button was down; the release frame's
+  // position is not in it, so a last move that arrives with the release is added here.
+  float travel_sq = io.MouseDragMaxDistanceSqr[0];
+  if (ImGui::IsMousePosValid(&io.MousePos) && ImGui::IsMousePosValid(&io.MouseClickedPos[0])) {
+    float dx = io.MousePos.x - io.MouseClickedPos[0].x;
+    float dy = io.MousePos.y - io.MouseClickedPos[0].y;
+    travel_sq = std::max(travel_sq, dx * dx + dy * dy);
+  }
+  return travel_sq <= tap_slop() * tap_slop();
+}
+
+bool tap_button(const char* label, const ImVec2& size) {
+  bool released_on_it = ImGui::Button(label, size);
+  return released_on_it && press_is_tap();
+}
+
+namespace {
+// A mouse dragging a scrollbar scrolls by itself: that press is left alone.
+bool scrollbar_held() {
+  const ImGuiContext& g = *ImGui::GetCurrentContext();
+  return g.ActiveId != 0 && g.ActiveIdWindow != nullptr &&
+         g.ActiveId == ImGui::GetWindowScrollbarID(g.ActiveIdWindow, ImGuiAxis_Y);
+}
+}  // namespace
+
+bool press_scrolls(AppState& state) {
+  const ImGuiIO& io = ImGui::GetIO();
+  if (io.MouseClicked[0]) state.press_scrolling = false;
+  bool pressing = io.MouseDown[0] || io.MouseReleased[0];
+  if (pressing && !state.press_scrolling && !scrollbar_held() && ImGui::IsMousePosValid(&io.MousePos) &&
+      std::fabs(io.MousePos.y - io.MouseClickedPos[0].y) > tap_slop()) {
+    state.press_scrolling = true;
+  }
+  if (!pressing) state.press_scrolling = false;
+  if (state.press_scrolling && ImGui::GetActiveID() != 0) ImGui::ClearActiveID();
+  return state.press_scrolling && io.MouseDown[0];
+}
+
 float label_fit_scale(const char* label, float width) {
   constexpr float kSmallestScale = 0.7f;
   float available = width - 2.0f * ImGui::GetStyle().FramePadding.x;
@@ -39,7 +88,7 @@ bool fitted_button(const char* label, const ImVec2& size) {
   float scale = label_fit_scale(label, size.x);
   // Firn never scales a window's font otherwise, so 1 is the scale to return to.
   if (scale < 1.0f) ImGui::SetWindowFontScale(scale);
-  bool pressed = ImGui::Button(label, size);
+  bool pressed = tap_button(label, size);
   if (scale < 1.0f) ImGui::SetWindowFontScale(1.0f);
   return pressed;
 }
@@ -119,7 +168,7 @@ bool int_stepper(const AppState& state, const char* label, const char* id, int* 
   float height = std::max(touch_target(state), ImGui::GetFrameHeight());
   float width = std::max(height, 2.5f * em());
   int before = *value;
-  if (ImGui::Button("\xE2\x88\x92", ImVec2(width, height)) && *value > low) --*value;
+  if (tap_button("\xE2\x88\x92", ImVec2(width, height)) && *value > low) --*value;
   test_hook::item(std::string(label) + " -");
   ImGui::SameLine();
   std::string shown = std::to_string(*value);
@@ -129,7 +178,7 @@ bool int_stepper(const AppState& state, const char* label, const char* id, int* 
   if (state.font_large) ImGui::PopFont();
   test_hook::item_text(label, shown);
   ImGui::SameLine();
-  if (ImGui::Button("+", ImVec2(width, height)) && *value < high) ++*value;
+  if (tap_button("+", ImVec2(width, height)) && *value < high) ++*value;
   test_hook::item(std::string(label) + " +");
   ImGui::PopID();
   return *value != before;
@@ -157,7 +206,7 @@ const char* tone_word(Tone tone) {
 namespace {
 ImVec4 tone_colour(const Palette& p, Tone tone) {
   switch (tone) {
-    case Tone::Good: return p.accent;
+    case Tone::Good: return p.good;
     case Tone::Caution: return p.warning;
     case Tone::Danger: return p.danger;
     case Tone::Neutral: return p.text_dim;
@@ -165,39 +214,70 @@ ImVec4 tone_colour(const Palette& p, Tone tone) {
   return p.text;
 }
 
-// The tone's shape, one em square, drawn where the cursor is.
-void tone_shape(Tone tone, ImU32 colour) {
+// The tone's shape, one em square, drawn where the cursor is, with a mark cut into the filled
+// ones (✓ in the circle, ! in the triangle, × in the square) so it reads without colour.
+void tone_shape(Tone tone, ImU32 colour, ImU32 cut) {
   const float size = em();
   const ImVec2 p = ImGui::GetCursorScreenPos();
   const ImVec2 c(p.x + size * 0.5f, p.y + size * 0.5f);
+  const float line = std::max(1.0f, size * 0.12f);
   ImDrawList* draw = ImGui::GetWindowDrawList();
+  auto at = [&](float x, float y) { return ImVec2(p.x + size * x, p.y + size * y); };
   switch (tone) {
-    case Tone::Good: draw->AddCircleFilled(c, size * 0.42f, colour); break;
+    case Tone::Good:
+      draw->AddCircleFilled(c, size * 0.46f, colour);
+      draw->AddLine(at(0.27f, 0.52f), at(0.44f, 0.69f), cut, line);
+      draw->AddLine(at(0.44f, 0.69f), at(0.74f, 0.34f), cut, line);
+      break;
     case Tone::Caution:
-      draw->AddTriangleFilled(ImVec2(c.x, p.y + size * 0.08f), ImVec2(p.x + size * 0.95f, p.y + size * 0.92f),
-                              ImVec2(p.x + size * 0.05f, p.y + size * 0.92f), colour);
+      draw->AddTriangleFilled(at(0.5f, 0.04f), at(0.98f, 0.94f), at(0.02f, 0.94f), colour);
+      draw->AddLine(at(0.5f, 0.34f), at(0.5f, 0.64f), cut, line);
+      draw->AddCircleFilled(at(0.5f, 0.79f), line * 0.6f, cut);
       break;
     case Tone::Danger:
-      draw->AddRectFilled(ImVec2(p.x + size * 0.1f, p.y + size * 0.1f),
-                          ImVec2(p.x + size * 0.9f, p.y + size * 0.9f), colour);
+      draw->AddRectFilled(at(0.04f, 0.04f), at(0.96f, 0.96f), colour);
+      draw->AddLine(at(0.28f, 0.28f), at(0.72f, 0.72f), cut, line);
+      draw->AddLine(at(0.72f, 0.28f), at(0.28f, 0.72f), cut, line);
       break;
-    case Tone::Neutral: draw->AddCircle(c, size * 0.4f, colour, 0, size * 0.12f); break;
+    case Tone::Neutral: draw->AddCircle(c, size * 0.4f, colour, 0, line); break;
   }
   ImGui::Dummy(ImVec2(size, size));
+}
+
+// The tone's word: a solid block (danger: the loudest thing on a screen), an outlined box
+// (caution), or plain (good, no verdict) — four looks that need neither hue nor shape.
+void tone_word_badge(Tone tone, ImU32 colour, ImU32 background) {
+  const char* word = tone_word(tone);
+  const ImVec2 text = ImGui::CalcTextSize(word);
+  const ImVec2 pad(em() * 0.3f, 0.0f);
+  const ImVec2 p = ImGui::GetCursorScreenPos();
+  const ImVec2 q(p.x + text.x + 2 * pad.x, p.y + text.y);
+  ImDrawList* draw = ImGui::GetWindowDrawList();
+  const float rounding = em() * 0.15f;
+  if (tone == Tone::Danger) draw->AddRectFilled(p, q, colour, rounding);
+  if (tone == Tone::Caution) draw->AddRect(p, q, colour, rounding, 0, std::max(1.0f, em() * 0.1f));
+  draw->AddText(ImVec2(p.x + pad.x, p.y), tone == Tone::Danger ? background : colour, word);
+  ImGui::Dummy(ImVec2(q.x - p.x, q.y - p.y));
 }
 }  // namespace
 
 void verdict_line(const AppState& state, Tone tone, const std::string& text) {
-  const ImVec4 colour = tone_colour(palette(state.settings.theme), tone);
-  tone_shape(tone, ImGui::GetColorU32(colour));
+  const Palette& p = palette(state.settings.theme);
+  const ImVec4 colour = tone_colour(p, tone);
+  const ImU32 colour32 = ImGui::GetColorU32(colour);
+  const ImU32 background32 = ImGui::GetColorU32(p.background);
+  ImGui::BeginGroup();
+  tone_shape(tone, colour32, background32);
+  ImGui::SameLine();
+  tone_word_badge(tone, colour32, background32);
   ImGui::SameLine();
   ImGui::PushStyleColor(ImGuiCol_Text, colour);
   ImGui::PushTextWrapPos(0.0f);
-  const std::string shown = std::string(tone_word(tone)) + ": " + text;
-  ImGui::TextUnformatted(shown.c_str());
+  ImGui::TextUnformatted(text.c_str());
   ImGui::PopTextWrapPos();
   ImGui::PopStyleColor();
-  test_hook::item_text("Verdict", shown);
+  ImGui::EndGroup();
+  test_hook::item_text("Verdict", std::string(tone_word(tone)) + ": " + text);
 }
 
 void bullet_line(std::string_view text) {

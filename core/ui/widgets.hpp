@@ -18,9 +18,25 @@ float em();
 // The minimum touch target: 48 CSS px at any device pixel ratio (≥ 9 mm on phones).
 float touch_target(const AppState& state);
 
+// [Taps and scrolls] A press is a tap while it stays within tap_slop() of where it began; beyond
+// that it is a scroll, and nothing fires when the finger lifts (a thumb dragging the page over
+// a stepper must never step it). The slop is two thirds of the body em: 12 CSS px with our
+// 18 px text, about 2 mm on a phone (~160 CSS px per inch) — more than a gloved tap wobbles,
+// less than the shortest deliberate scroll. ImGui 1.86 has no input queue, so the travel is
+// read from ImGui's own press tracking plus the position in the release frame.
+float tap_slop();
+// True while the current (or just released) left press has stayed within the tap slop.
+bool press_is_tap();
+// ImGui::Button that fires only for a tap. Every Firn button goes through it.
+bool tap_button(const char* label, const ImVec2& size);
+// Once a frame before any widget: a press that has moved more than the slop vertically has
+// become a scroll; the item it started on (any button, a slider) lets go of it, so no panel
+// can act on it. Returns true while the press scrolls (the page follows the finger).
+bool press_scrolls(AppState& state);
+
 // The font scale (0.7–1) at which `label` fits a button `width` wide, padding included.
 float label_fit_scale(const char* label, float width);
-// ImGui::Button whose label is drawn smaller (down to 70 %) when it would not fit the given
+// tap_button whose label is drawn smaller (down to 70 %) when it would not fit the given
 // width, instead of being clipped ("Casualty" on a five-across phone bar). Not recorded.
 bool fitted_button(const char* label, const ImVec2& size);
 

@@ -6,6 +6,8 @@
 #include <imgui.h>
 #include <nlohmann/json.hpp>
 
+#include <cmath>
+#include <functional>
 #include <map>
 
 #include "model/atmosphere.hpp"
@@ -16,7 +18,10 @@
 #include "ui/panels.hpp"
 #include "ui/persistence.hpp"
 #include "ui/platform.hpp"
+#include "ui/situation.hpp"
+#include "ui/theme.hpp"
 #include "ui/test_hook.hpp"
+#include "ui/widgets.hpp"
 
 using namespace firn;
 using namespace firn::ui;
@@ -55,24 +60,29 @@ struct Headless {
   }
   ~Headless() { ImGui::DestroyContext(); }
 
-  // When set, the frame draws this screen instead of the lone altitude field.
+  // When set, the frame draws this screen instead of `draw`.
   void (*panel)(AppState&, Platform&) = nullptr;
   MemoryPlatform platform;
+  // What a frame draws before the keypad: by default the altitude field (no "entered" flag).
+  std::function<void(AppState&)> draw = [](AppState& state) {
+    edit_quantity(state, altitude_field(state, "Altitude", "altitude"), state.situation.altitude);
+  };
 
-  // One frame with the altitude field and the keypad; returns the labelled items.
+  // One frame with the panel (or `draw`) and the keypad; returns the labelled items.
   nlohmann::json frame(AppState& state) {
     ImGuiIO& io = ImGui::GetIO();
     io.DeltaTime = 1.0f / 60.0f;
     ImGui::NewFrame();
     test_hook::begin_frame();
     ++state.frames_drawn;
+    press_scrolls(state);  // as draw_frame does, before any widget
     ImGui::SetNextWindowPos(ImVec2(0, 0));
     ImGui::SetNextWindowSize(io.DisplaySize);
     ImGui::Begin("test", nullptr, ImGuiWindowFlags_NoDecoration);
     if (panel) {
       panel(state, platform);
     } else {
-      edit_quantity(state, altitude_field(state, "Altitude", "altitude"), state.situation.altitude);
+      draw(state);
     }
     ImGui::End();
     draw_keypad(state, io.DisplaySize.x, io.DisplaySize.y);
@@ -158,7 +168,7 @@ TEST_CASE("keypad: out of range leaves the value and names range and unit") {
   CHECK(state.situation.altitude.in(units::metres) == Approx(3000.0));
   std::string warning = ui.text(state, "Warning");
   CHECK(warning.find("altitude") != std::string::npos);
-  CHECK(warning.find("9000") != std::string::npos);
+  CHECK(warning.find("9\xC2\xA0" "000") != std::string::npos);  // no-break space groups
   CHECK(warning.find(" m") != std::string::npos);
   // The − key toggles the sign wherever it is pressed: 5, 0, 0, − gives −500 (the lower bound).
   ui.click(state, "Altitude");
@@ -299,4 +309,246 @@ TEST_CASE("Casualty: the HAPE/HACE checklist counts the Lake Louise consensus cr
   CHECK(has(verdicts(), "HAPE criteria not met (2 of 2 symptoms, 1 of 2 signs)"));
   ui.click(state, "Central cyanosis");
   CHECK(has(verdicts(), "DANGER: Meets the criteria for HAPE"));
+// [Issue 12] Drag vs tap, empty-until-entered, malformed numbers, tenfold changes, verdicts.
+
+namespace {
+
+nlohmann::json find_item(const nlohmann::json& items, const std::string& label) {
+  for (const auto& i : items) {
+    if (i["label"] == label) return i;
+  }
+  return nullptr;
+}
+
+// Presses on `label`, moves the mouse by (dx, dy) over `steps` frames, releases: a thumb drag.
+void drag_from(Headless& ui, AppState& state, const std::string& label, float dx, float dy,
+               int steps = 6, bool back = false) {
+  nlohmann::json target = find_item(ui.frame(state), label);
+  REQUIRE(target != nullptr);
+  ImGuiIO& io = ImGui::GetIO();
+  ImVec2 start(target["x"].get<float>() + target["w"].get<float>() / 2,
+               target["y"].get<float>() + target["h"].get<float>() / 2);
+  io.MousePos = start;
+  ui.frame(state);
+  io.MouseDown[0] = true;
+  ui.frame(state);
+  for (int k = 1; k <= steps; ++k) {
+    io.MousePos = ImVec2(start.x + dx * k / steps, start.y + dy * k / steps);
+    ui.frame(state);
+  }
+  if (back) {
+    io.MousePos = start;
+    ui.frame(state);
+  }
+  io.MouseDown[0] = false;
+  ui.frame(state);
+  ui.frame(state);
+}
+
+void draw_situation_altitude(AppState& state) {
+  edit_quantity(state, situation_altitude_field(state, "Altitude"), state.situation.altitude);
+}
+
+void type_on_keypad(Headless& ui, AppState& state, const std::string& keys) {
+  for (char c : keys) ui.click(state, std::string("Key ") + c);
+}
+
+}  // namespace
+
+TEST_CASE("drag vs tap: a press that travels beyond the slop fires nothing") {
+  Headless ui;
+  AppState state;
+  state.situation.altitude = units::metres(4000.0);
+  const float far = 4.0f * tap_slop();
+  // Down the page (a scroll) and sideways, from the steppers and the value itself.
+  for (const char* label : {"Altitude +", "Altitude -", "Altitude"}) {
+    drag_from(ui, state, label, 0.0f, far);
+    drag_from(ui, state, label, 0.0f, -far);
+    drag_from(ui, state, label, far, 0.0f);
+    // Away and back to where it began: still a scroll, not a tap.
+    drag_from(ui, state, label, 0.0f, far, 3, /*back=*/true);
+    drag_from(ui, state, label, far, 0.0f, 3, /*back=*/true);
+  }
+  CHECK(state.situation.altitude.in(units::metres) == Approx(4000.0));
+  CHECK_FALSE(state.keypad.open);
+  CHECK(state.field_errors.empty());
+}
+
+TEST_CASE("drag vs tap: a press that wobbles within the slop is still a tap") {
+  Headless ui;
+  AppState state;
+  state.situation.altitude = units::metres(4000.0);
+  const float wobble = 0.5f * tap_slop();
+  drag_from(ui, state, "Altitude +", wobble, wobble);
+  CHECK(state.situation.altitude.in(units::metres) == Approx(4100.0));
+  drag_from(ui, state, "Altitude", -wobble, 0.0f);
+  CHECK(state.keypad.open);
+}
+
+TEST_CASE("drag vs tap: stepper, choice row and big button ignore a drag, take a tap") {
+  Headless ui;
+  AppState state;
+  int count = 3;
+  int choice = 0;
+  int pressed = 0;
+  ui.draw = [&](AppState& s) {
+    int_stepper(s, "Cylinders", "count", &count, 1, 9);
+    const char* labels[] = {"One", "Two"};
+    choice_row(s, "pick", labels, 2, &choice);
+    if (big_button(s, "Go")) ++pressed;
+  };
+  const float far = 4.0f * tap_slop();
+  for (const char* label : {"Cylinders +", "Cylinders -", "Two", "Go"}) drag_from(ui, state, label, 0, far);
+  CHECK(count == 3);
+  CHECK(choice == 0);
+  CHECK(pressed == 0);
+  for (const char* label : {"Cylinders +", "Two", "Go"}) drag_from(ui, state, label, 0, 1, 1);
+  CHECK(count == 4);
+  CHECK(choice == 1);
+  CHECK(pressed == 1);
+}
+
+TEST_CASE("situation altitude: empty until entered, no pressure, then stamped") {
+  Headless ui;
+  ui.draw = draw_situation_altitude;
+  AppState state;
+  CHECK(ui.text(state, "Altitude").find("enter the altitude") != std::string::npos);
+  CHECK(find_item(ui.frame(state), "Altitude +") == nullptr);  // nothing to step from
+  CHECK_FALSE(situation_pressure(state).ok());
+  CHECK(situation_summary(state).find("no altitude yet") != std::string::npos);
+  ui.click(state, "Altitude");
+  CHECK(ui.text(state, "Keypad value") == "\xE2\x80\x94 m");  // starts empty, not at 3000
+  type_on_keypad(ui, state, "5200");
+  ui.click(state, "Key OK");
+  CHECK(state.situation.altitude_entered);
+  CHECK(state.situation.altitude_entered_at > 0);
+  CHECK(ui.text(state, "Altitude") == "5200 m");
+  CHECK(ui.text(state, "Altitude note").rfind("entered ", 0) == 0);
+  REQUIRE(situation_pressure(state).ok());
+  AppState back;
+  REQUIRE(state_from_json(back, state_to_json(state)));
+  CHECK(back.situation.altitude_entered);
+  CHECK(back.situation.altitude_entered_at == state.situation.altitude_entered_at);
+}
+
+TEST_CASE("saved state from before the entered flag: the old default shows empty") {
+  AppState old_default;
+  REQUIRE(state_from_json(old_default, R"({"version":1,"situation":{"altitude_m":3000}})"));
+  CHECK_FALSE(old_default.situation.altitude_entered);
+  AppState typed;
+  REQUIRE(state_from_json(typed, R"({"version":1,"situation":{"altitude_m":4321}})"));
+  CHECK(typed.situation.altitude_entered);
+}
+
+TEST_CASE("keypad: an altitude ten times or a tenth of the last asks before it is applied") {
+  Headless ui;
+  ui.draw = draw_situation_altitude;
+  AppState state;
+  state.situation.altitude = units::metres(5200.0);
+  state.situation.altitude_entered = true;
+  ui.click(state, "Altitude");
+  type_on_keypad(ui, state, "52");
+  ui.click(state, "Key OK");
+  CHECK(state.situation.altitude.in(units::metres) == Approx(5200.0));
+  REQUIRE(state.keypad.open);
+  CHECK(ui.text(state, "Keypad question").find("52 m is a tenth or less of the last altitude (5\xC2\xA0" "200 m)") == 0);
+  ui.click(state, "Key OK");  // "Yes, use it"
+  CHECK_FALSE(state.keypad.open);
+  CHECK(state.situation.altitude.in(units::metres) == Approx(52.0));
+  // A change below tenfold goes straight through.
+  ui.click(state, "Altitude");
+  type_on_keypad(ui, state, "300");
+  ui.click(state, "Key OK");
+  CHECK(state.situation.altitude.in(units::metres) == Approx(300.0));
+}
+
+TEST_CASE("keypad: '5.200' and '1.2.3' are refused with a plain message") {
+  Headless ui;
+  AppState state;
+  state.settings.units.pressure = UnitChoice::Pressure::Hectopascals;
+  // The altitude field has no '.' key; a laptop keyboard can still type one.
+  ui.click(state, "Altitude");
+  CHECK(find_item(ui.frame(state), "Key .") == nullptr);
+  CHECK(find_item(ui.frame(state), "Key -") != nullptr);  // −500 m is valid
+  state.keypad.text = "5.200";
+  state.keypad.fresh = false;
+  ui.click(state, "Key OK");
+  CHECK(state.situation.altitude.in(units::metres) == Approx(3000.0));
+  CHECK(ui.text(state, "Warning") ==
+        "Did you mean 5200 m or 5.2 m? Type the altitude without a thousands separator");
+  ui.click(state, "Altitude");  // opening the field again clears the message
+  CHECK(ui.text(state, "Warning") == "(absent)");
+  state.keypad.text = "1.2.3";
+  state.keypad.fresh = false;
+  ui.click(state, "Key OK");
+  CHECK(state.situation.altitude.in(units::metres) == Approx(3000.0));
+  CHECK(ui.text(state, "Warning").find("more than one decimal mark") != std::string::npos);
+}
+
+TEST_CASE("keypad: − and . only where they mean something; values rounded to the field") {
+  {
+    Headless ui;  // one ImGui context at a time
+    AppState state;
+    ui.draw = [](AppState& s) {
+      edit_quantity(s, flow_field("Flow", "flow", 25.0), s.oxygen.flow);
+    };
+    ui.click(state, "Flow");
+    CHECK(find_item(ui.frame(state), "Key .") != nullptr);
+    CHECK(find_item(ui.frame(state), "Key -") == nullptr);
+    CHECK(ui.text(state, "Keypad value") == "4.0 L/min");
+    ui.click(state, "Key Cancel");
+  }
+  Headless feet;
+  AppState in_feet;
+  in_feet.settings.units.altitude = UnitChoice::Altitude::Feet;
+  in_feet.situation.altitude = units::metres(5200.0);
+  feet.click(in_feet, "Altitude");
+  CHECK(feet.text(in_feet, "Keypad value") == "17060 ft");  // not 17060.3675
+  // OK on the untouched value keeps the exact metres behind it.
+  feet.click(in_feet, "Key OK");
+  CHECK(in_feet.situation.altitude.in(units::metres) == Approx(5200.0).epsilon(1e-12));
+}
+
+TEST_CASE("ranges in messages are rounded inward, grouped, with a true minus") {
+  // Issue 12 asked for "−1,640 to 29,500 ft": the rounding is theirs; the grouping is a no-break
+  // space (SI Brochure 2019, 5.4.4), since a comma is what the keypad refuses as ambiguous.
+  // The issue's own example: the altitude range in feet.
+  CHECK(range_text(-1640.42, 29527.56, "ft", 0) == "\xE2\x88\x92" "1\xC2\xA0" "640 to 29\xC2\xA0" "500 ft");
+  CHECK(range_text(-500, 9000, "m", 0) == "\xE2\x88\x92" "500 to 9\xC2\xA0" "000 m");
+  CHECK(range_text(26.58, 32.48, "inHg", 2) == "26.6 to 32.4 inHg");
+  CHECK(range_text(0, 25, "L/min", 1) == "0 to 25 L/min");
+  CHECK(grouped_number(12000, 0) == "12\xC2\xA0" "000");
+  CHECK(grouped_number(-1234567.5, 1) == "\xE2\x88\x92" "1\xC2\xA0" "234\xC2\xA0" "567.5");
+}
+
+TEST_CASE("verdict_line: each tone records its own word") {
+  Headless ui;
+  AppState state;
+  for (Theme theme : {Theme::Day, Theme::Night, Theme::Projection}) {
+    state.settings.theme = theme;
+    ui.draw = [](AppState& s) {
+      verdict_line(s, Tone::Good, "Enough: 57 min spare");
+      verdict_line(s, Tone::Caution, "Extrapolated");
+      verdict_line(s, Tone::Danger, "Short by 1 h 15 min");
+      verdict_line(s, Tone::Neutral, "Nothing entered");
+    };
+    nlohmann::json items = ui.frame(state);
+    CHECK(find_item(items, "Verdict")["text"] == "OK: Enough: 57 min spare");
+    CHECK(find_item(items, "Verdict#2")["text"] == "CHECK: Extrapolated");
+    CHECK(find_item(items, "Verdict#3")["text"] == "DANGER: Short by 1 h 15 min");
+    CHECK(find_item(items, "Verdict#4")["text"] == "NO VERDICT: Nothing entered");
+  }
+}
+
+TEST_CASE("verdict tones differ in lightness in the all-red night theme") {
+  // Relative luminance, WCAG 2.1 definition (sRGB linearised): the four tones must be at least
+  // 1.3:1 apart in contrast from each other so they are told apart without hue.
+  auto luminance = [](const ImVec4& c) {
+    auto lin = [](float v) { return v <= 0.04045f ? v / 12.92f : std::pow((v + 0.055f) / 1.055f, 2.4f); };
+    return 0.2126f * lin(c.x) + 0.7152f * lin(c.y) + 0.0722f * lin(c.z);
+  };
+  const Palette& night = palette(Theme::Night);
+  float caution = luminance(night.warning), good = luminance(night.good), dim = luminance(night.text_dim);
+  CHECK((caution + 0.05f) / (good + 0.05f) >= 1.3f);
+  CHECK((good + 0.05f) / (dim + 0.05f) >= 1.3f);
 }

@@ -94,3 +94,39 @@ TEST_CASE("fuzz and sweep findings: huge figures, bounds typed in other units", 
   CHECK(range_error("number of cylinders", 1, 50, "", 0).message ==
         "number of cylinders must be between 1 and 50 (got 0)");
 }
+
+// Issue 12: a thousands-separator habit ("5.200" for 5,200 m) was read as 5.2 m and sea-level
+// physiology shown; "1.2.3" became 1.23 on the keypad. Rules are our own (common practice for
+// locale-ambiguous input: refuse rather than guess).
+TEST_CASE("malformed and ambiguous numbers are refused with a plain message", "[units][errors]") {
+  CHECK_FALSE(parse_number("1.2.3", "altitude").ok());
+  CHECK_FALSE(parse_number("1,2,3", "altitude").ok());
+  CHECK_FALSE(parse_number("1,234.5", "altitude").ok());
+  CHECK(parse_number("1.2.3", "altitude").error().message.find("more than one decimal mark") !=
+        std::string::npos);
+  CHECK(parse_number("5,2", "altitude").value() == Approx(5.2));
+  CHECK(parse_number("5.200", "altitude").value() == Approx(5.2));  // the number alone: no unit
+
+  CHECK(thousands_reading("5.200") == 5200.0);
+  CHECK(thousands_reading("-1,640") == -1640.0);
+  CHECK(thousands_reading("12.500") == 12500.0);
+  CHECK_FALSE(thousands_reading("0.125"));
+  CHECK_FALSE(thousands_reading("5.20"));
+  CHECK_FALSE(thousands_reading("5.2000"));
+  CHECK_FALSE(thousands_reading("5200"));
+  CHECK_FALSE(thousands_reading("1234.500"));
+
+  Result<Length> grouped = parse_length("5.200m");
+  REQUIRE_FALSE(grouped.ok());
+  CHECK(grouped.error().message == "Did you mean 5200 m or 5.2 m? Type the altitude without a thousands separator");
+  CHECK_FALSE(parse_length("5,200 ft").ok());
+  CHECK_FALSE(parse_pressure("1.013hPa").ok());
+  CHECK_FALSE(parse_pressure("2.000psi").ok());  // 2000 psi is a full cylinder
+  // Read with a thousands separator these are absurd, so the decimal is meant and kept.
+  CHECK(parse_length("5.200km").value().in(metres) == Approx(5200.0));
+  CHECK(parse_pressure("29.921inHg").value().in(inhg) == Approx(29.921));
+  CHECK(parse_pressure("70.100kPa").value().in(kilopascals) == Approx(70.1));
+  CHECK(parse_length("5200m").value().in(metres) == Approx(5200.0));
+  CHECK(parse_length("5.2m").value().in(metres) == Approx(5.2));
+  CHECK(parse_length("0.500m").value().in(metres) == Approx(0.5));
+}

@@ -84,6 +84,9 @@
   // ImGui 1.86 has no input queue: a press and its release (or a release and the next press)
   // that reach the app inside one frame merge, and the tap is lost. Quick taps on a slow phone
   // do exactly that, so a touch-made button event waits until a frame has seen the one before.
+  // Moves wait too: the frame that takes a press must see where the finger went down, or a
+  // quick flick would look to the app like a tap at its end point (the app tells a tap from a
+  // scroll by the distance from the press; see tap_slop in core/ui/widgets.hpp).
   var pendingMouse = [];
   var lastButtonFrame = -1;
   var flushScheduled = false;
@@ -97,7 +100,7 @@
     while (pendingMouse.length) {
       var next = pendingMouse[0];
       var button = next.type !== 'mousemove' || next.afterFrame;
-      if (button && lastButtonFrame >= 0 && framesDrawn() <= lastButtonFrame) {
+      if (lastButtonFrame >= 0 && framesDrawn() <= lastButtonFrame) {
         wake();
         if (!flushScheduled) {
           flushScheduled = true;
