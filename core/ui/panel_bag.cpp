@@ -172,7 +172,10 @@ void draw_bag_panel(AppState& state, Platform&) {
   settings.where = situation_latitude_month(state);  // the same atmosphere both ways
   Result<bag::BagResult> result = Error{""};
   if (state.situation.source == PressureSource::Altitude) {
-    result = bag::bag_at_altitude(state.situation.altitude, state.settings.model, settings);
+    // An altitude nobody entered gives no figure and no verdict (situation_altitude says so).
+    Result<Length> here = situation_altitude(state);
+    result = here ? bag::bag_at_altitude(here.value(), state.settings.model, settings)
+                  : Result<bag::BagResult>(here.error());
   } else {
     Result<Pressure> pb = situation_pressure(state);
     result = pb ? bag::bag_at_pressure(pb.value(), state.settings.model, settings) : Result<bag::BagResult>(pb.error());

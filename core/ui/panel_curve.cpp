@@ -39,7 +39,7 @@ void draw_curve_panel(AppState& state, Platform&) {
   dissociation::CurveShift shift;
   shift.ph = mid.acid_base.ph;
   shift.base_excess_mmol_l = mid.acid_base.base_excess_mmol_l;
-  shift.p50 = expected_spo2::field_p50(situation_exposure(state));
+  shift.p50 = expected_spo2::field_p50(situation_acclimatisation(state));
   Result<dissociation::Curve> shifted = dissociation::make_curve(shift);
   dissociation::Curve standard = dissociation::Curve::standard();
 
