@@ -2,7 +2,7 @@
 # Firn's one set-up script (Debian 12, as root or with sudo). Idempotent and quiet when nothing
 # is left to do.
 #   ./firn.sh start   install what is missing, build, serve the offline page and open the app
-#   ./firn.sh test    install what is missing, build native + web (+ sanitizer and fuzz trees),
+#   ./firn.sh test    install what is missing, build native + web (+ the sanitizer/fuzz tree),
 #                     run every test layer
 #   ./firn.sh soak    install what is missing, build the page, run the 2,000-step browser
 #                     session (FIRN_SESSION_STEPS, FIRN_SESSION_SEED to change or replay it)
@@ -106,7 +106,7 @@ run_logged() {  # name, command...: output to a log, shown only on failure; its 
 # ctest, with each layer's time and result added to the phases as ctest:<layer>.
 run_ctest() {
   local start=$EPOCHREALTIME status=0
-  (cd build/native && ctest --output-on-failure --timeout 600) 2>&1 | tee "$LOGS/ctest.log" \
+  (cd build/native && ctest --output-on-failure --timeout 300) 2>&1 | tee "$LOGS/ctest.log" \
     || status=$?
   # "  3/12 Test  #3: wasm_unit ........   Passed    6.02 sec" (or ***Failed, ***Timeout)
   sed -nE 's/^ *[0-9]+\/[0-9]+ Test +#[0-9]+: ([^ ]+) \.* *(\*\*\*)?([A-Za-z]+).* ([0-9.]+) sec$/ctest:\1\t\4\t\3/p' \
@@ -124,7 +124,7 @@ print_phases() {
   printf 'firn:   %-28s %8s\n' total "$total"
 }
 
-ASAN=build/asan FUZZ=build/fuzz  # hardening trees (clang-14), built by `test` only
+HARDENING=build/hardening  # the clang-14 sanitizer + fuzz tree, built by `test` only
 
 WEB=build/web
 
@@ -141,26 +141,24 @@ build() {
   build_web
   local web=$WEB native=build/native
   # Configured again when a tree made before the hardening layers lacks their directories.
-  if [ ! -f $native/CMakeCache.txt ] || ! grep -q "^FIRN_FUZZ_BUILD_DIR:PATH=$ROOT/$FUZZ\$" $native/CMakeCache.txt; then
+  if [ ! -f $native/CMakeCache.txt ] || ! grep -q "^FIRN_FUZZ_BUILD_DIR:PATH=$ROOT/$HARDENING\$" $native/CMakeCache.txt; then
     run_logged configure-native cmake -S . -B $native -DCMAKE_BUILD_TYPE=Release \
-      -DFIRN_WEB_BUILD_DIR="$ROOT/$web" -DFIRN_SANITIZED_BUILD_DIR="$ROOT/$ASAN" \
-      -DFIRN_FUZZ_BUILD_DIR="$ROOT/$FUZZ"
+      -DFIRN_WEB_BUILD_DIR="$ROOT/$web" -DFIRN_SANITIZED_BUILD_DIR="$ROOT/$HARDENING" \
+      -DFIRN_FUZZ_BUILD_DIR="$ROOT/$HARDENING"
   fi
   run_logged build-native cmake --build $native -j "$JOBS"
 }
 
-# The unit tests with ASan+UBSan (ctest unit_sanitized) and the libFuzzer targets (fuzz_smoke):
-# only core/model, the CLI layer and the test programs, at -O1 (docs/hardening.md).
+# One clang tree for the unit tests with ASan+UBSan (ctest unit_sanitized) and the libFuzzer
+# targets (fuzz_smoke): core/model compiled once, sanitized and coverage-instrumented, at -O1
+# (docs/hardening.md). Only those programs are built.
 build_hardening() {
-  local flags=(-DCMAKE_BUILD_TYPE=Debug -DCMAKE_CXX_FLAGS_DEBUG=-O1)
-  if [ ! -f $ASAN/CMakeCache.txt ]; then
-    run_logged configure-asan env CC=clang-14 CXX=clang++-14 cmake -S . -B $ASAN -DFIRN_SANITIZE=ON "${flags[@]}"
+  if [ ! -f $HARDENING/CMakeCache.txt ]; then
+    run_logged configure-hardening env CC=clang-14 CXX=clang++-14 cmake -S . -B $HARDENING \
+      -DFIRN_FUZZ=ON -DCMAKE_BUILD_TYPE=Debug -DCMAKE_CXX_FLAGS_DEBUG=-O1
   fi
-  run_logged build-asan cmake --build $ASAN -j "$JOBS" --target firn_unit_tests
-  if [ ! -f $FUZZ/CMakeCache.txt ]; then
-    run_logged configure-fuzz env CC=clang-14 CXX=clang++-14 cmake -S . -B $FUZZ -DFIRN_FUZZ=ON "${flags[@]}"
-  fi
-  run_logged build-fuzz cmake --build $FUZZ -j "$JOBS"
+  run_logged build-hardening cmake --build $HARDENING -j "$JOBS" --target firn_unit_tests \
+    fuzz_units fuzz_cli fuzz_profile fuzz_models
 }
 
 # The long soak (2,000 seeded random interactions; issue 7), kept out of `test` (issue 13): the
