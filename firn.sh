@@ -43,14 +43,40 @@ install_packages() {
   fi
 }
 
+# A deb-src twin of the machine's own apt sources (same URIs, suites, components, keys), so a
+# mirror configured here keeps working and this script names no package host. deb822 stanzas
+# from /etc/apt/sources.list.d/*.sources, or the deb lines of /etc/apt/sources.list.
+write_deb_src() {
+  local stanzas= lines
+  local files; files=$(ls /etc/apt/sources.list.d/*.sources 2>/dev/null | grep -v /firn-deb-src) || true
+  # shellcheck disable=SC2086  # the file names have no spaces (apt's own naming)
+  [ -z "$files" ] || stanzas=$(awk '
+    BEGIN { RS = ""; FS = "\n" }
+    {
+      out = ""; binary = 0; enabled = 1
+      for (i = 1; i <= NF; i++) {
+        if ($i ~ /^#/) continue
+        if ($i ~ /^Types:/) { if ($i ~ /[ \t]deb([ \t]|$)/) binary = 1; $i = "Types: deb-src" }
+        if ($i ~ /^Enabled:[ \t]*(no|false)/) enabled = 0
+        out = out $i "\n"
+      }
+      if (binary && enabled) printf "%s\n", out
+    }' $files)
+  if [ -n "$stanzas" ]; then
+    printf '%s\n' "$stanzas" | as_root tee /etc/apt/sources.list.d/firn-deb-src.sources >/dev/null
+    return 0
+  fi
+  lines=$(sed -nE 's/^[[:space:]]*deb([[:space:]])/deb-src\1/p' /etc/apt/sources.list 2>/dev/null)
+  [ -n "$lines" ] || { say "no apt source to take a deb-src entry from (see DEVELOPERS.md)"; return 1; }
+  printf '%s\n' "$lines" | as_root tee /etc/apt/sources.list.d/firn-deb-src.list >/dev/null
+}
+
 # Dear ImGui 1.86 source from Debian's source package, unpacked into .deps/ (git-ignored).
 install_imgui_source() {
   [ -f .deps/imgui-1.86/imgui.cpp ] && return 0
-  local list=/etc/apt/sources.list.d/firn-deb-src.sources
   if ! grep -rqs '^Types:.*deb-src' /etc/apt/sources.list.d/ && ! grep -qs '^deb-src' /etc/apt/sources.list; then
-    say "adding a deb-src entry for Debian bookworm ($list)"
-    printf 'Types: deb-src\nURIs: http://deb.debian.org/debian\nSuites: bookworm\nComponents: main\nSigned-By: /usr/share/keyrings/debian-archive-keyring.gpg\n' \
-      | as_root tee "$list" >/dev/null
+    say "adding deb-src entries mirroring the machine's apt sources"
+    write_deb_src
     as_root apt-get update -qq
   fi
   say "fetching Debian's imgui 1.86 source package"
