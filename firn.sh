@@ -29,9 +29,12 @@ say() { printf 'firn: %s\n' "$*"; }
 as_root() { if [ "$(id -u)" -eq 0 ]; then "$@"; else sudo "$@"; fi; }
 
 install_packages() {
-  local missing=()
+  local missing=() installed
+  # One dpkg-query for all (one per package took ~45 s on a busy 2-core machine).
+  installed=$(dpkg-query -W -f='${Package}\t${Status}\n' "${PACKAGES[@]}" 2>/dev/null \
+    | awk -F'\t' '$2 ~ /install ok installed/ { print $1 }') || true
   for p in "${PACKAGES[@]}"; do
-    dpkg-query -W -f='${Status}' "$p" 2>/dev/null | grep -q "install ok installed" || missing+=("$p")
+    [[ $'\n'$installed$'\n' == *$'\n'$p$'\n'* ]] || missing+=("$p")
   done
   command -v node >/dev/null 2>&1 || missing+=(nodejs)
   command -v npm >/dev/null 2>&1 || missing+=(npm)
