@@ -55,6 +55,24 @@ const stalled = (what) => new Error(
   `${what} (seed ${SEED}): the headless browser stalled; see "Build and test times" in ` +
   'docs/measurements.md. Replay with FIRN_SESSION_SEED.');
 
+// What a stalled page looks like from inside, for the failure message: is it hidden or
+// unfocused, and how often do animation frames and 10 ms timers run in one second?
+async function diagnosis(page) {
+  const probe = page.evaluate(() => new Promise((done) => {
+    let frames = 0, timers = 0;
+    const start = performance.now();
+    const frame = () => { ++frames; if (performance.now() - start < 1000) requestAnimationFrame(frame); };
+    const timer = () => { ++timers; if (performance.now() - start < 1000) setTimeout(timer, 10); };
+    requestAnimationFrame(frame);
+    setTimeout(timer, 10);
+    setTimeout(() => done({visibility: document.visibilityState, focus: document.hasFocus(),
+                           framesPerSecond: frames, timersPerSecond: timers,
+                           appFrames: window.firnFramesDrawn}), 1000);
+  }));
+  const limit = new Promise((done) => setTimeout(() => done('no answer in 5 s'), 5000));
+  return JSON.stringify(await Promise.race([probe, limit]).catch((error) => error.message));
+}
+
 // The action, or a failure once it has taken `ms`.
 async function within(ms, promise, what) {
   let timer;
@@ -233,7 +251,8 @@ async function runSession() {
       try {
         await within(STEP_LIMIT_MS, actions[name](), `took over ${STEP_LIMIT_MS} ms`);
       } catch (error) {
-        throw new Error(`step ${step} (${name}, seed ${SEED}): ${error.message}`);
+        throw new Error(`step ${step} (${name}, seed ${SEED}): ${error.message}; page: ` +
+                        `${await diagnosis(page)}`);
       }
       assert.deepEqual(errors, [], `errors by step ${step} (seed ${SEED})`);
       const stepMs = Date.now() - stepStarted;
@@ -243,7 +262,7 @@ async function runSession() {
         const windowMs = Date.now() - windowStarted;
         if (windowMs > STALL_WINDOW_MS) {
           throw stalled(`steps ${step - STALL_WINDOW + 1}–${step} took ${windowMs} ms ` +
-                        `(limit ${STALL_WINDOW_MS} ms)`);
+                        `(limit ${STALL_WINDOW_MS} ms); page: ${await diagnosis(page)}`);
         }
         windowStarted = Date.now();
       }
