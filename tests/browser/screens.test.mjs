@@ -6,9 +6,7 @@
 // switched, every tapped target is checked to be ≥ 48 CSS px tall, screenshots are saved (the
 // folder is printed) and idle frames over 5 s are measured and must be 0.
 // Env: FIRN_SITE (built site), FIRN_BIN (native firn), FIRN_SCREENSHOTS (output folder).
-// Split in two files that node --test runs side by side (issue 13): screens-phone.test.mjs and
-// screens-laptop.test.mjs each call defineScreenTests() for their device. One browser per file;
-// one page per device, reused by every step.
+// One browser for both devices; one page per device, reused by every step.
 import assert from 'node:assert/strict';
 import {execFileSync} from 'node:child_process';
 import {join} from 'node:path';
@@ -29,6 +27,17 @@ const firn = (...args) => JSON.parse(execFileSync(firnBin, [...args, '--json'], 
 
 let server;
 let browser;
+const started = Date.now();
+before(async () => {
+  server = await serveSite(site);
+  browser = await launchBrowser();
+  console.log(`screenshots: ${shots}`);
+});
+after(async () => {
+  await browser?.close();
+  await server?.close();
+  console.log(`screens.test.mjs ran ${((Date.now() - started) / 1000).toFixed(1)} s`);
+});
 
 // "609.5 hPa" → {value: 609.5, decimals: 1}; "−4 points" reads as -4.
 function number(text, index = 0) {
@@ -254,21 +263,7 @@ const DEVICES = [
    context: {viewport: {width: 1366, height: 768}, deviceScaleFactor: 1}},
 ];
 
-// Every screen's tests for the named device ('phone' or 'laptop'), with their own browser.
-export function defineScreenTests(deviceName) {
-  const device = DEVICES.find((d) => d.name === deviceName);
-  assert.ok(device, `no device "${deviceName}"`);
-  const started = Date.now();
-  before(async () => {
-    server = await serveSite(site);
-    browser = await launchBrowser();
-    console.log(`screenshots: ${shots}`);
-  });
-  after(async () => {
-    await browser?.close();
-    await server?.close();
-    console.log(`${deviceName} screens ran ${((Date.now() - started) / 1000).toFixed(1)} s`);
-  });
+for (const device of DEVICES) {
   describe(`${device.name} ${device.context.viewport.width}×${device.context.viewport.height}`, () => {
     let d;
     const alt = `${device.altitude}m`;
