@@ -94,6 +94,9 @@ install_imgui_source() {
 # playwright-core (npm) for the browser tests; exact versions from package-lock.json.
 install_node_modules() {
   [ -f tests/browser/package.json ] || return 0
+  # A linked node_modules belongs to another checkout: npm ci here would empty the link's target
+  # (it did: a worktree's run emptied the main checkout's playwright-core for every worktree).
+  [ -L tests/browser/node_modules ] && return 0
   if [ ! -d tests/browser/node_modules ] || [ tests/browser/package-lock.json -nt tests/browser/node_modules ]; then
     say "installing test tooling from npm (tests/browser)"
     (cd tests/browser && npm ci --no-audit --no-fund --loglevel=error >/dev/null)
@@ -157,13 +160,13 @@ HARDENING=build/hardening  # the clang-14 sanitizer + fuzz tree, built by `test`
 
 WEB=build/web
 
-build_web() {
+build_web() {  # [cmake --build options]: all of the web tree by default
   export NODE_PATH=/usr/share/nodejs  # emcc needs Debian's acorn (see DEVELOPERS.md)
   if [ ! -f $WEB/CMakeCache.txt ]; then
     run_logged configure-web emcmake cmake -S . -B $WEB -DCMAKE_BUILD_TYPE=Release \
       -DCMAKE_CROSSCOMPILING_EMULATOR=/usr/bin/node
   fi
-  run_logged build-web cmake --build $WEB -j "$JOBS"
+  run_logged build-web cmake --build $WEB -j "$JOBS" "$@"
 }
 
 build() {
@@ -202,7 +205,7 @@ soak() {
 
 case "${1:-}" in
   deps) deps ;;
-  soak) deps; build_web; soak ;;
+  soak) deps; build_web --target firn_site; soak ;;  # the page only, not the wasm unit tests
   build) deps; build ;;
   start)
     deps; build
