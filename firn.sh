@@ -220,5 +220,5 @@ case "${1:-}" in
     deps; build; build_hardening
     run_ctest
     ;;
-  *) sed -n '2,11p' "$0"; exit 2 ;;
+  *) sed -n '2,10p' "$0"; exit 2 ;;
 esac
