@@ -121,7 +121,7 @@ test('idle page draws nothing: no frames in 3 s without input after settling', a
   assert.equal(afterIdle - before, 0);
   // And input wakes it again.
   await page.mouse.move(60, 60);
-  await pause(300);
-  const woken = await page.evaluate(() => window.firnFramesDrawn);
-  assert.ok(woken > afterIdle, 'mouse movement should wake the main loop');
+  const woken = await page.waitForFunction((n) => window.firnFramesDrawn > n, afterIdle,
+                                           {timeout: 3000}).then(() => true, () => false);
+  assert.ok(woken, 'mouse movement should wake the main loop');
 });

@@ -21,11 +21,16 @@ export function screenshotDir() {
   return dir;
 }
 
-// WebGL2 through SwiftShader; see DEVELOPERS.md (never --disable-software-rasterizer).
+// WebGL2 through SwiftShader; see DEVELOPERS.md (never --disable-software-rasterizer). The three
+// background switches keep a headless page's timers and frames at full rate; playwright-core
+// passes them too (chromiumSwitches), named here so they stay if its defaults change. The one
+// place for Chromium switches: every launch in tests/ and tests/bench/ uses this list.
 export const CHROMIUM_ARGS = ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
                               '--disable-background-networking', '--disable-component-update',
                               '--disable-sync', '--use-gl=angle', '--use-angle=swiftshader',
-                              '--enable-unsafe-swiftshader'];
+                              '--enable-unsafe-swiftshader', '--disable-renderer-backgrounding',
+                              '--disable-background-timer-throttling',
+                              '--disable-backgrounding-occluded-windows'];
 
 // A persistent context in a new empty profile folder, removed by close().
 export async function launch({viewport = {width: 420, height: 860}, deviceScaleFactor = 1,

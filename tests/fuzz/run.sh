@@ -1,7 +1,7 @@
 #!/usr/bin/env bash
 # One fuzz target for a while, from the committed corpus (docs/hardening.md):
 #   tests/fuzz/run.sh BUILD_DIR TARGET SECONDS [WORK_DIR] [libFuzzer flags...]
-# BUILD_DIR is the FIRN_FUZZ tree (build/fuzz). New inputs go to WORK_DIR (default
+# BUILD_DIR is the FIRN_FUZZ tree (build/hardening). New inputs go to WORK_DIR (default
 # BUILD_DIR/work/TARGET), never into tests/fuzz/corpus; a crash is written to WORK_DIR/crash-*,
 # replayed with its full message and printed as hex. Prints libFuzzer's final statistics.
 set -euo pipefail

@@ -2,7 +2,7 @@
 # ctest fuzz_smoke: every fuzz target replays its committed corpus (tests/fuzz/corpus, including
 # the inputs of past findings), then fuzzes briefly from it with a fixed seed: 10 s per target,
 # under 60 s in all. Fails on any crash, sanitizer report or broken invariant.
-#   tests/fuzz/smoke.sh BUILD_DIR      (BUILD_DIR: the FIRN_FUZZ tree, build/fuzz)
+#   tests/fuzz/smoke.sh BUILD_DIR      (BUILD_DIR: the FIRN_FUZZ tree, build/hardening)
 set -euo pipefail
 here=$(cd "$(dirname "$0")" && pwd)
 work=$(mktemp -d); trap 'rm -rf "$work"' EXIT
