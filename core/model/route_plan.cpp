@@ -223,17 +223,18 @@ void add_leg_cautions(const RouteInput& in, const std::vector<LegResult>& legs, 
   }
 }
 
-void add_casualty_caution(const RouteInput& in, RoutePlan& plan) {
+// True when the measured SpO2 on air is below the healthy band: the flows are then too low.
+bool add_casualty_caution(const RouteInput& in, RoutePlan& plan) {
   const Casualty& c = in.casualty;
-  if (!c.measured_spo2_on_air || !c.measured_at) return;
+  if (!c.measured_spo2_on_air || !c.measured_at) return false;
   Result<Pressure> pb = atmosphere::pressure_at(*c.measured_at, in.model);
-  if (!pb) return;
+  if (!pb) return false;
   Result<expected_spo2::Expectation> e = expected_spo2::expected(*pb, c.exposure);
-  if (!e) return;
+  if (!e) return false;
   Result<expected_spo2::Assessment> a = expected_spo2::assess(*c.measured_spo2_on_air, e->band);
   if (!a || a->position == expected_spo2::Position::Within ||
       a->position == expected_spo2::Position::Above) {
-    return;
+    return false;
   }
   plan.cautions.insert(plan.cautions.begin(),
                        "Measured " + pct_text(*c.measured_spo2_on_air) + " on air at " +
@@ -241,9 +242,10 @@ void add_casualty_caution(const RouteInput& in, RoutePlan& plan) {
                            pct_text(e->band.low) + "\xE2\x80\xA6" + pct_text(e->band.high) +
                            "): this casualty is likely to need MORE oxygen than these flows. "
                            "Titrate to the oximeter.");
+  return true;
 }
 
-void set_verdict(const RouteInput& in, bool unsure, RoutePlan& plan) {
+void set_verdict(const RouteInput& in, const std::string& unsure, RoutePlan& plan) {
   std::string margin = minutes_text(in.stock.margin.in(minutes));
   if (!plan.enough) {
     plan.verdict = "short by " + minutes_text(plan.shortfall.in(minutes)) + ": " +
@@ -254,11 +256,11 @@ void set_verdict(const RouteInput& in, bool unsure, RoutePlan& plan) {
   }
   std::string lasts = minutes_text(plan.spare.in(minutes)) + " spare beyond the " + margin +
                       " margin";
-  if (unsure) {
+  if (!unsure.empty()) {
     // No reassurance from figures outside their data: the flows themselves are uncertain.
     plan.enough = false;
-    plan.verdict = "no verdict: the flows are uncertain (extrapolated or target unreachable); at "
-                   "these flows the stock has " + lasts;
+    plan.verdict = "no verdict: " + unsure + "; at these flows the stock has " + lasts +
+                   ", and supports a steady " + flow_text(plan.max_steady_flow);
     return;
   }
   plan.verdict = "enough, " + lasts;
@@ -380,7 +382,7 @@ Result<RoutePlan> plan_route(const RouteInput& in) {
                           " on " + leg_name(hi, plan.legs[hi].leg) + ", " +
                           format_number(plan.legs[hi].pressure.in(hectopascals), 0) + " hPa.");
   add_leg_cautions(in, plan.legs, plan);
-  add_casualty_caution(in, plan);
+  bool needs_more = add_casualty_caution(in, plan);
   for (std::size_t i = 0; i < plan.legs.size(); ++i) {
     if (plan.legs[i].extrapolated) {
       plan.cautions.push_back(leg_name(i, plan.legs[i].leg) +
@@ -388,7 +390,11 @@ Result<RoutePlan> plan_route(const RouteInput& in) {
     }
   }
   plan.cautions.push_back("Flows are a " + std::string(kEstimateKind) + ".");
-  set_verdict(in, unsure, plan);
+  set_verdict(in,
+              needs_more ? "this casualty needs more than the healthy-lowlander flows"
+              : unsure   ? "the flows are uncertain (extrapolated or the target unreachable)"
+                         : "",
+              plan);
 
   plan.assumptions = {
       "Each leg is counted at its highest point (the lowest pressure): altitude changes linearly "

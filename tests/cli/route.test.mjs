@@ -23,8 +23,8 @@ test('route: the demo carry-out, leg by leg, against the single-purpose commands
   const r = firnJson(['route', '--file', demoRoute, '--profile', profileFile]);
   assert.equal(r.demo, true);
   assert.equal(r.legs.length, 6);
-  assert.equal(r.highest_altitude_m, 5450);
-  assert.equal(r.route_min, 75 + 120 + 60 + 90 + 45 + 25);
+  assert.equal(r.highest_altitude_m, 4950);
+  assert.equal(r.route_min, 60 + 120 + 60 + 90 + 45 + 25);
   for (const leg of r.legs) {
     // Pressure at the leg's highest point, the same West 1996 figure `firn pressure` gives.
     const p = firnJson(['pressure', '--altitude', `${leg.highest_altitude_m}m`, '--model', 'west']);
@@ -54,14 +54,25 @@ test('route: the demo carry-out, leg by leg, against the single-purpose commands
   assert.equal(r.shortfall_min, 0);
   assert.ok(r.spare_min > 0);
   assert.ok(r.max_sustainable_flow_lpm >= Math.max(...r.legs.map((l) => l.flow_lpm)));
-  assert.ok(r.cautions.some((c) => c.includes('Highest point of the route: 5450 m')));
+  assert.ok(r.cautions.some((c) => c.includes('Highest point of the route: 4950 m')));
   assert.ok(r.cautions.some((c) => /flight cruises at 4300 m, 450 m above/.test(c)));
-  assert.ok(r.cautions.some((c) => /below the healthy band/.test(c)), 'measured 74 % at 5200 m');
+  assert.ok(!r.cautions.some((c) => /below the healthy band/.test(c)), '72 % at 4700 m is within');
   assert.match(r.estimate, /healthy-lowlander estimate.*titrate to the oximeter/);
   const table = runFirn(['route', '--file', demoRoute]);
   assert.equal(table.status ?? table.code, 0);
   assert.match(table.stdout, /Decision support only/);
   assert.match(table.stdout, /DEMO team profile/);
+});
+
+test('route: a casualty below the healthy band gets no "enough" from healthy-lowlander flows', () => {
+  const route = clone();
+  route.casualty.spo2_on_air = '62%';  // at 4700 m: below the acute band (`firn oxygenation`)
+  const o = firnJson(['oxygenation', '--altitude', '4700m', '--spo2', '62']);
+  assert.ok(o.spo2_expected_low_pct > 62);
+  const r = firnJson(['route', '--file', writeRoute('below.json', route)]);
+  assert.equal(r.enough, false);
+  assert.match(r.verdict, /^no verdict: this casualty needs more than the healthy-lowlander flows; .* supports a steady \d+ L\/min$/);
+  assert.match(r.cautions[0], /Measured 62 % on air at 4700 m is below the healthy band/);
 });
 
 test('route: a flat one-cylinder route equals `firn cylinder`', () => {

@@ -228,6 +228,20 @@ TEST_CASE("the leader's warnings", "[route]") {
   CHECK(has("Highest point of the route: 4300 m"));
   CHECK(has("flight cruises at 4300 m, 450 m above"));
   CHECK(has("healthy-lowlander estimate"));
+  CHECK(r->enough);
+  // 62 % on air at 4700 m is below the healthy acute band there (expected_spo2, calibrated to
+  // Botella de Maglia 2005): the healthy-lowlander flows are too low, so no "enough".
+  Result<expected_spo2::Expectation> band = expected_spo2::expected(west(4700), cascade::Exposure::Acute);
+  REQUIRE(band.ok());
+  REQUIRE(band->band.low.in(percent) > 62.0 + 4.0);
+  in.casualty.measured_spo2_on_air = percent(62);
+  in.casualty.measured_at = metres(4700);
+  Result<RoutePlan> sick = plan_route(in);
+  REQUIRE(sick.ok());
+  CHECK_FALSE(sick->enough);
+  CHECK(sick->verdict.find("no verdict: this casualty needs more") == 0);
+  CHECK(sick->cautions[0].find("Measured 62 % on air at 4700 m is below the healthy band") == 0);
+  in.casualty.measured_spo2_on_air.reset();
   // A cannula cannot reach 90 % at 8500 m (FiO2 at most 0.45 by the device rule of thumb).
   in.legs = {wait_at(8500, 30)};
   Result<RoutePlan> high = plan_route(in);
