@@ -21,4 +21,7 @@ team_profile::Problems check_route_file(std::string_view json_text,
 Result<RouteInput> read_route_file(std::string_view json_text,
                                    const team_profile::TeamProfile& profile);
 
+// The demo team's usual carry-out (fictional, marked demo): the text of assets/demo-route.json.
+std::string_view demo_route_json();
+
 }  // namespace firn::route

@@ -8,6 +8,7 @@
 #include <vector>
 
 #include "model/atmosphere.hpp"
+#include "model/route_plan.hpp"
 #include "model/team_profile.hpp"
 #include "model/units.hpp"
 
@@ -18,8 +19,8 @@ namespace firn::ui {
 enum class Theme { Day, Night, Projection };
 
 // Order = order in the navigation bar.
-enum class Screen { Here, Casualty, Curve, Bag, Oxygen, Ams, Teaching, Team, Settings };
-inline constexpr int kScreenCount = 9;
+enum class Screen { Here, Casualty, Curve, Bag, Oxygen, Route, Ams, Teaching, Team, Settings };
+inline constexpr int kScreenCount = 10;
 
 // Units a user reads and types in. Values are stored as typed quantities (SI inside), so
 // switching units never rounds an entered value away.
@@ -76,6 +77,13 @@ struct OxygenInputs {
   units::Duration first_phase = units::hours(1.0);
 };
 
+// The Route screen: the carry-out being planned (the team's usual one until edited).
+struct RouteState {
+  route::RouteInput input;
+  bool loaded = false;
+  std::string message;  // why the usual carry-out could not be loaded
+};
+
 struct AmsInputs {
   int headache = 0;
   int gastrointestinal = 0;
@@ -119,6 +127,7 @@ struct AppState {
   Situation situation;
   BagInputs bag;
   OxygenInputs oxygen;
+  RouteState route;
   AmsInputs ams;
   TeachingInputs teaching;
   TeamState team;

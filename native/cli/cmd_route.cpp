@@ -1,6 +1,7 @@
 // `firn route`: oxygen along an evacuation route (docs/route-plan.md) from a route file, with the
 // cylinder types, reserve, flowmeter settings and atmosphere model of a team profile.
 #include <cmath>
+#include <cstdio>
 #include <filesystem>
 #include <fstream>
 #include <memory>
@@ -36,6 +37,8 @@ Result<std::string> read_file(const std::string& path, const std::string& what) 
 
 struct RouteOptions {
   std::optional<std::string> file, profile;
+  bool demo = false;
+  CLI::App* command = nullptr;
 };
 
 // Conservative read-outs: SpO2 down, oxygen used up, times down (model rounds swaps and spare).
@@ -141,6 +144,15 @@ void add_verdict(const route::RouteInput& in, const route::RoutePlan& plan, Repo
 }
 
 Result<Report> run_route(const RouteOptions& o) {
+  if (o.demo) {  // the file itself (as `firn profile --demo`)
+    Report report;
+    if (o.command->count("--json") > 0) {
+      report.json = Json::parse(route::demo_route_json());
+    } else {
+      std::fputs(std::string(route::demo_route_json()).c_str(), stdout);
+    }
+    return report;
+  }
   if (!o.file) return Error{"--file is required: a route file (docs/route-plan.md, e.g. assets/demo-route.json)"};
   tp::TeamProfile profile = tp::demo_profile();
   if (o.profile) {
@@ -182,8 +194,10 @@ void register_route_commands(CommandTable& table) {
   auto o = std::make_shared<RouteOptions>();
   CLI::App* cmd = table.add("route", "Oxygen along an evacuation route (route file + team profile)",
                             [o] { return run_route(*o); });
+  o->command = cmd;
   cmd->add_option("--file", o->file, "Route file JSON (docs/route-plan.md)");
   cmd->add_option("--profile", o->profile, "Team profile JSON (default: the demo profile)");
+  cmd->add_flag("--demo", o->demo, "Print the demo route file (fictional team) as JSON");
 }
 
 }  // namespace firn::cli

@@ -19,6 +19,11 @@ const writeRoute = (name, object) => {
 };
 const profileFile = writeRoute('profile.json', runFirn(['profile', '--demo']).stdout);
 
+test('route --demo prints the shipped demo route, marked as demo data', () => {
+  assert.equal(runFirn(['route', '--demo']).stdout, demoText);
+  assert.deepEqual(firnJson(['route', '--demo']), JSON.parse(demoText));
+});
+
 test('route: the demo carry-out, leg by leg, against the single-purpose commands', () => {
   const r = firnJson(['route', '--file', demoRoute, '--profile', profileFile]);
   assert.equal(r.demo, true);
