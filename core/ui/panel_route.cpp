@@ -173,7 +173,7 @@ void draw_cylinder_bars(const AppState& state, const route::RouteInput& in, cons
                          static_cast<float>(2.0 + 2.2 * n), {0, end_h, 0, n, end_h > 6 ? 2.0 : 1.0, n, "hours", ""});
   for (const route::CylinderSpan& s : plan.spans) {
     double row = n - 1 - static_cast<double>(s.cylinder);
-    ImVec2 a = plot.at(s.start.in(hours), row + 0.2), b = plot.at(s.end.in(hours), row + 0.8);
+    ImVec2 a = plot.at(s.start.in(hours), row + 0.1), b = plot.at(s.end.in(hours), row + 0.5);
     plot.draw->AddRectFilled(ImVec2(a.x, b.y), ImVec2(b.x, a.y),
                              plot_colour(state, s.reached_reserve ? PlotColour::Warning : PlotColour::Accent, 0.6f));
     const route::StockCylinder& c = in.stock.cylinders[s.cylinder];
