@@ -103,6 +103,8 @@ int run_app(const cli::AppOptions& options) {
         }
         glfwWaitEventsTimeout(left);
         if (glfwGetTime() - idle_start >= options.idle_seconds) continue;  // timed out: report
+      } else if (state.wake_after_seconds > 0.0) {
+        glfwWaitEventsTimeout(state.wake_after_seconds);  // a timer on screen: its next minute
       } else {
         glfwWaitEvents();  // sleeps until input: an idle app draws nothing
       }

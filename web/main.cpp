@@ -101,6 +101,7 @@ void draw_one_frame(void* argument) {
   if (--runner.settle_frames <= 0 && !ui::wants_continuous_frames(runner.state)) {
     runner.paused = true;
     emscripten_pause_main_loop();  // idle: no frames until firn_wake()
+    if (runner.state.wake_after_seconds > 0.0) schedule_wake(runner.state.wake_after_seconds);
   }
 }
 

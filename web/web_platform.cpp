@@ -120,6 +120,14 @@ EM_JS(void, firn_js_publish_frame_info, (int frames_drawn, int wants_text, float
   window.firnWantsText = !!wants_text;
 });
 
+// One pending wake at a time; a hidden page is not woken (the shell wakes it when it shows).
+EM_JS(void, firn_js_schedule_wake, (double seconds), {
+  clearTimeout(window.firnWakeTimer);
+  window.firnWakeTimer = setTimeout(function() {
+    if (document.visibilityState === 'visible' && window.firnShell) window.firnShell.wake();
+  }, seconds * 1000);
+});
+
 EM_JS(void, firn_js_publish_page_colour, (int rgb), {
   var colour = '#' + (rgb + 0x1000000).toString(16).slice(1);
   document.body.style.background = colour;
@@ -181,6 +189,8 @@ void report_start_problem(const char* kind) { firn_js_report_start_problem(kind)
 void hand_runner_to_page(void* runner) { firn_js_hand_runner_to_page(runner); }
 
 void publish_page_colour(int rgb) { firn_js_publish_page_colour(rgb); }
+
+void schedule_wake(double seconds) { firn_js_schedule_wake(seconds); }
 
 void publish_frame_info(int frames_drawn, bool wants_text_input, float pixel_ratio) {
   firn_js_publish_frame_info(frames_drawn, wants_text_input ? 1 : 0, pixel_ratio);

@@ -39,6 +39,8 @@ void hand_runner_to_page(void* runner);
 // text field wants typing (window.firnWantsText) and the pixel ratio the frame was drawn for.
 // The theme's background as 0xRRGGBB: the page sets its theme-color and background to it.
 void publish_page_colour(int rgb);
+// Wakes the paused main loop after `seconds` if the page is visible then (a running timer).
+void schedule_wake(double seconds);
 
 void publish_frame_info(int frames_drawn, bool wants_text_input, float pixel_ratio);
 

@@ -1,6 +1,7 @@
 #include "model/cylinder.hpp"
 
 #include <algorithm>
+#include <cctype>
 #include <cmath>
 
 #include "model/oxygen_eos.hpp"
@@ -88,6 +89,14 @@ LetterSizeInfo letter_size_info(LetterSize size) {
   return {size, "?", 0.0, litres(0), psi(0), litres(0)};
 }
 
+std::string letter_size_assumption(LetterSize size) {
+  LetterSizeInfo info = letter_size_info(size);
+  return "size " + std::string(info.name) + ": water capacity " +
+         format_number(info.water_capacity.in(litres), 1) +
+         " L assumed (a typical US cylinder, from memory; D and E vary by maker): check the label "
+         "and give your own water capacity";
+}
+
 Result<LetterSize> parse_letter_size(std::string_view text) {
   if (text == "D" || text == "d") return LetterSize::D;
   if (text == "E" || text == "e") return LetterSize::E;
@@ -99,7 +108,53 @@ Result<LetterSize> parse_letter_size(std::string_view text) {
 Result<Contents> contents(const Reading& reading) {
   Result<double> ok = check_reading(reading);
   if (!ok) return ok.error();
-  return contents_checked(reading);
+  Contents c = contents_checked(reading);
+  c.extrapolated = oxygen_eos::extrapolated(reading.temperature);
+  if (reading.temperature < reference_temperature) {
+    Reading at_reference = reading;
+    at_reference.temperature = reference_temperature;
+    double warm = contents_checked(at_reference).free_gas.in(litres);
+    if (warm > 0.0) c.cold_gain = std::max(0.0, c.free_gas.in(litres) / warm - 1.0);
+  }
+  return c;
+}
+
+std::vector<std::string> temperature_cautions(const Contents& c, Temperature temperature) {
+  std::vector<std::string> lines;
+  if (c.cold_gain > cold_gain_caution_fraction) {
+    lines.push_back("At " + format_number(temperature.in(celsius), 0) +
+                    " \xC2\xB0" "C this gauge reading means " + format_number(c.cold_gain * 100.0, 0) +
+                    " % more oxygen than at 15 \xC2\xB0" "C. " + std::string(temperature_advice));
+  }
+  if (c.extrapolated) {
+    std::string text(oxygen_eos::extrapolated_text);
+    text[0] = static_cast<char>(std::toupper(static_cast<unsigned char>(text[0])));
+    lines.push_back(text + ".");
+  }
+  return lines;
+}
+
+Duration whole_minutes_down(Duration d) {
+  return minutes(std::floor(d.in(minutes) + 1e-9));
+}
+
+Duration whole_minutes_up(Duration d) {
+  return minutes(std::ceil(d.in(minutes) - 1e-9));
+}
+
+LeadingDuration leading_duration(const DurationEstimate& real_gas,
+                                 const std::optional<Duration>& field_rule) {
+  Duration gas = whole_minutes_down(real_gas.to_reserve);
+  if (!field_rule) return {gas, DurationBasis::RealGas, "real-gas estimate to the reserve"};
+  Duration rule = whole_minutes_down(*field_rule);
+  if (rule < gas) {
+    return {rule, DurationBasis::FieldRule,
+            "the US field rule gives less than the real-gas estimate (" + format_number(gas.in(minutes), 0) +
+                " min): its factors are conservative nominal capacities, so it leads"};
+  }
+  return {gas, DurationBasis::RealGas,
+          "the real-gas estimate to the reserve gives less than the US field rule (" +
+              format_number(rule.in(minutes), 0) + " min to 200 psi), so it leads"};
 }
 
 Result<Pressure> gauge_pressure_for(Volume water_capacity, Temperature temperature,
@@ -137,15 +192,21 @@ Result<DurationEstimate> duration(const Reading& reading, Pressure reserve_gauge
   Result<double> f = check_flow(flow);
   if (!f) return f.error();
   double reserve_bar = reserve_gauge.in(bar);
-  double gauge_bar = reading.gauge_pressure.in(bar);
-  if (!in_range(reserve_bar, 0.0, gauge_bar)) {
-    return range_error("reserve pressure (gauge)", 0.0, gauge_bar, "bar", reserve_bar);
+  if (!in_range(reserve_bar, 0.0, max_reserve_bar)) {
+    return range_error("reserve pressure (gauge)", 0.0, max_reserve_bar, "bar", reserve_bar);
+  }
+  DurationEstimate d;
+  d.contents = now.value();
+  if (!(reading.gauge_pressure > reserve_gauge)) {
+    d.below_reserve = true;
+    d.reserve_free_gas = now->free_gas;
+    d.usable_free_gas = litres(0);
+    d.to_reserve = minutes(0);
+    return d;
   }
   Reading at_reserve = reading;
   at_reserve.gauge_pressure = reserve_gauge;
   Contents reserve = contents_checked(at_reserve);
-  DurationEstimate d;
-  d.contents = now.value();
   d.reserve_free_gas = reserve.free_gas;
   d.usable_free_gas = now->free_gas - reserve.free_gas;
   d.to_reserve = d.usable_free_gas / flow;

@@ -10,6 +10,7 @@
 #include <optional>
 #include <string>
 #include <string_view>
+#include <vector>
 
 #include "model/result.hpp"
 #include "model/units.hpp"
@@ -57,6 +58,27 @@ Result<LetterSize> parse_letter_size(std::string_view text);  // "D", "e", …
 // Residual pressure the US field rule assumes ("safe residual", common practice).
 inline constexpr Pressure field_rule_residual_gauge = units::psi(200.0);
 
+// The one default reserve (swap-at) gauge pressure: the CLI, the app and a team profile without
+// its own use it. 20 bar (290 psi) is above the field rule's 200 psi, so it gives the shorter time,
+// and keeps a cylinder from being run empty (moist air gets in): common practice, our choice.
+inline constexpr Pressure default_reserve_gauge = units::bar(20.0);
+inline constexpr double max_reserve_bar = 100.0;  // a reserve above this is a typing slip
+
+// Letter-size water capacities are typical values FROM MEMORY; D and E in particular vary by
+// maker (steel or aluminium, 2.1…3.0 L and 4.1…4.8 L). The sentence shown wherever one is used.
+std::string letter_size_assumption(LetterSize size);
+
+// The temperature correction is right only once the gas has reached that temperature.
+inline constexpr std::string_view temperature_advice =
+    "The temperature correction holds only once the cylinder has reached that temperature "
+    "(hours outside, not minutes); when unsure, enter the warmer one: it gives less gas.";
+// A cold temperature that raises the contents by more than this (vs the same gauge at 15 °C) is
+// called out beside the result.
+inline constexpr double cold_gain_caution_fraction = 0.03;
+
+// Shown when the gauge is at or below the reserve.
+inline constexpr std::string_view below_reserve_text = "Below the reserve: change the cylinder now";
+
 // A cylinder as read in the field.
 struct Reading {
   Volume water_capacity;
@@ -72,6 +94,11 @@ struct Contents {
   double z_in_cylinder;      // compressibility at cylinder temperature and absolute pressure
   double z_reference;        // compressibility at 101.325 kPa, 15 °C (≈ 0.9992)
   Pressure absolute_pressure;
+  // Above the equation of state's published 300 K (oxygen_eos::extrapolated): no "enough" from it.
+  bool extrapolated = false;
+  // Extra gas the temperature correction claims: contents / contents of the same gauge at 15 °C
+  // − 1 (0 at 15 °C and warmer). Above cold_gain_caution_fraction, temperature_caution() speaks.
+  double cold_gain = 0.0;
 };
 
 Result<Contents> contents(const Reading& reading);
@@ -82,16 +109,39 @@ Result<Pressure> gauge_pressure_for(Volume water_capacity, Temperature temperatu
                                     Pressure ambient_pressure, Volume free_gas);
 
 struct DurationEstimate {
-  Duration to_reserve;      // (contents − contents at reserve) / flow
+  Duration to_reserve;      // (contents − contents at reserve) / flow; 0 when below_reserve
   Volume usable_free_gas;   // contents above the reserve
   Volume reserve_free_gas;  // contents left at the reserve pressure
   Contents contents;
+  bool below_reserve = false;  // gauge at or below the reserve: below_reserve_text
 };
 
 // Flow is free-gas litres per minute (what a flowmeter calibrated at 1 atm means; see the flow
 // corrections below for altitude). Flow must be > 0 and ≤ 30 L/min; the reserve is a gauge
-// pressure below the reading (0 allowed).
+// pressure 0…max_reserve_bar. A reading at or below the reserve is a result (below_reserve), not
+// an error: it is what the medic must be told.
 Result<DurationEstimate> duration(const Reading& reading, Pressure reserve_gauge, VolumeFlow flow);
+
+// "At −20 °C this reading means 24 % more oxygen than at 15 °C…", when cold_gain is above
+// cold_gain_caution_fraction; "extrapolated…" above 300 K. Empty when there is nothing to say.
+std::vector<std::string> temperature_cautions(const Contents& contents, Temperature temperature);
+
+// [SECTION] Conservative figures: one rounding for the CLI, the screens and the card.
+
+// Whole minutes, rounded down (a duration the oxygen lasts) or up (a time without oxygen). A
+// billionth of a minute of slack keeps 50.0000000001 at 50.
+Duration whole_minutes_down(Duration d);
+Duration whole_minutes_up(Duration d);
+
+// Which estimate leads when the real-gas duration and the US field rule differ: the lower one.
+enum class DurationBasis { RealGas, FieldRule };
+struct LeadingDuration {
+  Duration duration;     // whole minutes, rounded down
+  DurationBasis basis;
+  std::string why;       // "the US field rule gives less (its nominal capacities are conservative)"
+};
+LeadingDuration leading_duration(const DurationEstimate& real_gas,
+                                 const std::optional<Duration>& field_rule);
 
 // US field rule: minutes = (psi − 200) × factor / flow. Gauge 200…3000 psi.
 Result<Duration> field_rule_duration(LetterSize size, Pressure gauge, VolumeFlow flow);

@@ -43,6 +43,10 @@ std::string_view demo_profile_json() {
     }
   ],
   "reserve_pressure": "20bar",
+  "safety_margin": {
+    "minimum": "30min",
+    "share": "20%"
+  },
   "flows": [
     "2L/min",
     "4L/min",

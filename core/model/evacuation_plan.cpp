@@ -3,6 +3,8 @@
 #include <algorithm>
 #include <cmath>
 
+#include "model/oxygen_eos.hpp"
+
 namespace firn::evacuation {
 namespace {
 
@@ -82,9 +84,18 @@ Result<double> check_input(const PlanInput& in) {
     return range_error("evacuation time", kMinEvacuationMin, kMaxEvacuationH * 60, "min", evac);
   }
   double reserve = in.reserve_gauge.in(bar);
-  if (!in_range(reserve, 0.0, cylinder::max_gauge_bar)) {
-    return range_error("reserve pressure (gauge)", 0, cylinder::max_gauge_bar, "bar", reserve);
+  if (!in_range(reserve, 0.0, cylinder::max_reserve_bar)) {
+    return range_error("reserve pressure (gauge)", 0, cylinder::max_reserve_bar, "bar", reserve);
   }
+  double margin = in.margin_minimum.in(minutes);
+  if (!in_range(margin, 0.0, max_margin_minimum_min)) {
+    return range_error("safety margin", 0, max_margin_minimum_min, "min", margin);
+  }
+  if (!in_range(in.margin_fraction * 100.0, 0.0, max_margin_fraction * 100.0)) {
+    return range_error("safety margin share of the evacuation", 0, max_margin_fraction * 100.0, "%",
+                       in.margin_fraction * 100.0);
+  }
+  FIRN_ASSERT(in.pressure_unit != nullptr, "plan: no pressure unit for its texts");
   double interval = in.sample_interval.in(minutes);
   if (!in_range(interval, 1.0, 60.0)) {
     return range_error("sample interval", 1, 60, "min", interval);
@@ -139,7 +150,49 @@ double gauge_bar_at(const Stock& s, double remaining_l) {
 
 std::string minutes_text(double t) { return format_number(t, 0) + " min"; }
 
+// "1 h 12 min", "45 min": whole minutes as given (the caller rounds).
+std::string hours_minutes_text(Duration d) {
+  long total = std::lround(d.in(minutes));
+  if (total < 60) return std::to_string(total) + " min";
+  return std::to_string(total / 60) + " h " + std::to_string(total % 60) + " min";
+}
+
+// The steady flow that spreads `litres` over `over_min`, rounded down to 0.1 L/min.
+std::optional<VolumeFlow> steady_flow(double litres_available, double over_min) {
+  double lpm = std::floor(litres_available / over_min * 10.0 + 1e-9) / 10.0;
+  if (!(lpm >= cylinder::min_flow_lpm)) return std::nullopt;
+  return litres_per_minute(std::min(lpm, cylinder::max_flow_lpm));
+}
+
 }  // namespace
+
+std::string_view verdict_key(Verdict verdict) {
+  switch (verdict) {
+    case Verdict::Enough: return "enough";
+    case Verdict::BelowMargin: return "below_margin";
+    case Verdict::Short: return "short";
+    case Verdict::Extrapolated: return "extrapolated";
+  }
+  return "unknown";
+}
+
+std::string verdict_text(const EvacuationPlan& p) {
+  std::string margin = hours_minutes_text(cylinder::whole_minutes_up(p.margin));
+  std::string spare = hours_minutes_text(cylinder::whole_minutes_down(p.spare));
+  switch (p.verdict) {
+    case Verdict::Enough:
+      if (!p.supply_lasts) return "Enough with the " + margin + " margin: the oxygen is off at arrival";
+      return "Enough with the " + margin + " margin: " + spare + " spare";
+    case Verdict::BelowMargin:
+      return "Lasts to arrival with only " + spare + " spare: less than the " + margin +
+             " margin";
+    case Verdict::Short:
+      return "Short by " + hours_minutes_text(cylinder::whole_minutes_up(p.shortfall));
+    case Verdict::Extrapolated:
+      return "No verdict: a cylinder is above 300 K, where the oxygen figures are extrapolated";
+  }
+  return "";
+}
 
 std::string_view event_key(EventKind kind) {
   switch (kind) {
@@ -195,7 +248,10 @@ Result<EvacuationPlan> plan_evacuation(const PlanInput& input) {
 
   EvacuationPlan plan;
   const double evac = input.evacuation.in(minutes);
-  const std::string reserve_text = format_number(input.reserve_gauge.in(bar), 1) + " bar";
+  const auto& unit = *input.pressure_unit;
+  const std::string reserve_text =
+      format_number(input.reserve_gauge.in(unit), unit.symbol == "psi" ? 0 : 1) + " " +
+      std::string(unit.symbol) + (unit.symbol == "psi" ? " gauge" : "");
   plan.oxygen_needed = litres(schedule.demand_l(0.0, evac));
   double usable_total = 0.0;
   for (const Stock& s : stock) usable_total += s.usable_l;
@@ -213,6 +269,19 @@ Result<EvacuationPlan> plan_evacuation(const PlanInput& input) {
     if (s.usable_l <= kVolumeEpsilonL) {
       plan.assumptions.push_back(s.label + " is at or below the reserve pressure: not used.");
     }
+    plan.extrapolated = plan.extrapolated || oxygen_eos::extrapolated(s.reading.temperature);
+  }
+  std::vector<cylinder::LetterSize> assumed;
+  for (const CylinderSpec& spec : input.cylinders) {
+    if (spec.letter_size && !spec.water_capacity &&
+        std::find(assumed.begin(), assumed.end(), *spec.letter_size) == assumed.end()) {
+      assumed.push_back(*spec.letter_size);
+      plan.assumptions.push_back(cylinder::letter_size_assumption(*spec.letter_size) + ".");
+    }
+  }
+  if (plan.extrapolated) {
+    std::string text(oxygen_eos::extrapolated_text);
+    plan.assumptions.push_back("A cylinder is warmer than 300 K: " + text + "; no \"enough\" from it.");
   }
 
   // Walk the timeline: cylinder exhaustion and phase boundaries cut it into segments.
@@ -313,6 +382,20 @@ Result<EvacuationPlan> plan_evacuation(const PlanInput& input) {
     plan.extra_cylinders_needed =
         plan.enough ? 0 : static_cast<int>(std::ceil(missing / counting_l - 1e-9));
   }
+
+  // The verdict: enough only with the margin, never from an extrapolated figure.
+  plan.margin = std::max(input.margin_minimum, input.evacuation * input.margin_fraction);
+  if (!plan.enough) {
+    plan.verdict = Verdict::Short;
+  } else if (plan.extrapolated) {
+    plan.verdict = Verdict::Extrapolated;
+  } else {
+    bool margin_kept = !plan.supply_lasts ||
+                       *plan.supply_lasts >= input.evacuation + plan.margin - minutes(1e-9);
+    plan.verdict = margin_kept ? Verdict::Enough : Verdict::BelowMargin;
+  }
+  plan.max_sustainable_flow = steady_flow(usable_total, evac + plan.margin.in(minutes));
+  plan.max_flow_to_arrival = steady_flow(usable_total, evac);
 
   // Pressure-vs-time samples: every interval and every segment end (events), capped in number.
   double interval = input.sample_interval.in(minutes);

@@ -45,17 +45,32 @@ struct FlowPhase {
   Duration duration;  // > 0 (ignored for the last phase)
 };
 
+// Default safety margin: the larger of 30 min and 20 % of the evacuation time. A fixed part covers
+// one delay that does not scale with the carry (a jammed regulator, waiting at a landing site); the
+// share covers the time estimate itself, which is less sure the longer the carry. Our choice, not
+// a published figure; a team profile may set its own (docs/team-profile.md).
+inline constexpr Duration default_margin_minimum = units::minutes(30.0);
+inline constexpr double default_margin_fraction = 0.20;
+inline constexpr double max_margin_fraction = 1.0;
+inline constexpr double max_margin_minimum_min = 12.0 * 60.0;
+
 struct PlanInput {
   std::vector<CylinderSpec> cylinders;  // used in this order; 1…50
   std::vector<FlowPhase> phases;        // 1…20
   Duration evacuation;                  // total time to deliver the casualty, 1 min…72 h
-  Pressure reserve_gauge = units::psi(200.0);           // swap when a cylinder reaches this
+  Pressure reserve_gauge = cylinder::default_reserve_gauge;  // swap when a cylinder reaches this
   Pressure ambient_pressure = units::atmospheres(1.0);  // gauges read relative to this
   // The cylinder the shortfall / spare is counted in ("you need 2 more E cylinders"); a full one
   // of this spec (a letter size with gauge_pressure left at 0 means full at its service pressure).
   // When absent: the first listed cylinder filled above the reserve, as it is now.
   std::optional<CylinderSpec> counting_cylinder;
   Duration sample_interval = units::minutes(5.0);  // pressure-vs-time spacing (1 min…1 h)
+  // "Enough" only with a margin: the larger of a fixed time and a share of the evacuation time
+  // (defaults below; a team profile may set its own).
+  Duration margin_minimum = default_margin_minimum;
+  double margin_fraction = default_margin_fraction;
+  // Unit of the gauge pressures in the plan's texts (a US team reads psi): bar or psi.
+  const units::Unit<units::PressureDimension>* pressure_unit = &units::bar;
 };
 
 // A stretch of time during which one cylinder supplies the casualty.
@@ -92,6 +107,14 @@ struct PressureSample {
   VolumeFlow flow;
 };
 
+// Enough only with the margin; an extrapolated figure never says enough.
+enum class Verdict {
+  Enough,        // lasts until arrival + margin
+  BelowMargin,   // lasts until arrival, but not the margin beyond it
+  Short,         // runs out before arrival
+  Extrapolated,  // would not be short, but a cylinder's figure is extrapolated (> 300 K)
+};
+
 struct EvacuationPlan {
   std::vector<CylinderUse> uses;        // in time order
   std::vector<PlanEvent> events;        // in time order
@@ -102,7 +125,7 @@ struct EvacuationPlan {
   // longer than `evacuation` when there is enough. Absent when the flow ends at zero and the
   // oxygen never runs out.
   std::optional<Duration> supply_lasts;
-  bool enough;                          // oxygen_usable ≥ oxygen_needed
+  bool enough;                          // oxygen_usable ≥ oxygen_needed (no margin: see verdict)
   Duration shortfall;                   // evacuation time without oxygen above reserve (0 if enough)
   Duration spare;                       // extra time at the final flow (0 if short)
   Volume shortfall_volume;              // free gas missing (0 if enough)
@@ -111,9 +134,25 @@ struct EvacuationPlan {
   int extra_cylinders_needed;           // ceil(shortfall_volume / counting usable); 0 if enough
   double spare_cylinders;               // spare_volume / counting usable (fractional)
   std::vector<std::string> assumptions;  // shown with the plan
+
+  // The verdict (one function decides it; CLI, screen and card show it):
+  Duration margin;                      // max(margin_minimum, margin_fraction × evacuation)
+  bool extrapolated = false;            // some cylinder above the EOS's published 300 K
+  Verdict verdict = Verdict::Short;
+  // The reverse question: the steady flow at which the usable oxygen lasts until arrival with the
+  // margin kept (and without it), rounded DOWN to 0.1 L/min. Absent below 0.1 L/min.
+  std::optional<VolumeFlow> max_sustainable_flow;
+  std::optional<VolumeFlow> max_flow_to_arrival;
 };
 
 Result<EvacuationPlan> plan_evacuation(const PlanInput& input);
+
+// "enough", "below_margin", "short", "extrapolated": for JSON.
+std::string_view verdict_key(Verdict verdict);
+// One line for a screen or a table: "Enough with the 1 h 12 min margin: 2 h 5 min spare",
+// "Short by 1 h 15 min", "Arrives with 20 min spare: less than the 1 h 12 min margin".
+// Durations in whole minutes: spare rounded down, shortfall up.
+std::string verdict_text(const EvacuationPlan& plan);
 
 // Text for an event kind ("swap", "reserve" …), for JSON and tables.
 std::string_view event_key(EventKind kind);

@@ -102,6 +102,10 @@ PressureSlope pressure_and_slope(double rho, double t) {
 
 }  // namespace
 
+bool extrapolated(Temperature temperature) {
+  return temperature.in(kelvin) > published_max_temperature_k;
+}
+
 double pressure_pa(double rho, double t) {
   FIRN_ASSERT(rho >= 0.0 && t > 0.0, "oxygen_eos::pressure_pa needs ρ ≥ 0 and T > 0");
   if (rho == 0.0) return 0.0;

@@ -4,6 +4,8 @@
 // Only the residual Helmholtz energy is needed: Z = P/(ρRT) = 1 + δ·∂α_r/∂δ.
 #pragma once
 
+#include <string_view>
+
 #include "model/result.hpp"
 #include "model/units.hpp"
 
@@ -19,6 +21,14 @@ using units::Temperature;
 // cylinder is never below the ambient pressure (≥ 150 hPa) anyway.
 inline constexpr double min_temperature_c = -50.0, max_temperature_c = 65.0;
 inline constexpr double min_pressure_bar = 0.001, max_pressure_bar = 400.0;
+
+// The equation is published for the triple point to 300 K (Stewart, Jacobsen & Wagner 1991, the
+// title): above 300 K (26.85 °C) Firn still computes, and says "extrapolated" (no "enough" from it).
+inline constexpr double published_max_temperature_k = 300.0;
+bool extrapolated(Temperature temperature);
+inline constexpr std::string_view extrapolated_text =
+    "above 300 K (26.85 \xC2\xB0" "C) the oxygen equation of state is extrapolated: it is published "
+    "to 300 K (Stewart, Jacobsen & Wagner, J Phys Chem Ref Data 1991;20:917)";
 
 // Constants of the equation (Stewart, Jacobsen & Wagner 1991).
 inline constexpr double critical_temperature_k = 154.581;

@@ -393,6 +393,7 @@ Result<RoutePlan> plan_route(const RouteInput& in) {
   set_verdict(in,
               needs_more ? "this casualty needs more than the healthy-lowlander flows"
               : unsure   ? "the flows are uncertain (extrapolated or the target unreachable)"
+              : verdict->extrapolated ? "a cylinder's contents are extrapolated (above 300 K)"
                          : "",
               plan);
 

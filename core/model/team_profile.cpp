@@ -76,6 +76,18 @@ std::string pressure_text(Pressure p, bool prefer_psi) {
       p, {{&bar, "bar"}, {&psi, "psi"}, {&millibar, "mbar"}, {&kilopascals, "kPa"}}, parse);
 }
 
+// A cylinder gauge pressure: in the gauge units only (bar, psi, kPa, MPa), read back by the
+// gauge parser.
+std::string gauge_pressure_text(Pressure p, bool prefer_psi) {
+  auto parse = [](std::string_view t) { return parse_gauge_pressure(t); };
+  if (prefer_psi) {
+    return quantity_text<PressureDimension>(
+        p, {{&psi, "psi"}, {&bar, "bar"}, {&kilopascals, "kPa"}, {&megapascals, "MPa"}}, parse);
+  }
+  return quantity_text<PressureDimension>(
+      p, {{&bar, "bar"}, {&psi, "psi"}, {&kilopascals, "kPa"}, {&megapascals, "MPa"}}, parse);
+}
+
 std::string temperature_text(Temperature t, UnitSystem system) {
   auto parse = [](std::string_view s) { return parse_temperature(s); };
   if (system == UnitSystem::Us) {
@@ -199,12 +211,14 @@ std::string serialize_profile(const TeamProfile& p) {
     entry["label"] = c.label;
     if (c.letter_size) entry["size"] = std::string(cylinder::letter_size_info(*c.letter_size).name);
     if (c.water_capacity) entry["water_capacity"] = volume_text(*c.water_capacity);
-    entry["fill_pressure"] = pressure_text(c.fill_pressure_gauge, us || c.letter_size);
+    entry["fill_pressure"] = gauge_pressure_text(c.fill_pressure_gauge, us || c.letter_size);
     entry["count"] = c.count;
     cylinders.push_back(entry);
   }
   root["cylinders"] = cylinders;
-  root["reserve_pressure"] = pressure_text(p.reserve_pressure_gauge, us);
+  root["reserve_pressure"] = gauge_pressure_text(p.reserve_pressure_gauge, us);
+  root["safety_margin"] = Json{{"minimum", duration_text(p.safety_margin.minimum)},
+                               {"share", percent_text(p.safety_margin.share)}};
   Json flows = Json::array();
   for (VolumeFlow f : p.flows) flows.push_back(flow_text(f));
   root["flows"] = flows;
@@ -223,7 +237,7 @@ std::string serialize_profile(const TeamProfile& p) {
       const CylinderType* type = p.find_cylinder(c.type_label);
       bool psi_gauge = us || (type && type->letter_size);
       on_hand.push_back(Json{{"type", c.type_label},
-                             {"pressure", pressure_text(c.pressure_gauge, psi_gauge)},
+                             {"pressure", gauge_pressure_text(c.pressure_gauge, psi_gauge)},
                              {"temperature", temperature_text(c.temperature, p.units)}});
     }
     plan["cylinders"] = on_hand;

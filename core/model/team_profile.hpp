@@ -11,6 +11,7 @@
 
 #include "model/atmosphere.hpp"
 #include "model/cylinder.hpp"
+#include "model/evacuation_plan.hpp"
 #include "model/result.hpp"
 #include "model/units.hpp"
 
@@ -87,6 +88,15 @@ struct BagSetup {
   bool operator==(const BagSetup&) const = default;
 };
 
+// How much oxygen beyond the arrival time a plan must keep before it says "enough": the larger of
+// `minimum` and `share` of the evacuation time (defaults and why: model/evacuation_plan.hpp).
+struct SafetyMargin {
+  Duration minimum = evacuation::default_margin_minimum;
+  Fraction share = units::fraction(evacuation::default_margin_fraction);
+
+  bool operator==(const SafetyMargin&) const = default;
+};
+
 struct TeamProfile {
   bool demo = false;  // shipped demo data: the card and the app say so
   std::string team_name;
@@ -94,7 +104,9 @@ struct TeamProfile {
   atmosphere::Model atmosphere_model = atmosphere::default_medical_model;
   CardLayout card;
   std::vector<CylinderType> cylinders;
-  Pressure reserve_pressure_gauge;
+  // Optional in the file: cylinder::default_reserve_gauge, the one default of the CLI and the app.
+  Pressure reserve_pressure_gauge = cylinder::default_reserve_gauge;
+  SafetyMargin safety_margin;  // optional in the file
   std::vector<VolumeFlow> flows;
   BagSetup bag;
   std::optional<EvacuationPlan> evacuation;
@@ -117,7 +129,11 @@ struct Limits {
   static constexpr double water_capacity_low_l = 0.5, water_capacity_high_l = 50.0;
   static constexpr double fill_pressure_low_bar = 50.0, fill_pressure_high_bar = 300.0;
   static constexpr int count_low = 0, count_high = 99;
-  static constexpr double reserve_low_bar = 0.0, reserve_high_bar = 100.0;
+  static constexpr double reserve_low_bar = 0.0, reserve_high_bar = cylinder::max_reserve_bar;
+  static constexpr double margin_minimum_low_min = 0.0;
+  static constexpr double margin_minimum_high_min = evacuation::max_margin_minimum_min;
+  static constexpr double margin_share_low_pct = 0.0;
+  static constexpr double margin_share_high_pct = evacuation::max_margin_fraction * 100.0;
   static constexpr size_t flows_max = 8;
   static constexpr double flow_low_lpm = 0.25, flow_high_lpm = 25.0;
   static constexpr double bag_gauge_low_hpa = 50.0, bag_gauge_high_hpa = 250.0;

@@ -227,6 +227,9 @@ const std::function<Result<Length>(std::string_view, std::string_view)> length_p
     [](std::string_view t, std::string_view w) { return parse_length(t, w); };
 const std::function<Result<Pressure>(std::string_view, std::string_view)> pressure_parser =
     [](std::string_view t, std::string_view w) { return parse_pressure(t, w); };
+// Cylinder pressures are gauge readings: bar, psi, kPa or MPa only.
+const std::function<Result<Pressure>(std::string_view, std::string_view)> gauge_parser =
+    [](std::string_view t, std::string_view w) { return parse_gauge_pressure(t, w); };
 const std::function<Result<Temperature>(std::string_view, std::string_view)> temperature_parser =
     [](std::string_view t, std::string_view w) { return parse_temperature(t, w); };
 const std::function<Result<Volume>(std::string_view, std::string_view)> volume_parser =
@@ -274,7 +277,7 @@ std::optional<CylinderType> read_cylinder(Reader& r, const Json& value, const st
     r.fail(path, "needs a water_capacity (e.g. \"2L\") or a US letter size (\"size\": \"D\")");
     ok = false;
   }
-  auto fill = r.quantity(value, path, "fill_pressure", true, pressure_parser, bar,
+  auto fill = r.quantity(value, path, "fill_pressure", true, gauge_parser, bar,
                          Limits::fill_pressure_low_bar, Limits::fill_pressure_high_bar, "200bar");
   auto count = r.integer(value, path, "count", Limits::count_low, Limits::count_high);
   if (!ok || !fill || !count) return std::nullopt;
@@ -282,6 +285,29 @@ std::optional<CylinderType> read_cylinder(Reader& r, const Json& value, const st
   c.fill_pressure_gauge = *fill;
   c.count = *count;
   return c;
+}
+
+// Both parts optional: a missing one keeps its default.
+std::optional<SafetyMargin> read_margin(Reader& r, const Json& value, const std::string& path) {
+  if (!r.object(value, path)) return std::nullopt;
+  r.reject_unknown(value, path, {"minimum", "share"});
+  SafetyMargin margin;
+  bool ok = true;
+  if (value.contains("minimum")) {
+    auto minimum = r.quantity(value, path, "minimum", false, duration_parser, minutes,
+                              Limits::margin_minimum_low_min, Limits::margin_minimum_high_min,
+                              "30min");
+    if (minimum) margin.minimum = *minimum;
+    ok = ok && minimum;
+  }
+  if (value.contains("share")) {
+    auto share = r.quantity(value, path, "share", false, percent_parser, percent,
+                            Limits::margin_share_low_pct, Limits::margin_share_high_pct, "20%");
+    if (share) margin.share = *share;
+    ok = ok && share;
+  }
+  if (!ok) return std::nullopt;
+  return margin;
 }
 
 std::optional<CardLayout> read_card(Reader& r, const Json& value, const std::string& path) {
@@ -375,7 +401,7 @@ std::optional<EvacuationPlan> read_evacuation(Reader& r, const Json& value,
         if (!r.object(entry, p)) { ok = false; continue; }
         r.reject_unknown(entry, p, {"type", "pressure", "temperature"});
         auto type = r.text(entry, p, "type", true, 1, Limits::label_chars_max, "\"2 L alloy\"");
-        auto pressure = r.quantity(entry, p, "pressure", true, pressure_parser, bar,
+        auto pressure = r.quantity(entry, p, "pressure", true, gauge_parser, bar,
                                    Limits::on_hand_pressure_low_bar,
                                    Limits::on_hand_pressure_high_bar, "180bar");
         std::optional<Temperature> temperature = celsius(15.0);
@@ -442,7 +468,8 @@ std::optional<TeamProfile> read_current(const Json& root, Problems& problems) {
   const std::string top;
   r.reject_unknown(root, top,
                    {"schema_version", "demo", "team_name", "units", "atmosphere_model", "card",
-                    "cylinders", "reserve_pressure", "flows", "bag", "evacuation"});
+                    "cylinders", "reserve_pressure", "safety_margin", "flows", "bag",
+                    "evacuation"});
   TeamProfile p;
   bool ok = true;
   if (const Json* demo = r.field(root, top, "demo", false, "")) {
@@ -500,9 +527,18 @@ std::optional<TeamProfile> read_current(const Json& root, Problems& problems) {
     }
   }
   ok = ok && cylinders_ok;
-  auto reserve = r.quantity(root, top, "reserve_pressure", true, pressure_parser, bar,
-                            Limits::reserve_low_bar, Limits::reserve_high_bar, "20bar");
+  // Optional: without it the one default reserve of the CLI and the app.
+  std::optional<Pressure> reserve = cylinder::default_reserve_gauge;
+  if (root.contains("reserve_pressure")) {
+    reserve = r.quantity(root, top, "reserve_pressure", false, gauge_parser, bar,
+                         Limits::reserve_low_bar, Limits::reserve_high_bar, "20bar");
+  }
   ok = ok && reserve;
+  if (const Json* v = r.field(root, top, "safety_margin", false, "")) {
+    std::optional<SafetyMargin> margin = read_margin(r, *v, "safety_margin");
+    if (margin) p.safety_margin = *margin;
+    ok = ok && margin;
+  }
   if (reserve && cylinders_ok) {
     for (size_t i = 0; i < p.cylinders.size(); ++i) {
       if (!(*reserve < p.cylinders[i].fill_pressure_gauge)) {

@@ -110,6 +110,29 @@ Result<Pressure> parse_pressure(std::string_view text, std::string_view what) {
   return parse_quantity(text, what, pressure_units, nullptr);
 }
 
+Result<Pressure> parse_gauge_pressure(std::string_view text, std::string_view what) {
+  std::string_view trimmed = trim(text);
+  std::string unit = normalise_unit(trimmed.substr(number_prefix_length(trimmed)));
+  const std::string units_named = "bar, psi (gauge), kPa or MPa";
+  if (unit == "psia") {
+    return Error{std::string(what) + " is read on a gauge: psia is absolute; use " + units_named};
+  }
+  // "psig" says gauge explicitly: the same psi.
+  std::string text_used(trimmed);
+  if (unit == "psig") text_used.erase(text_used.size() - 1);
+  Result<Pressure> p = parse_quantity(text_used, what, gauge_pressure_units, nullptr);
+  if (p) return p;
+  std::string message = p.error().message;
+  // Name the gauge units in the user's words, whatever the generic parser listed.
+  if (size_t use = message.find(": use "); use != std::string::npos) {
+    message = message.substr(0, use) + ": a gauge reads in " + units_named;
+  } else if (size_t needs = message.find(" needs a unit: "); needs != std::string::npos) {
+    message = message.substr(0, needs) + " needs a gauge unit: " + units_named +
+              message.substr(message.find(" (example"));
+  }
+  return Error{message};
+}
+
 Result<Temperature> parse_temperature(std::string_view text, std::string_view what) {
   return parse_quantity(text, what, temperature_units, nullptr);
 }

@@ -86,6 +86,7 @@ inline constexpr Unit<PressureDimension> torr{101325.0 / 760.0, 0.0, "Torr", "to
 inline constexpr Unit<PressureDimension> inhg{3386.389, 0.0, "inHg", "inhg"};
 inline constexpr Unit<PressureDimension> psi{6894.757293168, 0.0, "psi", "psi"};
 inline constexpr Unit<PressureDimension> atmospheres{101325.0, 0.0, "atm", "atm"};
+inline constexpr Unit<PressureDimension> megapascals{1e6, 0.0, "MPa", "mpa"};
 
 inline constexpr Unit<TemperatureDimension> kelvin{1.0, 0.0, "K", "k"};
 inline constexpr Unit<TemperatureDimension> celsius{1.0, 273.15, "°C", "c"};
@@ -127,6 +128,10 @@ inline constexpr std::array<const Unit<LengthDimension>*, 3> length_units{&metre
                                                                           &kilometres};
 inline constexpr std::array<const Unit<PressureDimension>*, 9> pressure_units{
     &hectopascals, &mmhg, &kilopascals, &inhg, &psi, &bar, &millibar, &torr, &pascals};
+// Units a cylinder or regulator gauge is marked in: gauge pressures are read in these only (an
+// air-pressure unit such as hPa or mmHg on a cylinder is a slip).
+inline constexpr std::array<const Unit<PressureDimension>*, 4> gauge_pressure_units{
+    &bar, &psi, &kilopascals, &megapascals};
 inline constexpr std::array<const Unit<TemperatureDimension>*, 3> temperature_units{
     &celsius, &fahrenheit, &kelvin};
 inline constexpr std::array<const Unit<VolumeDimension>*, 2> volume_units{&litres, &millilitres};
@@ -145,6 +150,11 @@ Result<Length> parse_length(std::string_view text, std::string_view what = "alti
 Result<Pressure> parse_pressure(std::string_view text, std::string_view what = "pressure");
 Result<Temperature> parse_temperature(std::string_view text,
                                       std::string_view what = "temperature");
+// A gauge pressure (above ambient) of a cylinder or regulator: "200bar", "2015psi", "2015psig",
+// "20MPa", "13790kPa". Only gauge_pressure_units; "psia" (absolute) and air-pressure units are
+// refused with a message naming the gauge units.
+Result<Pressure> parse_gauge_pressure(std::string_view text,
+                                      std::string_view what = "gauge pressure");
 // A volume: "10L", "680ml"; a bare number is taken as litres.
 Result<Volume> parse_volume(std::string_view text, std::string_view what = "volume");
 // A flow: "15L/min"; a bare number is taken as L/min (flows are L/min across Firn).

@@ -75,12 +75,15 @@ void init_app(AppState& state, Platform& platform) {
   io.ConfigInputTextCursorBlink = false;  // a blinking cursor would force frames while idle
   load_state(state, platform);
   load_team_profile(state, platform);
+  load_record(state.record.store, platform);
+  state.record.loaded = true;
   state.built_font_scale = 0.0f;
   apply_theme(state.settings.theme, state.pixel_ratio);
 }
 
-// Nothing in Firn animates by itself (no timers, no transitions): frames are drawn only in
-// answer to input, so an idle phone in the cold spends no battery on us.
+// Nothing in Firn animates by itself (no transitions): frames are drawn only in answer to input,
+// so an idle phone in the cold spends no battery on us. A visible reassessment timer asks for one
+// frame when its minute changes (state.wake_after_seconds), never continuous frames.
 bool wants_continuous_frames(const AppState&) { return false; }
 
 // [SECTION] Frame layout and navigation
@@ -102,6 +105,7 @@ constexpr ScreenInfo kScreens[kScreenCount] = {
     {Screen::Oxygen, "Oxygen", draw_oxygen_panel, Screen::Casualty},
     {Screen::Route, "Route", draw_route_panel, Screen::Route},
     {Screen::Ams, "AMS", draw_ams_panel, Screen::Casualty},
+    {Screen::Record, "Record", draw_record_panel, Screen::Casualty},
     {Screen::Teaching, "Teaching", draw_teaching_panel, Screen::Teaching},
     {Screen::Team, "Team", draw_team_panel, Screen::Team},
     {Screen::Settings, "Settings", draw_settings_panel, Screen::Here},
@@ -186,6 +190,7 @@ void draw_status(AppState& state) {
 
 void draw_frame(AppState& state, Platform& platform, float width, float height) {
   ++state.frames_drawn;
+  state.wake_after_seconds = 0.0;  // a screen with a running timer sets it again this frame
   test_hook::begin_frame();
   Keypad& keypad = state.keypad;
   if (keypad.committed && state.frames_drawn > keypad.committed_at_frame + 1) keypad = Keypad{};

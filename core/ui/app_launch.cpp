@@ -15,6 +15,7 @@ constexpr std::array<std::pair<std::string_view, Screen>, kScreenCount> kScreens
     {"oxygen", Screen::Oxygen},
     {"route", Screen::Route},
     {"ams", Screen::Ams},
+    {"record", Screen::Record},
     {"teaching", Screen::Teaching},
     {"team", Screen::Team},
     {"settings", Screen::Settings},

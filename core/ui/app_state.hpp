@@ -4,6 +4,7 @@
 #pragma once
 
 #include <map>
+#include <optional>
 #include <string>
 #include <vector>
 
@@ -11,6 +12,7 @@
 #include "model/route_plan.hpp"
 #include "model/team_profile.hpp"
 #include "model/units.hpp"
+#include "ui/record_store.hpp"
 
 struct ImFont;
 
@@ -19,8 +21,8 @@ namespace firn::ui {
 enum class Theme { Day, Night, Projection };
 
 // Order = order in the navigation bar.
-enum class Screen { Here, Casualty, Curve, Bag, Oxygen, Route, Ams, Teaching, Team, Settings };
-inline constexpr int kScreenCount = 10;
+enum class Screen { Here, Casualty, Curve, Bag, Oxygen, Route, Ams, Record, Teaching, Team, Settings };
+inline constexpr int kScreenCount = 11;
 
 // Units a user reads and types in. Values are stored as typed quantities (SI inside), so
 // switching units never rounds an entered value away.
@@ -66,10 +68,13 @@ struct BagInputs {
 };
 
 struct OxygenInputs {
+  int cylinder_source = 0;  // 0 one of the team's types, 1 a US letter size, 2 a water capacity
+  int team_type = 0;        // index into the team profile's cylinders
+  int letter_size = 1;      // D, E, M, H
   units::Volume water_capacity = units::litres(2.0);
   units::Pressure gauge = units::bar(200.0);
   units::Temperature cylinder_temperature = units::celsius(0.0);
-  units::Pressure reserve = units::bar(20.0);
+  units::Pressure reserve = cylinder::default_reserve_gauge;  // the one default (model)
   units::VolumeFlow flow = units::litres_per_minute(4.0);
   int cylinder_count = 3;
   units::Duration evacuation = units::hours(4.0);
@@ -94,6 +99,20 @@ struct AmsInputs {
 
 struct TeachingInputs {
   units::Length altitude = units::metres(4000.0);
+};
+
+// The Record screen: the incident's casualty record (ui/record_store.hpp keeps it) and the
+// observation being written. Findings start empty: a value nobody entered is never saved.
+struct RecordInputs {
+  RecordStore store;
+  bool loaded = false;
+  std::optional<double> spo2_pct, heart_rate, breathing_rate;
+  int on = -1;  // 0 air, 1 cannula, 2 mask, 3 non-rebreather; -1: take the last setting
+  units::VolumeFlow flow = units::litres_per_minute(2.0);
+  int avpu = -1;          // -1 not assessed
+  int minutes_ago = 0;    // an entry written up late
+  units::Duration check_interval = units::minutes(15.0);  // next SpO2 check
+  bool confirm_new = false, confirm_delete = false;
 };
 
 // The in-app numeric keypad (the canvas cannot summon a phone keyboard). One field at a time.
@@ -131,6 +150,7 @@ struct AppState {
   AmsInputs ams;
   TeachingInputs teaching;
   TeamState team;
+  RecordInputs record;
   Screen screen = Screen::Here;
   Keypad keypad;
   std::map<std::string, std::string> field_errors;  // field id → message naming range and unit
@@ -146,6 +166,10 @@ struct AppState {
   float built_font_scale = 0.0f;
   ImFont* font_large = nullptr;  // results; owned by ImGui's font atlas
   bool wide_layout = false;      // two columns this frame
+
+  // Set by a screen that shows a running timer: wake the idle app after this many seconds
+  // (0: sleep until input). Cleared at the start of every frame.
+  double wake_after_seconds = 0.0;
 
   int frames_drawn = 0;  // counted by draw_frame; tests read it to check idle frames
 };

@@ -5,7 +5,9 @@
 #include "ui/panels.hpp"
 
 #include <algorithm>
+#include <cctype>
 #include <cmath>
+#include <optional>
 
 #include "model/cylinder.hpp"
 #include "model/evacuation_plan.hpp"
@@ -34,7 +36,8 @@ void draw_timeline(const AppState& state, const evacuation::PlanInput& input,
   top = std::max(y_tick, std::ceil(top / y_tick) * y_tick);
   double x_tick = end_h > 12 ? 4.0 : end_h > 4 ? 1.0 : 0.5;
   std::string summary = std::to_string(plan.uses.size()) + " cylinders used; " +
-                        (plan.enough ? "enough" : "short") + " for " + duration_text(input.evacuation);
+                        std::string(evacuation::verdict_key(plan.verdict)) + " for " +
+                        duration_text(input.evacuation);
   Plot plot = begin_plot(state, "Evacuation timeline", summary, 15.0f,
                          {0, end_h, 0, top, x_tick, y_tick, "hours from now",
                           "gauge, " + std::string(unit.symbol)});
@@ -59,32 +62,119 @@ void draw_timeline(const AppState& state, const evacuation::PlanInput& input,
   }
 }
 
-void draw_cylinder(AppState& state, Pressure ambient) {
-  const UnitChoice& u = state.settings.units;
+// The cylinder in hand: one of the team's types, a US letter size (its water capacity assumed,
+// and said so), or a water capacity typed in.
+struct ChosenCylinder {
+  Volume water_capacity;
+  std::optional<cylinder::LetterSize> letter_size;  // for the field rule
+  std::string assumption;                           // non-empty: a capacity we assumed
+  std::string label;                                // "Cyl", or the team's label
+};
+
+ChosenCylinder choose_cylinder(AppState& state) {
+  OxygenInputs& in = state.oxygen;
+  const team_profile::TeamProfile& team = state.team.profile;
+  static constexpr const char* kSources[] = {"Team's cylinders", "Letter size", "Water capacity"};
+  choice_row(state, "cyl-source", kSources, 3, &in.cylinder_source);
+  ChosenCylinder c{in.water_capacity, std::nullopt, "", "Cyl"};
+  if (in.cylinder_source == 0 && !team.cylinders.empty()) {
+    std::vector<const char*> labels;
+    for (const auto& t : team.cylinders) labels.push_back(t.label.c_str());
+    in.team_type = std::clamp(in.team_type, 0, static_cast<int>(labels.size()) - 1);
+    choice_row(state, "cyl-team-type", labels.data(), static_cast<int>(labels.size()), &in.team_type);
+    const team_profile::CylinderType& t = team.cylinders[static_cast<size_t>(in.team_type)];
+    c.letter_size = t.letter_size;
+    c.label = t.label;
+    if (t.water_capacity) {
+      c.water_capacity = *t.water_capacity;
+      result_value(state, "Water capacity (team profile)", volume_text(c.water_capacity), false);
+    } else if (t.letter_size) {
+      c.water_capacity = cylinder::letter_size_info(*t.letter_size).water_capacity;
+      c.assumption = cylinder::letter_size_assumption(*t.letter_size) + " on the Team screen.";
+    }
+  } else if (in.cylinder_source == 1) {
+    static constexpr const char* kSizes[] = {"D", "E", "M", "H"};
+    choice_row(state, "cyl-letter-size", kSizes, 4, &in.letter_size);
+    auto size = static_cast<cylinder::LetterSize>(std::clamp(in.letter_size, 0, 3));
+    c.letter_size = size;
+    c.water_capacity = cylinder::letter_size_info(size).water_capacity;
+    c.assumption = cylinder::letter_size_assumption(size) + " (Water capacity, or the Team screen).";
+    c.label = std::string(cylinder::letter_size_info(size).name);
+  } else {
+    if (in.cylinder_source == 0) message_line(state, "The team profile lists no cylinders: type the water capacity.");
+    edit_quantity(state, volume_field("Water capacity", "cyl-capacity", cylinder::min_water_capacity_l,
+                                      cylinder::max_water_capacity_l), in.water_capacity);
+    c.water_capacity = in.water_capacity;
+  }
+  if (!c.assumption.empty()) {
+    std::string text = c.assumption;
+    text[0] = static_cast<char>(std::toupper(static_cast<unsigned char>(text[0])));
+    message_line(state, text, true);
+  }
+  return c;
+}
+
+// The duration figures: the lower of the real-gas estimate and the field rule leads.
+void show_duration(AppState& state, const cylinder::DurationEstimate& d, const ChosenCylinder& c) {
+  OxygenInputs& in = state.oxygen;
+  if (d.below_reserve) {
+    verdict_line(state, Tone::Danger, std::string(cylinder::below_reserve_text));
+    return;
+  }
+  std::optional<Duration> rule;
+  if (c.letter_size) {
+    Result<Duration> r = cylinder::field_rule_duration(*c.letter_size, in.gauge, in.flow);
+    if (r) rule = r.value();
+  }
+  cylinder::LeadingDuration lead = cylinder::leading_duration(d, rule);
+  result_value(state, "Lasts to reserve", duration_text(lead.duration));
+  if (rule) {
+    message_line(state, "Count on the lower figure: " + lead.why + ".");
+    result_value(state, "Real-gas estimate", duration_text(cylinder::whole_minutes_down(d.to_reserve)), false);
+    result_value(state, "US field rule (to 200 psi)", duration_text(cylinder::whole_minutes_down(*rule)), false);
+  }
+  result_value(state, "Contents (free gas, real gas)", volume_text(d.contents.free_gas), false);
+  result_value(state, "Usable above reserve", volume_text(d.usable_free_gas), false);
+  for (const std::string& line : cylinder::temperature_cautions(d.contents, in.cylinder_temperature)) {
+    message_line(state, line, true);
+  }
+}
+
+ChosenCylinder draw_cylinder(AppState& state, Pressure ambient) {
   OxygenInputs& in = state.oxygen;
   heading("Cylinder");
-  edit_quantity(state, volume_field("Water capacity", "cyl-capacity", cylinder::min_water_capacity_l,
-                                    cylinder::max_water_capacity_l), in.water_capacity);
+  ChosenCylinder chosen = choose_cylinder(state);
   edit_quantity(state, cylinder_pressure_field(state, "Cylinder gauge", "cyl-gauge", bar(cylinder::max_gauge_bar)), in.gauge);
   edit_quantity(state, temperature_field(state, "Cylinder temperature", "cyl-temperature",
                                          cylinder::min_temperature_c, cylinder::max_temperature_c),
                 in.cylinder_temperature);
-  edit_quantity(state, cylinder_pressure_field(state, "Reserve (swap at)", "cyl-reserve", bar(cylinder::max_gauge_bar)), in.reserve);
+  ImGui::PushTextWrapPos(0.0f);
+  ImGui::TextDisabled("%s", std::string(cylinder::temperature_advice).c_str());
+  ImGui::PopTextWrapPos();
+  edit_quantity(state, cylinder_pressure_field(state, "Reserve (swap at)", "cyl-reserve", bar(cylinder::max_reserve_bar)), in.reserve);
   edit_quantity(state, flow_field("Flow", "cyl-flow", cylinder::max_flow_lpm), in.flow);
 
-  cylinder::Reading reading{in.water_capacity, in.gauge, in.cylinder_temperature, ambient};
+  cylinder::Reading reading{chosen.water_capacity, in.gauge, in.cylinder_temperature, ambient};
   Result<cylinder::DurationEstimate> d = cylinder::duration(reading, in.reserve, in.flow);
   if (!d) {
     result_error(state, "Lasts to reserve", d.error().message);
-    return;
+    return chosen;
   }
-  result_value(state, "Lasts to reserve", duration_text(d->to_reserve));
-  result_value(state, "Contents (free gas, real gas)", volume_text(d->contents.free_gas), false);
-  result_value(state, "Usable above reserve", volume_text(d->usable_free_gas), false);
-  (void)u;
+  show_duration(state, d.value(), chosen);
+  return chosen;
 }
 
-void draw_plan(AppState& state, Pressure ambient) {
+Tone plan_tone(evacuation::Verdict v) {
+  switch (v) {
+    case evacuation::Verdict::Enough: return Tone::Good;
+    case evacuation::Verdict::BelowMargin: return Tone::Caution;
+    case evacuation::Verdict::Extrapolated: return Tone::Caution;
+    case evacuation::Verdict::Short: return Tone::Danger;
+  }
+  return Tone::Neutral;
+}
+
+void draw_plan(AppState& state, Pressure ambient, const ChosenCylinder& chosen) {
   OxygenInputs& in = state.oxygen;
   heading("Evacuation plan (cylinders like this one, used in turn)");
   int_stepper(state, "Cylinders", "plan-count", &in.cylinder_count, 1, 20);
@@ -96,8 +186,8 @@ void draw_plan(AppState& state, Pressure ambient) {
   evacuation::PlanInput input;
   for (int i = 0; i < in.cylinder_count; ++i) {
     evacuation::CylinderSpec spec;
-    spec.label = "Cyl " + std::to_string(i + 1);
-    spec.water_capacity = in.water_capacity;
+    spec.label = chosen.label + " " + std::to_string(i + 1);
+    spec.water_capacity = chosen.water_capacity;
     spec.gauge_pressure = in.gauge;
     spec.temperature = in.cylinder_temperature;
     input.cylinders.push_back(spec);
@@ -107,22 +197,30 @@ void draw_plan(AppState& state, Pressure ambient) {
   input.evacuation = in.evacuation;
   input.reserve_gauge = in.reserve;
   input.ambient_pressure = ambient;
+  input.margin_minimum = state.team.profile.safety_margin.minimum;
+  input.margin_fraction = state.team.profile.safety_margin.share.in(fraction);
+  input.pressure_unit = state.settings.units.cylinder == UnitChoice::CylinderPressure::Psi ? &psi : &bar;
   Result<evacuation::EvacuationPlan> plan = evacuation::plan_evacuation(input);
   if (!plan) {
     result_error(state, "Oxygen for the evacuation", plan.error().message);
     return;
   }
   const evacuation::EvacuationPlan& p = plan.value();
-  result_value(state, "Oxygen for the evacuation",
-               p.enough ? "Enough: " + duration_text(p.spare) + " spare"
-                        : "Short by " + duration_text(p.shortfall));
-  if (!p.enough) {
+  verdict_line(state, plan_tone(p.verdict), evacuation::verdict_text(p));
+  if (p.verdict == evacuation::Verdict::Short) {
     result_value(state, "Extra cylinders needed", std::to_string(p.extra_cylinders_needed), false);
   }
-  result_value(state, "Supply lasts", p.supply_lasts ? duration_text(*p.supply_lasts) : "\xE2\x80\x94", false);
+  result_value(state, "Steady flow that lasts (margin kept)",
+               p.max_sustainable_flow
+                   ? format_number(p.max_sustainable_flow->in(litres_per_minute), 1) + " L/min"
+                   : "below 0.1 L/min",
+               false);
+  result_value(state, "Supply lasts",
+               p.supply_lasts ? duration_text(cylinder::whole_minutes_down(*p.supply_lasts)) : "\xE2\x80\x94", false);
+  result_value(state, "Safety margin (team profile)", duration_text(cylinder::whole_minutes_up(p.margin)), false);
   draw_timeline(state, input, p);
   for (const auto& e : p.events) {
-    bullet_line(duration_text(e.time) + "  " + e.text);
+    bullet_line(duration_text(cylinder::whole_minutes_down(e.time)) + "  " + e.text);
   }
   for (const std::string& a : p.assumptions) {
     ImGui::PushTextWrapPos(0.0f);
@@ -138,8 +236,8 @@ void draw_oxygen_panel(AppState& state, Platform&) {
   Result<Pressure> pb = situation_pressure(state);
   Pressure ambient = pb ? pb.value() : units::atmospheres(1.0);
   if (!pb) message_line(state, "Pressure here unknown (" + pb.error().message + "); gauges taken at 1 atm.", true);
-  draw_cylinder(state, ambient);
-  draw_plan(state, ambient);
+  ChosenCylinder chosen = draw_cylinder(state, ambient);
+  draw_plan(state, ambient, chosen);
   caution_line(state);
 }
 

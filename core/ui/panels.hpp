@@ -13,6 +13,7 @@ void draw_bag_panel(AppState& state, Platform& platform);       // hyperbaric ba
 void draw_oxygen_panel(AppState& state, Platform& platform);    // cylinder, evacuation plan
 void draw_route_panel(AppState& state, Platform& platform);     // oxygen along the route
 void draw_ams_panel(AppState& state, Platform& platform);       // Lake Louise 2018
+void draw_record_panel(AppState& state, Platform& platform);    // casualty record, handover
 void draw_teaching_panel(AppState& state, Platform& platform);  // cascade sweep
 void draw_team_panel(AppState& state, Platform& platform);      // team profile, pocket card
 void draw_settings_panel(AppState& state, Platform& platform);  // units, theme

@@ -16,12 +16,73 @@ namespace cyl = firn::cylinder;
 
 struct CylinderOptions {
   std::optional<std::string> size, water_capacity, pressure, flow, reserve, temperature, altitude,
-      model;
+      ambient_pressure, model;
 };
+
+// An option read by a core parser; a missing or unreadable value names the model's range.
+template <class Q, class Parse>
+Result<Q> option_value(const std::optional<std::string>& text, const std::string& option,
+                       const std::string& what, const std::string& examples, Parse parse,
+                       const RangeProbe<Q>& probe) {
+  if (!text) return with_valid_range(Error{option + " is required: " + what + ", e.g. " + examples}, probe);
+  Result<Q> parsed = parse(*text, what);
+  if (!parsed) return with_valid_range(Error{option + ": " + parsed.error().message}, probe);
+  return parsed;
+}
+
+// Where the gauges' reference pressure comes from: sea level, an altitude, or a measurement.
+struct Ambient {
+  Pressure pressure = atmospheres(1);
+  std::optional<Length> altitude;
+  std::string source = "sea_level";
+};
+
+Result<Ambient> ambient_option(const CylinderOptions& o, atm::Model model,
+                               const RangeProbe<Pressure>& probe) {
+  Ambient a;
+  if (o.altitude && o.ambient_pressure) {
+    return Error{"give --altitude or --ambient-pressure (a measured air pressure), not both"};
+  }
+  if (o.ambient_pressure) {
+    Result<Pressure> p = required_pressure(o.ambient_pressure, "--ambient-pressure",
+                                           "measured air pressure", probe);
+    if (!p) return p.error();
+    if (std::optional<Error> refused = probe(p.value())) {
+      return Error{"--ambient-pressure: " + refused->message};
+    }
+    a.pressure = p.value();
+    a.source = "measured";
+  } else if (o.altitude) {
+    Result<Length> h = required_length(
+        o.altitude, "--altitude", "altitude",
+        range_of<Length>([&](Length at) { return atm::pressure_at(at, model); }));
+    if (!h) return h.error();
+    Result<Pressure> p = atm::pressure_at(h.value(), model);
+    if (!p) return Error{"--altitude: " + p.error().message};
+    a.altitude = h.value();
+    a.pressure = p.value();
+    a.source = "altitude";
+  }
+  return a;
+}
+
+void add_flow_corrections(Report& report, VolumeFlow lpm, Pressure ambient) {
+  Result<cyl::FlowCorrection> rota = cyl::rotameter_at_altitude(lpm, ambient);
+  Result<cyl::FlowCorrection> orifice = cyl::fixed_orifice_at_altitude(lpm, ambient);
+  if (!rota || !orifice) return;
+  report.add("rotameter_actual_lpm", rota->actual_at_ambient.in(litres_per_minute), 1,
+             "Rotameter: actual flow at ambient", "L/min");
+  report.add("rotameter_free_gas_lpm", rota->actual_free_gas.in(litres_per_minute), 2,
+             "Rotameter: as free gas", "L/min");
+  report.add("fixed_orifice_free_gas_lpm", orifice->actual_free_gas.in(litres_per_minute), 2,
+             "Fixed orifice: as free gas", "L/min");
+  report.json["flow_notes"] = {rota->explanation, orifice->explanation};
+  report.notes.push_back(rota->explanation);
+  report.notes.push_back(orifice->explanation);
+}
 
 Result<Report> run_cylinder(const CylinderOptions& o) {
   std::optional<cyl::LetterSize> size;
-  if (o.size && o.water_capacity) return Error{"give --size or --water-capacity, not both"};
   if (!o.size && !o.water_capacity) {
     return Error{"--size (D, E, M or H) or --water-capacity (litres, " +
                  format_number(cyl::min_water_capacity_l) + " to " +
@@ -33,7 +94,6 @@ Result<Report> run_cylinder(const CylinderOptions& o) {
   // Each option's range is probed on a full E cylinder at sea level with everything else valid.
   const cyl::Reading typical{cyl::letter_size_info(cyl::LetterSize::E).water_capacity, bar(137),
                              celsius(15), atmospheres(1)};
-  const VolumeFlow typical_flow = litres_per_minute(2);
   // The contents of the typical cylinder with one field set to the probed value.
   auto contents_with = [&typical](auto set) {
     return [&typical, set](auto value) {
@@ -48,28 +108,38 @@ Result<Report> run_cylinder(const CylinderOptions& o) {
     if (!s) return Error{"--size: " + s.error().message};
     size = s.value();
     water = cyl::letter_size_info(*size).water_capacity;
-  } else {
+  }
+  // With --size too, the team's own water capacity wins (D and E vary by maker); the size then
+  // only chooses the field rule.
+  if (o.water_capacity) {
     Result<Volume> v = required_volume(o.water_capacity, "--water-capacity", "water capacity",
                                        range_of<Volume>(contents_with(
                                            [](cyl::Reading& r, Volume w) { r.water_capacity = w; })));
     if (!v) return v.error();
     water = v.value();
   }
-  Result<Pressure> gauge = required_pressure(o.pressure, "--pressure", "cylinder gauge pressure",
-                                             range_of<Pressure>(contents_with(
-                                                 [](cyl::Reading& r, Pressure g) { r.gauge_pressure = g; })));
+  const bool capacity_assumed = size && !o.water_capacity;
+  Result<Pressure> gauge = option_value<Pressure>(
+      o.pressure, "--pressure", "cylinder gauge pressure", "200bar or 2900psi",
+      units::parse_gauge_pressure,
+      range_of<Pressure>(contents_with([](cyl::Reading& r, Pressure g) { r.gauge_pressure = g; })));
   if (!gauge) return gauge.error();
-  Result<double> flow = required_number(o.flow, "--flow", "flow", cyl::min_flow_lpm,
-                                        cyl::max_flow_lpm, "L/min");
+  Result<VolumeFlow> flow = option_value<VolumeFlow>(
+      o.flow, "--flow", "flow", "2 or 2L/min", units::parse_volume_flow,
+      range_of<VolumeFlow>([&](VolumeFlow f) { return cyl::duration(typical, bar(20), f); }));
   if (!flow) return flow.error();
-  Pressure reserve = cyl::field_rule_residual_gauge;
+  if (auto refused = range_of<VolumeFlow>([&](VolumeFlow f) {
+        return cyl::duration(typical, bar(20), f);
+      })(flow.value())) {
+    return Error{"--flow: " + refused->message};
+  }
+  Pressure reserve = cyl::default_reserve_gauge;
   if (o.reserve) {
-    Result<Pressure> r = required_pressure(o.reserve, "--reserve", "reserve pressure",
-                                           range_of<Pressure>([&](Pressure res) {
-                                             cyl::Reading at = typical;
-                                             at.gauge_pressure = gauge.value();
-                                             return cyl::duration(at, res, typical_flow);
-                                           }));
+    Result<Pressure> r = option_value<Pressure>(
+        o.reserve, "--reserve", "reserve pressure (gauge)", "20bar or 290psi",
+        units::parse_gauge_pressure, range_of<Pressure>([&](Pressure res) {
+          return cyl::duration(typical, res, flow.value());
+        }));
     if (!r) return r.error();
     reserve = r.value();
   }
@@ -82,70 +152,78 @@ Result<Report> run_cylinder(const CylinderOptions& o) {
     if (!t) return t.error();
     temperature = t.value();
   }
-  Pressure ambient = atmospheres(1);
-  std::optional<Length> altitude;
-  if (o.altitude) {
-    Result<Length> a = required_length(
-        o.altitude, "--altitude", "altitude",
-        range_of<Length>([&](Length at) { return atm::pressure_at(at, model); }));
-    if (!a) return a.error();
-    Result<Pressure> p = atm::pressure_at(a.value(), model);
-    if (!p) return Error{"--altitude: " + p.error().message};
-    altitude = a.value();
-    ambient = p.value();
-  }
+  Result<Ambient> ambient = ambient_option(
+      o, model, range_of<Pressure>(contents_with([](cyl::Reading& r, Pressure p) { r.ambient_pressure = p; })));
+  if (!ambient) return ambient.error();
 
-  cyl::Reading reading{water, gauge.value(), temperature, ambient};
-  VolumeFlow lpm = litres_per_minute(flow.value());
+  cyl::Reading reading{water, gauge.value(), temperature, ambient->pressure};
+  const VolumeFlow lpm = flow.value();
   Result<cyl::DurationEstimate> d = cyl::duration(reading, reserve, lpm);
   if (!d) return d.error();
+  std::optional<Duration> rule;
+  Result<Duration> rule_result = Error{""};
+  if (size) {
+    rule_result = cyl::field_rule_duration(*size, gauge.value(), lpm);
+    if (rule_result) rule = rule_result.value();
+  }
 
   Report report;
   if (size) report.add_text("size", std::string(cyl::letter_size_info(*size).name), "Size");
   report.add("water_capacity_l", water.in(litres), 2,
-             size ? "Water capacity (from memory)" : "Water capacity", "L");
+             capacity_assumed ? "Water capacity (assumed for the size)" : "Water capacity", "L");
+  report.json["water_capacity_assumed"] = capacity_assumed;
   report.add("pressure_bar", gauge->in(bar), 1, "Gauge pressure", "bar");
-  report.add("pressure_psi", gauge->in(psi), 0, "Gauge pressure", "psi");
+  report.add("pressure_psi", gauge->in(psi), 0, "Gauge pressure", "psi (gauge)");
   report.add("temperature_c", temperature.in(celsius), 1, "Cylinder temperature", "°C");
-  report.add("ambient_pressure_hpa", ambient.in(hectopascals), 1, "Ambient pressure", "hPa");
+  report.add("ambient_pressure_hpa", ambient->pressure.in(hectopascals), 1, "Ambient pressure", "hPa");
+  report.json["ambient_pressure_source"] = ambient->source;
   report.add("z", d->contents.z_in_cylinder, 4, "Compressibility Z", "");
   report.add("contents_l", d->contents.free_gas.in(litres), 0, "Contents (free gas)", "L");
   report.add("ideal_contents_l", d->contents.ideal_free_gas.in(litres), 0,
              "Contents, ideal-gas rule", "L");
-  report.add("reserve_bar", reserve.in(bar), 1, "Reserve pressure", "bar");
+  report.add("cold_gain_pct", d->contents.cold_gain * 100.0, 1, "Extra gas the cold temperature claims", "%");
+  report.json["extrapolated"] = d->contents.extrapolated;
+  report.add("reserve_bar", reserve.in(bar), 1, "Reserve pressure (gauge)", "bar");
+  report.add("reserve_psi", reserve.in(psi), 0, "Reserve pressure", "psi (gauge)");
   report.add("usable_l", d->usable_free_gas.in(litres), 0, "Usable above reserve", "L");
-  report.add("flow_lpm", flow.value(), 1, "Flow", "L/min");
-  report.add("duration_min", d->to_reserve.in(minutes), 0, "Duration to reserve", "min");
+  report.add("flow_lpm", lpm.in(litres_per_minute), 1, "Flow", "L/min");
+  report.json["below_reserve"] = d->below_reserve;
+  if (d->below_reserve) report.rows.emplace_back("Verdict", std::string(cyl::below_reserve_text));
+  // Whole minutes, rounded down: the oxygen never lasts less than the figure says.
+  report.add("duration_min", cyl::whole_minutes_down(d->to_reserve).in(minutes), 0,
+             "Duration to reserve (real gas)", "min");
   if (size) {
-    Result<Duration> rule = cyl::field_rule_duration(*size, gauge.value(), lpm);
     if (rule) {
-      report.add("duration_field_rule_min", rule->in(minutes), 0,
+      report.add("duration_field_rule_min", cyl::whole_minutes_down(*rule).in(minutes), 0,
                  "US field rule (psi-200)x" +
                      format_number(cyl::letter_size_info(*size).field_factor, 2) + "/flow",
                  "min");
     } else {
       report.json["duration_field_rule_min"] = nullptr;
-      report.rows.emplace_back("US field rule", rule.error().message);
+      report.rows.emplace_back("US field rule", rule_result.error().message);
     }
-    report.notes.push_back("The field rule is common practice in EMS references; letter-size "
-                           "water capacities are from memory: check the cylinder label.");
+    report.notes.push_back("The field rule is common practice in EMS references.");
   }
-  if (altitude) {
-    report.add("altitude_m", altitude->in(metres), 0, "Altitude", "m");
-    Result<cyl::FlowCorrection> rota = cyl::rotameter_at_altitude(lpm, ambient);
-    Result<cyl::FlowCorrection> orifice = cyl::fixed_orifice_at_altitude(lpm, ambient);
-    if (rota && orifice) {
-      report.add("rotameter_actual_lpm", rota->actual_at_ambient.in(litres_per_minute), 1,
-                 "Rotameter: actual flow at ambient", "L/min");
-      report.add("rotameter_free_gas_lpm", rota->actual_free_gas.in(litres_per_minute), 2,
-                 "Rotameter: as free gas", "L/min");
-      report.add("fixed_orifice_free_gas_lpm", orifice->actual_free_gas.in(litres_per_minute), 2,
-                 "Fixed orifice: as free gas", "L/min");
-      report.json["flow_notes"] = {rota->explanation, orifice->explanation};
-      report.notes.push_back(rota->explanation);
-      report.notes.push_back(orifice->explanation);
-    }
+  cyl::LeadingDuration lead = cyl::leading_duration(d.value(), rule);
+  report.add("duration_lead_min", lead.duration.in(minutes), 0, "Count on", "min");
+  report.json["duration_lead_basis"] =
+      lead.basis == cyl::DurationBasis::FieldRule ? "field_rule" : "real_gas";
+  report.notes.push_back("Count on " + format_number(lead.duration.in(minutes), 0) + " min: " + lead.why + ".");
+  if (capacity_assumed) {
+    std::string assumption = cyl::letter_size_assumption(*size);
+    report.json["water_capacity_assumption"] = assumption;
+    assumption[0] = 'S';
+    report.notes.push_back(assumption + " (--water-capacity).");
   }
+  std::vector<std::string> cautions = cyl::temperature_cautions(d->contents, temperature);
+  report.json["temperature_cautions"] = cautions;
+  for (const std::string& c : cautions) report.notes.push_back(c);
+  if (cautions.empty() || d->contents.cold_gain <= cyl::cold_gain_caution_fraction) {
+    report.notes.emplace_back(cyl::temperature_advice);
+  }
+  report.notes.emplace_back("Pressures are gauge readings (bar, psi gauge, kPa or MPa).");
+  if (ambient->altitude) report.add("altitude_m", ambient->altitude->in(metres), 0, "Altitude", "m");
+  if (ambient->source != "sea_level") add_flow_corrections(report, lpm, ambient->pressure);
   report.json["caution"] = std::string(cautions::short_line);
   report.notes.emplace_back(cautions::short_line);
   return report;
@@ -158,12 +236,19 @@ void register_cylinder_commands(CommandTable& table) {
   CLI::App* c = table.add("cylinder", "Oxygen cylinder contents and duration",
                           [o] { return run_cylinder(*o); });
   c->add_option("--size", o->size, "US letter size: D, E, M or H");
-  c->add_option("--water-capacity", o->water_capacity, "Water capacity, litres (e.g. 10)");
-  c->add_option("--pressure", o->pressure, "Gauge pressure, e.g. 200bar or 2000psi");
-  c->add_option("--flow", o->flow, "Flow, L/min (0.1-30)");
-  c->add_option("--reserve", o->reserve, "Reserve gauge pressure (default 200psi)");
-  c->add_option("--temperature", o->temperature, "Cylinder temperature (default 15C)");
+  c->add_option("--water-capacity", o->water_capacity,
+                 "Water capacity, litres (e.g. 10); with --size, your cylinder's own");
+  c->add_option("--pressure", o->pressure,
+                 "Gauge pressure: bar, psi (gauge), kPa or MPa, e.g. 200bar or 2000psi");
+  c->add_option("--flow", o->flow, "Flow, L/min (0.1-30), e.g. 2 or 2L/min");
+  c->add_option("--reserve", o->reserve,
+                "Reserve gauge pressure (default " +
+                    format_number(cyl::default_reserve_gauge.in(bar)) + "bar)");
+  c->add_option("--temperature", o->temperature,
+                "Cylinder temperature (default 15C); when unsure, the warmer one");
   c->add_option("--altitude", o->altitude, "Altitude (gauge reference, flowmeter corrections)");
+  c->add_option("--ambient-pressure", o->ambient_pressure,
+                "Measured air pressure instead of --altitude, e.g. 560hPa");
   c->add_option("--model", o->model, "Atmosphere model for --altitude: west (default) or isa");
 }
 

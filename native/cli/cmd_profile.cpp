@@ -57,8 +57,16 @@ Result<bool> write_text_file(const std::filesystem::path& path, const std::strin
 // [SECTION] firn plan
 
 struct PlanOptions {
-  std::optional<std::string> profile;
+  std::optional<std::string> profile, ambient_pressure;
 };
+
+// Plan minutes: what lasts rounds down, what is missing rounds up (whole minutes).
+double down_min(Duration d) { return cylinder::whole_minutes_down(d).in(minutes); }
+double up_min(Duration d) { return cylinder::whole_minutes_up(d).in(minutes); }
+
+Json flow_or_null(const std::optional<VolumeFlow>& f) {
+  return f ? Json(rounded(f->in(litres_per_minute), 1)) : Json(nullptr);
+}
 
 evacuation::CylinderSpec spec_for(const tp::CylinderType& type, std::string label,
                                   Pressure gauge, Temperature temperature) {
@@ -88,7 +96,22 @@ Result<Report> run_plan(const PlanOptions& o) {
   }
   input.evacuation = e.evacuation_time;
   input.reserve_gauge = p.reserve_pressure_gauge;
-  if (e.altitude) {
+  input.margin_minimum = p.safety_margin.minimum;
+  input.margin_fraction = p.safety_margin.share.in(fraction);
+  input.pressure_unit = p.units == tp::UnitSystem::Us ? &psi : &bar;
+  if (o.ambient_pressure) {
+    // A measured air pressure where the gauges are read wins over evacuation.altitude.
+    RangeProbe<Pressure> probe = range_of<Pressure>([](Pressure at) {
+      return cylinder::contents({litres(2), bar(100), celsius(15), at});
+    });
+    Result<Pressure> measured = required_pressure(o.ambient_pressure, "--ambient-pressure",
+                                                  "measured air pressure", probe);
+    if (!measured) return measured.error();
+    if (std::optional<Error> refused = probe(measured.value())) {
+      return Error{"--ambient-pressure: " + refused->message};
+    }
+    input.ambient_pressure = measured.value();
+  } else if (e.altitude) {
     Result<Pressure> ambient = atmosphere::pressure_at(*e.altitude, p.atmosphere_model);
     if (!ambient) return Error{"evacuation.altitude: " + ambient.error().message};
     input.ambient_pressure = ambient.value();
@@ -107,33 +130,47 @@ Result<Report> run_plan(const PlanOptions& o) {
   report.add("evacuation_min", e.evacuation_time.in(minutes), 0, "Evacuation", "min");
   Json timeline = Json::array();
   for (const evacuation::PlanEvent& event : plan->events) {
-    timeline.push_back({{"time_min", rounded(event.time.in(minutes), 1)},
+    timeline.push_back({{"time_min", down_min(event.time)},
                         {"event", std::string(evacuation::event_key(event.kind))},
                         {"cylinder", input.cylinders[event.cylinder_index].label},
                         {"text", event.text}});
-    report.rows.emplace_back(format_number(rounded(event.time.in(minutes), 0), 0) + " min",
-                             event.text);
+    report.rows.emplace_back(format_number(down_min(event.time), 0) + " min", event.text);
   }
   report.json["timeline"] = timeline;
   Json uses = Json::array();
   for (const evacuation::CylinderUse& use : plan->uses) {
     uses.push_back({{"cylinder", use.label},
-                    {"start_min", rounded(use.start.in(minutes), 1)},
-                    {"end_min", rounded(use.end.in(minutes), 1)},
+                    {"start_min", down_min(use.start)},
+                    {"end_min", down_min(use.end)},
                     {"start_gauge_bar", rounded(use.start_gauge.in(bar), 1)},
                     {"end_gauge_bar", rounded(use.end_gauge.in(bar), 1)},
                     {"delivered_l", rounded(use.delivered.in(litres), 0)},
                     {"reached_reserve", use.reached_reserve}});
   }
   report.json["uses"] = uses;
-  report.json["enough"] = plan->enough;
-  report.add_text("verdict", plan->enough ? "enough" : "short", "Oxygen");
+  // "enough" only with the margin and never from an extrapolated figure (evacuation::Verdict).
+  report.json["enough"] = plan->verdict == evacuation::Verdict::Enough;
+  report.json["lasts_to_arrival"] = plan->enough;
+  report.json["verdict"] = std::string(evacuation::verdict_key(plan->verdict));
+  report.add_text("verdict_text", evacuation::verdict_text(plan.value()), "Oxygen");
+  report.json["extrapolated"] = plan->extrapolated;
+  report.add("margin_min", up_min(plan->margin), 0, "Safety margin", "min");
+  report.json["max_sustainable_flow_lpm"] = flow_or_null(plan->max_sustainable_flow);
+  report.json["max_flow_to_arrival_lpm"] = flow_or_null(plan->max_flow_to_arrival);
+  report.rows.emplace_back(
+      "Steady flow that lasts",
+      plan->max_sustainable_flow
+          ? format_number(plan->max_sustainable_flow->in(litres_per_minute), 1) +
+                " L/min to arrival with the margin kept"
+          : std::string("below 0.1 L/min: no steady flow lasts to arrival with the margin"));
+  report.add("reserve_bar", p.reserve_pressure_gauge.in(bar), 1, "Reserve (gauge)", "bar");
+  report.json["reserve_psi"] = rounded(p.reserve_pressure_gauge.in(psi), 0);
   report.add("oxygen_needed_l", plan->oxygen_needed.in(litres), 0, "Oxygen needed", "L");
   report.add("oxygen_usable_l", plan->oxygen_usable.in(litres), 0, "Usable above reserve", "L");
-  report.add("shortfall_min", plan->shortfall.in(minutes), 0, "Shortfall", "min");
-  report.add("spare_min", plan->spare.in(minutes), 0, "Spare", "min");
+  report.add("shortfall_min", up_min(plan->shortfall), 0, "Shortfall", "min");
+  report.add("spare_min", down_min(plan->spare), 0, "Spare", "min");
   if (plan->supply_lasts) {
-    report.add("supply_lasts_min", plan->supply_lasts->in(minutes), 0, "Supply lasts", "min");
+    report.add("supply_lasts_min", down_min(*plan->supply_lasts), 0, "Supply lasts", "min");
   } else {
     report.json["supply_lasts_min"] = nullptr;
   }
@@ -264,6 +301,9 @@ void register_profile_commands(CommandTable& table) {
   CLI::App* plan_cmd = table.add("plan", "Evacuation oxygen plan from a team profile",
                                  [plan] { return run_plan(*plan); });
   plan_cmd->add_option("--profile", plan->profile, "Team profile JSON (docs/team-profile.md)");
+  plan_cmd->add_option("--ambient-pressure", plan->ambient_pressure,
+                       "Measured air pressure where the gauges are read (instead of "
+                       "evacuation.altitude), e.g. 600hPa");
 
   auto c = std::make_shared<CardOptions>();
   CLI::App* card_cmd = table.add("card", "Printable pocket card (HTML, optional CSV) from a team profile",

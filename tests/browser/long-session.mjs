@@ -20,7 +20,7 @@ const SEED = Number(process.env.FIRN_SESSION_SEED ?? Math.floor(Math.random() * 
 const BASELINE_STEP = 100;
 const HEAP_TOLERANCE = 0.10;  // issue 7: heap at the end within 10 % of after the first 100
 
-const NAV = ['Here', 'Casualty', 'Curve', 'Bag', 'Oxygen', 'AMS', 'Teaching', 'Team', 'Settings'];
+const NAV = ['Here', 'Casualty', 'Curve', 'Bag', 'Oxygen', 'AMS', 'Record', 'Teaching', 'Team', 'Settings'];
 const UNITS = ['m', 'ft', 'hPa', 'mmHg', 'kPa', 'inHg', 'bar', 'psi', '°C', '°F'];
 const THEMES = ['Day', 'Night', 'Projector'];
 // These leave the canvas (print dialogue, download, file picker): covered by profile.test.mjs.

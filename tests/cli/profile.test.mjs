@@ -75,6 +75,61 @@ test('plan: a short evacuation has spare oxygen, in minutes and cylinders', () =
   assert.equal(plan.spare_min, plan.supply_lasts_min - 60);
 });
 
+test('plan: "enough" only with the safety margin; the steady flow that lasts', () => {
+  // Margin: the larger of 30 min and 20 % of the evacuation (demo profile's safety_margin, the
+  // default; evacuation_plan.hpp says why). Hand arithmetic on the plan's own usable litres.
+  const p = clone();
+  p.evacuation.duration = '2h';
+  p.evacuation.phases = [{ flow: '4L/min' }];
+  const plan = firnJson(['plan', '--profile', writeProfile('margin.json', p)]);
+  assert.equal(plan.margin_min, 30);  // max(30, 0.2 × 120 = 24)
+  assert.equal(plan.verdict, 'enough');
+  assert.equal(plan.enough, true);
+  assert.match(plan.verdict_text, /^Enough with the 30 min margin: /);
+  const steady = plan.oxygen_usable_l / (120 + 30);
+  assert.ok(plan.max_sustainable_flow_lpm <= steady && plan.max_sustainable_flow_lpm > steady - 0.11,
+    `${plan.max_sustainable_flow_lpm} vs ${steady}`);
+  const toArrival = plan.oxygen_usable_l / 120;
+  assert.ok(plan.max_flow_to_arrival_lpm <= toArrival + 0.01 && plan.max_flow_to_arrival_lpm > toArrival - 0.11);
+  // At that steady flow the plan says enough; a little more and it is below the margin.
+  p.evacuation.phases = [{ flow: `${plan.max_sustainable_flow_lpm}L/min` }];
+  assert.equal(firnJson(['plan', '--profile', writeProfile('steady.json', p)]).verdict, 'enough');
+  p.evacuation.phases = [{ flow: `${plan.max_flow_to_arrival_lpm}L/min` }];
+  const thin = firnJson(['plan', '--profile', writeProfile('thin.json', p)]);
+  assert.equal(thin.verdict, 'below_margin');
+  assert.equal(thin.enough, false);
+  assert.equal(thin.lasts_to_arrival, true);
+  assert.ok(thin.spare_min < 30);
+  // The team's own margin: none at all makes the same plan "enough".
+  p.safety_margin = { minimum: '0min', share: '0%' };
+  assert.equal(firnJson(['plan', '--profile', writeProfile('nomargin.json', p)]).verdict, 'enough');
+  // Minutes: spare and supply rounded down, shortfall up, all whole.
+  const demoPlan = firnJson(['plan', '--profile', demoFile]);
+  assert.equal(demoPlan.verdict, 'short');
+  for (const k of ['shortfall_min', 'spare_min', 'supply_lasts_min', 'margin_min']) {
+    assert.ok(Number.isInteger(demoPlan[k]), k);
+  }
+  for (const e of demoPlan.timeline) assert.ok(Number.isInteger(e.time_min));
+});
+
+test('plan: a US profile prints its reserve in psi (gauge); a measured pressure may replace the altitude', () => {
+  const p = clone();
+  p.units = 'us';
+  p.reserve_pressure = '300psi';
+  const plan = firnJson(['plan', '--profile', writeProfile('us.json', p)]);
+  const swap = plan.timeline.find((e) => e.event === 'swap');
+  assert.match(swap.text, /reserve 300 psi gauge/);
+  assert.doesNotMatch(plan.assumptions.join(' '), /\bbar\b/);
+  assert.equal(plan.reserve_psi, 300);
+  // West 1996 at 4200 m (the demo's altitude): the same pressure measured gives the same plan.
+  const atAltitude = firnJson(['pressure', '--altitude', '4200m']);
+  const measured = firnJson(['plan', '--profile', demoFile, '--ambient-pressure', `${atAltitude.pressure_hpa}hPa`]);
+  const fromAltitude = firnJson(['plan', '--profile', demoFile]);
+  assert.equal(measured.supply_lasts_min, fromAltitude.supply_lasts_min);
+  assert.deepEqual(measured.timeline.map((e) => e.time_min), fromAltitude.timeline.map((e) => e.time_min));
+  assert.match(firnError(['plan', '--profile', demoFile, '--ambient-pressure', '90hPa']), /between 150 and 1100 hPa/);
+});
+
 test('plan: a profile without an evacuation section says what is missing', () => {
   const p = clone();
   delete p.evacuation;

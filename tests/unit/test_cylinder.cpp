@@ -1,6 +1,7 @@
 // Oxygen cylinders: real-gas contents, duration, US field rule, flow devices at altitude.
 #include <catch2/catch.hpp>
 
+#include <algorithm>
 #include <cmath>
 
 #include "model/atmosphere.hpp"
@@ -141,9 +142,9 @@ TEST_CASE("bad cylinder input names range and unit", "[cylinder][errors]") {
   Result<DurationEstimate> no_flow = duration({litres(10), bar(200)}, bar(20), litres_per_minute(0));
   REQUIRE_FALSE(no_flow.ok());
   CHECK(no_flow.error().message.find("L/min") != std::string::npos);
-  Result<DurationEstimate> reserve = duration({litres(10), bar(10)}, bar(20), litres_per_minute(5));
+  Result<DurationEstimate> reserve = duration({litres(10), bar(10)}, bar(120), litres_per_minute(5));
   REQUIRE_FALSE(reserve.ok());
-  CHECK(reserve.error().message.find("reserve pressure") != std::string::npos);
+  CHECK(reserve.error().message == "reserve pressure (gauge) must be between 0 and 100 bar (got 120 bar)");
   CHECK_FALSE(rotameter_at_altitude(litres_per_minute(10), hectopascals(50)).ok());
   CHECK_FALSE(fixed_orifice_at_altitude(litres_per_minute(10), hectopascals(500), psi(500)).ok());
   CHECK_FALSE(gauge_pressure_for(litres(10), celsius(15), atmospheres(1), litres(1e6)).ok());
@@ -169,9 +170,10 @@ TEST_CASE("sweep: contents, duration and flow corrections over their whole range
           Result<Pressure> back = gauge_pressure_for(litres(water), celsius(t), hectopascals(ambient), c->free_gas);
           REQUIRE(back.ok());
           CHECK(back->in(bar) == Approx(gauge).margin(1e-6));
-          // Duration to every reserve below the reading, at the lowest and highest flow.
+          // Duration to a reserve (0…100 bar) below the reading, at the lowest and highest flow.
           for (double flow : {0.1, max_flow_lpm}) {
-            Result<DurationEstimate> d = duration(r, bar(gauge / 2), litres_per_minute(flow));
+            Result<DurationEstimate> d =
+                duration(r, bar(std::min(gauge / 2, max_reserve_bar)), litres_per_minute(flow));
             REQUIRE(d.ok());
             CHECK(d->to_reserve.in(minutes) >= 0.0);
             CHECK(d->usable_free_gas.in(litres) <= c->free_gas.in(litres));
@@ -230,8 +232,8 @@ TEST_CASE("sweep: just outside every cylinder range the message names it", "[cyl
   CHECK_REFUSED_NAMING(with([](Reading& r) { r.ambient_pressure = hectopascals(1100.01); }), "between 150 and 1100 hPa");
   CHECK_REFUSED_NAMING(duration(ok, bar(20), litres_per_minute(0.099)), "between 0.1 and 30 L/min");
   CHECK_REFUSED_NAMING(duration(ok, bar(20), litres_per_minute(30.01)), "between 0.1 and 30 L/min");
-  CHECK_REFUSED_NAMING(duration(ok, bar(-0.01), litres_per_minute(5)), "between 0 and 200 bar");
-  CHECK_REFUSED_NAMING(duration(ok, bar(200.01), litres_per_minute(5)), "between 0 and 200 bar");
+  CHECK_REFUSED_NAMING(duration(ok, bar(-0.01), litres_per_minute(5)), "between 0 and 100 bar");
+  CHECK_REFUSED_NAMING(duration(ok, bar(100.01), litres_per_minute(5)), "between 0 and 100 bar");
   CHECK_REFUSED_NAMING(field_rule_duration(LetterSize::E, psi(199.99), litres_per_minute(5)), "between 200 and 3000 psi");
   CHECK_REFUSED_NAMING(field_rule_duration(LetterSize::E, psi(3000.01), litres_per_minute(5)), "between 200 and 3000 psi");
   CHECK_REFUSED_NAMING(rotameter_at_altitude(litres_per_minute(5), hectopascals(149.99)), "between 150 and 1100 hPa");
@@ -260,4 +262,88 @@ TEST_CASE("Fuzz finding: contents a rounding past full still give a gauge pressu
   REQUIRE(back.ok());
   CHECK(back->in(bar) == Approx(350).margin(1e-6));
   CHECK_FALSE(gauge_pressure_for(water, t, ambient, c->free_gas * 1.001).ok());
+}
+
+TEST_CASE("a gauge at or below the reserve says: change the cylinder now", "[cylinder]") {
+  // Issue 12: "reserve pressure (gauge) must be between 0 and 0 bar (got 20 bar)" was shown for
+  // an empty cylinder. It is a result the medic must act on, not an input error.
+  for (double gauge : {0.0, 10.0, 20.0}) {
+    Result<DurationEstimate> d = duration({litres(2), bar(gauge)}, bar(20), litres_per_minute(4));
+    REQUIRE(d.ok());
+    CHECK(d->below_reserve);
+    CHECK(d->to_reserve.in(minutes) == 0.0);
+    CHECK(d->usable_free_gas.in(litres) == 0.0);
+  }
+  CHECK(std::string(below_reserve_text) == "Below the reserve: change the cylinder now");
+  CHECK_FALSE(duration({litres(2), bar(20.5)}, bar(20), litres_per_minute(4))->below_reserve);
+  // The one default reserve (CLI, app, profile) is 20 bar = 290 psi.
+  CHECK(default_reserve_gauge.in(psi) == Approx(290.08).margin(0.01));
+}
+
+TEST_CASE("durations round down to whole minutes; the lower estimate leads", "[cylinder][conservative]") {
+  // Rounding rule of the safety brief: a duration the oxygen lasts rounds DOWN, a time without
+  // oxygen rounds UP.
+  CHECK(whole_minutes_down(minutes(50.4)).in(minutes) == 50.0);
+  CHECK(whole_minutes_down(minutes(50.9999)).in(minutes) == 50.0);
+  CHECK(whole_minutes_down(minutes(50.0 - 1e-12)).in(minutes) == 50.0);  // rounding noise
+  CHECK(whole_minutes_up(minutes(50.01)).in(minutes) == 51.0);
+  CHECK(whole_minutes_up(minutes(50.0 + 1e-12)).in(minutes) == 50.0);
+  // US field rule (common practice in EMS references) for an E at 2000 psi, 10 L/min: 50.4 min;
+  // the real-gas estimate with the assumed 4.6 L to 200 psi is longer, so the rule leads.
+  Reading e{letter_size_info(LetterSize::E).water_capacity, psi(2000)};
+  Result<DurationEstimate> gas = duration(e, psi(200), litres_per_minute(10));
+  REQUIRE(gas.ok());
+  Result<Duration> rule = field_rule_duration(LetterSize::E, psi(2000), litres_per_minute(10));
+  REQUIRE(rule.ok());
+  LeadingDuration lead = leading_duration(gas.value(), rule.value());
+  CHECK(gas->to_reserve > rule.value());
+  CHECK(lead.basis == DurationBasis::FieldRule);
+  CHECK(lead.duration.in(minutes) == 50.0);
+  CHECK(lead.why.find("field rule gives less") != std::string::npos);
+  // A cylinder smaller than the rule's factor implies (~3.9 L) makes the real-gas estimate lower.
+  Reading small{litres(3.6), psi(2000)};
+  Result<DurationEstimate> small_gas = duration(small, psi(200), litres_per_minute(10));
+  LeadingDuration lead_small = leading_duration(small_gas.value(), rule.value());
+  CHECK(lead_small.basis == DurationBasis::RealGas);
+  CHECK(lead_small.duration == whole_minutes_down(small_gas->to_reserve));
+  CHECK(lead_small.duration < minutes(50));
+  // Without a field rule the real-gas figure leads, rounded down.
+  CHECK(leading_duration(gas.value(), std::nullopt).duration == whole_minutes_down(gas->to_reserve));
+  // Letter-size capacities are an assumption, named wherever used.
+  CHECK(letter_size_assumption(LetterSize::D).find("2.8 L assumed") != std::string::npos);
+  CHECK(letter_size_assumption(LetterSize::E).find("vary by maker") != std::string::npos);
+}
+
+TEST_CASE("a cold temperature that claims more gas is called out", "[cylinder][temperature]") {
+  // Issue 11: 10 L at 200 bar gives ~2,128 L at 15 °C and ~2,633 L (+24 %) at −20 °C with the same
+  // gauge. True only once the gas is at −20 °C; Firn says so above a 3 % gain.
+  Result<Contents> warm = contents({litres(10), bar(200), celsius(15)});
+  Result<Contents> cold = contents({litres(10), bar(200), celsius(-20)});
+  REQUIRE(warm.ok());
+  REQUIRE(cold.ok());
+  CHECK(warm->free_gas.in(litres) == Approx(2128).margin(3));
+  CHECK(cold->free_gas.in(litres) == Approx(2633).margin(5));
+  CHECK(cold->cold_gain == Approx(cold->free_gas / warm->free_gas - 1.0).epsilon(1e-12));
+  CHECK(cold->cold_gain == Approx(0.24).margin(0.01));
+  CHECK(warm->cold_gain == 0.0);
+  std::vector<std::string> lines = temperature_cautions(cold.value(), celsius(-20));
+  REQUIRE(lines.size() == 1);
+  CHECK(lines[0].find("24 % more oxygen") != std::string::npos);
+  CHECK(lines[0].find("enter the warmer one") != std::string::npos);
+  // Just below 15 °C the gain is small: no caution (the threshold is 3 %).
+  Result<Contents> cool = contents({litres(10), bar(200), celsius(12)});
+  CHECK(cool->cold_gain > 0.0);
+  CHECK(cool->cold_gain < cold_gain_caution_fraction);
+  CHECK(temperature_cautions(cool.value(), celsius(12)).empty());
+}
+
+TEST_CASE("above 300 K the equation of state is extrapolated", "[cylinder][temperature]") {
+  // Stewart, Jacobsen & Wagner, J Phys Chem Ref Data 1991;20:917: published to 300 K (26.85 °C).
+  CHECK_FALSE(contents({litres(10), bar(200), celsius(26.85)})->extrapolated);
+  Result<Contents> hot = contents({litres(10), bar(200), celsius(27)});
+  REQUIRE(hot.ok());
+  CHECK(hot->extrapolated);
+  std::vector<std::string> lines = temperature_cautions(hot.value(), celsius(27));
+  REQUIRE(lines.size() == 1);
+  CHECK(lines[0].find("extrapolated") != std::string::npos);
 }

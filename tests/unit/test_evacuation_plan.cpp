@@ -161,13 +161,13 @@ TEST_CASE("bad plan input names range and unit", "[evacuation][errors]") {
 }
 
 TEST_CASE("sweep: plans over evacuation time, flow, cylinders and reserve", "[evacuation][sweep]") {
-  // Evacuation 1 min…72 h, flow 0…30 L/min, reserve 0…350 bar (gauge), 1…50 cylinders. Every
+  // Evacuation 1 min…72 h, flow 0…30 L/min, reserve 0…100 bar (gauge), 1…50 cylinders. Every
   // plan: times ordered, figures finite, what is delivered is what was needed or all that was
   // usable, and "enough" exactly when the usable gas covers the need (to 1 mL).
   for (double evac_min : {1.0, 30.0, 180.0, 1440.0, 4320.0}) {
     for (double flow : {0.0, 0.5, 6.0, 15.0, 30.0}) {
       for (int count : {1, 4, 50}) {
-        for (double reserve : {0.0, 20.0, 199.0}) {
+        for (double reserve : {0.0, 20.0, 100.0}) {
           PlanInput in;
           for (int i = 0; i < count; ++i) in.cylinders.push_back(ten_litre("C" + std::to_string(i), 200));
           in.phases = {{litres_per_minute(flow), minutes(1)}};
@@ -192,6 +192,11 @@ TEST_CASE("sweep: plans over evacuation time, flow, cylinders and reserve", "[ev
           CHECK(plan->spare.in(minutes) >= 0.0);
           CHECK(std::isfinite(plan->spare_cylinders));
           CHECK(plan->extra_cylinders_needed >= 0);
+          // "enough" only with the margin (default 30 min or 20 %), never when short.
+          CHECK((plan->verdict == Verdict::Short) == !plan->enough);
+          if (plan->verdict == Verdict::Enough && plan->supply_lasts) {
+            CHECK(*plan->supply_lasts >= in.evacuation + plan->margin - minutes(1e-6));
+          }
           for (std::size_t i = 1; i < plan->samples.size(); ++i) {
             CHECK(plan->samples[i].time >= plan->samples[i - 1].time);
             CHECK(std::isfinite(plan->samples[i].gauge.in(bar)));
@@ -239,8 +244,11 @@ TEST_CASE("sweep: just outside every plan range the message names it", "[evacuat
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.phases[0].duration = minutes(4320.01); }), "between 1 and 4320 min");
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.evacuation = minutes(0.99); }), "between 1 and 4320 min");
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.evacuation = minutes(4320.01); }), "between 1 and 4320 min");
-  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.reserve_gauge = bar(-0.01); }), "between 0 and 350 bar");
-  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.reserve_gauge = bar(350.01); }), "between 0 and 350 bar");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.reserve_gauge = bar(-0.01); }), "between 0 and 100 bar");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.reserve_gauge = bar(100.01); }), "between 0 and 100 bar");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.margin_minimum = minutes(-0.01); }), "between 0 and 720 min");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.margin_minimum = minutes(720.01); }), "between 0 and 720 min");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.margin_fraction = 1.0001; }), "between 0 and 100 %");
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.sample_interval = minutes(0.99); }), "between 1 and 60 min");
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.sample_interval = minutes(60.01); }), "between 1 and 60 min");
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.cylinders[0].gauge_pressure = bar(350.01); }), "between 0 and 350 bar");
@@ -256,9 +264,87 @@ TEST_CASE("Fuzz finding: a cylinder read a rounding below 350 bar is planned, no
                    celsius(52.492121407890522)}};
   in.phases = {{litres_per_minute(19.882352941176471), minutes(2859.2276724920962)}};
   in.evacuation = minutes(3894.1111936097168);
-  in.reserve_gauge = bar(189.89888029780158);
+  in.reserve_gauge = bar(89.89888029780158);  // found at 189.9 bar; reserves are 0…100 bar now
   in.ambient_pressure = hectopascals(687.78152465823348);
   Result<EvacuationPlan> plan = plan_evacuation(in);
   REQUIRE(plan.ok());
   CHECK(plan->samples.front().gauge.in(bar) == Approx(350).margin(1e-6));
+}
+
+TEST_CASE("enough only with the margin; the steady flow that lasts", "[evacuation][margin]") {
+  // Two 10 L cylinders at 200 bar, 20 bar reserve (usable U each, by the cylinder model), one
+  // steady flow. Margin by default: the larger of 30 min and 20 % of the evacuation (our choice,
+  // evacuation_plan.hpp). Hand arithmetic: the supply lasts 2U/flow minutes.
+  double u = usable_l(10, bar(200), bar(20));
+  PlanInput in = two_cylinders_six_hours();
+  in.phases = {{litres_per_minute(6), hours(0)}};
+  // Supply lasts 2U/6 ≈ 610 min. A 6 h (360 min) carry: margin max(30, 72) = 72 min: enough.
+  Result<EvacuationPlan> ok = plan_evacuation(in);
+  REQUIRE(ok.ok());
+  CHECK(ok->margin.in(minutes) == Approx(72).epsilon(1e-12));
+  CHECK(ok->verdict == Verdict::Enough);
+  CHECK(verdict_key(ok->verdict) == "enough");
+  CHECK(verdict_text(ok.value()).rfind("Enough with the 1 h 12 min margin: ", 0) == 0);
+  // The reverse question: the steady flow lasting 360 + 72 min is 2U/432, rounded DOWN to 0.1.
+  REQUIRE(ok->max_sustainable_flow);
+  CHECK(ok->max_sustainable_flow->in(litres_per_minute) ==
+        Approx(std::floor(2 * u / 432 * 10) / 10).margin(1e-9));
+  CHECK(ok->max_flow_to_arrival->in(litres_per_minute) ==
+        Approx(std::floor(2 * u / 360 * 10) / 10).margin(1e-9));
+  // Arrival inside the supply but inside the margin: lasts, but no "enough".
+  in.evacuation = minutes(std::floor(2 * u / 6) - 20);  // 20 min spare, margin ≥ 30 min
+  Result<EvacuationPlan> thin = plan_evacuation(in);
+  REQUIRE(thin.ok());
+  CHECK(thin->enough);  // oxygen to arrival…
+  CHECK(thin->verdict == Verdict::BelowMargin);  // …but not the margin
+  CHECK(verdict_text(thin.value()).find("less than the") != std::string::npos);
+  // A team margin of 0 says enough from arrival on.
+  in.margin_minimum = minutes(0);
+  in.margin_fraction = 0.0;
+  CHECK(plan_evacuation(in)->verdict == Verdict::Enough);
+  // Short: "Short by …", rounded UP (the time without oxygen is never understated).
+  in = two_cylinders_six_hours();
+  in.phases = {{litres_per_minute(15), hours(0)}};
+  Result<EvacuationPlan> short_plan = plan_evacuation(in);
+  REQUIRE(short_plan.ok());
+  CHECK(short_plan->verdict == Verdict::Short);
+  double short_min = 360 - 2 * u / 15;
+  CHECK(verdict_text(short_plan.value()) ==
+        "Short by " + std::to_string(static_cast<int>(std::ceil(short_min)) / 60) + " h " +
+            std::to_string(static_cast<int>(std::ceil(short_min)) % 60) + " min");
+}
+
+TEST_CASE("a warm cylinder's plan is extrapolated: no enough verdict", "[evacuation][margin]") {
+  // Oxygen EOS published to 300 K (Stewart, Jacobsen & Wagner 1991): a cylinder at 35 °C is
+  // extrapolated, so the plan gives no "enough" from it (a shortfall is still said).
+  PlanInput in = two_cylinders_six_hours();
+  in.phases = {{litres_per_minute(2), hours(0)}};
+  in.cylinders[1].temperature = celsius(35);
+  Result<EvacuationPlan> p = plan_evacuation(in);
+  REQUIRE(p.ok());
+  CHECK(p->extrapolated);
+  CHECK(p->verdict == Verdict::Extrapolated);
+  in.phases = {{litres_per_minute(30), hours(0)}};
+  CHECK(plan_evacuation(in)->verdict == Verdict::Short);
+}
+
+TEST_CASE("plan texts in the team's pressure unit; letter-size capacities named", "[evacuation]") {
+  PlanInput in;
+  in.cylinders = {{"E1", cylinder::LetterSize::E, std::nullopt, psi(2000), celsius(15)},
+                  {"E2", cylinder::LetterSize::E, std::nullopt, psi(2000), celsius(15)}};
+  in.phases = {{litres_per_minute(10), hours(0)}};
+  in.evacuation = hours(3);
+  in.reserve_gauge = psi(200);
+  in.pressure_unit = &psi;
+  Result<EvacuationPlan> p = plan_evacuation(in);
+  REQUIRE(p.ok());
+  bool swap_in_psi = false;
+  for (const PlanEvent& e : p->events) {
+    if (e.kind == EventKind::Swap) swap_in_psi = e.text.find("200 psi gauge") != std::string::npos;
+  }
+  CHECK(swap_in_psi);
+  int named = 0;
+  for (const std::string& a : p->assumptions) named += a.find("4.6 L assumed") != std::string::npos;
+  CHECK(named == 1);  // once per size
+  CHECK(p->assumptions.front().find("200 psi gauge") != std::string::npos);
 }

@@ -148,3 +148,14 @@ TEST_CASE("sweep: just outside the EOS range the message names it", "[oxygen_eos
   CHECK_REFUSED_NAMING(state_at(celsius(15), bar(0.00099)), "between 0.001 and 400 bar");
   CHECK_REFUSED_NAMING(state_at(celsius(65), bar(4.9406564584124654e-324)), "between 0.001 and 400 bar");
 }
+
+TEST_CASE("above the published 300 K the equation is marked extrapolated", "[oxygen_eos]") {
+  // Stewart RB, Jacobsen RT & Wagner W, "Thermodynamic properties of oxygen from the triple point
+  // to 300 K with pressures to 80 MPa", J Phys Chem Ref Data 1991;20:917: published to 300 K.
+  CHECK(oxygen_eos::published_max_temperature_k == 300.0);
+  CHECK_FALSE(oxygen_eos::extrapolated(kelvin(300.0)));
+  CHECK_FALSE(oxygen_eos::extrapolated(celsius(-40)));
+  CHECK(oxygen_eos::extrapolated(kelvin(300.01)));
+  CHECK(oxygen_eos::extrapolated(celsius(60)));
+  CHECK(std::string(oxygen_eos::extrapolated_text).find("published to 300 K") != std::string::npos);
+}

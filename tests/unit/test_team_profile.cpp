@@ -143,12 +143,13 @@ TEST_CASE("Every kind of bad file gives a message saying what and where", "[prof
   CHECK(problems_of(demo_with("\"schema_version\": 2", "\"schema_version\": \"2\""))
             .find("whole number") != std::string::npos);
   // Missing field, number without unit, unknown unit, unknown field, wrong kind.
-  CHECK(problems_of(demo_with("\"reserve_pressure\": \"20bar\",", "")) ==
-        "reserve_pressure: is missing (example: 20bar)");
+  CHECK(problems_of(demo_with("\"team_name\": \"DEMO Skarnvald Valley Mountain Rescue\",", "")) ==
+        "team_name: is missing (example: \"Valley Rescue\")");
   CHECK(problems_of(demo_with("\"reserve_pressure\": \"20bar\"", "\"reserve_pressure\": 20")) ==
         "reserve_pressure: 20 needs its unit, written as text like \"20bar\"");
   CHECK(problems_of(demo_with("\"reserve_pressure\": \"20bar\"", "\"reserve_pressure\": \"20bars\""))
-            .rfind("reserve_pressure: unknown unit 'bars' for reserve pressure: use ", 0) == 0);
+            == "reserve_pressure: unknown unit 'bars' for reserve pressure: a gauge reads in bar, "
+               "psi (gauge), kPa or MPa");
   CHECK(problems_of(demo_with("\"units\": \"metric\"", "\"units\": \"metric\", \"colour\": 1")) ==
         "colour: unknown field (a typo?)");
   CHECK(problems_of(demo_with("\"count\": 4", "\"count\": 2.5")) ==
@@ -294,6 +295,8 @@ const LimitedField limited_fields[] = {
     {"\"pressure\": \"190bar\"", "\"pressure\": ", "bar", 0, 300, "0\xE2\x80\xA6" "300 bar"},
     {"\"temperature\": \"-10C\"", "\"temperature\": ", "C", -40, 60, "-40\xE2\x80\xA6" "60 \xC2\xB0" "C"},
     {"\"flow\": \"15L/min\"", "\"flow\": ", "L/min", 0, 25, "0\xE2\x80\xA6" "25 L/min"},
+    {"\"minimum\": \"30min\"", "\"minimum\": ", "min", 0, 720, "0\xE2\x80\xA6" "720 min"},
+    {"\"share\": \"20%\"", "\"share\": ", "%", 0, 100, "0\xE2\x80\xA6" "100 %"},
     {"\"duration\": \"1h\"", "\"duration\": ", "min", 1, 4320, "1\xE2\x80\xA6" "4320 min"},
 };
 
@@ -356,4 +359,45 @@ TEST_CASE("Fuzz finding: a phase flow above 0 but below a flowmeter's 0.1 L/min"
   CHECK(problems_of(demo_with("\"flow\": \"6L/min\"", "\"flow\": \"1e-310L/min\"")) ==
         "evacuation.phases[1].flow: is below 0.1 L/min: write 0 (oxygen off) or at least 0.1L/min");
   CHECK(parse_profile(demo_with("\"flow\": \"6L/min\"", "\"flow\": \"0L/min\"")).ok());
+}
+
+TEST_CASE("Reserve and safety margin are optional, with the model's one default", "[profile][margin]") {
+  // An older profile without them stays valid: the reserve is the one default of the CLI and the
+  // app (cylinder::default_reserve_gauge), the margin evacuation_plan.hpp's default.
+  std::string text = demo_with("  \"reserve_pressure\": \"20bar\",\n", "");
+  text = text.substr(0, text.find("  \"safety_margin\"")) +
+         text.substr(text.find("\"flows\"") - 2);
+  Result<TeamProfile> p = parse_profile(text);
+  REQUIRE(p.ok());
+  CHECK(p->reserve_pressure_gauge == cylinder::default_reserve_gauge);
+  CHECK(p->safety_margin.minimum == evacuation::default_margin_minimum);
+  CHECK(p->safety_margin.share.in(fraction) == evacuation::default_margin_fraction);
+  // The demo states both; a team's own margin reads and writes back.
+  TeamProfile demo = demo_profile();
+  CHECK(demo.safety_margin.minimum == minutes(30));
+  CHECK(demo.safety_margin.share.in(percent) == Approx(20));
+  Result<TeamProfile> own = parse_profile(demo_with("\"minimum\": \"30min\"", "\"minimum\": \"45min\""));
+  REQUIRE(own.ok());
+  CHECK(own->safety_margin.minimum == minutes(45));
+  CHECK(parse_profile(serialize_profile(own.value())).value() == own.value());
+  CHECK_THAT(problems_of(demo_with("\"share\": \"20%\"", "\"share\": \"0.2\"")),
+             Catch::Contains("safety_margin.share: '0.2' needs a % sign"));
+  CHECK_THAT(problems_of(demo_with("\"share\": \"20%\"", "\"portion\": \"20%\"")),
+             Catch::Contains("safety_margin.portion: unknown field"));
+}
+
+TEST_CASE("Cylinder pressures are gauge pressures: bar, psi, kPa or MPa", "[profile][gauge]") {
+  // 20 MPa = 200 bar (SI Brochure 2019); "psig" is psi gauge, "psia" is absolute and refused.
+  Result<TeamProfile> mpa = parse_profile(demo_with("\"fill_pressure\": \"200bar\"", "\"fill_pressure\": \"20MPa\""));
+  REQUIRE(mpa.ok());
+  CHECK(mpa->cylinders[0].fill_pressure_gauge.in(bar) == Approx(200).epsilon(1e-12));
+  Result<TeamProfile> psig = parse_profile(demo_with("\"fill_pressure\": \"2015psi\"", "\"fill_pressure\": \"2015psig\""));
+  REQUIRE(psig.ok());
+  CHECK(psig->cylinders[2].fill_pressure_gauge == psi(2015));
+  CHECK_THAT(problems_of(demo_with("\"pressure\": \"190bar\"", "\"pressure\": \"190000hPa\"")),
+             Catch::Contains("a gauge reads in bar, psi (gauge), kPa or MPa"));
+  CHECK_THAT(problems_of(demo_with("\"fill_pressure\": \"2015psi\"", "\"fill_pressure\": \"2015psia\"")),
+             Catch::Contains("psia is absolute"));
+  CHECK_THAT(problems_of(demo_with("\"reserve_pressure\": \"20bar\"", "\"reserve_pressure\": \"20\"")),
+             Catch::Contains("needs a gauge unit: bar, psi (gauge), kPa or MPa"));
 }

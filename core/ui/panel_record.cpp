@@ -1,0 +1,315 @@
+// Screen "Record": the casualty record over the incident — reassessment timers, a new
+// observation in a few gloved taps (last values one tap away), events (oxygen set, bag start/end,
+// cylinder swap, arrival), the SpO2 trend, and the handover to copy or print.
+#include "ui/panels.hpp"
+
+#include <imgui.h>
+
+#include <algorithm>
+#include <cmath>
+#include <ctime>
+
+#include "model/handover.hpp"
+#include "ui/fields.hpp"
+#include "ui/plot.hpp"
+#include "ui/record_store.hpp"
+#include "ui/situation.hpp"
+#include "ui/test_hook.hpp"
+#include "ui/widgets.hpp"
+
+namespace firn::ui {
+
+namespace {
+
+using namespace units;
+using record::ClockTime;
+namespace so = supplemental_oxygen;
+
+constexpr so::Device kDevices[] = {so::Device::NasalCannula, so::Device::SimpleMask,
+                                   so::Device::NonRebreather};
+constexpr const char* kBreathingLabels[] = {"Air", "Cannula", "Mask", "NRB"};
+constexpr const char* kAvpuLabels[] = {"A", "V", "P", "U"};
+// A bag session is commonly 1–2 h, then reassess (common practice, domain brief).
+constexpr double kBagSessionMinutes = 60.0;
+
+record::Breathing drafted_breathing(const RecordInputs& in) {
+  if (in.on <= 0) return {std::nullopt, litres_per_minute(0.0)};
+  return {kDevices[in.on - 1], in.flow};
+}
+
+int breathing_index(const record::Breathing& b) {
+  if (b.on_air()) return 0;
+  for (int i = 0; i < 3; ++i) {
+    if (kDevices[i] == *b.device) return i + 1;
+  }
+  return 0;
+}
+
+// Seconds until the shown minute of a countdown changes: the page wakes only for that.
+double seconds_to_next_minute() {
+  return 60.0 - static_cast<double>(std::time(nullptr) % 60);
+}
+
+void wake_in(AppState& state, double seconds) {
+  if (state.wake_after_seconds <= 0.0 || seconds < state.wake_after_seconds) {
+    state.wake_after_seconds = std::max(1.0, seconds);
+  }
+}
+
+// [SECTION] Timers
+
+void timers(AppState& state, const handover::Summary& s, ClockTime now) {
+  const RecordInputs& in = state.record;
+  if (s.last_time) {
+    std::optional<ClockTime> last_check = s.latest_spo2 ? std::optional(s.latest_spo2->time) : s.first_time;
+    ClockTime due{last_check->minutes + static_cast<std::int64_t>(in.check_interval.in(minutes))};
+    std::int64_t left = record::minutes_between(now, due);
+    if (left <= 0) {
+      verdict_line(state, Tone::Danger, "SpO2 check due now (" + std::to_string(-left) +
+                                            " min overdue; every " +
+                                            format_number(in.check_interval.in(minutes), 0) + " min)");
+    } else {
+      verdict_line(state, Tone::Neutral, "Next SpO2 check in " + std::to_string(left) + " min, at " +
+                                             record::clock_hhmm(due));
+    }
+    wake_in(state, seconds_to_next_minute());
+  }
+  if (!s.bag_sessions.empty() && !s.bag_sessions.back().end) {
+    std::int64_t in_bag = record::minutes_between(s.bag_sessions.back().start, now);
+    if (in_bag >= kBagSessionMinutes) {
+      verdict_line(state, Tone::Caution, "In the bag " + std::to_string(in_bag) +
+                                             " min: reassess now (then continue, or descend)");
+    } else {
+      verdict_line(state, Tone::Neutral, "In the bag " + std::to_string(in_bag) + " of " +
+                                             format_number(kBagSessionMinutes, 0) + " min");
+    }
+    wake_in(state, seconds_to_next_minute());
+  }
+}
+
+// [SECTION] New observation
+
+// A whole-number finding that starts empty; "Same: N" copies the last one in a tap.
+void optional_field(AppState& state, const char* label, const char* id, const char* what,
+                    std::optional<double>& value, double low, double high, const char* unit,
+                    std::optional<int> last) {
+  FieldSpec spec{label, id, value ? format_number(*value, 0) + " " + unit : "\xE2\x80\x94  (tap to enter)",
+                 value ? format_number(*value, 0) : "", {unit}, 0,
+                 format_number(low, 0) + "\xE2\x80\x93" + format_number(high, 0) + " " + unit, false};
+  FieldEvent event = keypad_field(state, spec);
+  if (event.kind == FieldEvent::Kind::Commit) {
+    Result<double> n = parse_number(event.text, what);
+    if (!n) {
+      state.field_errors[id] = n.error().message;
+    } else if (!in_range(*n, low, high) || *n != std::floor(*n)) {
+      state.field_errors[id] = std::string(what) + " must be a whole number from " +
+                               format_number(low, 0) + " to " + format_number(high, 0) + " " + unit;
+    } else {
+      state.field_errors.erase(id);
+      value = *n;
+    }
+  }
+  if (last && !value) {
+    std::string same = std::string("Same as last: ") + std::to_string(*last) + " " + unit +
+                       "##" + id;
+    if (big_button(state, same.c_str())) value = *last;
+  }
+}
+
+std::optional<int> last_whole(const std::optional<units::Fraction>& f) {
+  if (!f) return std::nullopt;
+  return static_cast<int>(std::lround(f->in(percent)));
+}
+
+void observation_form(AppState& state, Platform& platform, const handover::Summary& s,
+                      ClockTime now) {
+  RecordInputs& in = state.record;
+  heading("New observation");
+  if (in.on < 0) in.on = s.current_breathing ? breathing_index(*s.current_breathing) : 0;
+  std::optional<int> last_spo2 = s.latest_spo2 ? last_whole(s.latest_spo2->spo2) : std::nullopt;
+  optional_field(state, "SpO2", "record-spo2", "SpO2", in.spo2_pct, record::kMinSpo2Pct,
+                 record::kMaxSpo2Pct, "%", last_spo2);
+  ImGui::TextDisabled("Breathing");
+  choice_row(state, "record-on", kBreathingLabels, 4, &in.on);
+  if (in.on > 0) {
+    so::FlowRange range = so::valid_flows(kDevices[in.on - 1]);
+    in.flow = std::clamp(in.flow, range.low, range.high);
+    QuantityField<VolumeFlowDimension> f = flow_field("Flow", "record-flow", range.high.in(litres_per_minute));
+    f.low = range.low;
+    edit_quantity(state, f, in.flow);
+  }
+  optional_field(state, "Heart rate", "record-hr", "heart rate", in.heart_rate, record::kMinHeartRate,
+                 record::kMaxHeartRate, "/min", s.latest_heart_rate);
+  optional_field(state, "Breathing rate", "record-rr", "breathing rate", in.breathing_rate,
+                 record::kMinBreathingRate, record::kMaxBreathingRate, "/min", s.latest_breathing_rate);
+  ImGui::TextDisabled("AVPU (alert / voice / pain / unresponsive)");
+  choice_row(state, "record-avpu", kAvpuLabels, 4, &in.avpu);
+  int_stepper(state, "Written up late: minutes ago", "record-ago", &in.minutes_ago, 0, 180);
+
+  bool any = in.spo2_pct || in.heart_rate || in.breathing_rate || in.avpu >= 0;
+  if (!any) {
+    ImGui::TextDisabled("Enter at least one finding to save an observation.");
+    return;
+  }
+  if (big_button(state, "Save observation")) {
+    record::Entry e;
+    e.time = ClockTime{now.minutes - in.minutes_ago};
+    e.kind = record::Kind::Observation;
+    if (Result<Length> h = situation_altitude(state)) e.altitude = h.value();
+    if (in.spo2_pct) {
+      e.spo2 = percent(*in.spo2_pct);
+      e.breathing = drafted_breathing(in);
+    }
+    if (in.heart_rate) e.heart_rate = static_cast<int>(*in.heart_rate);
+    if (in.breathing_rate) e.breathing_rate = static_cast<int>(*in.breathing_rate);
+    if (in.avpu >= 0) e.avpu = static_cast<record::Avpu>(in.avpu);
+    add_entry(in.store, platform, e);
+    in.spo2_pct.reset();
+    in.heart_rate.reset();
+    in.breathing_rate.reset();
+    in.avpu = -1;
+    in.minutes_ago = 0;
+  }
+}
+
+// [SECTION] Events
+
+void event_buttons(AppState& state, Platform& platform, const handover::Summary& s, ClockTime now) {
+  RecordInputs& in = state.record;
+  heading("Events (stamped now)");
+  auto add = [&](record::Kind kind, auto&& fill) {
+    record::Entry e;
+    e.time = now;
+    e.kind = kind;
+    fill(e);
+    add_entry(in.store, platform, e);
+  };
+  record::Breathing drafted = drafted_breathing(in);
+  std::string oxygen_label = drafted.on_air() ? "Oxygen stopped (air)" : "Oxygen set: " + record::breathing_words(drafted);
+  bool changed = !s.current_breathing || breathing_index(*s.current_breathing) != in.on ||
+                 (!drafted.on_air() && !(s.current_breathing->flow == drafted.flow));
+  if (changed && big_button(state, oxygen_label.c_str())) {
+    add(record::Kind::Oxygen, [&](record::Entry& e) { e.breathing = drafted; });
+  }
+  bool in_bag = !s.bag_sessions.empty() && !s.bag_sessions.back().end;
+  if (!in_bag && big_button(state, "Bag session start")) {
+    add(record::Kind::BagStart, [&](record::Entry& e) { e.bag_gauge = state.bag.gauge; });
+  }
+  if (in_bag && big_button(state, "Bag session end")) add(record::Kind::BagEnd, [](record::Entry&) {});
+  if (big_button(state, "Cylinder swapped")) add(record::Kind::CylinderSwap, [](record::Entry&) {});
+  Result<Length> here = situation_altitude(state);
+  if (here) {
+    std::string arrived = "Arrived at " + format_number(std::round(here->in(metres)), 0) + " m";
+    if (big_button(state, arrived.c_str())) {
+      add(record::Kind::Arrival, [&](record::Entry& e) { e.altitude = here.value(); });
+    }
+  }
+}
+
+// [SECTION] Trend
+
+void trend_chart(AppState& state, const record::Record& rec, const handover::Summary& s) {
+  if (!s.first_time || !s.first_spo2) return;
+  heading("SpO2 over time");
+  double span = std::max<double>(30.0, static_cast<double>(record::minutes_between(*s.first_time, *s.last_time)));
+  PlotAxes axes{0.0, span, 50.0, 100.0, span > 240 ? 60.0 : 30.0, 10.0, "minutes since first entry", "SpO2 %"};
+  std::string summary = std::to_string(s.entries) + " entries, SpO2 " +
+                        format_number(s.first_spo2->spo2.in(percent), 0) + " to " +
+                        format_number(s.latest_spo2->spo2.in(percent), 0) + " %";
+  Plot plot = begin_plot(state, "SpO2 trend", summary, 12.0f, axes);
+  auto x_of = [&](ClockTime t) { return static_cast<double>(record::minutes_between(*s.first_time, t)); };
+  for (const handover::BagSession& b : s.bag_sessions) {
+    plot_vline(plot, x_of(b.start), plot_colour(state, PlotColour::Dim), "bag");
+    if (b.end) plot_vline(plot, x_of(*b.end), plot_colour(state, PlotColour::Dim));
+  }
+  for (const handover::OxygenPeriod& p : s.oxygen) {
+    double to = p.to ? x_of(*p.to) : span;
+    plot_line(plot, {{x_of(p.from), 53.0}, {to, 53.0}}, plot_colour(state, PlotColour::Accent), 0.35f);
+    plot_text(plot, {x_of(p.from), 56.0}, plot_colour(state, PlotColour::Accent),
+              format_number(p.setting.flow.in(litres_per_minute), 1) + " L/min");
+  }
+  std::vector<PlotPoint> line;
+  for (const record::Entry& e : rec.entries) {
+    if (e.kind != record::Kind::Observation || !e.spo2) continue;
+    PlotPoint p{x_of(e.time), std::clamp(e.spo2->in(percent), 50.0, 100.0)};
+    line.push_back(p);
+    bool on_air = e.breathing && e.breathing->on_air();
+    plot_point(plot, p, plot_colour(state, on_air ? PlotColour::Danger : PlotColour::Text), on_air ? "air" : "O2");
+  }
+  plot_line(plot, line, plot_colour(state, PlotColour::Text));
+  plot_legend(state, {{plot_colour(state, PlotColour::Text), "SpO2 (point: air or O2)"},
+                      {plot_colour(state, PlotColour::Accent), "oxygen given (L/min)"},
+                      {plot_colour(state, PlotColour::Dim), "bag session"}});
+}
+
+// [SECTION] Handover and the incident
+
+void handover_section(AppState& state, Platform& platform, const record::Record& rec,
+                      const handover::Summary& s) {
+  heading("Handover");
+  handover::Units units = state.settings.units.altitude == UnitChoice::Altitude::Feet
+                              ? handover::Units::Us : handover::Units::Metric;
+  std::string text = handover::summary_text(rec, s, units);
+  message_line(state, text);
+  if (big_button(state, "Copy handover text")) ImGui::SetClipboardText(text.c_str());
+  if (big_button(state, "Print handover (A4)")) {
+    platform.open_html_document("Firn handover", handover::render_html(rec, s, units, handover::Page::A4));
+  }
+}
+
+void incident_buttons(AppState& state, Platform& platform) {
+  RecordInputs& in = state.record;
+  heading("Incident");
+  ImGui::TextDisabled("Kept on this device only. Archived incidents: %d of %d.", archived_count(platform), kArchiveSlots);
+  if (!in.confirm_new && big_button(state, "New incident")) in.confirm_new = true;
+  if (in.confirm_new) {
+    verdict_line(state, Tone::Caution, "Archive this record and start a new, empty one?");
+    if (big_button(state, "Yes, new incident")) {
+      new_incident(in.store, platform);
+      in.confirm_new = false;
+    }
+    if (big_button(state, "Keep this incident")) in.confirm_new = false;
+  }
+  if (!in.confirm_delete && big_button(state, "Delete all records")) in.confirm_delete = true;
+  if (in.confirm_delete) {
+    verdict_line(state, Tone::Danger, "Delete this record and every archived one from this device?");
+    if (big_button(state, "Yes, delete everything")) {
+      delete_all_records(in.store, platform);
+      in.confirm_delete = false;
+    }
+    if (big_button(state, "Cancel delete")) in.confirm_delete = false;
+  }
+}
+
+}  // namespace
+
+void draw_record_panel(AppState& state, Platform& platform) {
+  RecordInputs& in = state.record;
+  if (!in.loaded) {
+    load_record(in.store, platform);
+    in.loaded = true;
+  }
+  const record::Record& rec = in.store.record;
+  handover::Summary s = handover::summarise(rec);
+  ClockTime now = clock_now();
+  heading(rec.entries.empty() ? "Casualty record: no entries yet"
+                              : ("Casualty record: " + std::to_string(rec.entries.size()) + " entries, since " +
+                                 record::clock_hhmm(*s.first_time)).c_str());
+  if (!in.store.problem.empty()) verdict_line(state, Tone::Danger, in.store.problem);
+  timers(state, s, now);
+  if (s.latest_spo2) {
+    std::int64_t ago = record::minutes_between(s.latest_spo2->time, now);
+    message_line(state, "Latest SpO2 " + format_number(s.latest_spo2->spo2.in(percent), 0) + " % on " +
+                            (s.latest_spo2->on ? record::breathing_words(*s.latest_spo2->on) : "?") +
+                            " at " + record::clock_hhmm(s.latest_spo2->time) + ", " +
+                            std::to_string(ago) + " min ago");
+  }
+  observation_form(state, platform, s, now);
+  event_buttons(state, platform, s, now);
+  trend_chart(state, rec, s);
+  if (!rec.entries.empty()) handover_section(state, platform, rec, s);
+  incident_buttons(state, platform);
+  caution_line(state);
+}
+
+}  // namespace firn::ui

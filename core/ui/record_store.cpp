@@ -1,0 +1,86 @@
+#include "ui/record_store.hpp"
+
+#include <algorithm>
+#include <ctime>
+
+namespace firn::ui {
+
+std::string archive_key(int slot) { return "incident-archive-" + std::to_string(slot) + ".json"; }
+
+namespace {
+
+// An empty saved text means "deleted": Platform has no delete, and a record file is never empty.
+bool has_text(const std::optional<std::string>& text) { return text && !text->empty(); }
+
+bool save(RecordStore& store, Platform& platform) {
+  store.stored = platform.save_text(kRecordKey, record::write_record(store.record));
+  store.problem = store.stored ? std::string()
+                               : "The record could not be saved on " + platform.storage_location() +
+                                     ": it lasts until Firn is closed. Write entries on paper too.";
+  return store.stored;
+}
+
+}  // namespace
+
+void load_record(RecordStore& store, Platform& platform) {
+  store.record = {};
+  store.stored = false;
+  std::optional<std::string> text = platform.load_text(kRecordKey);
+  if (!has_text(text)) return;
+  Result<record::Record> parsed = record::parse_record(*text);
+  if (parsed) {
+    store.record = parsed.value();
+    store.stored = true;
+    return;
+  }
+  bool kept = platform.save_text(kBadRecordKey, *text);
+  store.problem = "The saved incident record could not be read (" + parsed.error().message + "). " +
+                  (kept ? "Its text was kept as " + std::string(kBadRecordKey) + " in " +
+                              platform.storage_location() + "; a new record was started."
+                        : std::string("Its text could not be copied; it stays until you add an entry."));
+}
+
+bool add_entry(RecordStore& store, Platform& platform, const record::Entry& entry) {
+  auto& entries = store.record.entries;
+  auto after = std::upper_bound(entries.begin(), entries.end(), entry,
+                                [](const record::Entry& a, const record::Entry& b) { return a.time < b.time; });
+  entries.insert(after, entry);
+  return save(store, platform);
+}
+
+void new_incident(RecordStore& store, Platform& platform) {
+  if (!store.record.entries.empty()) {
+    for (int slot = kArchiveSlots; slot > 1; --slot) {
+      std::optional<std::string> older = platform.load_text(archive_key(slot - 1));
+      platform.save_text(archive_key(slot), has_text(older) ? *older : std::string());
+    }
+    platform.save_text(archive_key(1), record::write_record(store.record));
+  }
+  store.record = {};
+  save(store, platform);
+}
+
+void delete_all_records(RecordStore& store, Platform& platform) {
+  for (int slot = 1; slot <= kArchiveSlots; ++slot) platform.save_text(archive_key(slot), "");
+  platform.save_text(kBadRecordKey, "");
+  store.record = {};
+  save(store, platform);
+}
+
+int archived_count(Platform& platform) {
+  int count = 0;
+  for (int slot = 1; slot <= kArchiveSlots; ++slot) count += has_text(platform.load_text(archive_key(slot)));
+  return count;
+}
+
+record::ClockTime clock_now() {
+  std::time_t now = std::time(nullptr);
+  std::tm local{};
+  if (localtime_r(&now, &local) == nullptr) return {};
+  char buffer[24];
+  std::strftime(buffer, sizeof buffer, "%Y-%m-%dT%H:%M", &local);
+  Result<record::ClockTime> t = record::parse_clock_time(buffer);
+  return t ? t.value() : record::ClockTime{};
+}
+
+}  // namespace firn::ui

@@ -1,0 +1,41 @@
+// The current incident's casualty record kept on the device (Platform::save_text("incident.json"),
+// the same file `firn handover --record` reads), written after every entry so a reload, going
+// offline or a phone restart loses nothing. A saved record that cannot be read is kept as
+// "incident.json.bad" before anything else is written, and the user is told. "New incident"
+// archives the current one (the newest kArchiveSlots kept). No ImGui here.
+#pragma once
+
+#include <string>
+
+#include "model/incident_record.hpp"
+#include "ui/platform.hpp"
+
+namespace firn::ui {
+
+inline constexpr const char* kRecordKey = "incident.json";
+inline constexpr const char* kBadRecordKey = "incident.json.bad";
+inline constexpr int kArchiveSlots = 5;  // "incident-archive-1.json" (newest) … "-5.json"
+std::string archive_key(int slot);       // slot 1…kArchiveSlots
+
+struct RecordStore {
+  record::Record record;
+  bool stored = false;     // the last write reached the platform's storage
+  std::string problem;     // shown until the next successful write or load
+};
+
+// At start: the saved incident, an empty one, or (unreadable) a backup + empty + problem.
+void load_record(RecordStore& store, Platform& platform);
+// Appends `entry` in time order and saves; returns false (and sets problem) if saving failed —
+// the entry is still kept in memory for this session.
+bool add_entry(RecordStore& store, Platform& platform, const record::Entry& entry);
+// Archives the current incident (if it has entries) and starts an empty one.
+void new_incident(RecordStore& store, Platform& platform);
+// Deletes the current incident and every archived one (privacy), leaving an empty record.
+void delete_all_records(RecordStore& store, Platform& platform);
+// How many archived incidents are stored.
+int archived_count(Platform& platform);
+
+// The device's clock now, as the record writes it (local time).
+record::ClockTime clock_now();
+
+}  // namespace firn::ui
