@@ -103,6 +103,7 @@ constexpr ScreenInfo kScreens[kScreenCount] = {
     {Screen::Curve, "Curve", draw_curve_panel, Screen::Casualty},
     {Screen::Bag, "Bag", draw_bag_panel, Screen::Here},
     {Screen::Oxygen, "Oxygen", draw_oxygen_panel, Screen::Casualty},
+    {Screen::Route, "Route", draw_route_panel, Screen::Route},
     {Screen::Ams, "AMS", draw_ams_panel, Screen::Casualty},
     {Screen::Record, "Record", draw_record_panel, Screen::Casualty},
     {Screen::Teaching, "Teaching", draw_teaching_panel, Screen::Teaching},

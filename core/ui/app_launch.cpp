@@ -13,6 +13,7 @@ constexpr std::array<std::pair<std::string_view, Screen>, kScreenCount> kScreens
     {"curve", Screen::Curve},
     {"bag", Screen::Bag},
     {"oxygen", Screen::Oxygen},
+    {"route", Screen::Route},
     {"ams", Screen::Ams},
     {"record", Screen::Record},
     {"teaching", Screen::Teaching},

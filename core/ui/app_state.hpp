@@ -12,6 +12,7 @@
 #include "model/atmosphere.hpp"
 #include "model/hyperbaric_bag.hpp"
 #include "model/illness_criteria.hpp"
+#include "model/route_plan.hpp"
 #include "model/team_profile.hpp"
 #include "model/units.hpp"
 #include "ui/record_store.hpp"
@@ -23,8 +24,8 @@ namespace firn::ui {
 enum class Theme { Day, Night, Projection };
 
 // Order = order in the navigation bar.
-enum class Screen { Here, Casualty, Curve, Bag, Oxygen, Ams, Record, Teaching, Team, Settings };
-inline constexpr int kScreenCount = 10;
+enum class Screen { Here, Casualty, Curve, Bag, Oxygen, Route, Ams, Record, Teaching, Team, Settings };
+inline constexpr int kScreenCount = 11;
 
 // Units a user reads and types in. Values are stored as typed quantities (SI inside), so
 // switching units never rounds an entered value away.
@@ -97,6 +98,13 @@ struct OxygenInputs {
   units::Duration first_phase = units::hours(1.0);
 };
 
+// The Route screen: the carry-out being planned (the team's usual one until edited).
+struct RouteState {
+  route::RouteInput input;
+  bool loaded = false;
+  std::string message;  // why the usual carry-out could not be loaded
+};
+
 // Each Lake Louise item 0–3, or kUnanswered until the casualty has answered it.
 struct AmsInputs {
   static constexpr int kUnanswered = -1;
@@ -160,6 +168,7 @@ struct AppState {
   Situation situation;
   BagInputs bag;
   OxygenInputs oxygen;
+  RouteState route;
   AmsInputs ams;
   TeachingInputs teaching;
   TeamState team;

@@ -11,6 +11,7 @@ void draw_casualty_panel(AppState& state, Platform& platform);  // SpO2 vs expec
 void draw_curve_panel(AppState& state, Platform& platform);     // dissociation curve
 void draw_bag_panel(AppState& state, Platform& platform);       // hyperbaric bag
 void draw_oxygen_panel(AppState& state, Platform& platform);    // cylinder, evacuation plan
+void draw_route_panel(AppState& state, Platform& platform);     // oxygen along the route
 void draw_ams_panel(AppState& state, Platform& platform);       // Lake Louise 2018
 void draw_record_panel(AppState& state, Platform& platform);    // casualty record, handover
 void draw_teaching_panel(AppState& state, Platform& platform);  // cascade sweep

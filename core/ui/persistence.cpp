@@ -21,7 +21,7 @@ namespace {
 constexpr int kFormatVersion = 1;
 
 constexpr std::array<std::string_view, kScreenCount> kScreenKeys{
-    "here", "casualty", "curve", "bag", "oxygen", "ams", "record", "teaching", "team", "settings"};
+    "here", "casualty", "curve", "bag", "oxygen", "route", "ams", "record", "teaching", "team", "settings"};
 constexpr std::array<std::string_view, 3> kThemeKeys{"day", "night", "projector"};
 constexpr std::array<std::string_view, 3> kSourceKeys{"altitude", "station", "qnh"};
 constexpr std::array<std::string_view, 2> kAltitudeUnits{"m", "ft"};

@@ -231,6 +231,7 @@ int run(int argc, char** argv, AppOptions& app_options) {
   register_bag_commands(table);
   register_cylinder_commands(table);
   register_profile_commands(table);
+  register_route_commands(table);
   register_handover_commands(table);
   for (auto& [sub, action] : table.commands) {
     sub->add_flag("--json", json, "Print JSON instead of a table");

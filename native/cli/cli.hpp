@@ -49,6 +49,7 @@ void register_ams_commands(CommandTable& table);           // ams
 void register_bag_commands(CommandTable& table);           // bag
 void register_cylinder_commands(CommandTable& table);      // cylinder
 void register_profile_commands(CommandTable& table);       // plan, card, profile
+void register_route_commands(CommandTable& table);         // route
 void register_handover_commands(CommandTable& table);      // handover
 
 // The valid range of an option, asked of the model that judges the value: every model refuses

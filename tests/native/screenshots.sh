@@ -9,7 +9,7 @@ mkdir -p "$out"
 export XDG_CONFIG_HOME="$(mktemp -d)"
 trap 'rm -rf "$XDG_CONFIG_HOME"' EXIT
 fail=0
-for screen in here casualty curve bag oxygen ams record teaching team settings keypad; do
+for screen in here casualty curve bag oxygen route ams record teaching team settings keypad; do
   for size in phone:430:900 laptop:1366:768; do
     IFS=: read -r name width height <<<"$size"
     png="$out/$screen-$name.png"
