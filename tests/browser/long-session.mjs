@@ -23,7 +23,7 @@ const BASELINE_STEP = 100;
 const HEAP_TOLERANCE = 0.10;  // issue 7: heap at the end within 10 % of after the first 100
 assert.ok(STEPS > BASELINE_STEP, `FIRN_SESSION_STEPS must be over ${BASELINE_STEP} (the heap baseline)`);
 
-const NAV = ['Here', 'Casualty', 'Curve', 'Bag', 'Oxygen', 'AMS', 'Record', 'Teaching', 'Team', 'Settings'];
+const NAV = ['Here', 'Casualty', 'Curve', 'Bag', 'Oxygen', 'Route', 'AMS', 'Record', 'Teaching', 'Team', 'Settings'];
 const UNITS = ['m', 'ft', 'hPa', 'mmHg', 'kPa', 'inHg', 'bar', 'psi', '°C', '°F'];
 const THEMES = ['Day', 'Night', 'Projector'];
 // These leave the canvas (print dialogue, download, file picker): covered by profile.test.mjs.
