@@ -6,6 +6,7 @@
 
 #include "model/atmosphere.hpp"
 #include "model/cautions.hpp"
+#include "model/html_text.hpp"
 
 namespace firn::handover {
 
@@ -222,20 +223,6 @@ std::string summary_text(const record::Record& record, const Summary& s, Units u
 
 namespace {
 
-std::string escape(std::string_view text) {
-  std::string out;
-  for (char c : text) {
-    switch (c) {
-      case '&': out += "&amp;"; break;
-      case '<': out += "&lt;"; break;
-      case '>': out += "&gt;"; break;
-      case '"': out += "&quot;"; break;
-      default: out += c;
-    }
-  }
-  return out;
-}
-
 std::string entry_row(const Entry& e, Units u) {
   std::string findings;
   auto add = [&findings](const std::string& part) {
@@ -251,9 +238,9 @@ std::string entry_row(const Entry& e, Units u) {
   if (e.bag_gauge) add(gauge_text(*e.bag_gauge, u));
   std::string kind(record::kind_key(e.kind));
   std::replace(kind.begin(), kind.end(), '_', ' ');
-  return "<tr><td>" + record::clock_hhmm(e.time) + "</td><td>" + escape(kind) + "</td><td>" +
+  return "<tr><td>" + record::clock_hhmm(e.time) + "</td><td>" + html_escape(kind) + "</td><td>" +
          (e.altitude ? altitude_text(*e.altitude, u) : std::string()) + "</td><td>" +
-         escape(findings) + "</td><td>" + escape(e.note) + "</td></tr>\n";
+         html_escape(findings) + "</td><td>" + html_escape(e.note) + "</td></tr>\n";
 }
 
 }  // namespace
@@ -261,7 +248,7 @@ std::string entry_row(const Entry& e, Units u) {
 std::string render_html(const record::Record& record, const Summary& s, Units u, Page page) {
   std::string html =
       "<!doctype html>\n<html lang=\"en\"><head><meta charset=\"utf-8\">\n<title>Handover — " +
-      escape(record.casualty) + "</title>\n<style>\n@page{size:" +
+      html_escape(record.casualty) + "</title>\n<style>\n@page{size:" +
       (page == Page::A4 ? "A4" : "A5") +
       ";margin:10mm}\nbody{font-family:'DejaVu Sans','Liberation Sans',Arial,sans-serif;"
       "font-size:" + (page == Page::A4 ? "10pt" : "8.5pt") +
@@ -273,12 +260,12 @@ std::string render_html(const record::Record& record, const Summary& s, Units u,
       "td:first-child{white-space:nowrap;font-variant-numeric:tabular-nums}\n"
       "ul.cautions{font-size:.9em;padding-left:1.2em}\n</style></head><body>\n";
   html += "<h1>Casualty handover</h1>\n<p class=\"summary\" data-summary>" +
-          escape(summary_text(record, s, u)) + "</p>\n";
+          html_escape(summary_text(record, s, u)) + "</p>\n";
   html += "<h2>Record (" + std::to_string(s.entries) + " entries)</h2>\n<table data-record>\n"
           "<tr><th>Time</th><th>Entry</th><th>Altitude</th><th>Findings</th><th>Note</th></tr>\n";
   for (const Entry& e : record.entries) html += entry_row(e, u);
   html += "</table>\n<h2>Cautions</h2>\n<ul class=\"cautions\">\n";
-  for (std::string_view c : cautions::full_text) html += "<li>" + escape(c) + "</li>\n";
+  for (std::string_view c : cautions::full_text) html += "<li>" + html_escape(c) + "</li>\n";
   html += "</ul>\n</body></html>\n";
   return html;
 }

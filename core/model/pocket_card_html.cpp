@@ -8,24 +8,11 @@
 
 #include "model/atmosphere.hpp"
 #include "model/cautions.hpp"
+#include "model/html_text.hpp"
 #include "model/pocket_card.hpp"
 
 namespace firn::pocket_card {
 namespace {
-
-std::string escape(std::string_view text) {
-  std::string out;
-  for (char c : text) {
-    switch (c) {
-      case '&': out += "&amp;"; break;
-      case '<': out += "&lt;"; break;
-      case '>': out += "&gt;"; break;
-      case '"': out += "&quot;"; break;
-      default: out += c;
-    }
-  }
-  return out;
-}
 
 // What one side holds. Checked by tests/cli/card_pdf.test.mjs: the PDF has exactly one page per
 // section for the demo profile and for the largest profile the schema allows.
@@ -126,7 +113,7 @@ std::string table_html(const Table& t, const std::vector<size_t>& rows, const st
                        const std::vector<std::string>& headers = {}) {
   std::string html = "<table data-table=\"" + t.id + "\">\n<tr>";
   for (size_t i = 0; i < cols.size(); ++i) {
-    html += "<th>" + escape(headers.empty() ? t.header[cols[i]] : headers[i]) + "</th>";
+    html += "<th>" + html_escape(headers.empty() ? t.header[cols[i]] : headers[i]) + "</th>";
   }
   html += "</tr>\n";
   for (size_t r : rows) {
@@ -136,7 +123,7 @@ std::string table_html(const Table& t, const std::vector<size_t>& rows, const st
       const char* cls = c == cols.front() ? (has_long_word(cell) ? " class=\"long\"" : "")
                         : is_extrapolated(cell) ? " class=\"ext\""
                                                  : is_words(cell)       ? " class=\"note\"" : "";
-      html += std::string("<td") + cls + ">" + escape(cell) + "</td>";
+      html += std::string("<td") + cls + ">" + html_escape(cell) + "</td>";
     }
     html += "</tr>\n";
   }
@@ -154,21 +141,21 @@ std::string two_blocks(const Table& t, const std::vector<size_t>& rows, const st
 
 std::string footnotes_html(const std::vector<std::string>& notes) {
   std::string html;
-  for (const std::string& note : notes) html += "<p class=\"small\">" + escape(note) + "</p>\n";
+  for (const std::string& note : notes) html += "<p class=\"small\">" + html_escape(note) + "</p>\n";
   return html;
 }
 
-std::string title_html(const std::string& title) { return "<h2>" + escape(title) + "</h2>\n"; }
+std::string title_html(const std::string& title) { return "<h2>" + html_escape(title) + "</h2>\n"; }
 
 std::string cautions_html() {
   std::string html = "<ul class=\"small\">";
-  for (std::string_view c : cautions::full_text) html += "<li>" + escape(c) + "</li>";
+  for (std::string_view c : cautions::full_text) html += "<li>" + html_escape(c) + "</li>";
   return html + "</ul>\n";
 }
 
 // Team name (cut with an ellipsis when long: it is in full on the reference sheet) and DEMO.
 std::string top_line(const Card& card) {
-  std::string html = "<div class=\"top\"><span class=\"name\">" + escape(card.profile.team_name) + "</span>";
+  std::string html = "<div class=\"top\"><span class=\"name\">" + html_escape(card.profile.team_name) + "</span>";
   if (card.profile.demo) html += "<span class=\"demo\">DEMO DATA</span>";
   return html + "</div>\n";
 }
@@ -222,7 +209,7 @@ std::vector<std::string> with_note(std::vector<std::string> notes, const std::st
 }
 
 std::string definitions(const Card& card) {
-  return "<p class=\"def\">" + escape(card.exposure_definitions) + "</p>\n";
+  return "<p class=\"def\">" + html_escape(card.exposure_definitions) + "</p>\n";
 }
 
 // A6 side 1: expected SpO2 (with PB and PiO2), the definitions, its notes.
@@ -278,7 +265,7 @@ std::vector<std::string> wallet_pages(const Card& card) {
   std::string unit = air.header[0].substr(air.header[0].find(' ') + 1);
   std::string side1 = title_html("Expected SpO2 % on air, at rest") +
                       two_blocks(air, rows, {0, 4, 5}, {"Alt " + unit, "Acute", "Acclim."}) +
-                      "<p class=\"def\">" + escape(card.exposure_definitions_short) + "</p>\n" +
+                      "<p class=\"def\">" + html_escape(card.exposure_definitions_short) + "</p>\n" +
                       footnotes_html(air.pocket_notes);
   std::string side2 = bag_block(card, l.bag_rows);
   std::string side3 = top_line(card) + cylinder_block(card, l, l.lines);
@@ -290,11 +277,11 @@ std::vector<std::string> reference_pages(const Card& card) {
   Layout l = layout_for(Size::Reference);
   const auto& p = card.profile;
   std::string intro = "<h1>Team reference sheet</h1>\n" + top_line(card) + "<p>" +
-                      escape(identity(card)) + "</p>\n";
-  for (const std::string& a : card.assumptions) intro += "<p>" + escape(a) + "</p>\n";
+                      html_escape(identity(card)) + "</p>\n";
+  for (const std::string& a : card.assumptions) intro += "<p>" + html_escape(a) + "</p>\n";
   if (!p.card.notes.empty()) {
     intro += "<ul>";
-    for (const std::string& n : p.card.notes) intro += "<li>" + escape(n) + "</li>";
+    for (const std::string& n : p.card.notes) intro += "<li>" + html_escape(n) + "</li>";
     intro += "</ul>\n";
   }
   const Table& air = table(card, "altitude");
@@ -347,7 +334,7 @@ std::string render_html(const Card& card, Size size) {
       "<meta name=\"viewport\" content=\"width=device-width,initial-scale=1\">\n"
       "<meta name=\"firn-card-size\" content=\"" + std::string(size_key(size)) + "\">\n"
       "<meta name=\"firn-card-pages\" content=\"" + std::to_string(pages.size()) + "\">\n"
-      "<title>Firn " + kind + " \xE2\x80\x93 " + escape(card.profile.team_name) + "</title>\n"
+      "<title>Firn " + kind + " \xE2\x80\x93 " + html_escape(card.profile.team_name) + "</title>\n"
       "<style>\n" + css(l) + "</style>\n</head>\n<body>\n"
       "<p class=\"hint\">" + paper_hint(size) + "; black and white is fine.</p>\n";
   for (size_t i = 0; i < pages.size(); ++i) {
@@ -357,8 +344,8 @@ std::string render_html(const Card& card, Size size) {
     std::string where = std::string(size == Size::Reference ? "page " : "side ") +
                         std::to_string(i + 1) + "/" + std::to_string(pages.size());
     html += "<section class=\"page\">\n" + pages[i] + "<p class=\"foot\">" +
-            (caution_line ? escape(cautions::short_line) + " \xC2\xB7 " : std::string()) +
-            "<span class=\"nw\">" + escape(identity(card)) + " \xC2\xB7 " + where + "</span></p>\n</section>\n";
+            (caution_line ? html_escape(cautions::short_line) + " \xC2\xB7 " : std::string()) +
+            "<span class=\"nw\">" + html_escape(identity(card)) + " \xC2\xB7 " + where + "</span></p>\n</section>\n";
   }
   html += "</body>\n</html>\n";
   return html;

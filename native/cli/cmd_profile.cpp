@@ -8,6 +8,7 @@
 #include <sstream>
 
 #include "cli/cli.hpp"
+#include "cli/files.hpp"
 #include "model/atmosphere.hpp"
 #include "model/cautions.hpp"
 #include "model/evacuation_plan.hpp"
@@ -23,35 +24,13 @@ namespace card = firn::pocket_card;
 
 constexpr std::uintmax_t max_profile_bytes = 1 << 20;  // a profile is a few kB
 
-Result<std::string> read_text_file(const std::string& path) {
-  std::error_code ec;
-  std::uintmax_t size = std::filesystem::file_size(path, ec);
-  if (ec) return Error{"cannot read profile '" + path + "': " + ec.message()};
-  if (size > max_profile_bytes) {
-    return Error{"profile '" + path + "' is " + std::to_string(size) +
-                 " bytes: a team profile is at most 1 MB"};
-  }
-  std::ifstream in(path, std::ios::binary);
-  if (!in) return Error{"cannot read profile '" + path + "'"};
-  std::stringstream buffer;
-  buffer << in.rdbuf();
-  return buffer.str();
-}
-
 Result<tp::TeamProfile> load_profile(const std::optional<std::string>& path) {
   if (!path) return Error{"--profile is required: a team profile JSON file (firn profile --demo prints one)"};
-  Result<std::string> text = read_text_file(*path);
+  Result<std::string> text = read_document(*path, "profile", max_profile_bytes);
   if (!text) return text.error();
   Result<tp::TeamProfile> profile = tp::parse_profile(text.value());
   if (!profile) return Error{*path + ": " + profile.error().message};
   return profile;
-}
-
-Result<bool> write_text_file(const std::filesystem::path& path, const std::string& text) {
-  std::ofstream out(path, std::ios::binary | std::ios::trunc);
-  if (out) out << text;
-  if (!out) return Error{"cannot write '" + path.string() + "'"};
-  return true;
 }
 
 // [SECTION] firn plan
@@ -223,7 +202,7 @@ Result<Report> run_card(const CardOptions& o) {
   if (!looks_like_date(date)) return Error{"--date: '" + date + "' must be YYYY-MM-DD"};
 
   card::Card built = card::build_card(profile.value(), date);
-  Result<bool> written = write_text_file(*o.out, card::render_html(built, size));
+  Result<bool> written = write_document(*o.out, card::render_html(built, size));
   if (!written) return Error{"--out: " + written.error().message};
   Report report;
   report.add_text("html", *o.out, "Card");
@@ -237,7 +216,7 @@ Result<Report> run_card(const CardOptions& o) {
     if (ec) return Error{"--csv: cannot create directory '" + *o.csv + "': " + ec.message()};
     for (const card::Table& table : built.tables) {
       std::filesystem::path path = std::filesystem::path(*o.csv) / (table.id + ".csv");
-      Result<bool> ok = write_text_file(path, card::table_csv(table));
+      Result<bool> ok = write_document(path, card::table_csv(table));
       if (!ok) return Error{"--csv: " + ok.error().message};
       csv_files.push_back(path.string());
       report.rows.emplace_back("CSV", path.string());
@@ -269,7 +248,7 @@ Result<Report> run_profile(const ProfileOptions& o) {
     }
     return report;
   }
-  Result<std::string> text = read_text_file(*o.check);
+  Result<std::string> text = read_document(*o.check, "profile", max_profile_bytes);
   if (!text) return text.error();
   tp::Problems problems = tp::check_profile(text.value());
   if (!problems.empty()) {

@@ -8,6 +8,7 @@
 #include <sstream>
 
 #include "cli/cli.hpp"
+#include "cli/files.hpp"
 #include "model/cautions.hpp"
 #include "model/route_file.hpp"
 #include "model/route_plan.hpp"
@@ -20,20 +21,6 @@ using namespace units;
 namespace tp = firn::team_profile;
 
 constexpr std::uintmax_t kMaxFileBytes = 1 << 20;  // a route or profile is a few kB
-
-Result<std::string> read_file(const std::string& path, const std::string& what) {
-  std::error_code ec;
-  std::uintmax_t size = std::filesystem::file_size(path, ec);
-  if (ec) return Error{"cannot read " + what + " '" + path + "': " + ec.message()};
-  if (size > kMaxFileBytes) {
-    return Error{what + " '" + path + "' is " + std::to_string(size) + " bytes: at most 1 MB"};
-  }
-  std::ifstream in(path, std::ios::binary);
-  std::stringstream buffer;
-  buffer << in.rdbuf();
-  if (!in) return Error{"cannot read " + what + " '" + path + "'"};
-  return buffer.str();
-}
 
 struct RouteOptions {
   std::optional<std::string> file, profile;
@@ -156,13 +143,13 @@ Result<Report> run_route(const RouteOptions& o) {
   if (!o.file) return Error{"--file is required: a route file (docs/route-plan.md, e.g. assets/demo-route.json)"};
   tp::TeamProfile profile = tp::demo_profile();
   if (o.profile) {
-    Result<std::string> text = read_file(*o.profile, "profile");
+    Result<std::string> text = read_document(*o.profile, "profile", kMaxFileBytes);
     if (!text) return text.error();
     Result<tp::TeamProfile> parsed = tp::parse_profile(text.value());
     if (!parsed) return Error{*o.profile + ": " + parsed.error().message};
     profile = parsed.value();
   }
-  Result<std::string> text = read_file(*o.file, "route file");
+  Result<std::string> text = read_document(*o.file, "route file", kMaxFileBytes);
   if (!text) return text.error();
   Result<route::RouteInput> in = route::read_route_file(text.value(), profile);
   if (!in) return Error{*o.file + ": " + in.error().message};
