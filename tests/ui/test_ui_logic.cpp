@@ -309,6 +309,8 @@ TEST_CASE("Casualty: the HAPE/HACE checklist counts the Lake Louise consensus cr
   CHECK(has(verdicts(), "HAPE criteria not met (2 of 2 symptoms, 1 of 2 signs)"));
   ui.click(state, "Central cyanosis");
   CHECK(has(verdicts(), "DANGER: Meets the criteria for HAPE"));
+}
+
 // [Issue 12] Drag vs tap, empty-until-entered, malformed numbers, tenfold changes, verdicts.
 
 namespace {
