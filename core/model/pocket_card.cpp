@@ -231,16 +231,13 @@ Table bag_table(const Card& card) {
   std::string pump = format_number(p.bag.pump_stroke_volume.in(litres), 2) + " L pump";
   bag.footnotes.push_back("Flush: at least the L/min of fresh air shown (" + pump +
                           ": strokes/min) keeps CO2 below " + limit +
-                          " and the oxygen inside no worse than outside, for a resting casualty "
-                          "(VCO2 0.20, VO2 0.25 L/min, assumed). Less flush: flush more, no descent.");
-  bag.footnotes.push_back("Equiv. alt at that flush: by the pressure or the oxygen inside, whichever "
-                          "gives less descent (" + model + " both ways). Oxygen fed in above 23.5 % "
-                          "inside: fire risk (mask inside, exhaled gas vented out). Reassess every 1" +
-                          dash + "2 h; the bag buys time for descent.");
-  bag.pocket_notes = {"Flush at least as shown (" + pump + "): CO2 < " + limit +
-                          " and O2 inside no worse than outside, resting casualty. Less: flush more.",
-                      "Equiv. alt at that flush, the lesser descent of pressure and oxygen (" +
-                          model + "). Reassess every 1" + dash + "2 h; the bag buys time for descent."};
+                          " and O2 inside no worse than outside, resting casualty (assumed). Less: "
+                          "flush more, no descent.");
+  bag.footnotes.push_back("Equiv. alt at that flush: the lesser descent of pressure and O2 (" + model +
+                          "). O2 fed in: fire risk above 23.5 %. Reassess every 1" + dash +
+                          "2 h; the bag buys time for descent.");
+  bag.pocket_notes = {"Flush at least as shown (" + pump + "): CO2 < " + limit + ", O2 as outside.",
+                      "Equiv. alt (" + model + "): lesser descent of pressure and O2. Reassess 1" + dash + "2 h."};
   return bag;
 }
 

@@ -160,10 +160,15 @@ test('card: HTML and CSV whose figures match the single-purpose commands', () =>
   const acc = firnJson(['oxygenation', '--altitude', '4000m', '--acclimatised']);
   assert.equal(at4000[5], `${Math.round(acc.spo2_expected_low_pct)}–${Math.round(acc.spo2_expected_high_pct)}`);
   const bag = rows('bag.csv').find((r) => r[0] === '4250');
-  const bagCli = firnJson(['bag', '--altitude', '4250m', '--gauge', '2psi']);
+  // The card's bag row: the flush the verdict needs (rounded up) and the limiting equivalent
+  // altitude at that flush, as `firn bag --flush`.
+  const needs = firnJson(['bag', '--altitude', '4250m', '--gauge', '2psi']);
+  const flush = Math.ceil(needs.required_flush_lpm - 0.05);
+  const bagCli = firnJson(['bag', '--altitude', '4250m', '--gauge', '2psi', '--flush', `${flush}`]);
+  assert.equal(bagCli.verdict, 'ok');
   assert.equal(Number(bag[1]), Math.round(bagCli.inside_pressure_hpa));
   assert.ok(Math.abs(Number(bag[2]) - bagCli.equivalent_altitude_m) <= 5);
-  assert.equal(Number(bag[3]), Math.ceil(bagCli.min_flush_lpm - 0.05));
+  assert.equal(Number(bag[3]), flush);
   const cyl = rows('cylinders.csv');
   assert.deepEqual(cyl[0], ['Cylinder', 'Gauge bar', '2 L/min', '4 L/min', '6 L/min', '10 L/min', '15 L/min']);
   for (const [row, pressure] of [[1, '200bar'], [2, '100bar']]) {

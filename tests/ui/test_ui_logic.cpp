@@ -228,6 +228,7 @@ TEST_CASE("Casualty: the SpO2 field starts empty, no verdict until a value is ty
   ui.panel = draw_casualty_panel;
   AppState state;
   state.situation.altitude = units::metres(5200);
+  state.situation.altitude_entered = true;
   state.situation.time_at_altitude = units::days(2);
   CHECK(ui.text(state, "Measured SpO2") == "not entered");
   CHECK(ui.text(state, "Verdict").rfind("NO VERDICT", 0) == 0);

@@ -214,7 +214,10 @@ TEST_CASE("oxygen feed: the pressure limits, and above 23.5 % O2 a fire caution"
   CHECK(r.gas->o2.in(percent) > 23.5);
   CHECK(r.limited_by == Limit::Pressure);
   CHECK(*r.equivalent_altitude == *r.pressure_equivalent_altitude);
-  CHECK(*r.oxygen_equivalent_altitude < *r.pressure_equivalent_altitude);
+  // PiO2 inside (~150.6 mmHg) beats sea-level air (0.2095 × (759.5 − 47) = 149.3 mmHg): no
+  // altitude of ambient air matches it, so the oxygen figure is absent and cannot limit.
+  CHECK(r.pio2_inside.in(mmhg) > 0.2095 * (759.5 - 47.0));
+  CHECK_FALSE(r.oxygen_equivalent_altitude.has_value());
   CHECK(r.fire_risk);
   // NFPA 99 (Health Care Facilities Code): oxygen-enriched atmosphere above 23.5 % by volume.
   CHECK_THAT(fire_caution_text(r), Catch::Contains("above 23.5 %") && Catch::Contains("NFPA 99") &&
