@@ -13,9 +13,6 @@ using namespace units;
 constexpr std::string_view kClinicalFirst =
     "Clinical signs first: breathlessness at rest, cough, confusion or ataxia matter more than "
     "the number.";
-constexpr std::string_view kUnreliable =
-    "Oximeter readings below 80 % carry several points of error (Luks & Swenson 2011): re-measure "
-    "on a warm finger with a steady trace.";
 constexpr std::string_view kCritical =
     "SpO2 below 65 %: severe hypoxaemia (Tannheimer 2002). Oxygen now, descend, treat as HAPE or "
     "HACE until shown otherwise.";
@@ -122,7 +119,7 @@ Result<Assessment> assess(Fraction measured, const Band& band, bool extrapolated
     case Position::Above: a.cautions.push_back(kAbove); break;
     case Position::Extrapolated: a.cautions.push_back(kNoVerdict); break;
   }
-  if (a.oximeter_unreliable) a.cautions.push_back(kUnreliable);
+  if (a.oximeter_unreliable) a.cautions.push_back(kOximeterUnreliable);
   a.cautions.push_back(kCarbonMonoxide);
   a.cautions.push_back(kBand);
   a.cautions.push_back(cautions::short_line);

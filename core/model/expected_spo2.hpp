@@ -100,6 +100,10 @@ inline constexpr std::string_view kWhyExtrapolated =
     "Outside the altitudes the calibration data cover (3,000–5,000 m on air): the band is "
     "extrapolated, so a reading inside or above it is not a reassurance.";
 // Beside every SpO2 result.
+// Shown beside every reading below kOximeterUnreliableBelowPercent.
+inline constexpr std::string_view kOximeterUnreliable =
+    "Oximeter readings below 80 % carry several points of error (Luks & Swenson 2011): re-measure "
+    "on a warm finger with a steady trace.";
 inline constexpr std::string_view kCarbonMonoxide =
     "Carbon monoxide (stoves in tents or snow holes) makes a pulse oximeter read falsely normal: "
     "a normal SpO2 does not rule out CO poisoning (two-wavelength oximeters count "

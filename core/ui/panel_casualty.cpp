@@ -140,7 +140,11 @@ void why_section(AppState& state, const casualty_spo2::Verdict& v) {
   if (!state.casualty_why_open) return;
   for (std::string_view w : v.assessment.why) bullet_line(w);
   for (std::string_view c : v.assessment.cautions) {
-    if (c != cautions::short_line) bullet_line(c);  // the short line is shown once, above
+    // The short line, the oximeter and the CO cautions are shown once, above.
+    if (c != cautions::short_line && c != expected_spo2::kOximeterUnreliable &&
+        c != expected_spo2::kCarbonMonoxide) {
+      bullet_line(c);
+    }
   }
 }
 
@@ -196,6 +200,9 @@ bool draw_verdict(AppState& state) {
                v->headline + " (" + percent_text(s.spo2) + " vs " + band_text(v->band) + ")");
   result_value(state, "What to do", v->action);
   if (!s.on_oxygen && v->assessment.hape_suspected) start_flow_line(state);
+  if (v->assessment.oximeter_unreliable) {
+    message_line(state, std::string(expected_spo2::kOximeterUnreliable), true);
+  }
   message_line(state, std::string(expected_spo2::kCarbonMonoxide), true);
   caution_line(state);
   why_section(state, v.value());

@@ -149,7 +149,7 @@ test('a bad file is refused whole: field, value and range named; nothing changes
   await importFile(page, 'bad.json', JSON.stringify(bad));
   const message = await waitForText(page, 'Team message', (t) => /not imported/.test(t));
   // Every problem, each with its field path (docs/team-profile.md "Problems").
-  assert.match(message, /reserve_pressure: reserve pressure needs a unit: .*bar/);
+  assert.match(message, /reserve_pressure: reserve pressure needs a gauge unit: .*bar/);
   assert.match(message, /bag\.co2_limit: 9 % is outside 0\.2…3 %/);
   assert.equal((await item(page, 'Team name')).text, 'Round Trip Test Team');
   assert.equal(await stored(page, PROFILE_KEY), before, 'storage untouched');
