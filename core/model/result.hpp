@@ -8,16 +8,8 @@
 #include <utility>
 #include <variant>
 
-// FIRN_ASSERT: aborts with a message by default; with FIRN_ASSERT_THROWS defined (native test
-// builds only) it throws std::logic_error so tests can check that contracts are enforced.
-// No exception ever crosses into the web build: it is compiled without FIRN_ASSERT_THROWS.
-#ifdef FIRN_ASSERT_THROWS
-#include <stdexcept>
-#define FIRN_ASSERT(cond, msg)                                                   \
-  do {                                                                           \
-    if (!(cond)) throw std::logic_error(std::string("firn assert: ") + (msg));   \
-  } while (0)
-#else
+// FIRN_ASSERT: a broken invariant aborts with a message, in the app, the tests (Catch2 reports
+// the SIGABRT as a failure) and the fuzz targets (a crash) alike.
 #include <cstdio>
 #include <cstdlib>
 #define FIRN_ASSERT(cond, msg)                                                   \
@@ -27,7 +19,6 @@
       std::abort();                                                              \
     }                                                                            \
   } while (0)
-#endif
 
 namespace firn {
 

@@ -92,24 +92,31 @@ namespace {
 
 struct ScreenInfo {
   Screen screen;
-  const char* nav_label;
   void (*draw)(AppState&, Platform&);
   Screen companion;  // shown beside it on a wide screen (itself: full width)
+  const char* nav_label() const { return screen_name(screen).label; }
 };
 
 constexpr ScreenInfo kScreens[kScreenCount] = {
-    {Screen::Here, "Here", draw_here_panel, Screen::Casualty},
-    {Screen::Casualty, "Casualty", draw_casualty_panel, Screen::Curve},
-    {Screen::Curve, "Curve", draw_curve_panel, Screen::Casualty},
-    {Screen::Bag, "Bag", draw_bag_panel, Screen::Here},
-    {Screen::Oxygen, "Oxygen", draw_oxygen_panel, Screen::Casualty},
-    {Screen::Route, "Route", draw_route_panel, Screen::Route},
-    {Screen::Ams, "AMS", draw_ams_panel, Screen::Casualty},
-    {Screen::Record, "Record", draw_record_panel, Screen::Casualty},
-    {Screen::Teaching, "Teaching", draw_teaching_panel, Screen::Teaching},
-    {Screen::Team, "Team", draw_team_panel, Screen::Team},
-    {Screen::Settings, "Settings", draw_settings_panel, Screen::Here},
+    {Screen::Here, draw_here_panel, Screen::Casualty},
+    {Screen::Casualty, draw_casualty_panel, Screen::Curve},
+    {Screen::Curve, draw_curve_panel, Screen::Casualty},
+    {Screen::Bag, draw_bag_panel, Screen::Here},
+    {Screen::Oxygen, draw_oxygen_panel, Screen::Casualty},
+    {Screen::Route, draw_route_panel, Screen::Route},
+    {Screen::Ams, draw_ams_panel, Screen::Casualty},
+    {Screen::Record, draw_record_panel, Screen::Casualty},
+    {Screen::Teaching, draw_teaching_panel, Screen::Teaching},
+    {Screen::Team, draw_team_panel, Screen::Team},
+    {Screen::Settings, draw_settings_panel, Screen::Here},
 };
+
+static_assert([] {
+  for (int i = 0; i < kScreenCount; ++i) {
+    if (static_cast<int>(kScreens[i].screen) != i) return false;
+  }
+  return true;
+}(), "kScreens follows the order of Screen");
 
 const ScreenInfo& info(Screen screen) { return kScreens[static_cast<int>(screen)]; }
 
@@ -120,7 +127,7 @@ float nav_rows(float width) {
   const ImGuiStyle& style = ImGui::GetStyle();
   float button = (width - 2 * style.WindowPadding.x - style.ItemSpacing.x * (kScreenCount - 1)) / kScreenCount;
   for (const ScreenInfo& screen : kScreens) {
-    float needed = ImGui::CalcTextSize(screen.nav_label).x + 0.2f * em();  // the bar's padding
+    float needed = ImGui::CalcTextSize(screen.nav_label()).x + 0.2f * em();  // the bar's padding
     if (0.8f * needed > button) return 2;
   }
   return 1;
@@ -144,7 +151,7 @@ void draw_nav_bar(AppState& state, float width) {
   // One label size for the whole bar, the size at which the longest label fits.
   float scale = 1.0f;
   for (int i = 0; i < kScreenCount; ++i) {
-    scale = std::min(scale, label_fit_scale(kScreens[i].nav_label, button_width));
+    scale = std::min(scale, label_fit_scale(kScreens[i].nav_label(), button_width));
   }
   if (scale < 1.0f) ImGui::SetWindowFontScale(scale);
   for (int i = 0; i < kScreenCount; ++i) {
@@ -155,14 +162,14 @@ void draw_nav_bar(AppState& state, float width) {
     if (active) ImGui::PushStyleColor(ImGuiCol_Button, ImGui::GetStyleColorVec4(ImGuiCol_Header));
     if (current) ImGui::PushStyleColor(ImGuiCol_Border, ImGui::GetStyleColorVec4(ImGuiCol_CheckMark));
     if (current) ImGui::PushStyleVar(ImGuiStyleVar_FrameBorderSize, 2.0f * state.pixel_ratio);
-    if (tap_button(kScreens[i].nav_label, ImVec2(button_width, row))) {
+    if (tap_button(kScreens[i].nav_label(), ImVec2(button_width, row))) {
       state.screen = kScreens[i].screen;
       ImGui::SetScrollY(0.0f);
     }
     if (current) ImGui::PopStyleVar();
     if (current) ImGui::PopStyleColor();
     if (active) ImGui::PopStyleColor();
-    test_hook::item_text(kScreens[i].nav_label, current ? "selected" : "");
+    test_hook::item_text(kScreens[i].nav_label(), current ? "selected" : "");
   }
   if (scale < 1.0f) ImGui::SetWindowFontScale(1.0f);
   ImGui::PopStyleVar();

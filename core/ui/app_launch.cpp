@@ -7,19 +7,11 @@
 namespace firn::ui {
 namespace {
 
-constexpr std::array<std::pair<std::string_view, Screen>, kScreenCount> kScreens{{
-    {"here", Screen::Here},
-    {"casualty", Screen::Casualty},
-    {"curve", Screen::Curve},
-    {"bag", Screen::Bag},
-    {"oxygen", Screen::Oxygen},
-    {"route", Screen::Route},
-    {"ams", Screen::Ams},
-    {"record", Screen::Record},
-    {"teaching", Screen::Teaching},
-    {"team", Screen::Team},
-    {"settings", Screen::Settings},
-}};
+constexpr auto kScreenKeys = [] {
+  std::array<std::pair<std::string_view, Screen>, kScreenCount> keys{};
+  for (std::size_t i = 0; i < keys.size(); ++i) keys[i] = {kScreenNames[i].key, kScreenNames[i].screen};
+  return keys;
+}();
 
 constexpr std::array<std::pair<std::string_view, Theme>, 3> kThemes{{
     {"day", Theme::Day},
@@ -49,7 +41,7 @@ Result<bool> apply_launch_options(AppState& state, const std::string& screen,
     state.keypad = Keypad{true, "altitude", "Altitude", "\xE2\x88\x92" "500 to 9\xC2\xA0" "000 m", "4250", false, {"m", "ft"}, 0, false, 0,
                           /*allow_negative=*/true, /*allow_decimal=*/false};
   } else if (!screen.empty()) {
-    Result<Screen> s = lookup(kScreens, screen, "screen");
+    Result<Screen> s = lookup(kScreenKeys, screen, "screen");
     if (!s) return s.error();
     state.screen = s.value();
   }

@@ -3,10 +3,12 @@
 // (ui/persistence.hpp); the rest is this run's working state.
 #pragma once
 
+#include <array>
 #include <cstdint>
 #include <map>
 #include <optional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "model/atmosphere.hpp"
@@ -26,6 +28,35 @@ enum class Theme { Day, Night, Projection };
 // Order = order in the navigation bar.
 enum class Screen { Here, Casualty, Curve, Bag, Oxygen, Route, Ams, Record, Teaching, Team, Settings };
 inline constexpr int kScreenCount = 11;
+
+// Each screen's names, once: `key` in saved state, --screen and test scripts; `label` on the bar.
+struct ScreenName {
+  Screen screen;
+  std::string_view key;
+  const char* label;
+};
+inline constexpr std::array<ScreenName, kScreenCount> kScreenNames{{
+    {Screen::Here, "here", "Here"},
+    {Screen::Casualty, "casualty", "Casualty"},
+    {Screen::Curve, "curve", "Curve"},
+    {Screen::Bag, "bag", "Bag"},
+    {Screen::Oxygen, "oxygen", "Oxygen"},
+    {Screen::Route, "route", "Route"},
+    {Screen::Ams, "ams", "AMS"},
+    {Screen::Record, "record", "Record"},
+    {Screen::Teaching, "teaching", "Teaching"},
+    {Screen::Team, "team", "Team"},
+    {Screen::Settings, "settings", "Settings"},
+}};
+constexpr const ScreenName& screen_name(Screen screen) {
+  return kScreenNames[static_cast<std::size_t>(screen)];
+}
+static_assert([] {
+  for (std::size_t i = 0; i < kScreenNames.size(); ++i) {
+    if (static_cast<std::size_t>(kScreenNames[i].screen) != i) return false;
+  }
+  return true;
+}(), "kScreenNames follows the order of Screen");
 
 // Units a user reads and types in. Values are stored as typed quantities (SI inside), so
 // switching units never rounds an entered value away.

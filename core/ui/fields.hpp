@@ -17,6 +17,9 @@
 
 namespace firn::ui {
 
+// The oxygen devices as every choice row names them; the index is supplemental_oxygen::Device's.
+inline constexpr const char* kDeviceLabels[] = {"Cannula", "Mask", "Non-rebreather"};
+
 template <class D>
 struct QuantityField {
   const char* label;

@@ -97,8 +97,7 @@ void draw_who(AppState& state) {
   toggle_row(state, "ventilation", "Breathing at rest", "Breathless (distress)", &s.distress);
   toggle_row(state, "breathing", "Room air", "On oxygen", &s.on_oxygen);
   if (s.on_oxygen) {
-    const char* devices[] = {"Cannula", "Mask", "Non-rebreather"};
-    if (choice_row(state, "device", devices, 3, &s.oxygen_device)) {
+    if (choice_row(state, "device", kDeviceLabels, 3, &s.oxygen_device)) {
       // Keep the flow inside the new device's range rather than showing an error at once.
       o2::FlowRange range = o2::valid_flows(situation_device(state));
       s.oxygen_flow = std::clamp(s.oxygen_flow, range.low, range.high);

@@ -25,8 +25,6 @@ using namespace units;
 using record::ClockTime;
 namespace so = supplemental_oxygen;
 
-constexpr so::Device kDevices[] = {so::Device::NasalCannula, so::Device::SimpleMask,
-                                   so::Device::NonRebreather};
 constexpr const char* kBreathingLabels[] = {"Air", "Cannula", "Mask", "NRB"};
 constexpr const char* kAvpuLabels[] = {"A", "V", "P", "U"};
 // A bag session is commonly 1–2 h, then reassess (common practice, domain brief).
@@ -34,13 +32,13 @@ constexpr double kBagSessionMinutes = 60.0;
 
 record::Breathing drafted_breathing(const RecordInputs& in) {
   if (in.on <= 0) return {std::nullopt, litres_per_minute(0.0)};
-  return {kDevices[in.on - 1], in.flow};
+  return {static_cast<so::Device>(in.on - 1), in.flow};
 }
 
 int breathing_index(const record::Breathing& b) {
   if (b.on_air()) return 0;
   for (int i = 0; i < 3; ++i) {
-    if (kDevices[i] == *b.device) return i + 1;
+    if (static_cast<so::Device>(i) == *b.device) return i + 1;
   }
   return 0;
 }
@@ -132,7 +130,7 @@ void observation_form(AppState& state, Platform& platform, const handover::Summa
   ImGui::TextDisabled("Breathing");
   choice_row(state, "record-on", kBreathingLabels, 4, &in.on);
   if (in.on > 0) {
-    so::FlowRange range = so::valid_flows(kDevices[in.on - 1]);
+    so::FlowRange range = so::valid_flows(static_cast<so::Device>(in.on - 1));
     in.flow = std::clamp(in.flow, range.low, range.high);
     QuantityField<VolumeFlowDimension> f = flow_field("Flow", "record-flow", range.high.in(litres_per_minute));
     f.low = range.low;

@@ -24,7 +24,6 @@ using route::LegKind;
 using route::Limits;
 
 // In supplemental_oxygen::Device order.
-constexpr const char* kDevices[] = {"Cannula", "Mask", "Non-rebreather"};
 
 void load_usual_route(AppState& state) {
   RouteState& r = state.route;
@@ -232,7 +231,7 @@ void draw_route_panel(AppState& state, Platform&) {
   draw_result(state);
   heading("Casualty");
   int device = static_cast<int>(in.casualty.device);
-  if (choice_row(state, "route-device", kDevices, 3, &device)) {
+  if (choice_row(state, "route-device", kDeviceLabels, 3, &device)) {
     in.casualty.device = static_cast<supplemental_oxygen::Device>(device);
     for (Leg& leg : in.legs) leg.fixed_flow.reset();  // a fixed flow belonged to the old device
   }

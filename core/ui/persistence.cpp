@@ -20,8 +20,11 @@ namespace {
 
 constexpr int kFormatVersion = 1;
 
-constexpr std::array<std::string_view, kScreenCount> kScreenKeys{
-    "here", "casualty", "curve", "bag", "oxygen", "route", "ams", "record", "teaching", "team", "settings"};
+constexpr auto kScreenKeys = [] {
+  std::array<std::string_view, kScreenCount> keys{};
+  for (std::size_t i = 0; i < keys.size(); ++i) keys[i] = kScreenNames[i].key;
+  return keys;
+}();
 constexpr std::array<std::string_view, 3> kThemeKeys{"day", "night", "projector"};
 constexpr std::array<std::string_view, 3> kSourceKeys{"altitude", "station", "qnh"};
 constexpr std::array<std::string_view, 2> kAltitudeUnits{"m", "ft"};

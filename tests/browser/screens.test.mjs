@@ -1,5 +1,5 @@
 // Every screen of the page, driven like a medic would: at a phone viewport (390×844 CSS px,
-// device scale 3, touch — taps through page.touchscreen) and a laptop viewport (1366×768,
+// device scale PHONE_DPR, touch — taps through page.touchscreen) and a laptop viewport (1366×768,
 // mouse). Numbers go in through the in-app keypad ("Key 4", "Key OK"… found by label in
 // window.firnTestItems), results are read back from the same items and compared with the CLI
 // (`firn … --json`, same core, other front end) within the shown rounding. Units and themes are
@@ -12,7 +12,7 @@ import {execFileSync} from 'node:child_process';
 import {join} from 'node:path';
 import {after, before, describe, test} from 'node:test';
 
-import {launchBrowser, pause, requiredEnv, screenshotDir, waitForApp} from './browser.mjs';
+import {PHONE_DPR, launchBrowser, pause, requiredEnv, screenshotDir, waitForApp} from './browser.mjs';
 import {serveSite} from './serve.mjs';
 
 const site = requiredEnv('FIRN_SITE', 'the built site folder (build/web/site)');
@@ -245,7 +245,7 @@ class Driver {
   }
 
   // The caution line with "Read more" is reachable (scrolled to) and opens the full text.
-  // On the phone (slow software frames at dpr 3) checked on the longest screens only.
+  // On the phone checked on the longest screens only.
   async cautionReachable(screen) {
     if (this.touch && !['Here', 'Oxygen'].includes(screen)) return;
     await this.tap('Read more');
@@ -257,7 +257,7 @@ class Driver {
 
 const DEVICES = [
   {name: 'phone', touch: true, altitude: 4321, spo2: 72, cylinderBar: 150, celsius: -5,
-   context: {viewport: {width: 390, height: 844}, deviceScaleFactor: 3, isMobile: true,
+   context: {viewport: {width: 390, height: 844}, deviceScaleFactor: PHONE_DPR, isMobile: true,
              hasTouch: true}},
   {name: 'laptop', touch: false, altitude: 3650, spo2: 86, cylinderBar: 180, celsius: 12,
    context: {viewport: {width: 1366, height: 768}, deviceScaleFactor: 1}},
@@ -529,7 +529,9 @@ for (const device of DEVICES) {
       await d.waitText('Day', (t) => t === 'selected');
     });
 
-    test('Idle: no frames drawn in 5 s without input after settling', async () => {
+    // Idle does not depend on the viewport: checked once, on the phone (and in app.test.mjs).
+    test('Idle: no frames drawn in 5 s without input after settling', {skip: !device.touch},
+         async () => {
       await d.screen('Here');
       await pause(1500);  // the settle frames after the last input run out
       const before = await d.page.evaluate(() => window.firnFramesDrawn);

@@ -1,7 +1,6 @@
 // core/ui logic without GL: an ImGui context with no renderer (fonts built, frames begun and
 // ended) drives the keypad field, and the saved-state round trip and garbage handling run
 // against an in-memory platform. Linked to firn_ui; registered as ctest "ui".
-#define CATCH_CONFIG_MAIN
 #include <catch2/catch.hpp>
 #include <imgui.h>
 #include <nlohmann/json.hpp>
