@@ -87,7 +87,7 @@ int run_app(const cli::AppOptions& options) {
   bool idle_measuring = options.idle_seconds > 0.0;
   int exit_code = 0;
   while (!glfwWindowShouldClose(window)) {
-    bool idle = settle <= 0 && !ui::wants_continuous_frames(state) && !capture;
+    bool idle = settle <= 0 && !capture;
     if (idle) {
       if (idle_measuring) {
         if (idle_start == 0.0) {

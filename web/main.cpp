@@ -98,7 +98,7 @@ void draw_one_frame(void* argument) {
   }
 
   publish_frame_info(runner.state.frames_drawn, io.WantTextInput, runner.state.pixel_ratio);
-  if (--runner.settle_frames <= 0 && !ui::wants_continuous_frames(runner.state)) {
+  if (--runner.settle_frames <= 0) {
     runner.paused = true;
     emscripten_pause_main_loop();  // idle: no frames until firn_wake()
     if (runner.state.wake_after_seconds > 0.0) schedule_wake(runner.state.wake_after_seconds);

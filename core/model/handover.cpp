@@ -123,7 +123,7 @@ std::string altitude_text(Length h, Units u) {
 
 std::string gauge_text(Pressure g, Units u) {
   return u == Units::Us ? format_number(g.in(psi), 1) + " psi gauge"
-                        : format_number(g.in(millibar), 0) + " mbar gauge";
+                        : format_number(g.in(hectopascals), 0) + " hPa gauge";
 }
 
 std::string duration_text(std::int64_t minutes) {

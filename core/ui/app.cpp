@@ -81,11 +81,6 @@ void init_app(AppState& state, Platform& platform) {
   apply_theme(state.settings.theme, state.pixel_ratio);
 }
 
-// Nothing in Firn animates by itself (no transitions): frames are drawn only in answer to input,
-// so an idle phone in the cold spends no battery on us. A visible reassessment timer asks for one
-// frame when its minute changes (state.wake_after_seconds), never continuous frames.
-bool wants_continuous_frames(const AppState&) { return false; }
-
 // [SECTION] Frame layout and navigation
 
 namespace {

@@ -20,7 +20,8 @@ bool update_fonts(AppState& state);
 // framebuffer pixels.
 void draw_frame(AppState& state, Platform& platform, float width, float height);
 
-// True while something animates by itself, so the runner must keep drawing without input.
-bool wants_continuous_frames(const AppState& state);
+// Nothing in Firn animates by itself (no transitions): the runners draw only in answer to input,
+// so an idle phone in the cold spends no battery on us. A visible reassessment timer asks for one
+// frame when its minute changes (AppState::wake_after_seconds), never continuous frames.
 
 }  // namespace firn::ui

@@ -68,6 +68,29 @@ struct UnitChoice {
   enum class Temperature { Celsius, Fahrenheit } temperature = Temperature::Celsius;
 };
 
+// The units each choice offers, in the order of its enum: the Settings rows, the saved state,
+// the fields and the figures all read them here.
+template <class D, std::size_t N>
+using UnitList = std::array<const units::Unit<D>*, N>;
+inline constexpr UnitList<units::LengthDimension, 2> kAltitudeUnits{&units::metres, &units::feet};
+inline constexpr UnitList<units::PressureDimension, 4> kPressureUnits{
+    &units::hectopascals, &units::mmhg, &units::kilopascals, &units::inhg};
+inline constexpr std::array<int, 4> kPressureDecimals{1, 1, 2, 2};  // air pressures, as shown
+inline constexpr UnitList<units::PressureDimension, 2> kCylinderUnits{&units::bar, &units::psi};
+inline constexpr UnitList<units::TemperatureDimension, 2> kTemperatureUnits{&units::celsius,
+                                                                            &units::fahrenheit};
+template <class D, std::size_t N, class Choice>
+constexpr const units::Unit<D>& chosen_unit(const UnitList<D, N>& list, Choice choice) {
+  return *list[static_cast<std::size_t>(choice)];
+}
+// The symbols as a choice row's labels ("hPa", "mmHg", …; each symbol is a whole C string).
+template <class D, std::size_t N>
+constexpr std::array<const char*, N> unit_labels(const UnitList<D, N>& list) {
+  std::array<const char*, N> labels{};
+  for (std::size_t i = 0; i < N; ++i) labels[i] = list[i]->symbol.data();
+  return labels;
+}
+
 struct Settings {
   Theme theme = Theme::Day;
   UnitChoice units;
@@ -147,6 +170,8 @@ struct AmsInputs {
 };
 
 struct TeachingInputs {
+  // Sea level to the highest summit (8,848.86 m, the 2020 China–Nepal survey), rounded up.
+  static constexpr double kTopM = 8849.0;
   units::Length altitude = units::metres(4000.0);
 };
 

@@ -4,14 +4,17 @@
 #include <cctype>
 #include <ctime>
 
+#include "model/supplemental_oxygen.hpp"
+#include "ui/situation.hpp"
+
 namespace firn::ui {
 
 using namespace units;
 
 QuantityField<LengthDimension> altitude_field(const AppState& state, const char* label,
                                               const char* id) {
-  int index = state.settings.units.altitude == UnitChoice::Altitude::Feet ? 1 : 0;
-  return {label, id, "altitude", {&metres, &feet}, index, metres(-500), metres(9000),
+  return {label, id, "altitude", {kAltitudeUnits.begin(), kAltitudeUnits.end()},
+          static_cast<int>(state.settings.units.altitude), metres(-500), metres(9000),
           {100.0, 500.0}, 0};
 }
 
@@ -67,22 +70,21 @@ std::string out_of_range_message(const char* what, double low, double high, doub
 
 QuantityField<PressureDimension> air_pressure_field(const AppState& state, const char* label,
                                                     const char* id, Pressure low, Pressure high) {
-  int index = static_cast<int>(state.settings.units.pressure);
-  int decimals = index == 0 ? 1 : index == 1 ? 1 : 2;
-  return {label, id, "pressure", {&hectopascals, &mmhg, &kilopascals, &inhg}, index, low, high,
-          {1.0, 1.0, 0.1, 0.05}, decimals};
+  auto index = static_cast<std::size_t>(state.settings.units.pressure);
+  return {label, id, "pressure", {kPressureUnits.begin(), kPressureUnits.end()},
+          static_cast<int>(index), low, high, {1.0, 1.0, 0.1, 0.05}, kPressureDecimals[index]};
 }
 
 QuantityField<PressureDimension> cylinder_pressure_field(const AppState& state, const char* label,
                                                          const char* id, Pressure high) {
-  int index = state.settings.units.cylinder == UnitChoice::CylinderPressure::Psi ? 1 : 0;
-  return {label, id, "gauge pressure", {&bar, &psi}, index, bar(0), high, {10.0, 100.0}, 0};
+  return {label, id, "gauge pressure", {kCylinderUnits.begin(), kCylinderUnits.end()},
+          static_cast<int>(state.settings.units.cylinder), bar(0), high, {10.0, 100.0}, 0};
 }
 
 QuantityField<TemperatureDimension> temperature_field(const AppState& state, const char* label,
                                                       const char* id, double low_c, double high_c) {
-  int index = state.settings.units.temperature == UnitChoice::Temperature::Fahrenheit ? 1 : 0;
-  return {label, id, "temperature", {&celsius, &fahrenheit}, index, celsius(low_c),
+  return {label, id, "temperature", {kTemperatureUnits.begin(), kTemperatureUnits.end()},
+          static_cast<int>(state.settings.units.temperature), celsius(low_c),
           celsius(high_c), {1.0, 2.0}, 0};
 }
 
@@ -94,6 +96,14 @@ QuantityField<FractionDimension> percent_field(const char* label, const char* id
 QuantityField<VolumeFlowDimension> flow_field(const char* label, const char* id, double high_lpm) {
   return {label, id, "flow", {&litres_per_minute}, 0, litres_per_minute(0.0),
           litres_per_minute(high_lpm), {0.5}, 1};
+}
+
+QuantityField<VolumeFlowDimension> casualty_flow_field(const AppState& state, const char* label,
+                                                       const char* id) {
+  supplemental_oxygen::FlowRange range = supplemental_oxygen::valid_flows(situation_device(state));
+  QuantityField<VolumeFlowDimension> f = flow_field(label, id, range.high.in(litres_per_minute));
+  f.low = range.low;
+  return f;
 }
 
 QuantityField<DurationDimension> duration_field(const char* label, const char* id, double low_min,

@@ -149,6 +149,10 @@ QuantityField<units::FractionDimension> percent_field(const char* label, const c
                                                       const char* what, double low, double high);
 QuantityField<units::VolumeFlowDimension> flow_field(const char* label, const char* id,
                                                      double high_lpm);
+// The casualty's oxygen flow, within the chosen device's range: the Casualty screen and the
+// Oxygen screen (while the casualty is on oxygen) edit this one value.
+QuantityField<units::VolumeFlowDimension> casualty_flow_field(const AppState& state,
+                                                              const char* label, const char* id);
 QuantityField<units::DurationDimension> duration_field(const char* label, const char* id,
                                                        double low_min, double high_min);
 QuantityField<units::VolumeDimension> volume_field(const char* label, const char* id,

@@ -10,42 +10,13 @@ namespace firn::ui {
 
 using namespace units;
 
-std::string_view altitude_unit_symbol(const UnitChoice& u) {
-  return u.altitude == UnitChoice::Altitude::Feet ? feet.symbol : metres.symbol;
-}
-
-std::string_view pressure_unit_symbol(const UnitChoice& u) {
-  switch (u.pressure) {
-    case UnitChoice::Pressure::Millimetres: return mmhg.symbol;
-    case UnitChoice::Pressure::Kilopascals: return kilopascals.symbol;
-    case UnitChoice::Pressure::InchesHg: return inhg.symbol;
-    case UnitChoice::Pressure::Hectopascals: break;
-  }
-  return hectopascals.symbol;
-}
-
-std::string altitude_text(Length altitude, const UnitChoice& u) {
-  double value = u.altitude == UnitChoice::Altitude::Feet ? altitude.in(feet) : altitude.in(metres);
-  // Up to 2 decimals so a value typed in the other unit survives the round trip on screen.
-  return format_number(value, 2);
-}
-
 std::string altitude_with_unit(Length altitude, const UnitChoice& u) {
-  double value = u.altitude == UnitChoice::Altitude::Feet ? altitude.in(feet) : altitude.in(metres);
-  return shown_number(value, 0) + " " + std::string(altitude_unit_symbol(u));
+  return quantity_text(altitude, chosen_unit(kAltitudeUnits, u.altitude), 0);
 }
 
 std::string pressure_text(Pressure pressure, const UnitChoice& u) {
-  switch (u.pressure) {
-    case UnitChoice::Pressure::Millimetres:
-      return shown_number(pressure.in(mmhg), 1) + " mmHg";
-    case UnitChoice::Pressure::Kilopascals:
-      return shown_number(pressure.in(kilopascals), 2) + " kPa";
-    case UnitChoice::Pressure::InchesHg:
-      return shown_number(pressure.in(inhg), 2) + " inHg";
-    case UnitChoice::Pressure::Hectopascals: break;
-  }
-  return shown_number(pressure.in(hectopascals), 1) + " hPa";
+  return quantity_text(pressure, chosen_unit(kPressureUnits, u.pressure),
+                       kPressureDecimals[static_cast<std::size_t>(u.pressure)]);
 }
 
 std::string grouped_number(double value, int decimals) {
@@ -95,20 +66,18 @@ namespace firn::ui {
 using namespace units;
 
 std::string cylinder_pressure_text(Pressure gauge, const UnitChoice& u) {
-  if (u.cylinder == UnitChoice::CylinderPressure::Psi) return shown_number(gauge.in(psi), 0) + " psi";
-  return shown_number(gauge.in(bar), 0) + " bar";
+  return quantity_text(gauge, chosen_unit(kCylinderUnits, u.cylinder), 0);
 }
 
 std::string temperature_text(Temperature t, const UnitChoice& u) {
-  if (u.temperature == UnitChoice::Temperature::Fahrenheit) return shown_number(t.in(fahrenheit), 0) + " \xC2\xB0" "F";
-  return shown_number(t.in(celsius), 0) + " \xC2\xB0" "C";
+  return quantity_text(t, chosen_unit(kTemperatureUnits, u.temperature), 0);
 }
 
-std::string percent_text(Fraction f, int decimals) { return shown_number(f.in(percent), decimals) + " %"; }
+std::string percent_text(Fraction f, int decimals) { return quantity_text(f, percent, decimals); }
 
-std::string flow_text(VolumeFlow flow) { return shown_number(flow.in(litres_per_minute), 1) + " L/min"; }
+std::string flow_text(VolumeFlow flow) { return quantity_text(flow, litres_per_minute, 1); }
 
-std::string volume_text(Volume v) { return shown_number(v.in(litres), 0) + " L"; }
+std::string volume_text(Volume v) { return quantity_text(v, litres, 0); }
 
 std::string duration_text(Duration d) {
   double total = d.in(minutes);

@@ -10,11 +10,15 @@
 
 namespace firn::ui {
 
-std::string_view altitude_unit_symbol(const UnitChoice& units);
-std::string_view pressure_unit_symbol(const UnitChoice& units);
+std::string shown_number(double value, int decimals);  // ui/widgets.hpp
 
-// Number only, in the chosen unit, for editing ("3000", "9842.5").
-std::string altitude_text(units::Length altitude, const UnitChoice& units);
+// The one way a quantity becomes "number unit" text: read out in `unit`, `decimals` shown.
+template <class D>
+std::string quantity_text(units::Quantity<D> q, const units::Unit<D>& unit, int decimals) {
+  std::string text = shown_number(q.in(unit), decimals);
+  return unit.symbol.empty() ? text : text + " " + std::string(unit.symbol);
+}
+
 // With unit, for results ("701.2 hPa", "526.0 mmHg").
 std::string altitude_with_unit(units::Length altitude, const UnitChoice& units);
 std::string pressure_text(units::Pressure pressure, const UnitChoice& units);

@@ -24,10 +24,11 @@ namespace bag = hyperbaric_bag;
 // In the Settings' pressure unit (one name per unit on every screen); psi on the keypad too,
 // since many bags are marked in psi.
 QuantityField<PressureDimension> bag_gauge_field(const AppState& state) {
-  int index = static_cast<int>(state.settings.units.pressure);  // hPa, mmHg, kPa, inHg
-  constexpr int decimals[] = {0, 0, 1, 2};
-  return {"Bag pressure (gauge)", "bag-gauge", "bag gauge pressure",
-          {&hectopascals, &mmhg, &kilopascals, &inhg, &psi}, index, millibar(0),
+  int index = static_cast<int>(state.settings.units.pressure);
+  constexpr int decimals[] = {0, 0, 1, 2};  // a gauge of a few hundred hPa: coarser than air
+  std::vector<const Unit<PressureDimension>*> units(kPressureUnits.begin(), kPressureUnits.end());
+  units.push_back(&psi);
+  return {"Bag pressure (gauge)", "bag-gauge", "bag gauge pressure", units, index, millibar(0),
           millibar(bag::max_gauge_mbar), {10.0, 5.0, 1.0, 0.2, 0.1}, decimals[index]};
 }
 
@@ -43,8 +44,8 @@ std::string gauge_text(Pressure gauge, const UnitChoice& u) {
 
 void draw_ladder(const AppState& state, const bag::BagResult& r) {
   const UnitChoice& u = state.settings.units;
-  bool feet = u.altitude == UnitChoice::Altitude::Feet;
-  const Unit<LengthDimension>& unit = feet ? units::feet : metres;
+  const Unit<LengthDimension>& unit = chosen_unit(kAltitudeUnits, u.altitude);
+  bool feet = &unit == &units::feet;
   double ambient = r.ambient_altitude.in(unit);
   double highest = std::max(ambient, r.equivalent_altitude ? r.equivalent_altitude->in(unit) : 0.0);
   double top = std::max(1000.0, std::ceil((highest + (feet ? 2000 : 600)) / (feet ? 2000 : 500)) * (feet ? 2000 : 500));
@@ -77,7 +78,7 @@ void draw_ladder(const AppState& state, const bag::BagResult& r) {
 // The verdict, then the two equivalent altitudes and the fire caution.
 void draw_verdict(AppState& state, const bag::BagResult& r) {
   const UnitChoice& u = state.settings.units;
-  const Unit<LengthDimension>& unit = u.altitude == UnitChoice::Altitude::Feet ? units::feet : metres;
+  const Unit<LengthDimension>& unit = chosen_unit(kAltitudeUnits, u.altitude);
   bool ok = r.verdict == bag::Verdict::Ok;
   verdict_line(state, ok ? Tone::Good : Tone::Danger, bag::verdict_text(r, unit));
   if (!ok) message_line(state, bag::flush_more_reason(r), true);

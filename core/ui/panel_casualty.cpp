@@ -102,10 +102,7 @@ void draw_who(AppState& state) {
       o2::FlowRange range = o2::valid_flows(situation_device(state));
       s.oxygen_flow = std::clamp(s.oxygen_flow, range.low, range.high);
     }
-    o2::FlowRange range = o2::valid_flows(situation_device(state));
-    QuantityField<VolumeFlowDimension> f = flow_field("Oxygen flow", "o2-flow", range.high.in(litres_per_minute));
-    f.low = range.low;
-    edit_quantity(state, f, s.oxygen_flow);
+    edit_quantity(state, casualty_flow_field(state, "Oxygen flow", "o2-flow"), s.oxygen_flow);
   }
 }
 
@@ -215,8 +212,8 @@ bool draw_verdict(AppState& state) {
 
 void draw_band_plot(const AppState& state, const expected_spo2::Band& here_band) {
   const UnitChoice& u = state.settings.units;
-  bool feet = u.altitude == UnitChoice::Altitude::Feet;
-  const Unit<LengthDimension>& unit = feet ? units::feet : metres;
+  const Unit<LengthDimension>& unit = chosen_unit(kAltitudeUnits, u.altitude);
+  bool feet = &unit == &units::feet;
   Result<Fraction> fio2 = situation_fio2(state);
   std::vector<PlotPoint> low, high;
   for (double m = 0; m <= 7000; m += 250) {

@@ -81,8 +81,8 @@ void draw_latitude_month(AppState& state) {
 void draw_where(AppState& state) {
   using namespace units;
   Situation& s = state.situation;
-  heading("Where: pressure from");
-  const char* sources[] = {"By altitude", "Barometer", "QNH"};
+  heading("How we know the pressure");
+  const char* sources[] = {"Map altitude", "Barometer", "Sea-level report"};
   int source = static_cast<int>(s.source);
   if (choice_row(state, "source", sources, 3, &source)) s.source = static_cast<PressureSource>(source);
 
@@ -92,7 +92,7 @@ void draw_where(AppState& state) {
   if (s.source == PressureSource::Altitude) draw_latitude_month(state);
   if (s.source == PressureSource::Station) {
     edit_quantity(state,
-                  air_pressure_field(state, "Barometer reading (station, not QNH)", "station",
+                  air_pressure_field(state, "Barometer reading here (not sea-level)", "station",
                                      hectopascals(150), hectopascals(1100)),
                   s.station_reading);
     toggle_row(state, "station-altitude", "Altitude unknown", "Altitude known",
@@ -103,10 +103,10 @@ void draw_where(AppState& state) {
     }
   }
   if (s.source == PressureSource::Qnh) {
-    edit_quantity(state, air_pressure_field(state, "QNH (sea-level pressure)", "qnh",
+    edit_quantity(state, air_pressure_field(state, "Sea-level pressure reported (QNH)", "qnh",
                                             hectopascals(900), hectopascals(1100)),
                   s.qnh);
-    toggle_row(state, "qnh-temperature", "Standard lapse", "Air temperature known",
+    toggle_row(state, "qnh-temperature", "Temperature unknown", "Temperature known",
                &s.qnh_temperature_known);
     if (s.qnh_temperature_known) {
       edit_quantity(state, temperature_field(state, "Air temperature here", "air-temperature", -60, 50),
@@ -155,7 +155,7 @@ void draw_pressure(AppState& state) {
                  ? " (" + std::string(atmosphere::latitude_month_model_name()) + ")"
                  : " (" + std::string(atmosphere::model_name(state.settings.model)) + ")";
   } else {
-    label += s.source == PressureSource::Station ? " (barometer)" : " (QNH)";
+    label += s.source == PressureSource::Station ? " (barometer)" : " (sea-level report)";
   }
   if (pb) result_value(state, label.c_str(), pressure_text(pb.value(), u));
   else result_error(state, label.c_str(), pb.error().message);
@@ -174,7 +174,7 @@ void draw_pressure(AppState& state) {
     // The altitude this pressure corresponds to, so a medic can sanity-check the reading.
     Result<Length> altitude = atmosphere::altitude_at(pb ? pb.value() : Pressure{}, state.settings.model);
     std::string text = pb && altitude ? altitude_with_unit(altitude.value(), u) : "\xE2\x80\x94";
-    std::string alt_label = "Pressure altitude (" + std::string(atmosphere::model_name(state.settings.model)) + ")";
+    std::string alt_label = "Matching altitude (" + std::string(atmosphere::model_name(state.settings.model)) + ")";
     result_value(state, alt_label.c_str(), text, false);
   }
   if (s.source == PressureSource::Station && s.station_altitude_known) draw_station_check(state);
@@ -182,7 +182,7 @@ void draw_pressure(AppState& state) {
     Result<atmosphere::QnhWithTemperature> q = atmosphere::qnh_with_temperature(
         s.altitude, s.qnh, s.air_temperature, atmosphere::TemperatureAt::Station);
     if (q) {
-      result_value(state, "QNH by standard lapse", pressure_text(q->standard_lapse, u), false);
+      result_value(state, "Without the temperature", pressure_text(q->standard_lapse, u), false);
       message_line(state, q->note, true);
     }
   }

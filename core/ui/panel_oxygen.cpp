@@ -26,8 +26,8 @@ using namespace units;
 void draw_timeline(const AppState& state, const evacuation::PlanInput& input,
                    const evacuation::EvacuationPlan& plan) {
   const UnitChoice& u = state.settings.units;
-  bool in_psi = u.cylinder == UnitChoice::CylinderPressure::Psi;
-  const Unit<PressureDimension>& unit = in_psi ? psi : bar;
+  const Unit<PressureDimension>& unit = chosen_unit(kCylinderUnits, u.cylinder);
+  bool in_psi = &unit == &psi;
   double end_h = input.evacuation.in(hours);
   if (plan.supply_lasts) end_h = std::max(end_h, std::min(plan.supply_lasts->in(hours), end_h * 2));
   double top = 0.0;
@@ -114,6 +114,12 @@ ChosenCylinder choose_cylinder(AppState& state) {
   return c;
 }
 
+// While the casualty is on oxygen the cylinder feeds that flow (one value, from the Casualty
+// screen); otherwise the flow typed here for planning.
+VolumeFlow cylinder_flow(const AppState& state) {
+  return state.situation.on_oxygen ? state.situation.oxygen_flow : state.oxygen.flow;
+}
+
 // The duration figures: the lower of the real-gas estimate and the field rule leads.
 void show_duration(AppState& state, const cylinder::DurationEstimate& d, const ChosenCylinder& c) {
   OxygenInputs& in = state.oxygen;
@@ -123,7 +129,7 @@ void show_duration(AppState& state, const cylinder::DurationEstimate& d, const C
   }
   std::optional<Duration> rule;
   if (c.letter_size) {
-    Result<Duration> r = cylinder::field_rule_duration(*c.letter_size, in.gauge, in.flow);
+    Result<Duration> r = cylinder::field_rule_duration(*c.letter_size, in.gauge, cylinder_flow(state));
     if (r) rule = r.value();
   }
   cylinder::LeadingDuration lead = cylinder::leading_duration(d, rule);
@@ -152,10 +158,15 @@ ChosenCylinder draw_cylinder(AppState& state, Pressure ambient) {
   ImGui::TextDisabled("%s", std::string(cylinder::temperature_advice).c_str());
   ImGui::PopTextWrapPos();
   edit_quantity(state, cylinder_pressure_field(state, "Reserve (swap at)", "cyl-reserve", bar(cylinder::max_reserve_bar)), in.reserve);
-  edit_quantity(state, flow_field("Flow", "cyl-flow", cylinder::max_flow_lpm), in.flow);
+  if (state.situation.on_oxygen) {
+    edit_quantity(state, casualty_flow_field(state, "Flow (the casualty's, as on Casualty)", "cyl-flow"),
+                  state.situation.oxygen_flow);
+  } else {
+    edit_quantity(state, flow_field("Flow", "cyl-flow", cylinder::max_flow_lpm), in.flow);
+  }
 
   cylinder::Reading reading{chosen.water_capacity, in.gauge, in.cylinder_temperature, ambient};
-  Result<cylinder::DurationEstimate> d = cylinder::duration(reading, in.reserve, in.flow);
+  Result<cylinder::DurationEstimate> d = cylinder::duration(reading, in.reserve, cylinder_flow(state));
   if (!d) {
     result_error(state, "Lasts to reserve", d.error().message);
     return chosen;
@@ -193,13 +204,13 @@ void draw_plan(AppState& state, Pressure ambient, const ChosenCylinder& chosen) 
     input.cylinders.push_back(spec);
   }
   if (in.first_phase.in(minutes) > 0.0) input.phases.push_back({in.first_flow, in.first_phase});
-  input.phases.push_back({in.flow, minutes(1.0)});
+  input.phases.push_back({cylinder_flow(state), minutes(1.0)});
   input.evacuation = in.evacuation;
   input.reserve_gauge = in.reserve;
   input.ambient_pressure = ambient;
   input.margin_minimum = state.team.profile.safety_margin.minimum;
   input.margin_fraction = state.team.profile.safety_margin.share.in(fraction);
-  input.pressure_unit = state.settings.units.cylinder == UnitChoice::CylinderPressure::Psi ? &psi : &bar;
+  input.pressure_unit = &chosen_unit(kCylinderUnits, state.settings.units.cylinder);
   Result<evacuation::EvacuationPlan> plan = evacuation::plan_evacuation(input);
   if (!plan) {
     result_error(state, "Oxygen for the evacuation", plan.error().message);

@@ -9,36 +9,26 @@
 
 namespace firn::ui {
 
+namespace {
+template <class D, std::size_t N, class Choice>
+void unit_row(const AppState& state, const char* title, const char* id,
+              const UnitList<D, N>& list, Choice& choice) {
+  ImGui::TextDisabled("%s", title);
+  auto labels = unit_labels(list);
+  int index = static_cast<int>(choice);
+  if (choice_row(state, id, labels.data(), static_cast<int>(N), &index)) {
+    choice = static_cast<Choice>(index);
+  }
+}
+}  // namespace
+
 void draw_settings_panel(AppState& state, Platform& platform) {
   UnitChoice& u = state.settings.units;
 
-  ImGui::TextDisabled("Altitude unit");
-  const char* altitude_units[] = {"m", "ft"};
-  int altitude_index = static_cast<int>(u.altitude);
-  if (choice_row(state, "altitude-unit", altitude_units, 2, &altitude_index)) {
-    u.altitude = static_cast<UnitChoice::Altitude>(altitude_index);
-  }
-
-  ImGui::TextDisabled("Pressure unit");
-  const char* pressure_units[] = {"hPa", "mmHg", "kPa", "inHg"};
-  int pressure_index = static_cast<int>(u.pressure);
-  if (choice_row(state, "pressure-unit", pressure_units, 4, &pressure_index)) {
-    u.pressure = static_cast<UnitChoice::Pressure>(pressure_index);
-  }
-
-  ImGui::TextDisabled("Cylinder pressure unit");
-  const char* cylinder_units[] = {"bar", "psi"};
-  int cylinder_index = static_cast<int>(u.cylinder);
-  if (choice_row(state, "cylinder-unit", cylinder_units, 2, &cylinder_index)) {
-    u.cylinder = static_cast<UnitChoice::CylinderPressure>(cylinder_index);
-  }
-
-  ImGui::TextDisabled("Temperature unit");
-  const char* temperature_units[] = {"\xC2\xB0" "C", "\xC2\xB0" "F"};
-  int temperature_index = static_cast<int>(u.temperature);
-  if (choice_row(state, "temperature-unit", temperature_units, 2, &temperature_index)) {
-    u.temperature = static_cast<UnitChoice::Temperature>(temperature_index);
-  }
+  unit_row(state, "Altitude unit", "altitude-unit", kAltitudeUnits, u.altitude);
+  unit_row(state, "Pressure unit", "pressure-unit", kPressureUnits, u.pressure);
+  unit_row(state, "Cylinder pressure unit", "cylinder-unit", kCylinderUnits, u.cylinder);
+  unit_row(state, "Temperature unit", "temperature-unit", kTemperatureUnits, u.temperature);
 
   ImGui::TextDisabled("Theme");
   const char* themes[] = {theme_label(Theme::Day), theme_label(Theme::Night),

@@ -1,4 +1,5 @@
-// Screen "Teaching": for the training room. One altitude control (0–8000 m, drag or ±) drives
+// Screen "Teaching": for the training room. One altitude control (sea level to the highest
+// summit: drag, ±, arrow keys or a landmark) drives
 // the oxygen cascade PB → PiO2 → PAO2 → PaO2 → SaO2 for an acute and an acclimatised lowlander
 // side by side, and their points on the dissociation curve. Independent of the situation, so an
 // instructor can sweep without touching the casualty's figures.
@@ -28,26 +29,77 @@ struct Column {
   Result<expected_spo2::Expectation> expectation;
 };
 
-// A slider as tall as a touch target, its grab as wide as a thumb.
+struct Landmark {
+  const char* name;
+  double metres;
+};
+// Sea level, two places of the demo team's fictional valley (Tarn Hut LZ, Varn Col) and the
+// highest summit: heights a class can picture.
+constexpr Landmark kLandmarks[] = {{"Sea level", 0.0},
+                                   {"Tarn Hut", 3850.0},
+                                   {"Varn Col", 4950.0},
+                                   {"Everest", TeachingInputs::kTopM}};
+
+void set_teaching_altitude(AppState& state, double m) {
+  state.teaching.altitude = metres(std::clamp(m, 0.0, TeachingInputs::kTopM));
+}
+
+// Ticks under the slider's track where the landmarks are.
+void landmark_ticks(const AppState& state, float grab) {
+  ImVec2 lo = ImGui::GetItemRectMin(), hi = ImGui::GetItemRectMax();
+  float pad = ImGui::GetStyle().GrabRounding + 2.0f;  // ImGui keeps the grab 2 px off the frame
+  float x0 = lo.x + pad + grab * 0.5f, x1 = hi.x - pad - grab * 0.5f;
+  ImDrawList* draw = ImGui::GetWindowDrawList();
+  for (const Landmark& l : kLandmarks) {
+    float x = x0 + (x1 - x0) * static_cast<float>(l.metres / TeachingInputs::kTopM);
+    draw->AddLine(ImVec2(x, hi.y - 0.5f * em()), ImVec2(x, hi.y), plot_colour(state, PlotColour::Text), 2.0f);
+  }
+}
+
+// A slider as tall as a touch target, its grab as wide as a thumb; Left/Right keys move 50 m,
+// Page Up/Down 500 m (a projector remote or a laptop in the training room).
 void altitude_slider(AppState& state) {
   float value = static_cast<float>(state.teaching.altitude.in(metres));
+  float grab = 2.5f * em();
   ImGui::PushStyleVar(ImGuiStyleVar_FramePadding,
                       ImVec2(ImGui::GetStyle().FramePadding.x, std::max(ImGui::GetStyle().FramePadding.y,
                                                                        (touch_target(state) - em()) * 0.5f)));
-  ImGui::PushStyleVar(ImGuiStyleVar_GrabMinSize, 2.5f * em());
+  ImGui::PushStyleVar(ImGuiStyleVar_GrabMinSize, grab);
   // The altitude is written above the slider: on the track the thumb-wide grab would hide it.
   std::string shown = altitude_with_unit(state.teaching.altitude, state.settings.units);
   if (state.font_large) ImGui::PushFont(state.font_large);
   ImGui::TextUnformatted(shown.c_str());
   if (state.font_large) ImGui::PopFont();
   ImGui::SetNextItemWidth(-1.0f);
-  if (ImGui::SliderFloat("##teach-altitude", &value, 0.0f, 8000.0f, "",
+  if (ImGui::SliderFloat("##teach-altitude", &value, 0.0f, static_cast<float>(TeachingInputs::kTopM), "",
                          ImGuiSliderFlags_AlwaysClamp | ImGuiSliderFlags_NoInput |
                              ImGuiSliderFlags_NoRoundToFormat)) {
-    state.teaching.altitude = metres(std::round(value / 50.0f) * 50.0);  // 50 m steps read cleanly
+    // 50 m steps read cleanly; the top is the summit itself, not 8,850 m.
+    double stepped = std::round(value / 50.0f) * 50.0;
+    set_teaching_altitude(state, value >= TeachingInputs::kTopM - 25.0 ? TeachingInputs::kTopM : stepped);
   }
   ImGui::PopStyleVar(2);
+  landmark_ticks(state, grab);
   test_hook::item_text("Teaching altitude", shown);
+
+  if (!state.keypad.open) {
+    double now = state.teaching.altitude.in(metres);
+    auto pressed = [](ImGuiKey_ key) { return ImGui::IsKeyPressed(ImGui::GetKeyIndex(key)); };
+    if (pressed(ImGuiKey_LeftArrow)) set_teaching_altitude(state, std::ceil(now / 50.0) * 50.0 - 50.0);
+    if (pressed(ImGuiKey_RightArrow)) set_teaching_altitude(state, std::floor(now / 50.0) * 50.0 + 50.0);
+    if (pressed(ImGuiKey_PageDown)) set_teaching_altitude(state, now - 500.0);
+    if (pressed(ImGuiKey_PageUp)) set_teaching_altitude(state, now + 500.0);
+  }
+  // The landmarks as buttons too: a tap jumps there.
+  const char* names[std::size(kLandmarks)];
+  for (std::size_t i = 0; i < std::size(kLandmarks); ++i) names[i] = kLandmarks[i].name;
+  int at = -1;
+  for (std::size_t i = 0; i < std::size(kLandmarks); ++i) {
+    if (state.teaching.altitude.in(metres) == kLandmarks[i].metres) at = static_cast<int>(i);
+  }
+  if (choice_row(state, "landmarks", names, static_cast<int>(std::size(kLandmarks)), &at) && at >= 0) {
+    set_teaching_altitude(state, kLandmarks[at].metres);
+  }
 }
 
 // Two bars (acute, acclimatised) at `stage` with their values on top.
@@ -127,7 +179,7 @@ void draw_teaching_panel(AppState& state, Platform&) {
   altitude_slider(state);
   QuantityField<LengthDimension> f = altitude_field(state, "Altitude (teaching)", "teach-altitude");
   f.low = metres(0);
-  f.high = metres(8000);
+  f.high = metres(TeachingInputs::kTopM);
   edit_quantity(state, f, state.teaching.altitude);
 
   atmosphere::Model model = state.settings.model;
@@ -143,6 +195,13 @@ void draw_teaching_panel(AppState& state, Platform&) {
       {"acclimatised", expected_spo2::expected(pb.value(), cascade::Exposure::Acclimatised)}};
   for (const Column& c : columns) {
     if (!c.expectation) message_line(state, std::string(c.name) + ": " + c.expectation.error().message, true);
+  }
+  bool extrapolated = std::any_of(std::begin(columns), std::end(columns), [](const Column& c) {
+    return c.expectation && c.expectation->extrapolated;
+  });
+  if (extrapolated) {
+    message_line(state, "Extrapolated: the field data behind these bands stop at " +
+                            altitude_with_unit(metres(expected_spo2::kFieldDataTopM), u) + ".", true);
   }
   // Wide screens (projector): chart and curve side by side.
   bool side_by_side = ImGui::GetContentRegionAvail().x > 50.0f * em();

@@ -9,6 +9,7 @@
 
 #include "model/cylinder.hpp"
 #include "model/pocket_card.hpp"
+#include "ui/format.hpp"
 #include "ui/team_store.hpp"
 #include "ui/test_hook.hpp"
 #include "ui/widgets.hpp"
@@ -28,10 +29,6 @@ struct ProfileUnits {
 ProfileUnits units_of(const tp::TeamProfile& p) {
   bool us = p.units == tp::UnitSystem::Us;
   return {us ? feet : metres, us ? psi : bar};
-}
-
-std::string number_with_unit(double value, int decimals, std::string_view symbol) {
-  return shown_number(value, decimals) + " " + std::string(symbol);
 }
 
 // "3.3" → "3.3", "4.0" → "4": profile figures are usually round.
@@ -85,19 +82,19 @@ void draw_profile_details(const AppState& state) {
     std::string line = c.label + ": " + trimmed_number(capacity_of(c).in(litres)) + " L" +
                        (c.water_capacity ? "" : " (size " +
                                                     std::string(cylinder::letter_size_info(*c.letter_size).name) + ")") +
-                       ", full " + number_with_unit(c.fill_pressure_gauge.in(u.gauge), 0, u.gauge.symbol) +
+                       ", full " + quantity_text(c.fill_pressure_gauge, u.gauge, 0) +
                        ", \xC3\x97" + std::to_string(c.count);
     bullet_line(line);
     test_hook::item_text("Cylinder " + std::to_string(i + 1), line);
   }
-  profile_line("Reserve", number_with_unit(p.reserve_pressure_gauge.in(u.gauge), 0, u.gauge.symbol));
+  profile_line("Reserve", quantity_text(p.reserve_pressure_gauge, u.gauge, 0));
   std::string flows;
   for (const VolumeFlow& f : p.flows) flows += (flows.empty() ? "" : ", ") + trimmed_number(f.in(litres_per_minute));
   profile_line("Flows", flows + " L/min");
 
   heading("Hyperbaric bag");
-  profile_line("Bag gauge", number_with_unit(p.bag.gauge_pressure.in(hectopascals), 0, "hPa") + " (" +
-                                number_with_unit(p.bag.gauge_pressure.in(psi), 1, "psi") + ")");
+  profile_line("Bag gauge", quantity_text(p.bag.gauge_pressure, hectopascals, 0) + " (" +
+                                quantity_text(p.bag.gauge_pressure, psi, 1) + ")");
   profile_line("Pump stroke", trimmed_number(p.bag.pump_stroke_volume.in(litres)) + " L");
   profile_line("CO2 limit", trimmed_number(p.bag.co2_limit.in(percent)) + " %");
 

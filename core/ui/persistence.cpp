@@ -5,7 +5,9 @@
 
 #include <nlohmann/json.hpp>
 
+#include <algorithm>
 #include <array>
+#include <cctype>
 #include <cmath>
 #include <string_view>
 
@@ -27,10 +29,14 @@ constexpr auto kScreenKeys = [] {
 }();
 constexpr std::array<std::string_view, 3> kThemeKeys{"day", "night", "projector"};
 constexpr std::array<std::string_view, 3> kSourceKeys{"altitude", "station", "qnh"};
-constexpr std::array<std::string_view, 2> kAltitudeUnits{"m", "ft"};
-constexpr std::array<std::string_view, 4> kPressureUnits{"hPa", "mmHg", "kPa", "inHg"};
-constexpr std::array<std::string_view, 2> kCylinderUnits{"bar", "psi"};
-constexpr std::array<std::string_view, 2> kTemperatureUnits{"C", "F"};
+// Unit choices are saved as the unit's parsing spelling ("hpa", "c") and read case-insensitively,
+// so files that saved the symbol ("hPa") or "C" read the same.
+template <class D, std::size_t N>
+constexpr std::array<std::string_view, N> unit_keys(const UnitList<D, N>& list) {
+  std::array<std::string_view, N> keys{};
+  for (std::size_t i = 0; i < N; ++i) keys[i] = list[i]->spelling;
+  return keys;
+}
 
 // Readers: leave `out` untouched unless the value is there, of the right type and in range.
 void read(const Json& j, const char* key, double low, double high, double& out) {
@@ -49,13 +55,19 @@ void read(const Json& j, const char* key, int low, int high, int& out) {
   long long v = it->get<long long>();
   if (v >= low && v <= high) out = static_cast<int>(v);
 }
+bool same_letters(std::string_view a, std::string_view b) {
+  return a.size() == b.size() && std::equal(a.begin(), a.end(), b.begin(), [](char x, char y) {
+           return std::tolower(static_cast<unsigned char>(x)) ==
+                  std::tolower(static_cast<unsigned char>(y));
+         });
+}
 template <class Enum, size_t N>
 void read(const Json& j, const char* key, const std::array<std::string_view, N>& keys, Enum& out) {
   auto it = j.find(key);
   if (it == j.end() || !it->is_string()) return;
   const std::string& text = it->get_ref<const std::string&>();
   for (size_t i = 0; i < N; ++i) {
-    if (keys[i] == text) out = static_cast<Enum>(i);
+    if (same_letters(keys[i], text)) out = static_cast<Enum>(i);
   }
 }
 template <class D>
@@ -85,10 +97,10 @@ std::string state_to_json(const AppState& state) {
   j["screen"] = word(kScreenKeys, state.screen);
   j["settings"] = {{"theme", word(kThemeKeys, st.theme)},
                    {"model", std::string(atmosphere::model_key(st.model))},
-                   {"altitude_unit", word(kAltitudeUnits, st.units.altitude)},
-                   {"pressure_unit", word(kPressureUnits, st.units.pressure)},
-                   {"cylinder_unit", word(kCylinderUnits, st.units.cylinder)},
-                   {"temperature_unit", word(kTemperatureUnits, st.units.temperature)}};
+                   {"altitude_unit", word(unit_keys(kAltitudeUnits), st.units.altitude)},
+                   {"pressure_unit", word(unit_keys(kPressureUnits), st.units.pressure)},
+                   {"cylinder_unit", word(unit_keys(kCylinderUnits), st.units.cylinder)},
+                   {"temperature_unit", word(unit_keys(kTemperatureUnits), st.units.temperature)}};
   j["situation"] = {{"source", word(kSourceKeys, s.source)},
                     {"altitude_m", s.altitude.in(metres)},
                     {"altitude_entered", s.altitude_entered},
@@ -147,10 +159,10 @@ bool state_from_json(AppState& state, const std::string& text) {
       settings.model = m.value();
     }
   }
-  read(st, "altitude_unit", kAltitudeUnits, settings.units.altitude);
-  read(st, "pressure_unit", kPressureUnits, settings.units.pressure);
-  read(st, "cylinder_unit", kCylinderUnits, settings.units.cylinder);
-  read(st, "temperature_unit", kTemperatureUnits, settings.units.temperature);
+  read(st, "altitude_unit", unit_keys(kAltitudeUnits), settings.units.altitude);
+  read(st, "pressure_unit", unit_keys(kPressureUnits), settings.units.pressure);
+  read(st, "cylinder_unit", unit_keys(kCylinderUnits), settings.units.cylinder);
+  read(st, "temperature_unit", unit_keys(kTemperatureUnits), settings.units.temperature);
 
   // Ranges here are those of the input fields: anything else is damage, not a situation.
   const Json si = child(j, "situation");
@@ -212,7 +224,7 @@ bool state_from_json(AppState& state, const std::string& text) {
   read(a, "dizziness", AmsInputs::kUnanswered, 3, state.ams.dizziness);
   read(a, "recent_ascent", state.ams.recent_ascent);
 
-  read(child(j, "teaching"), "altitude_m", metres, 0, 8000, state.teaching.altitude);
+  read(child(j, "teaching"), "altitude_m", metres, 0, TeachingInputs::kTopM, state.teaching.altitude);
 
   const Json r = child(j, "last_results");
   for (auto it = r.begin(); it != r.end(); ++it) {

@@ -81,9 +81,6 @@ void bullet_line(std::string_view text);
 // Small dim heading above a group of widgets.
 void heading(const char* text);
 
-// Appends `unit` when `text` is a bare number, so "4000" in a metres field means 4000 m.
-std::string with_default_unit(const std::string& text, std::string_view unit);
-
 // The one-line caution every result screen carries, with a "Read more" that expands it.
 void caution_line(AppState& state);
 // A model's error as a dash result plus the message (never a silent number).

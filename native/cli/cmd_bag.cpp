@@ -224,7 +224,7 @@ void register_bag_commands(CommandTable& table) {
                             [o] { return run_bag(*o); });
   bag->add_option("--altitude", o->altitude, "Altitude of the bag, e.g. 4243m or 13920ft");
   bag->add_option("--pressure", o->pressure, "Measured ambient pressure instead, e.g. 616hPa");
-  bag->add_option("--gauge", o->gauge, "Bag gauge pressure, e.g. 2psi (default) or 140mbar");
+  bag->add_option("--gauge", o->gauge, "Bag gauge pressure, e.g. 2psi (default) or 140hPa");
   bag->add_option("--model", o->model, "Atmosphere model: west (default) or isa");
   add_latitude_month_options(bag, o->where);
   bag->add_option("--flush", o->flush, "Fresh-air flush, L/min at bag pressure (5-300)");

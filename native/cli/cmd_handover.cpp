@@ -117,7 +117,7 @@ void register_handover_commands(CommandTable& table) {
   CLI::App* cmd = table.add("handover", "Handover summary of a casualty record file",
                             [o] { return run_handover(*o); });
   cmd->add_option("--record", o->record, "Casualty record JSON file (docs/incident-record.md)");
-  cmd->add_option("--units", o->units, "metric (m, mbar) or us (ft, psi); default metric");
+  cmd->add_option("--units", o->units, "metric (m, hPa) or us (ft, psi); default metric");
   cmd->add_option("--html", o->html, "Also write the printable one-page record to this HTML file");
   cmd->add_option("--page", o->page, "Page size of the printable record: a4 or a5; default a4");
 }

@@ -68,7 +68,7 @@ test('PiO2 inside = 0.2095 × (P − 47 mmHg) without a flush', () => {
 test('bad input: exit 2, range and unit on stderr, {"error"} with --json', () => {
   const gauge = firn('bag', '--altitude', '4000m', '--gauge', '300mbar');
   assert.equal(gauge.code, 2);
-  assert.match(gauge.stderr, /between 0 and 250 mbar/);
+  assert.match(gauge.stderr, /between 0 and 250 hPa/);
   assert.equal(gauge.stderr.trim().split('\n').length, 1);
   const j = firnJson('bag', '--altitude', '4000m', '--flush', '1');
   assert.equal(j.code, 2);

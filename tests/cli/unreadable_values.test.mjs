@@ -21,7 +21,7 @@ const cases = [
   [['pressure', '--station', '700hPa', '--altitude', 'x'], /altitude must be between 0 and 9000 m/],
   [['altitude', '--pressure', 'inf'], /pressure must be between 330 and 1012\.6 hPa for the West 1996/],
   [['bag', '--altitude', 'x'], /altitude must be between 0 and 9000 m/],
-  [['bag', '--altitude', '3000m', '--gauge', 'x'], /bag gauge pressure must be between 0 and 250 mbar/],
+  [['bag', '--altitude', '3000m', '--gauge', 'x'], /bag gauge pressure must be between 0 and 250 hPa/],
   [['bag', '--altitude', '3000m', '--flush', 'nan'], /flush flow must be between 5 and 300 L\/min/],
   [['bag', '--pressure', 'x'], /ambient pressure must be between 330 and 1012\.6 hPa/],
   [['bag', '--altitude', '3000m', '--vco2', 'x'], /VCO2 must be between 0\.05 and 2 L\/min/],

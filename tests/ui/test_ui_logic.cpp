@@ -250,6 +250,64 @@ TEST_CASE("Casualty: the SpO2 field starts empty, no verdict until a value is ty
   CHECK(ui.text(state, "Verdict").rfind("NO VERDICT", 0) == 0);
 }
 
+TEST_CASE("Oxygen: on oxygen, the cylinder runs at the casualty's flow, one value for both screens") {
+  // Issue 12: the flow from the Casualty screen carried over, never typed twice.
+  Headless ui;
+  ui.panel = draw_oxygen_panel;
+  AppState state;
+  state.situation.altitude = units::metres(4000);
+  state.situation.altitude_entered = true;
+  state.situation.on_oxygen = true;
+  state.situation.oxygen_device = 0;  // cannula
+  state.situation.oxygen_flow = units::litres_per_minute(3.0);
+  const std::string linked = "Flow (the casualty's, as on Casualty)";
+  CHECK(ui.text(state, linked) == "3.0 L/min");
+  CHECK(ui.text(state, "Flow") == "(absent)");
+  ui.click(state, linked);
+  REQUIRE(state.keypad.open);
+  for (const char* k : {"Key 5", "Key OK"}) ui.click(state, k);
+  CHECK(state.situation.oxygen_flow.in(units::litres_per_minute) == Approx(5.0));
+  CHECK(state.oxygen.flow.in(units::litres_per_minute) == Approx(4.0));  // the planning flow kept
+  state.situation.on_oxygen = false;
+  CHECK(ui.text(state, "Flow") == "4.0 L/min");
+  CHECK(ui.text(state, linked) == "(absent)");
+}
+
+TEST_CASE("Teaching: landmarks to the highest summit, arrow keys step 50 m, extrapolation said") {
+  // Issue 12: the slider reaches 8,849 m (Everest, 8,848.86 m: China-Nepal survey 2020).
+  Headless ui;
+  ui.panel = draw_teaching_panel;
+  AppState state;
+  ui.click(state, "Everest");
+  CHECK(state.teaching.altitude.in(units::metres) == 8849.0);
+  CHECK(ui.text(state, "Teaching altitude") == "8849 m");
+  auto warnings = [&] {
+    std::string all;
+    for (const auto& i : ui.frame(state)) {
+      if (i["label"] == "Warning") all += i["text"].get<std::string>() + "\n";
+    }
+    return all;
+  };
+  // Above the field data (5,000 m, expected_spo2::kFieldDataTopM) the bands are extrapolated.
+  CHECK(warnings().find("Extrapolated") != std::string::npos);
+  auto press = [&](ImGuiKey_ key) {
+    ImGui::GetIO().KeysDown[key] = true;  // the harness maps every key to its own index
+    ui.frame(state);
+  };
+  press(ImGuiKey_LeftArrow);
+  CHECK(state.teaching.altitude.in(units::metres) == 8800.0);  // back onto the 50 m grid
+  press(ImGuiKey_PageDown);
+  CHECK(state.teaching.altitude.in(units::metres) == 8300.0);
+  ui.click(state, "Tarn Hut");
+  CHECK(state.teaching.altitude.in(units::metres) == 3850.0);
+  press(ImGuiKey_RightArrow);
+  CHECK(state.teaching.altitude.in(units::metres) == 3900.0);
+  CHECK(warnings().empty());  // 3,900 m is inside the field data
+  ui.click(state, "Sea level");
+  press(ImGuiKey_LeftArrow);
+  CHECK(state.teaching.altitude.in(units::metres) == 0.0);  // clamped at sea level
+}
+
 TEST_CASE("Casualty: the presets set the time at altitude") {
   Headless ui;
   ui.panel = draw_casualty_panel;
@@ -440,6 +498,23 @@ TEST_CASE("saved state from before the entered flag: the old default shows empty
   AppState typed;
   REQUIRE(state_from_json(typed, R"({"version":1,"situation":{"altitude_m":4321}})"));
   CHECK(typed.situation.altitude_entered);
+}
+
+TEST_CASE("saved state: unit choices written before one unit table (symbols, C/F) still read") {
+  AppState old;
+  REQUIRE(state_from_json(old, R"({"version":1,"settings":{"altitude_unit":"ft",
+      "pressure_unit":"inHg","cylinder_unit":"psi","temperature_unit":"F"}})"));
+  CHECK(old.settings.units.altitude == UnitChoice::Altitude::Feet);
+  CHECK(old.settings.units.pressure == UnitChoice::Pressure::InchesHg);
+  CHECK(old.settings.units.cylinder == UnitChoice::CylinderPressure::Psi);
+  CHECK(old.settings.units.temperature == UnitChoice::Temperature::Fahrenheit);
+  AppState back;
+  REQUIRE(state_from_json(back, state_to_json(old)));
+  CHECK(back.settings.units.pressure == UnitChoice::Pressure::InchesHg);
+  CHECK(back.settings.units.temperature == UnitChoice::Temperature::Fahrenheit);
+  AppState unknown;
+  REQUIRE(state_from_json(unknown, R"({"version":1,"settings":{"pressure_unit":"bar"}})"));
+  CHECK(unknown.settings.units.pressure == UnitChoice::Pressure::Hectopascals);
 }
 
 TEST_CASE("keypad: an altitude ten times or a tenth of the last asks before it is applied") {

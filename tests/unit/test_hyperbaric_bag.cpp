@@ -378,7 +378,7 @@ TEST_CASE("bad bag input names range and unit", "[bag][errors]") {
   s.gauge = millibar(300);
   Result<BagResult> r = bag_at_altitude(metres(4000), Model::West1996, s);
   REQUIRE_FALSE(r.ok());
-  CHECK(r.error().message == "bag gauge pressure must be between 0 and 250 mbar (got 300 mbar)");
+  CHECK(r.error().message == "bag gauge pressure must be between 0 and 250 hPa (got 300 hPa)");
   Result<BagResult> flow = bag_at_altitude(metres(4000), Model::West1996, flushed(1));
   REQUIRE_FALSE(flow.ok());
   CHECK(flow.error().message.find("between 5 and 300 L/min") != std::string::npos);
@@ -513,8 +513,8 @@ TEST_CASE("sweep: just outside every bag range the message names it", "[bag][swe
     change(s);
     return bag_at_altitude(metres(4000), Model::West1996, s);
   };
-  CHECK_REFUSED_NAMING(with([](Settings& s) { s.gauge = millibar(-0.01); }), "between 0 and 250 mbar");
-  CHECK_REFUSED_NAMING(with([](Settings& s) { s.gauge = millibar(250.01); }), "between 0 and 250 mbar");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.gauge = millibar(-0.01); }), "between 0 and 250 hPa");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.gauge = millibar(250.01); }), "between 0 and 250 hPa");
   CHECK_REFUSED_NAMING(with([](Settings& s) { s.flush = litres_per_minute(4.99); }), "between 5 and 300 L/min");
   CHECK_REFUSED_NAMING(with([](Settings& s) { s.flush = litres_per_minute(300.01); }), "between 5 and 300 L/min");
   CHECK_REFUSED_NAMING(with([](Settings& s) { s.oxygen_feed = litres_per_minute(-0.01); }), "between 0 and 15 L/min");

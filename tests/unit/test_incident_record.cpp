@@ -144,7 +144,7 @@ TEST_CASE("handover: course, oxygen periods, bag sessions, criteria", "[record][
   std::string text = handover::summary_text(*demo, s, handover::Units::Metric);
   CHECK(text.find("SpO2 first 68 % on air at 13:40, 5,200 m") != std::string::npos);
   CHECK(text.find("SpO2 latest 90 % on mask 5 L/min at 18:05, 4,600 m") != std::string::npos);
-  CHECK(text.find("Hyperbaric bag: 16:52–17:52 (1 h 0 min) at 138 mbar gauge") != std::string::npos);
+  CHECK(text.find("Hyperbaric bag: 16:52–17:52 (1 h 0 min) at 138 hPa gauge") != std::string::npos);
   CHECK(text.find("Criteria met (as ticked by the medic): AMS, HAPE") != std::string::npos);
   CHECK(text.find("Descent is the definitive treatment") != std::string::npos);
   std::string us = handover::summary_text(*demo, s, handover::Units::Us);
