@@ -51,7 +51,7 @@ const INDEX = 'index.html';
 const indexPath = join(options.out, INDEX);
 if (copied.has(INDEX)) {
   writeFileSync(indexPath, readFileSync(indexPath, 'utf8')
-    .replace(/<meta name="firn-build" content="[^"]*">\n/g, '')
+    .replace(/<meta name="firn-(build|wasm-bytes)" content="[^"]*">\n/g, '')
     .replace(/\?build=[0-9a-f]+"/g, '"'));
 }
 
@@ -71,6 +71,11 @@ if (copied.has(INDEX)) {
   let page = readFileSync(indexPath, 'utf8');
   if (!page.includes('<title>')) throw new Error(`${INDEX} has no <title>`);
   page = page.replace('<title>', `<meta name="firn-build" content="${buildHash}">\n<title>`);
+  // firn.wasm's size, for the first start's progress line (firn-shell.js).
+  if (copied.has('firn.wasm')) {
+    const bytes = statSync(join(options.out, 'firn.wasm')).size;
+    page = page.replace('<title>', `<meta name="firn-wasm-bytes" content="${bytes}">\n<title>`);
+  }
   page = page.replace(/\b(src|href)="([^"/:?#]+)"/g, (whole, attribute, file) =>
     copied.has(file) ? `${attribute}="${file}?build=${buildHash}"` : whole);
   writeFileSync(indexPath, page);

@@ -65,7 +65,7 @@ bool update_fonts(AppState& state) {
                               large_glyph_ranges(), state.pixel_ratio);
   io.Fonts->Build();
   state.built_font_scale = scale;
-  apply_theme(state.settings.theme, state.pixel_ratio);
+  apply_theme(state.settings.theme, state.pixel_ratio, state.settings.night_dim);
   return true;
 }
 
@@ -78,7 +78,7 @@ void init_app(AppState& state, Platform& platform) {
   load_record(state.record.store, platform);
   state.record.loaded = true;
   state.built_font_scale = 0.0f;
-  apply_theme(state.settings.theme, state.pixel_ratio);
+  apply_theme(state.settings.theme, state.pixel_ratio, state.settings.night_dim);
 }
 
 // [SECTION] Frame layout and navigation

@@ -93,6 +93,7 @@ constexpr std::array<const char*, N> unit_labels(const UnitList<D, N>& list) {
 
 struct Settings {
   Theme theme = Theme::Day;
+  bool night_dim = false;  // the night theme at half brightness
   UnitChoice units;
   atmosphere::Model model = atmosphere::default_medical_model;
 };

@@ -38,6 +38,10 @@ void draw_settings_panel(AppState& state, Platform& platform) {
     state.settings.theme = static_cast<Theme>(theme_index);
     state.built_font_scale = 0.0f;  // fonts and style are rebuilt before the next frame
   }
+  if (state.settings.theme == Theme::Night &&
+      toggle_row(state, "night-brightness", "Night: normal", "Night: dim", &state.settings.night_dim)) {
+    state.built_font_scale = 0.0f;
+  }
 
   ImGui::Separator();
   ImGui::TextDisabled("Firn %s (%.*s)%s%s", FIRN_VERSION, static_cast<int>(platform.name().size()),

@@ -29,6 +29,22 @@ struct Column {
   Result<expected_spo2::Expectation> expectation;
 };
 
+// The charts' heights in em: on a phone their own (the page scrolls); side by side, shared out of
+// the height left on screen, never below what keeps their axes readable.
+struct ChartHeights {
+  float cascade = 12.0f, saturation = 8.0f, curve = 13.0f;
+};
+ChartHeights fit_charts(float available_em) {
+  float spacing = ImGui::GetStyle().ItemSpacing.y / em();
+  // Under the two charts: the spacing after each, the legend's two rows, a margin.
+  float beside = available_em - 2.0f * spacing - 2.0f * (1.0f + spacing) - 0.5f;
+  ChartHeights h;
+  h.cascade = std::clamp(beside * 0.6f, 7.0f, 12.0f);
+  h.saturation = std::clamp(beside * 0.4f, 5.5f, 8.0f);
+  h.curve = std::clamp(available_em - 0.5f, 7.0f, 13.0f);
+  return h;
+}
+
 struct Landmark {
   const char* name;
   double metres;
@@ -56,6 +72,40 @@ void landmark_ticks(const AppState& state, float grab) {
   }
 }
 
+// Whether the bands at the teaching altitude lie beyond the field data (either exposure).
+bool extrapolated_at(const AppState& state) {
+  Result<Pressure> pb = atmosphere::pressure_at(state.teaching.altitude, state.settings.model);
+  if (!pb) return false;
+  for (cascade::Exposure exposure : {cascade::Exposure::Acute, cascade::Exposure::Acclimatised}) {
+    Result<expected_spo2::Expectation> e = expected_spo2::expected(pb.value(), exposure);
+    if (e && e->extrapolated) return true;
+  }
+  return false;
+}
+
+// The landmarks as buttons (a tap jumps there): four across, or two rows of two where four
+// would shrink their names (the controls column on a projector).
+void landmark_buttons(AppState& state) {
+  constexpr int count = static_cast<int>(std::size(kLandmarks));
+  float spacing = ImGui::GetStyle().ItemSpacing.x;
+  float available = ImGui::GetContentRegionAvail().x;
+  int per_row = count;
+  for (const Landmark& l : kLandmarks) {
+    if (label_fit_scale(l.name, (available - spacing * (count - 1)) / count) < 0.9f) per_row = 2;
+  }
+  float width = (available - spacing * (per_row - 1)) / per_row;
+  float height = std::max(touch_target(state), ImGui::GetFrameHeight());
+  ImGui::PushID("landmarks");
+  for (int i = 0; i < count; ++i) {
+    if (i % per_row != 0) ImGui::SameLine();
+    if (fitted_button(kLandmarks[i].name, ImVec2(width, height))) {
+      set_teaching_altitude(state, kLandmarks[i].metres);
+    }
+    test_hook::item(kLandmarks[i].name);
+  }
+  ImGui::PopID();
+}
+
 // A slider as tall as a touch target, its grab as wide as a thumb; Left/Right keys move 50 m,
 // Page Up/Down 500 m (a projector remote or a laptop in the training room).
 void altitude_slider(AppState& state) {
@@ -70,6 +120,15 @@ void altitude_slider(AppState& state) {
   if (state.font_large) ImGui::PushFont(state.font_large);
   ImGui::TextUnformatted(shown.c_str());
   if (state.font_large) ImGui::PopFont();
+  if (extrapolated_at(state)) {  // beside the number the class is looking at, or under it
+    float end = ImGui::GetItemRectMax().x + ImGui::GetStyle().ItemSpacing.x +
+                ImGui::CalcTextSize("extrapolated").x;
+    if (end <= ImGui::GetWindowPos().x + ImGui::GetContentRegionMax().x) ImGui::SameLine();  // the column's edge
+    ImGui::PushStyleColor(ImGuiCol_Text, ImGui::GetStyleColorVec4(ImGuiCol_PlotHistogram));
+    ImGui::TextUnformatted("extrapolated");
+    ImGui::PopStyleColor();
+    test_hook::item("Teaching extrapolated");
+  }
   ImGui::SetNextItemWidth(-1.0f);
   if (ImGui::SliderFloat("##teach-altitude", &value, 0.0f, static_cast<float>(TeachingInputs::kTopM), "",
                          ImGuiSliderFlags_AlwaysClamp | ImGuiSliderFlags_NoInput |
@@ -90,16 +149,7 @@ void altitude_slider(AppState& state) {
     if (pressed(ImGuiKey_PageDown)) set_teaching_altitude(state, now - 500.0);
     if (pressed(ImGuiKey_PageUp)) set_teaching_altitude(state, now + 500.0);
   }
-  // The landmarks as buttons too: a tap jumps there.
-  const char* names[std::size(kLandmarks)];
-  for (std::size_t i = 0; i < std::size(kLandmarks); ++i) names[i] = kLandmarks[i].name;
-  int at = -1;
-  for (std::size_t i = 0; i < std::size(kLandmarks); ++i) {
-    if (state.teaching.altitude.in(metres) == kLandmarks[i].metres) at = static_cast<int>(i);
-  }
-  if (choice_row(state, "landmarks", names, static_cast<int>(std::size(kLandmarks)), &at) && at >= 0) {
-    set_teaching_altitude(state, kLandmarks[at].metres);
-  }
+  landmark_buttons(state);
 }
 
 // Two bars (acute, acclimatised) at `stage` with their values on top.
@@ -126,7 +176,8 @@ void stage_labels(const AppState& state, const Plot& plot, const char* const* na
 
 // Pressures on a mmHg axis, and SaO2 in a small chart of its own with a 0–100 % axis: a
 // percentage drawn against mmHg would read as a pressure.
-void draw_cascade_chart(const AppState& state, const Column (&columns)[2], Pressure pb) {
+void draw_cascade_chart(const AppState& state, const Column (&columns)[2], Pressure pb,
+                        const ChartHeights& heights) {
   const UnitChoice& u = state.settings.units;
   ImU32 colours[2] = {plot_colour(state, PlotColour::Danger), plot_colour(state, PlotColour::Accent)};
   double pressures[3][2] = {};
@@ -139,7 +190,7 @@ void draw_cascade_chart(const AppState& state, const Column (&columns)[2], Press
     pressures[2][c] = k.middle.arterial.in(mmhg);
     saturation[c] = columns[c].expectation->band.mid.in(percent);
   }
-  Plot plot = begin_plot(state, "Cascade chart", "PB " + gas_pressure_text(pb, u), 12.0f,
+  Plot plot = begin_plot(state, "Cascade chart", "PB " + gas_pressure_text(pb, u), heights.cascade,
                          {0, 3, 0, 160, 0, 20, "", "PO2, mmHg"});
   const char* stages[] = {"PiO2", "PAO2", "PaO2"};
   stage_labels(state, plot, stages, 3);
@@ -147,15 +198,15 @@ void draw_cascade_chart(const AppState& state, const Column (&columns)[2], Press
 
   std::string summary = "SaO2 acute " + shown_number(saturation[0], 0) + " %, acclimatised " +
                         shown_number(saturation[1], 0) + " %";
-  Plot sat = begin_plot(state, "Saturation chart", summary, 8.0f, {0, 1, 0, 100, 0, 25, "", "SaO2, %"});
+  Plot sat = begin_plot(state, "Saturation chart", summary, heights.saturation, {0, 1, 0, 100, 0, 25, "", "SaO2, %"});
   const char* sat_stage[] = {"SaO2"};
   stage_labels(state, sat, sat_stage, 1);
   draw_bar_pair(state, sat, 0, saturation, colours);
   plot_legend(state, {{colours[0], "acute (first hours\xE2\x80\x93" "2 days)"}, {colours[1], "acclimatised"}});
 }
 
-void draw_curve(const AppState& state, const Column (&columns)[2]) {
-  Plot plot = begin_plot(state, "Teaching curve", "points on the dissociation curve", 13.0f,
+void draw_curve(const AppState& state, const Column (&columns)[2], float height_em) {
+  Plot plot = begin_plot(state, "Teaching curve", "points on the dissociation curve", height_em,
                          {0, 120, 0, 100, 20, 20, "PO2, mmHg", "saturation, %"});
   dissociation::Curve standard = dissociation::Curve::standard();
   std::vector<PlotPoint> line;
@@ -171,28 +222,9 @@ void draw_curve(const AppState& state, const Column (&columns)[2]) {
   }
 }
 
-}  // namespace
-
-void draw_teaching_panel(AppState& state, Platform&) {
+// What the figures rest on: a column the model cannot give, extrapolation, then the cascades.
+void draw_column_notes(AppState& state, const Column (&columns)[2]) {
   const UnitChoice& u = state.settings.units;
-  heading("Teaching: sweep the altitude");
-  altitude_slider(state);
-  QuantityField<LengthDimension> f = altitude_field(state, "Altitude (teaching)", "teach-altitude");
-  f.low = metres(0);
-  f.high = metres(TeachingInputs::kTopM);
-  edit_quantity(state, f, state.teaching.altitude);
-
-  atmosphere::Model model = state.settings.model;
-  Result<Pressure> pb = atmosphere::pressure_at(state.teaching.altitude, model);
-  if (!pb) {
-    result_error(state, "PB (teaching)", pb.error().message);
-    return;
-  }
-  std::string pb_label = "PB (" + std::string(atmosphere::model_name(model)) + ")";
-  result_value(state, pb_label.c_str(), gas_pressure_text(pb.value(), u) + " = " + pressure_text(pb.value(), u));
-  Column columns[2] = {
-      {"acute", expected_spo2::expected(pb.value(), cascade::Exposure::Acute)},
-      {"acclimatised", expected_spo2::expected(pb.value(), cascade::Exposure::Acclimatised)}};
   for (const Column& c : columns) {
     if (!c.expectation) message_line(state, std::string(c.name) + ": " + c.expectation.error().message, true);
   }
@@ -203,16 +235,6 @@ void draw_teaching_panel(AppState& state, Platform&) {
     message_line(state, "Extrapolated: the field data behind these bands stop at " +
                             altitude_with_unit(metres(expected_spo2::kFieldDataTopM), u) + ".", true);
   }
-  // Wide screens (projector): chart and curve side by side.
-  bool side_by_side = ImGui::GetContentRegionAvail().x > 50.0f * em();
-  if (side_by_side) {
-    ImGui::BeginTable("teaching", 2);
-    ImGui::TableNextColumn();
-  }
-  draw_cascade_chart(state, columns, pb.value());
-  if (side_by_side) ImGui::TableNextColumn();
-  draw_curve(state, columns);
-  if (side_by_side) ImGui::EndTable();
   for (const Column& c : columns) {
     if (!c.expectation) continue;
     const cascade::CascadePath& mid = c.expectation->cascade.middle;
@@ -223,6 +245,50 @@ void draw_teaching_panel(AppState& state, Platform&) {
                      " \xE2\x86\x92 SaO2 " + percent_text(c.expectation->band.mid),
                  false);
   }
+}
+
+}  // namespace
+
+void draw_teaching_panel(AppState& state, Platform&) {
+  const UnitChoice& u = state.settings.units;
+  heading("Teaching: sweep the altitude");
+  // Wide (projector, laptop): controls, cascade and curve in three columns, the charts sized to
+  // the height left, so the slider and every chart show at once without scrolling.
+  bool wide = ImGui::GetContentRegionAvail().x > 44.0f * em();
+  if (wide) {
+    ImGui::BeginTable("teaching", 3);
+    ImGui::TableSetupColumn("controls", ImGuiTableColumnFlags_WidthStretch, 0.3f);
+    ImGui::TableSetupColumn("cascade", ImGuiTableColumnFlags_WidthStretch, 0.35f);
+    ImGui::TableSetupColumn("curve", ImGuiTableColumnFlags_WidthStretch, 0.35f);
+    ImGui::TableNextColumn();
+  }
+  float chart_height_em = ImGui::GetContentRegionAvail().y / em();  // from the row's top
+  altitude_slider(state);
+  QuantityField<LengthDimension> f = altitude_field(state, "Altitude (teaching)", "teach-altitude");
+  f.low = metres(0);
+  f.high = metres(TeachingInputs::kTopM);
+  edit_quantity(state, f, state.teaching.altitude);
+
+  atmosphere::Model model = state.settings.model;
+  Result<Pressure> pb = atmosphere::pressure_at(state.teaching.altitude, model);
+  if (!pb) {
+    result_error(state, "PB (teaching)", pb.error().message);
+    if (wide) ImGui::EndTable();
+    return;
+  }
+  std::string pb_label = "PB (" + std::string(atmosphere::model_name(model)) + ")";
+  result_value(state, pb_label.c_str(), gas_pressure_text(pb.value(), u) + " = " + pressure_text(pb.value(), u));
+  Column columns[2] = {
+      {"acute", expected_spo2::expected(pb.value(), cascade::Exposure::Acute)},
+      {"acclimatised", expected_spo2::expected(pb.value(), cascade::Exposure::Acclimatised)}};
+  draw_column_notes(state, columns);
+
+  ChartHeights heights = wide ? fit_charts(chart_height_em) : ChartHeights{};
+  if (wide) ImGui::TableNextColumn();
+  draw_cascade_chart(state, columns, pb.value(), heights);
+  if (wide) ImGui::TableNextColumn();
+  draw_curve(state, columns, heights.curve);
+  if (wide) ImGui::EndTable();
   caution_line(state);
 }
 

@@ -96,6 +96,7 @@ std::string state_to_json(const AppState& state) {
   j["version"] = kFormatVersion;
   j["screen"] = word(kScreenKeys, state.screen);
   j["settings"] = {{"theme", word(kThemeKeys, st.theme)},
+                   {"night_dim", st.night_dim},
                    {"model", std::string(atmosphere::model_key(st.model))},
                    {"altitude_unit", word(unit_keys(kAltitudeUnits), st.units.altitude)},
                    {"pressure_unit", word(unit_keys(kPressureUnits), st.units.pressure)},
@@ -154,6 +155,7 @@ bool state_from_json(AppState& state, const std::string& text) {
   const Json st = child(j, "settings");
   Settings& settings = state.settings;
   read(st, "theme", kThemeKeys, settings.theme);
+  read(st, "night_dim", settings.night_dim);
   if (auto it = st.find("model"); it != st.end() && it->is_string()) {
     if (Result<atmosphere::Model> m = atmosphere::parse_model(it->get_ref<const std::string&>())) {
       settings.model = m.value();

@@ -19,7 +19,7 @@ ImVec2 Plot::at(double x, double y) const {
 }
 
 ImU32 plot_colour(const AppState& state, PlotColour colour, float alpha) {
-  const Palette& p = palette(state.settings.theme);
+  const Palette& p = palette(state.settings.theme, state.settings.night_dim);
   ImVec4 c = p.text;
   switch (colour) {
     case PlotColour::Text: c = p.text; break;
@@ -79,9 +79,18 @@ Plot begin_plot(const AppState& state, const char* label, const std::string& sum
     }
   }
   if (axes.y_tick > 0) {
-    for (double y = std::ceil(axes.y0 / axes.y_tick) * axes.y_tick; y <= axes.y1 + 1e-9; y += axes.y_tick) {
+    // Likewise up the side: a short chart (side by side on a projector) numbers every n-th line.
+    float spacing = (plot.max.y - plot.min.y) * static_cast<float>(axes.y_tick / (axes.y1 - axes.y0));
+    int every = std::max(1, static_cast<int>(std::ceil(1.1f * em() / std::max(spacing, 1.0f))));
+    // A divisor of the line count, so the top line keeps its number (0, 50, 100; not 0, 75).
+    int lines = static_cast<int>(std::lround((axes.y1 - axes.y0) / axes.y_tick));
+    while (lines > 0 && every < lines && lines % every != 0) ++every;
+    int index = 0;
+    for (double y = std::ceil(axes.y0 / axes.y_tick) * axes.y_tick; y <= axes.y1 + 1e-9;
+         y += axes.y_tick, ++index) {
       ImVec2 p = plot.at(axes.x0, y);
       d->AddLine(ImVec2(plot.min.x, p.y), ImVec2(plot.max.x, p.y), grid);
+      if (index % every != 0) continue;
       std::string t = tick_text(y, axes.y_tick);
       float tw = ImGui::CalcTextSize(t.c_str()).x;
       d->AddText(ImVec2(plot.min.x - tw - 0.3f * em(), p.y - 0.5f * em()), text, t.c_str());

@@ -14,6 +14,12 @@ const Palette kDay{rgb(255, 255, 255), rgb(17, 17, 17),    rgb(61, 61, 61),   rg
 const Palette kNight{rgb(0, 0, 0),    rgb(230, 40, 30),  rgb(170, 30, 24), rgb(255, 80, 60),
                      rgb(255, 135, 105), rgb(255, 60, 50), rgb(36, 4, 2),   rgb(80, 10, 6),
                      rgb(120, 20, 12),  rgb(220, 40, 30)};
+// Night, dimmed: every light at about half the luminance (49–65 %), the bright tones lowered
+// most; the tones stay ≥ 1.3:1 apart and dim text 2.25:1 on black (WCAG 2.1 formulas; the
+// figures are checked in tests/ui).
+const Palette kNightDim{rgb(0, 0, 0),     rgb(179, 31, 23), rgb(139, 25, 20), rgb(191, 60, 45),
+                        rgb(184, 97, 76), rgb(191, 45, 38), rgb(29, 3, 2),    rgb(64, 8, 5),
+                        rgb(96, 16, 10),  rgb(172, 31, 23)};
 // Projection: white on very dark blue, large type.
 const Palette kProjection{rgb(12, 18, 32),   rgb(255, 255, 255), rgb(215, 222, 232),
                           rgb(120, 190, 255), rgb(255, 200, 90),  rgb(255, 120, 110),
@@ -22,9 +28,9 @@ const Palette kProjection{rgb(12, 18, 32),   rgb(255, 255, 255), rgb(215, 222, 2
 
 }  // namespace
 
-const Palette& palette(Theme theme) {
+const Palette& palette(Theme theme, bool night_dim) {
   switch (theme) {
-    case Theme::Night: return kNight;
+    case Theme::Night: return night_dim ? kNightDim : kNight;
     case Theme::Projection: return kProjection;
     case Theme::Day: break;
   }
@@ -42,8 +48,8 @@ const char* theme_label(Theme theme) {
   return "Day";
 }
 
-void apply_theme(Theme theme, float pixel_ratio) {
-  const Palette& p = palette(theme);
+void apply_theme(Theme theme, float pixel_ratio, bool night_dim) {
+  const Palette& p = palette(theme, night_dim);
   ImGuiStyle style;  // fresh defaults, then scaled: ScaleAllSizes is not idempotent
   style.WindowPadding = ImVec2(12, 12);
   style.FramePadding = ImVec2(10, 10);

@@ -16,9 +16,11 @@ struct Palette {
   ImVec4 good;
 };
 
-const Palette& palette(Theme theme);
+// `night_dim`: the night theme at about half the luminance, for eyes adapted to the dark; the
+// tones keep their order and separation. Ignored by day and projector.
+const Palette& palette(Theme theme, bool night_dim = false);
 float theme_text_scale(Theme theme);  // 1.0 day/night, 1.6 projection
-void apply_theme(Theme theme, float pixel_ratio);
+void apply_theme(Theme theme, float pixel_ratio, bool night_dim = false);
 const char* theme_label(Theme theme);
 
 }  // namespace firn::ui

@@ -262,7 +262,7 @@ void tone_word_badge(Tone tone, ImU32 colour, ImU32 background) {
 }  // namespace
 
 void verdict_line(const AppState& state, Tone tone, const std::string& text) {
-  const Palette& p = palette(state.settings.theme);
+  const Palette& p = palette(state.settings.theme, state.settings.night_dim);
   const ImVec4 colour = tone_colour(p, tone);
   const ImU32 colour32 = ImGui::GetColorU32(colour);
   const ImU32 background32 = ImGui::GetColorU32(p.background);

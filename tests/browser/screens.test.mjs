@@ -518,10 +518,27 @@ for (const device of DEVICES) {
       await d.screen('Here');
       console.log(`${device.name} night: ${await d.shot('here-night')}`);
       await d.screen('Settings');
+      await d.tap('Night: dim');
+      await d.waitText('Night: dim', (t) => t === 'selected');
+      await d.screen('Casualty');
+      console.log(`${device.name} night, dimmed: ${await d.shot('casualty-night-dim')}`);
+      await d.screen('Settings');
+      await d.tap('Night: normal');
+      await d.waitText('Night: normal', (t) => t === 'selected');
+      await d.screen('Settings');
       await d.tap('Projector');
       await d.waitText('Projector', (t) => t === 'selected');
       await d.screen('Teaching');
       console.log(`${device.name} projector: ${await d.shot('teaching-projector')}`);
+      if (!device.touch) {
+        // Issue 12: on a 1366×768 projector image the slider and every chart show at once.
+        const nav = await d.item('Here');
+        for (const label of ['Teaching altitude', 'Cascade chart', 'Saturation chart', 'Teaching curve']) {
+          const it = await d.item(label);
+          assert.ok(it && it.y >= 0 && it.y + it.h <= nav.y,
+                    `${label} (${it?.y}+${it?.h}) is above the navigation bar (${nav.y}) unscrolled`);
+        }
+      }
       await d.screen('Casualty');
       await d.shot('casualty-projector');
       await d.screen('Settings');

@@ -6,7 +6,7 @@ import assert from 'node:assert/strict';
 import {join} from 'node:path';
 import {test} from 'node:test';
 
-import {launch, requiredEnv, screenshotDir} from './browser.mjs';
+import {launch, requiredEnv, screenshotDir, waitForApp} from './browser.mjs';
 import {serveSite} from './serve.mjs';
 
 const site = requiredEnv('FIRN_SITE', 'the built site folder (build/web/site)');
@@ -73,5 +73,47 @@ test('the calculator does not arrive: the page says it could not load and what t
     const file = join(screenshotDir(), 'web-start-no-wasm.png');
     await page.screenshot({path: file});
     console.log(`screenshot: ${file}`);
+  });
+});
+
+test('first start on a slow link: what Firn is, and the calculator\'s download moving', async () => {
+  // Issue 12: ~15 s of "starting…" with no sign of life on slow 3G. 750 KB at 200 KB/s.
+  await withPage(async ({context, page}) => {
+    await context.addInitScript(() => {
+      window.firnProgressSeen = [];
+      new MutationObserver(() => {
+        const line = document.getElementById('loading-progress');
+        if (line && !window.firnProgressSeen.includes(line.textContent)) {
+          window.firnProgressSeen.push(line.textContent);
+        }
+      }).observe(document, {subtree: true, childList: true, characterData: true});
+    });
+    const cdp = await context.newCDPSession(page);
+    await cdp.send('Network.enable');
+    await cdp.send('Network.emulateNetworkConditions', {
+      offline: false, latency: 150, downloadThroughput: 200 * 1024, uploadThroughput: 50 * 1024});
+  }, async (page) => {
+    await page.waitForFunction(() => /of/.test(document.getElementById('loading-progress').textContent),
+                               null, {timeout: 30000});
+    const about = await page.evaluate(() => document.getElementById('loading').textContent);
+    assert.match(about, /altitude and oxygen field calculator/, 'the page says what Firn is');
+    assert.match(about, /works offline/);
+    const file = join(screenshotDir(), 'web-start-slow-link.png');
+    await page.screenshot({path: file});
+    console.log(`screenshot: ${file}`);
+    await waitForApp(page, 120000);
+    const seen = await page.evaluate(() => window.firnProgressSeen);
+    const total = await page.evaluate(() =>
+      Math.round(Number(document.querySelector('meta[name="firn-wasm-bytes"]').content) / 1024));
+    assert.ok(total > 100, `firn.wasm's size is on the page (${total} KB)`);
+    const counts = seen.map((t) => t.match(/^Loading the calculator: ([\d,]+) of ([\d,]+) KB$/))
+                       .filter(Boolean);
+    assert.ok(counts.length >= 3, `the count moved: ${JSON.stringify(seen)}`);
+    const number = (text) => Number(text.replace(/,/g, ''));
+    for (const c of counts) assert.equal(number(c[2]), total, 'against the whole calculator');
+    const loaded = counts.map((c) => number(c[1]));
+    assert.deepEqual(loaded, [...loaded].sort((a, b) => a - b), 'never backwards');
+    assert.equal(loaded.at(-1), total, 'it reached the whole size');
+    assert.equal(await page.evaluate(() => document.getElementById('loading').hidden), true);
   });
 });

@@ -290,6 +290,7 @@ TEST_CASE("Teaching: landmarks to the highest summit, arrow keys step 50 m, extr
   };
   // Above the field data (5,000 m, expected_spo2::kFieldDataTopM) the bands are extrapolated.
   CHECK(warnings().find("Extrapolated") != std::string::npos);
+  CHECK(ui.text(state, "Teaching extrapolated") != "(absent)");  // beside the altitude too
   auto press = [&](ImGuiKey_ key) {
     ImGui::GetIO().KeysDown[key] = true;  // the harness maps every key to its own index
     ui.frame(state);
@@ -303,6 +304,7 @@ TEST_CASE("Teaching: landmarks to the highest summit, arrow keys step 50 m, extr
   press(ImGuiKey_RightArrow);
   CHECK(state.teaching.altitude.in(units::metres) == 3900.0);
   CHECK(warnings().empty());  // 3,900 m is inside the field data
+  CHECK(ui.text(state, "Teaching extrapolated") == "(absent)");
   ui.click(state, "Sea level");
   press(ImGuiKey_LeftArrow);
   CHECK(state.teaching.altitude.in(units::metres) == 0.0);  // clamped at sea level
@@ -624,8 +626,35 @@ TEST_CASE("verdict tones differ in lightness in the all-red night theme") {
     auto lin = [](float v) { return v <= 0.04045f ? v / 12.92f : std::pow((v + 0.055f) / 1.055f, 2.4f); };
     return 0.2126f * lin(c.x) + 0.7152f * lin(c.y) + 0.0722f * lin(c.z);
   };
-  const Palette& night = palette(Theme::Night);
-  float caution = luminance(night.warning), good = luminance(night.good), dim = luminance(night.text_dim);
-  CHECK((caution + 0.05f) / (good + 0.05f) >= 1.3f);
-  CHECK((good + 0.05f) / (dim + 0.05f) >= 1.3f);
+  for (bool dimmed : {false, true}) {
+    INFO("night dimmer " << dimmed);
+    const Palette& night = palette(Theme::Night, dimmed);
+    float caution = luminance(night.warning), good = luminance(night.good), dim = luminance(night.text_dim);
+    CHECK((caution + 0.05f) / (good + 0.05f) >= 1.3f);
+    CHECK((good + 0.05f) / (dim + 0.05f) >= 1.3f);
+    CHECK((dim + 0.05f) / (luminance(night.background) + 0.05f) >= 2.0f);  // dim text still reads
+  }
+  // The dimmer lowers every light to at most 2/3 of its luminance, the brightest the most.
+  const Palette& bright = palette(Theme::Night);
+  const Palette& dimmed = palette(Theme::Night, true);
+  for (auto member : {&Palette::text, &Palette::text_dim, &Palette::accent, &Palette::warning,
+                      &Palette::danger, &Palette::good}) {
+    CHECK(luminance(dimmed.*member) <= 0.67f * luminance(bright.*member));
+  }
+  CHECK(luminance(dimmed.warning) <= 0.5f * luminance(bright.warning));
+  CHECK(&palette(Theme::Day, true) == &palette(Theme::Day));  // day ignores the dimmer
+}
+
+TEST_CASE("Settings: the night dimmer shows with the night theme only and is saved") {
+  Headless ui;
+  ui.panel = draw_settings_panel;
+  AppState state;
+  CHECK(ui.text(state, "Night: dim") == "(absent)");
+  ui.click(state, "Night");
+  REQUIRE(state.settings.theme == Theme::Night);
+  ui.click(state, "Night: dim");
+  CHECK(state.settings.night_dim);
+  AppState back;
+  REQUIRE(state_from_json(back, state_to_json(state)));
+  CHECK(back.settings.night_dim);
 }

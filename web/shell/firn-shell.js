@@ -6,6 +6,7 @@
 
   var canvas = document.getElementById('canvas');
   var loading = document.getElementById('loading');
+  var progress = document.getElementById('loading-progress');
   var problemBox = document.getElementById('problem');
   var runner = 0;      // pointer handed over by main(); 0 until the app runs
   var running = false;
@@ -156,18 +157,72 @@
     if (!running && !window.firnProblem) showProblem('wasm', String(event.reason));
   });
 
+  // "Loading the calculator: 310 of 750 KB": a first visit on a weak link shows it moving. The
+  // total is firn.wasm's size as built (make_site.mjs); the stream counts bytes after any
+  // transfer compression, so the two compare.
+  function showProgress(loaded, total) {
+    var kb = function (bytes) { return Math.round(bytes / 1024).toLocaleString('en-US'); };
+    progress.textContent = total > 0
+        ? 'Loading the calculator: ' + kb(Math.min(loaded, total)) + ' of ' + kb(total) + ' KB'
+        : 'Loading the calculator: ' + kb(loaded) + ' KB';
+    window.firnLoadedBytes = loaded;
+  }
+
+  function countedResponse(response, total) {
+    if (!response.body || typeof ReadableStream !== 'function') return response;
+    var reader = response.body.getReader();
+    var loaded = 0;
+    var stream = new ReadableStream({
+      pull: function (controller) {
+        return reader.read().then(function (chunk) {
+          if (chunk.done) return controller.close();
+          loaded += chunk.value.byteLength;
+          showProgress(loaded, total);
+          controller.enqueue(chunk.value);
+        });
+      }
+    });
+    return new Response(stream, {headers: {'Content-Type': 'application/wasm'}});
+  }
+
+  // Emscripten's hook for loading the module ourselves: the same URL and credentials as its
+  // own fetch (so the page's preload is used), compiled while it streams in.
+  function instantiateWasm(url, total) {
+    return function (imports, receiveInstance) {
+      showProgress(0, total);
+      fetch(url, {credentials: 'same-origin'}).then(function (response) {
+        if (!response.ok) throw new Error('firn.wasm: HTTP ' + response.status);
+        var counted = countedResponse(response, total);
+        if (typeof WebAssembly.instantiateStreaming === 'function') {
+          return WebAssembly.instantiateStreaming(counted, imports);
+        }
+        return counted.arrayBuffer().then(function (bytes) {
+          return WebAssembly.instantiate(bytes, imports);
+        });
+      }).then(function (result) {
+        progress.textContent = 'Firn is starting…';
+        receiveInstance(result.instance, result.module);
+      }).catch(function (error) {
+        if (!window.firnProblem) showProblem('wasm', String(error));
+      });
+      return {};  // exports arrive through receiveInstance
+    };
+  }
+
   function start() {
     if (typeof WebAssembly !== 'object') return showProblem('wasm', 'no WebAssembly in this browser');
     if (!hasWebGL2()) return showProblem('webgl');
     // Ask for this page's own build of the calculator (see make_site.mjs and sw.js).
     var meta = document.querySelector('meta[name="firn-build"]');
     var tag = meta ? '?build=' + encodeURIComponent(meta.content) : '';
+    var size = document.querySelector('meta[name="firn-wasm-bytes"]');
     window.Module = {
       canvas: canvas,
       locateFile: function (path, prefix) { return prefix + path + tag; },
       print: function (text) { console.log(text); },
       printErr: function (text) { console.warn(text); },
-      onAbort: function (what) { showProblem(running ? 'crash' : 'wasm', String(what || '')); }
+      onAbort: function (what) { showProblem(running ? 'crash' : 'wasm', String(what || '')); },
+      instantiateWasm: instantiateWasm('firn.wasm' + tag, size ? Number(size.content) : 0)
     };
     var script = document.createElement('script');
     script.src = 'firn.js' + tag;
