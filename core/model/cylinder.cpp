@@ -93,7 +93,7 @@ std::string letter_size_assumption(LetterSize size) {
   LetterSizeInfo info = letter_size_info(size);
   return "size " + std::string(info.name) + ": water capacity " +
          format_number(info.water_capacity.in(litres), 1) +
-         " L assumed (a typical US cylinder, from memory; D and E vary by maker): check the label "
+         " L assumed (a typical US cylinder; D and E vary by maker): check the label "
          "and give your own water capacity";
 }
 

@@ -234,7 +234,7 @@ Result<EvacuationPlan> plan_evacuation(const PlanInput& input) {
     }
   }
   if (counting->usable_l <= kVolumeEpsilonL) {
-    return Error{"the cylinder to count in (" + counting->label +
+    return Error{"the cylinder to start with (" + counting->label +
                  ") must be filled above the reserve pressure"};
   }
 

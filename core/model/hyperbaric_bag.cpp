@@ -194,7 +194,7 @@ Result<BagResult> compute(Pressure ambient, Length ambient_altitude, atmosphere:
                       " and VO2 " + format_number(s.vo2_stpd.in(litres_per_minute), 2) +
                       " L/min STPD (resting " + format_number(rest_vco2_lpm, 2) + " and " +
                       format_number(rest_vo2_lpm, 2) +
-                      ", from memory; shivering or distress several times more).");
+                      ", typical resting figures; shivering or distress several times more).");
   } else if (s.oxygen_feed.in(litres_per_minute) > 0.0) {
     r.notes.push_back("An oxygen feed is only balanced together with a fresh-air flush "
                       "(give the flush).");

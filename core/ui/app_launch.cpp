@@ -13,11 +13,11 @@ constexpr auto kScreenKeys = [] {
   return keys;
 }();
 
-constexpr std::array<std::pair<std::string_view, Theme>, 3> kThemes{{
-    {"day", Theme::Day},
-    {"night", Theme::Night},
-    {"projector", Theme::Projection},
-}};
+constexpr auto kThemes = [] {
+  std::array<std::pair<std::string_view, Theme>, kThemeKeys.size()> keys{};
+  for (std::size_t i = 0; i < keys.size(); ++i) keys[i] = {kThemeKeys[i], static_cast<Theme>(i)};
+  return keys;
+}();
 
 template <class T, size_t N>
 Result<T> lookup(const std::array<std::pair<std::string_view, T>, N>& table,

@@ -24,6 +24,8 @@ struct ImFont;
 namespace firn::ui {
 
 enum class Theme { Day, Night, Projection };
+// Each theme's key in saved state and --theme, in the enum's order (labels: ui/theme.hpp).
+inline constexpr std::array<std::string_view, 3> kThemeKeys{"day", "night", "projector"};
 
 // Order = order in the navigation bar.
 enum class Screen { Here, Casualty, Curve, Bag, Oxygen, Route, Ams, Record, Teaching, Team, Settings };

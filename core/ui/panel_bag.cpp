@@ -130,7 +130,7 @@ void draw_casualty_fields(AppState& state) {
                                           bag::min_vo2_lpm, bag::max_vo2_lpm), in.vo2);
   message_line(state, "At rest about " + shown_number(bag::rest_vco2_lpm, 2) + " and " +
                           shown_number(bag::rest_vo2_lpm, 2) +
-                          " L/min (from memory); shivering or distress several times more.");
+                          " L/min (typical resting figures); shivering or distress several times more.");
   edit_quantity(state, temperature_field(state, "Gas temperature in the bag", "bag-chamber",
                                          bag::min_chamber_c, bag::max_chamber_c),
                 in.chamber_temperature);

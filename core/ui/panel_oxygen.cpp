@@ -189,8 +189,8 @@ void draw_plan(AppState& state, Pressure ambient, const ChosenCylinder& chosen) 
   OxygenInputs& in = state.oxygen;
   heading("Evacuation plan (cylinders like this one, used in turn)");
   int_stepper(state, "Cylinders", "plan-count", &in.cylinder_count, 1, 20);
-  edit_quantity(state, flow_field("First flow", "plan-first-flow", cylinder::max_flow_lpm), in.first_flow);
-  edit_quantity(state, duration_field("First flow for", "plan-first-time", 0, 4320), in.first_phase);
+  edit_quantity(state, flow_field("Starting flow", "plan-first-flow", cylinder::max_flow_lpm), in.first_flow);
+  edit_quantity(state, duration_field("Starting flow lasts", "plan-first-time", 0, 4320), in.first_phase);
   edit_quantity(state, duration_field("Evacuation time", "plan-time", 1, 4320), in.evacuation);
   ImGui::TextDisabled("Then the flow above until arrival.");
 

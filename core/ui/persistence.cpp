@@ -27,7 +27,6 @@ constexpr auto kScreenKeys = [] {
   for (std::size_t i = 0; i < keys.size(); ++i) keys[i] = kScreenNames[i].key;
   return keys;
 }();
-constexpr std::array<std::string_view, 3> kThemeKeys{"day", "night", "projector"};
 constexpr std::array<std::string_view, 3> kSourceKeys{"altitude", "station", "qnh"};
 // Unit choices are saved as the unit's parsing spelling ("hpa", "c") and read case-insensitively,
 // so files that saved the symbol ("hPa") or "C" read the same.

@@ -9,6 +9,7 @@
 // Env: FIRN_SITE (built site); FIRN_SESSION_STEPS (default 300); FIRN_SESSION_SEED (default:
 // random, printed); FIRN_SCREENSHOTS (the last screen is saved there).
 import assert from 'node:assert/strict';
+import {readFileSync} from 'node:fs';
 import {cpus, loadavg} from 'node:os';
 import {join} from 'node:path';
 import {test} from 'node:test';
@@ -23,7 +24,10 @@ const BASELINE_STEP = 100;
 const HEAP_TOLERANCE = 0.10;  // issue 7: heap at the end within 10 % of after the first 100
 assert.ok(STEPS > BASELINE_STEP, `FIRN_SESSION_STEPS must be over ${BASELINE_STEP} (the heap baseline)`);
 
-const NAV = ['Here', 'Casualty', 'Curve', 'Bag', 'Oxygen', 'Route', 'AMS', 'Record', 'Teaching', 'Team', 'Settings'];
+// The bar's labels from their one table (kScreenNames in core/ui/app_state.hpp).
+const NAV = [...readFileSync(new URL('../../core/ui/app_state.hpp', import.meta.url), 'utf8')
+  .matchAll(/\{Screen::\w+, "[a-z]+", "([^"]+)"\}/g)].map((m) => m[1]);
+if (NAV.length < 11) throw new Error(`screen labels not found in app_state.hpp: ${NAV}`);
 const UNITS = ['m', 'ft', 'hPa', 'mmHg', 'kPa', 'inHg', 'bar', 'psi', '°C', '°F'];
 const THEMES = ['Day', 'Night', 'Projector'];
 // These leave the canvas (print dialogue, download, file picker): covered by profile.test.mjs.

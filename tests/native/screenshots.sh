@@ -9,7 +9,11 @@ mkdir -p "$out"
 export XDG_CONFIG_HOME="$(mktemp -d)"
 trap 'rm -rf "$XDG_CONFIG_HOME"' EXIT
 fail=0
-for screen in here casualty curve bag oxygen route ams record teaching team settings keypad; do
+# The screens' keys from their one table (kScreenNames in core/ui/app_state.hpp), then the keypad.
+screens=$(sed -nE 's/^ *\{Screen::[A-Za-z]+, "([a-z]+)", "[^"]*"\},?$/\1/p' \
+  "$(dirname "$0")/../../core/ui/app_state.hpp")
+[ "$(wc -w <<<"$screens")" -ge 11 ] || { echo "not ok: screen keys not found in app_state.hpp"; exit 1; }
+for screen in $screens keypad; do
   for size in phone:430:900 laptop:1366:768; do
     IFS=: read -r name width height <<<"$size"
     png="$out/$screen-$name.png"
