@@ -222,7 +222,7 @@ void draw_curve(const AppState& state, const Column (&columns)[2], float height_
   }
 }
 
-// What the figures rest on: a column the model cannot give, extrapolation, then the cascades.
+// What the figures rest on: a column the model cannot give, extrapolation.
 void draw_column_notes(AppState& state, const Column (&columns)[2]) {
   const UnitChoice& u = state.settings.units;
   for (const Column& c : columns) {
@@ -235,6 +235,11 @@ void draw_column_notes(AppState& state, const Column (&columns)[2]) {
     message_line(state, "Extrapolated: the field data behind these bands stop at " +
                             altitude_with_unit(metres(expected_spo2::kFieldDataTopM), u) + ".", true);
   }
+}
+
+// Each exposure's cascade in one line of text.
+void draw_cascade_lines(AppState& state, const Column (&columns)[2]) {
+  const UnitChoice& u = state.settings.units;
   for (const Column& c : columns) {
     if (!c.expectation) continue;
     const cascade::CascadePath& mid = c.expectation->cascade.middle;
@@ -282,6 +287,7 @@ void draw_teaching_panel(AppState& state, Platform&) {
       {"acute", expected_spo2::expected(pb.value(), cascade::Exposure::Acute)},
       {"acclimatised", expected_spo2::expected(pb.value(), cascade::Exposure::Acclimatised)}};
   draw_column_notes(state, columns);
+  if (wide) draw_cascade_lines(state, columns);  // beside the charts; on a phone, after them
 
   ChartHeights heights = wide ? fit_charts(chart_height_em) : ChartHeights{};
   if (wide) ImGui::TableNextColumn();
@@ -289,6 +295,7 @@ void draw_teaching_panel(AppState& state, Platform&) {
   if (wide) ImGui::TableNextColumn();
   draw_curve(state, columns, heights.curve);
   if (wide) ImGui::EndTable();
+  if (!wide) draw_cascade_lines(state, columns);
   caution_line(state);
 }
 
