@@ -12,15 +12,13 @@
 #include <cstdio>
 #include <vector>
 
+#include "glfw_frame.hpp"
 #include "native_platform.hpp"
 #include "ui/app.hpp"
 #include "ui/app_launch.hpp"
 
 namespace firn::native {
 namespace {
-
-// After an input event ImGui needs a few frames to settle (hover, release, layout).
-constexpr int kSettleFrames = 3;
 
 bool write_screenshot(const std::string& path, int width, int height) {
   std::vector<unsigned char> pixels(static_cast<size_t>(width) * height * 4);
@@ -80,7 +78,7 @@ int run_app(const cli::AppOptions& options) {
   }
 
   // [SECTION] Event loop (sleeps when idle)
-  int settle = kSettleFrames;
+  int settle = glfw::kSettleFrames;
   int frames_for_capture = std::max(options.frames, 2);
   double idle_start = 0.0;
   int idle_frames_at_start = 0;
@@ -108,28 +106,14 @@ int run_app(const cli::AppOptions& options) {
       } else {
         glfwWaitEvents();  // sleeps until input: an idle app draws nothing
       }
-      settle = kSettleFrames;  // woken by an event: draw until ImGui settles again
+      settle = glfw::kSettleFrames;  // woken by an event: draw until ImGui settles again
     } else {
       glfwPollEvents();
     }
 
-    if (ui::update_fonts(state)) {
-      ImGui_ImplOpenGL3_DestroyFontsTexture();
-      ImGui_ImplOpenGL3_CreateFontsTexture();
-    }
-    ImGui_ImplOpenGL3_NewFrame();
-    ImGui_ImplGlfw_NewFrame();
-    ImGui::NewFrame();
+    glfw::draw_frame(window, state, platform);
     int fb_width = 0, fb_height = 0;
     glfwGetFramebufferSize(window, &fb_width, &fb_height);
-    ImGui::GetIO().DisplayFramebufferScale = ImVec2(1.0f, 1.0f);
-    ui::draw_frame(state, platform, ImGui::GetIO().DisplaySize.x, ImGui::GetIO().DisplaySize.y);
-    ImGui::Render();
-    glViewport(0, 0, fb_width, fb_height);
-    const ImVec4 clear = ImGui::GetStyle().Colors[ImGuiCol_WindowBg];
-    glClearColor(clear.x, clear.y, clear.z, 1.0f);
-    glClear(GL_COLOR_BUFFER_BIT);
-    ImGui_ImplOpenGL3_RenderDrawData(ImGui::GetDrawData());
     --settle;
 
     // [SECTION] Screenshot

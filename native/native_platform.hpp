@@ -20,6 +20,7 @@ class NativePlatform final : public ui::Platform {
   std::string_view name() const override { return "native"; }
   // A typed path (empty: <config dir>/team-profile-import.json); read at once.
   bool request_file_import(std::string_view path) override;
+  bool imports_by_path() const override { return true; }
   std::optional<ui::ImportedFile> take_imported_file() override;
   std::string offer_download(std::string_view file_name, std::string_view text) override;
   std::string storage_location() const override { return config_dir_; }

@@ -14,20 +14,18 @@
 #include <algorithm>
 #include <cmath>
 
+#include "glfw_frame.hpp"
 #include "ui/app.hpp"
 #include "web_platform.hpp"
 
 namespace firn::web {
 namespace {
 
-// After an input event ImGui needs a few frames to settle (hover, release, layout).
-constexpr int kSettleFrames = 4;
-
 struct WebRunner {
   GLFWwindow* window = nullptr;
   ui::AppState state;
   WebPlatform platform;
-  int settle_frames = kSettleFrames;
+  int settle_frames = glfw::kSettleFrames;
   bool paused = false;
   int page_colour = -1;  // 0xRRGGBB last given to the page shell, -1 before the first frame
 };
@@ -70,34 +68,14 @@ void follow_canvas_size(WebRunner& runner) {
 void draw_one_frame(void* argument) {
   WebRunner& runner = *static_cast<WebRunner*>(argument);
   follow_canvas_size(runner);
-  if (ui::update_fonts(runner.state)) {
-    ImGui_ImplOpenGL3_DestroyFontsTexture();
-    ImGui_ImplOpenGL3_CreateFontsTexture();
-  }
-  ImGui_ImplOpenGL3_NewFrame();
-  ImGui_ImplGlfw_NewFrame();
-  ImGuiIO& io = ImGui::GetIO();
-  io.DisplayFramebufferScale = ImVec2(1.0f, 1.0f);
-  ImGui::NewFrame();
-  ui::draw_frame(runner.state, runner.platform, io.DisplaySize.x, io.DisplaySize.y);
-  ImGui::Render();
-  int fb_width = 0, fb_height = 0;
-  glfwGetFramebufferSize(runner.window, &fb_width, &fb_height);
-  glViewport(0, 0, fb_width, fb_height);
-  const ImVec4 clear = ImGui::GetStyle().Colors[ImGuiCol_WindowBg];
-  glClearColor(clear.x, clear.y, clear.z, 1.0f);
-  glClear(GL_COLOR_BUFFER_BIT);
-  ImGui_ImplOpenGL3_RenderDrawData(ImGui::GetDrawData());
-
+  int colour = glfw::draw_frame(runner.window, runner.state, runner.platform);
   // The browser's bars and the page behind the canvas follow the theme (day white, night black).
-  auto channel = [](float value) { return std::clamp(static_cast<int>(value * 255.0f + 0.5f), 0, 255); };
-  int colour = (channel(clear.x) << 16) | (channel(clear.y) << 8) | channel(clear.z);
   if (colour != runner.page_colour) {
     runner.page_colour = colour;
     publish_page_colour(colour);
   }
 
-  publish_frame_info(runner.state.frames_drawn, io.WantTextInput, runner.state.pixel_ratio);
+  publish_frame_info(runner.state.frames_drawn, ImGui::GetIO().WantTextInput, runner.state.pixel_ratio);
   if (--runner.settle_frames <= 0) {
     runner.paused = true;
     emscripten_pause_main_loop();  // idle: no frames until firn_wake()
@@ -128,7 +106,7 @@ void scroll_callback(GLFWwindow* window, double dom_x, double dom_y) {
 extern "C" EMSCRIPTEN_KEEPALIVE void firn_wake(void* runner_pointer) {
   auto* runner = static_cast<firn::web::WebRunner*>(runner_pointer);
   if (runner == nullptr) return;
-  runner->settle_frames = firn::web::kSettleFrames;
+  runner->settle_frames = firn::glfw::kSettleFrames;
   if (runner->paused) {
     runner->paused = false;
     emscripten_resume_main_loop();

@@ -235,7 +235,6 @@ struct AppState {
   Screen screen = Screen::Here;
   Keypad keypad;
   std::map<std::string, std::string> field_errors;  // field id → message naming range and unit
-  std::map<std::string, std::string> last_results;  // label → text, saved for the next start
   std::string status_message;  // e.g. "saved state could not be read"
   bool caution_open = false;   // the "Read more" text below a result screen
   bool casualty_why_open = false;  // Casualty screen: the reasons and cautions under the verdict

@@ -31,9 +31,6 @@ std::string grouped_number(double value, int decimals);
 // "−1 640 to 29 500 ft", not "-1640.42–29527.56 ft". The one place a range is rounded for display.
 std::string range_text(double low, double high, std::string_view symbol, int decimals);
 
-}  // namespace firn::ui
-
-namespace firn::ui {
 std::string cylinder_pressure_text(units::Pressure gauge, const UnitChoice& units);
 std::string temperature_text(units::Temperature temperature, const UnitChoice& units);
 std::string percent_text(units::Fraction fraction, int decimals = 0);

@@ -124,9 +124,8 @@ void draw_file_actions(AppState& state, Platform& platform) {
   heading("Profile file");
   if (big_button(state, "Load demo profile")) use_demo_profile(state, platform);
 
-  bool native = platform.name() == "native";
-  if (native) {
-    // The desktop has a keyboard: a path is typed (empty: the file in the config folder).
+  if (platform.imports_by_path()) {
+    // Empty: the file in the config folder.
     std::string hint = platform.storage_location() + "/team-profile-import.json";
     ImGui::TextDisabled("Profile file to import");
     ImGui::SetNextItemWidth(-1.0f);

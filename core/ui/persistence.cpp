@@ -142,7 +142,6 @@ std::string state_to_json(const AppState& state) {
               {"fatigue", a.fatigue}, {"dizziness", a.dizziness},
               {"recent_ascent", a.recent_ascent}};
   j["teaching"] = {{"altitude_m", state.teaching.altitude.in(metres)}};
-  j["last_results"] = state.last_results;
   return j.dump(1);
 }
 
@@ -227,10 +226,6 @@ bool state_from_json(AppState& state, const std::string& text) {
 
   read(child(j, "teaching"), "altitude_m", metres, 0, TeachingInputs::kTopM, state.teaching.altitude);
 
-  const Json r = child(j, "last_results");
-  for (auto it = r.begin(); it != r.end(); ++it) {
-    if (it.value().is_string()) state.last_results[it.key()] = it.value().get<std::string>();
-  }
   return true;
 }
 

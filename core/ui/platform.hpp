@@ -45,6 +45,9 @@ class Platform {
   // Returns false when nothing can be asked. The picked file is collected with
   // take_imported_file() on a later frame (once).
   virtual bool request_file_import(std::string_view path) { return (void)path, false; }
+  // True where the file to import is named by a typed path (a desktop keyboard), false where
+  // the platform's own picker names it.
+  virtual bool imports_by_path() const { return false; }
   virtual std::optional<ImportedFile> take_imported_file() { return std::nullopt; }
   // Hands `text` to the user as a file called `file_name` (web: a download; native: written to
   // the config directory). Returns where it went, for the message; empty when it failed.

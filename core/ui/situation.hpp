@@ -5,8 +5,10 @@
 #include <optional>
 #include <string>
 
+#include "model/expected_spo2.hpp"
 #include "model/latitude_month.hpp"
 #include "model/result.hpp"
+#include "model/supplemental_oxygen.hpp"
 #include "model/units.hpp"
 #include "ui/app_state.hpp"
 
@@ -29,13 +31,6 @@ std::string situation_summary(const AppState& state);
 
 // The summary as a full-width button; tapping it opens the Here screen.
 void draw_situation_strip(AppState& state);
-
-}  // namespace firn::ui
-
-#include "model/expected_spo2.hpp"
-#include "model/supplemental_oxygen.hpp"
-
-namespace firn::ui {
 
 // Where on the acclimatisation time course the casualty is (from the time at altitude).
 cascade::Acclimatisation situation_acclimatisation(const AppState& state);

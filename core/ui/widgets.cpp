@@ -125,7 +125,6 @@ bool choice_row(const AppState& state, const char* id, const char* const* labels
 
 void result_value(AppState& state, const char* label, const std::string& shown,
                   bool emphasised) {
-  state.last_results[label] = shown;
   if (!emphasised) {
     // Secondary results on one line: the large ones stay above the fold on a phone.
     // Label and value share a line when they fit; otherwise the value wraps on its own line

@@ -48,7 +48,7 @@ bool choice_row(const AppState& state, const char* id, const char* const* labels
                 int* selected);
 
 // A labelled result: name in small type, value large, unit after it. `shown` is what the test
-// hook reads back ("701.2 hPa"); it is also kept in state.last_results for the next start.
+// hook reads back ("701.2 hPa").
 void result_value(AppState& state, const char* label, const std::string& shown,
                   bool emphasised = true);
 

@@ -107,6 +107,11 @@ async function runSession() {
   const context = await browser.newContext({viewport, deviceScaleFactor: 1, hasTouch: true,
                                             isMobile: true});
   const page = await context.newPage();
+  // A document the app opens (team reference sheet, handover) is a new window, and while it is
+  // open headless Chromium gives the app's page about one animation frame a second (measured:
+  // 2 frames in 2 s against 120, timers unchanged, the page "visible" and focused): every step
+  // then waits on frames. This was the long-session stall (docs/measurements.md). Close it.
+  context.on('page', (opened) => { if (opened !== page) opened.close().catch(() => {}); });
   const errors = [];
   page.on('console', (message) => {
     if (message.type() === 'error') errors.push(`console: ${message.text()}`);

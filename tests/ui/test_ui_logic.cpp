@@ -187,7 +187,6 @@ TEST_CASE("saved state: round trip keeps values at full precision") {
   state.situation.spo2 = units::percent(72.0);
   state.oxygen.gauge = units::psi(2175.0);
   state.screen = Screen::Teaching;
-  state.last_results["Lasts to reserve"] = "1 h 16 min";
   AppState back;
   REQUIRE(state_from_json(back, state_to_json(state)));
   CHECK(back.settings.theme == Theme::Night);
@@ -198,7 +197,6 @@ TEST_CASE("saved state: round trip keeps values at full precision") {
   CHECK(back.situation.spo2.in(units::percent) == Approx(72.0));
   CHECK(back.oxygen.gauge.in(units::psi) == Approx(2175.0).epsilon(1e-12));
   CHECK(back.screen == Screen::Teaching);
-  CHECK(back.last_results["Lasts to reserve"] == "1 h 16 min");
 }
 
 TEST_CASE("saved state: garbage gives defaults, a kept backup and a message") {
