@@ -73,8 +73,12 @@ Result<double> check_input(const PlanInput& in) {
     }
     // Fuzz finding: 1e-310 L/min made the spare time infinite (and the CLI assert on it).
     if (f > 0.0 && f < cylinder::min_flow_lpm) return tiny_flow_error(i, f);
-    double d = in.phases[i].duration.in(minutes);
-    if (i + 1 < in.phases.size() && !in_range(d, 1.0, kMaxEvacuationH * 60.0)) {
+    if (i + 1 == in.phases.size()) continue;  // open-ended: its duration, if any, is not used
+    if (!in.phases[i].duration) {
+      return Error{"phase " + std::to_string(i + 1) + " needs a duration (only the last runs to the end)"};
+    }
+    double d = in.phases[i].duration->in(minutes);
+    if (!in_range(d, 1.0, kMaxEvacuationH * 60.0)) {
       return range_error("duration of phase " + std::to_string(i + 1), 1, kMaxEvacuationH * 60,
                          "min", d);
     }
@@ -243,7 +247,7 @@ Result<EvacuationPlan> plan_evacuation(const PlanInput& input) {
   for (const FlowPhase& phase : input.phases) {
     schedule.starts_min.push_back(t_acc);
     schedule.flows_lpm.push_back(phase.flow.in(litres_per_minute));
-    t_acc += phase.duration.in(minutes);
+    t_acc += phase.duration ? phase.duration->in(minutes) : 0.0;  // the last: open-ended
   }
 
   EvacuationPlan plan;

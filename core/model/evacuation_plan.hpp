@@ -38,11 +38,11 @@ struct CylinderSpec {
 };
 
 // A flow held for a while. The LAST phase's flow continues until the end of the evacuation (and
-// beyond, when the spare time is computed), so "15 L/min for 1 h, then 6 L/min" is two phases
-// with the second duration ignored.
+// beyond, when the spare time is computed), so "15 L/min for 1 h, then 6 L/min" is two phases,
+// the second without a duration.
 struct FlowPhase {
-  VolumeFlow flow;    // free gas: 0 (oxygen off) or 0.1…30 L/min
-  Duration duration;  // > 0 (ignored for the last phase)
+  VolumeFlow flow;                   // free gas: 0 (oxygen off) or 0.1…30 L/min
+  std::optional<Duration> duration;  // 1 min…72 h, required but for the last (open-ended) phase
 };
 
 // Default safety margin: the larger of 30 min and 20 % of the evacuation time. A fixed part covers

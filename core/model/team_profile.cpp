@@ -228,7 +228,7 @@ std::string serialize_profile(const TeamProfile& p) {
   bag["co2_limit"] = percent_text(p.bag.co2_limit);
   root["bag"] = bag;
   if (p.evacuation) {
-    const EvacuationPlan& e = *p.evacuation;
+    const EvacuationSection& e = *p.evacuation;
     Json plan = Json::object();
     plan["duration"] = duration_text(e.evacuation_time);
     if (e.altitude) plan["altitude"] = length_text(*e.altitude, p.units);

@@ -61,14 +61,16 @@ struct CylinderOnHand {
   bool operator==(const CylinderOnHand&) const = default;
 };
 
-struct EvacuationPlan {
+// The profile's evacuation section (a team's usual carry-out); evacuation_plan.hpp's
+// EvacuationPlan is the result of planning one.
+struct EvacuationSection {
   Duration evacuation_time;
   std::optional<Length> altitude;         // where the gauges are read; nullopt: sea level
   std::vector<CylinderOnHand> cylinders;  // used in this order
   std::vector<FlowPhase> phases;
   std::string shortfall_type_label;       // express a shortfall/spare in cylinders of this type
 
-  bool operator==(const EvacuationPlan&) const = default;
+  bool operator==(const EvacuationSection&) const = default;
 };
 
 struct CardLayout {
@@ -109,7 +111,7 @@ struct TeamProfile {
   SafetyMargin safety_margin;  // optional in the file
   std::vector<VolumeFlow> flows;
   BagSetup bag;
-  std::optional<EvacuationPlan> evacuation;
+  std::optional<EvacuationSection> evacuation;
 
   const CylinderType* find_cylinder(std::string_view label) const;  // nullptr when absent
   std::vector<Length> card_altitudes() const;  // from, from+step, … ≤ to

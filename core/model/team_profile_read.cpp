@@ -366,13 +366,13 @@ std::optional<BagSetup> read_bag(Reader& r, const Json& value, const std::string
   return BagSetup{*gauge, *stroke, *co2};
 }
 
-std::optional<EvacuationPlan> read_evacuation(Reader& r, const Json& value,
+std::optional<EvacuationSection> read_evacuation(Reader& r, const Json& value,
                                               const std::string& path,
                                               const std::vector<CylinderType>& types,
                                               bool types_ok) {
   if (!r.object(value, path)) return std::nullopt;
   r.reject_unknown(value, path, {"duration", "altitude", "cylinders", "phases", "count_in"});
-  EvacuationPlan plan;
+  EvacuationSection plan;
   bool ok = true;
   auto known_type = [&](const std::string& label, const std::string& where) {
     if (!types_ok) return false;  // the inventory itself has problems, already reported

@@ -204,7 +204,7 @@ void draw_plan(AppState& state, Pressure ambient, const ChosenCylinder& chosen) 
     input.cylinders.push_back(spec);
   }
   if (in.first_phase.in(minutes) > 0.0) input.phases.push_back({in.first_flow, in.first_phase});
-  input.phases.push_back({cylinder_flow(state), minutes(1.0)});
+  input.phases.push_back({cylinder_flow(state), std::nullopt});  // until arrival
   input.evacuation = in.evacuation;
   input.reserve_gauge = in.reserve;
   input.ambient_pressure = ambient;

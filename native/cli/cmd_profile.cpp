@@ -60,7 +60,7 @@ Result<Report> run_plan(const PlanOptions& o) {
     return Error{*o.profile + ": evacuation: is missing (the plan needs the cylinders on hand, "
                               "flow phases and duration; see docs/team-profile.md)"};
   }
-  const tp::EvacuationPlan& e = *p.evacuation;
+  const tp::EvacuationSection& e = *p.evacuation;
   evacuation::PlanInput input;
   for (size_t i = 0; i < e.cylinders.size(); ++i) {
     const tp::CylinderOnHand& c = e.cylinders[i];
@@ -71,7 +71,7 @@ Result<Report> run_plan(const PlanOptions& o) {
   }
   for (const tp::FlowPhase& phase : e.phases) {
     // The last phase runs to the end of the evacuation: its duration (if any) is not used.
-    input.phases.push_back({phase.flow, phase.duration.value_or(e.evacuation_time)});
+    input.phases.push_back({phase.flow, phase.duration});
   }
   input.evacuation = e.evacuation_time;
   input.reserve_gauge = p.reserve_pressure_gauge;

@@ -36,6 +36,23 @@ PlanInput two_cylinders_six_hours() {
 
 }  // namespace
 
+TEST_CASE("flow phases: only the last is open-ended", "[evacuation]") {
+  PlanInput in = two_cylinders_six_hours();
+  in.phases[1].duration = std::nullopt;  // "then 6 L/min" until arrival: no duration to invent
+  Result<EvacuationPlan> open = plan_evacuation(in);
+  REQUIRE(open.ok());
+  in.phases[1].duration = hours(50);  // a duration on the last phase is not used
+  Result<EvacuationPlan> given = plan_evacuation(in);
+  REQUIRE(given.ok());
+  CHECK(open->oxygen_needed.in(litres) == given->oxygen_needed.in(litres));
+  // 15 L/min × 60 min + 6 L/min × 300 min = 2700 L over the 6 h (arithmetic by hand).
+  CHECK(open->oxygen_needed.in(litres) == Approx(2700.0));
+  in.phases[0].duration = std::nullopt;
+  Result<EvacuationPlan> missing = plan_evacuation(in);
+  REQUIRE_FALSE(missing.ok());
+  CHECK(missing.error().message == "phase 1 needs a duration (only the last runs to the end)");
+}
+
 TEST_CASE("two cylinders, 15 L/min for 1 h then 6 L/min, 6 h evacuation", "[evacuation]") {
   Result<EvacuationPlan> r = plan_evacuation(two_cylinders_six_hours());
   REQUIRE(r.ok());
