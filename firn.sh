@@ -213,7 +213,7 @@ case "${1:-}" in
     deps; build
     if [ -n "${DISPLAY:-}" ]; then say "opening the native app"; build/native/native/firn & fi
     say "serving the offline page on http://127.0.0.1:$PORT/ (Ctrl-C stops)"
-    exec node tests/browser/serve.mjs build/web/site / "$PORT"
+    exec node web/serve.mjs build/web/site / "$PORT"
     ;;
   test)
     RUN_START=$EPOCHREALTIME

@@ -15,7 +15,7 @@
 #include "glfw_frame.hpp"
 #include "native_platform.hpp"
 #include "ui/app.hpp"
-#include "ui/app_launch.hpp"
+#include "app_launch.hpp"
 
 namespace firn::native {
 namespace {

@@ -9,7 +9,7 @@ import {after, before, test} from 'node:test';
 
 import {click, launch, pause, press, requiredEnv, screenshotDir, type, waitForApp,
         waitForText} from './browser.mjs';
-import {serveSite} from './serve.mjs';
+import {serveSite} from '../../web/serve.mjs';
 
 const site = requiredEnv('FIRN_SITE', 'the built site folder (build/web/site)');
 const firn = requiredEnv('FIRN_BIN', 'the native firn executable (for the CLI comparison)');

@@ -9,7 +9,7 @@ import {after, before, test} from 'node:test';
 
 import {click, items, launch, requiredEnv, screenshotDir, waitForApp,
         waitForText} from './browser.mjs';
-import {serveSite} from './serve.mjs';
+import {serveSite} from '../../web/serve.mjs';
 
 const site = requiredEnv('FIRN_SITE', 'the built site folder (build/web/site)');
 const VIEWPORT = {width: 844, height: 390};

@@ -16,7 +16,7 @@ import {fileURLToPath} from 'node:url';
 
 import {click, item, items, launch, pause, requiredEnv, screenshotDir, waitForApp,
         waitForText} from './browser.mjs';
-import {serveSite} from './serve.mjs';
+import {serveSite} from '../../web/serve.mjs';
 
 const site = requiredEnv('FIRN_SITE', 'the built site folder (build/web/site)');
 const firn = requiredEnv('FIRN_BIN', 'the native firn executable');

@@ -7,7 +7,7 @@ import {join} from 'node:path';
 import {test} from 'node:test';
 
 import {launch, requiredEnv, screenshotDir, waitForApp} from './browser.mjs';
-import {serveSite} from './serve.mjs';
+import {serveSite} from '../../web/serve.mjs';
 
 const site = requiredEnv('FIRN_SITE', 'the built site folder (build/web/site)');
 

@@ -10,7 +10,7 @@ import {join} from 'node:path';
 import {after, before, describe, test} from 'node:test';
 
 import {PHONE_DPR, launchBrowser, pause, requiredEnv, screenshotDir, waitForApp} from './browser.mjs';
-import {serveSite} from './serve.mjs';
+import {serveSite} from '../../web/serve.mjs';
 
 const site = requiredEnv('FIRN_SITE', 'the built site folder (build/web/site)');
 const shots = screenshotDir();

@@ -1,7 +1,7 @@
-// A tiny static file server for the browser tests: 127.0.0.1, a random free port, correct MIME
-// types (application/wasm matters: browsers only stream-compile wasm served with it), the site
-// mounted under any sub-path, the served folder swappable (update tests) and every request
-// recorded. Also serves the app for `./firn.sh start`: node serve.mjs SITE_DIR [/sub/path/] [PORT]
+// The page's static file server, for `./firn.sh start` (node web/serve.mjs SITE_DIR [/sub/path/]
+// [PORT]) and the browser tests: 127.0.0.1, a random free port unless given, correct MIME types
+// (application/wasm matters: browsers only stream-compile wasm served with it), the site mounted
+// under any sub-path, the served folder swappable (update tests) and every request recorded.
 import {createReadStream, statSync} from 'node:fs';
 import {createServer} from 'node:http';
 import {extname, join, normalize, sep} from 'node:path';

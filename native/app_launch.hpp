@@ -1,5 +1,5 @@
-// Launch options shared by both runners (native command line, web URL hash): which screen and
-// theme to open with. Unknown names are an error listing the valid ones.
+// The desktop app's launch options (--screen, --theme): which screen and theme to open with.
+// Unknown names are an error listing the valid ones.
 #pragma once
 
 #include <string>

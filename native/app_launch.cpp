@@ -1,4 +1,4 @@
-#include "ui/app_launch.hpp"
+#include "app_launch.hpp"
 
 #include <array>
 #include <string_view>
