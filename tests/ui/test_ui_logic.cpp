@@ -117,6 +117,12 @@ struct Headless {
   }
 };
 
+// A state whose altitude someone entered (the screens give no figures before one is).
+void enter_altitude(AppState& state, double metres) {
+  state.situation.altitude = units::metres(metres);
+  state.situation.altitude_entered = true;
+}
+
 }  // namespace
 
 TEST_CASE("keypad: digits, backspace and OK set the altitude") {
@@ -224,8 +230,7 @@ TEST_CASE("Casualty: the SpO2 field starts empty, no verdict until a value is ty
   Headless ui;
   ui.panel = draw_casualty_panel;
   AppState state;
-  state.situation.altitude = units::metres(5200);
-  state.situation.altitude_entered = true;
+  enter_altitude(state, 5200);
   state.situation.time_at_altitude = units::days(2);
   CHECK(ui.text(state, "Measured SpO2") == "not entered");
   CHECK(ui.text(state, "Verdict").rfind("NO VERDICT", 0) == 0);
@@ -253,8 +258,7 @@ TEST_CASE("Oxygen: on oxygen, the cylinder runs at the casualty's flow, one valu
   Headless ui;
   ui.panel = draw_oxygen_panel;
   AppState state;
-  state.situation.altitude = units::metres(4000);
-  state.situation.altitude_entered = true;
+  enter_altitude(state, 4000);
   state.situation.on_oxygen = true;
   state.situation.oxygen_device = 0;  // cannula
   state.situation.oxygen_flow = units::litres_per_minute(3.0);
@@ -521,8 +525,7 @@ TEST_CASE("keypad: an altitude ten times or a tenth of the last asks before it i
   Headless ui;
   ui.draw = draw_situation_altitude;
   AppState state;
-  state.situation.altitude = units::metres(5200.0);
-  state.situation.altitude_entered = true;
+  enter_altitude(state, 5200.0);
   ui.click(state, "Altitude");
   type_on_keypad(ui, state, "52");
   ui.click(state, "Key OK");
