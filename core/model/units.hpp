@@ -16,10 +16,22 @@ namespace firn::units {
 template <class Dimension>
 struct Unit;
 
+struct TemperatureDimension;
+// A point on a scale with an offset (a temperature: 10 °C + 10 °C is not 20 °C, and twice 10 °C
+// is not 20 °C). Points are not added, scaled or divided; the difference of two points is a
+// quantity of its own dimension (PointDifference), which a point can be moved by.
+template <class Dimension>
+inline constexpr bool is_point = false;
+template <>
+inline constexpr bool is_point<TemperatureDimension> = true;
+template <class PointDimension>
+struct DifferenceOf {};
+
 // A physical quantity of one dimension, stored in SI (m, Pa, K, m³/s, m³, s, fraction).
 template <class Dimension>
 class Quantity {
  public:
+  using dimension = Dimension;
   constexpr Quantity() = default;  // zero of the dimension (absolute zero for temperature)
 
   template <class D = Dimension>
@@ -29,16 +41,46 @@ class Quantity {
 
   constexpr bool operator==(const Quantity&) const = default;
   constexpr auto operator<=>(const Quantity&) const = default;
-  constexpr Quantity operator+(Quantity other) const { return Quantity(si_ + other.si_); }
-  constexpr Quantity operator-(Quantity other) const { return Quantity(si_ - other.si_); }
-  constexpr Quantity operator*(double factor) const { return Quantity(si_ * factor); }
-  constexpr Quantity operator/(double divisor) const { return Quantity(si_ / divisor); }
-  constexpr double operator/(Quantity other) const { return si_ / other.si_; }
-  constexpr Quantity& operator+=(Quantity other) { si_ += other.si_; return *this; }
-  constexpr Quantity& operator-=(Quantity other) { si_ -= other.si_; return *this; }
+  constexpr Quantity operator+(Quantity other) const requires(!is_point<Dimension>) {
+    return Quantity(si_ + other.si_);
+  }
+  constexpr Quantity operator-(Quantity other) const requires(!is_point<Dimension>) {
+    return Quantity(si_ - other.si_);
+  }
+  constexpr Quantity operator*(double factor) const requires(!is_point<Dimension>) {
+    return Quantity(si_ * factor);
+  }
+  constexpr Quantity operator/(double divisor) const requires(!is_point<Dimension>) {
+    return Quantity(si_ / divisor);
+  }
+  constexpr double operator/(Quantity other) const requires(!is_point<Dimension>) {
+    return si_ / other.si_;
+  }
+  constexpr Quantity& operator+=(Quantity other) requires(!is_point<Dimension>) {
+    si_ += other.si_;
+    return *this;
+  }
+  constexpr Quantity& operator-=(Quantity other) requires(!is_point<Dimension>) {
+    si_ -= other.si_;
+    return *this;
+  }
+  // Point − point = difference; point ± difference = point (kelvin steps either way).
+  constexpr Quantity<DifferenceOf<Dimension>> operator-(Quantity other) const
+      requires(is_point<Dimension>) {
+    return Quantity<DifferenceOf<Dimension>>(si_ - other.si_);
+  }
+  constexpr Quantity operator+(Quantity<DifferenceOf<Dimension>> step) const
+      requires(is_point<Dimension>) {
+    return Quantity(si_ + step.si_);
+  }
+  constexpr Quantity operator-(Quantity<DifferenceOf<Dimension>> step) const
+      requires(is_point<Dimension>) {
+    return Quantity(si_ - step.si_);
+  }
 
  private:
   friend struct Unit<Dimension>;
+  template <class> friend class Quantity;  // a point and its difference
   constexpr explicit Quantity(double si) : si_(si) {}
   double si_ = 0.0;
 };

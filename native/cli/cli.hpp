@@ -10,6 +10,7 @@
 #include <limits>
 #include <optional>
 #include <string>
+#include <type_traits>
 #include <utility>
 #include <vector>
 
@@ -72,7 +73,14 @@ RangeProbe<Q> range_of(Check check) {
 template <class Q>
 Error with_valid_range(Error error, const RangeProbe<Q>& probe) {
   if (!probe) return error;
-  std::optional<Error> refusal = probe(Q() * std::numeric_limits<double>::quiet_NaN());
+  constexpr double nan = std::numeric_limits<double>::quiet_NaN();
+  std::optional<Error> refusal;
+  if constexpr (std::is_floating_point_v<Q>) {
+    refusal = probe(nan);
+  } else {
+    const units::Unit<typename Q::dimension> si{1.0, 0.0, "", ""};
+    refusal = probe(si(nan));
+  }
   if (!refusal) return error;
   std::string range = refusal->message;
   if (size_t got = range.find(got_not_a_number); got != std::string::npos) {

@@ -2,11 +2,34 @@
 #include <catch2/catch.hpp>
 
 #include <cmath>
+#include <type_traits>
 
 #include "model/units.hpp"
 
 using namespace firn;
 using namespace firn::units;
+
+namespace {
+template <class A, class B>
+concept Addable = requires(A a, B b) { a + b; };
+template <class A>
+concept Scalable = requires(A a) { a * 2.0; a / 2.0; };
+}  // namespace
+
+TEST_CASE("a temperature is a point on its scale: not added or scaled; a difference moves it",
+          "[units]") {
+  // 10 °C + 10 °C is not 20 °C (283.15 K + 283.15 K), and twice 10 °C is not 20 °C: refused by
+  // the compiler, as for the au library's temperature points.
+  static_assert(!Addable<Temperature, Temperature>);
+  static_assert(!Scalable<Temperature>);
+  static_assert(Addable<Length, Length> && Scalable<Length>);
+  auto step = celsius(25) - celsius(10);
+  static_assert(std::is_same_v<decltype(step), Quantity<DifferenceOf<TemperatureDimension>>>);
+  static_assert(!std::is_same_v<decltype(step), Temperature>);
+  CHECK((celsius(10) + step).in(celsius) == Approx(25.0));
+  // A 15 K step is 27 °F (NIST SP 811 B.8: 1 K = 1.8 °F as an interval): 50 °F − 27 °F = 23 °F.
+  CHECK((fahrenheit(50) - step).in(fahrenheit) == Approx(23.0));
+}
 
 TEST_CASE("conversion factors", "[units]") {
   // NIST SP 811 (2008), Appendix B.8: 1 ft = 0.3048 m; 1 mmHg = 133.3224 Pa; 1 psi =
