@@ -168,6 +168,249 @@ std::optional<VolumeFlow> steady_flow(double litres_available, double over_min) 
   return litres_per_minute(std::min(lpm, cylinder::max_flow_lpm));
 }
 
+// Count shortfalls in the chosen cylinder, else in the first one filled above the reserve.
+Result<Stock> counting_stock(const PlanInput& input, const std::vector<Stock>& stock) {
+  Result<Stock> counting = Error{""};
+  if (input.counting_cylinder) {
+    CylinderSpec spec = *input.counting_cylinder;
+    // A letter size with no pressure given means a full one at its service pressure.
+    if (spec.letter_size && spec.gauge_pressure == Pressure{}) {
+      spec.gauge_pressure = cylinder::letter_size_info(*spec.letter_size).full_gauge;
+    }
+    counting = resolve(spec, input);
+    if (!counting) return counting.error();
+  } else {
+    counting = stock.front();
+    for (const Stock& s : stock) {
+      if (s.usable_l > kVolumeEpsilonL) {
+        counting = s;
+        break;
+      }
+    }
+  }
+  if (counting->usable_l <= kVolumeEpsilonL) {
+    return Error{"the cylinder to start with (" + counting->label +
+                 ") must be filled above the reserve pressure"};
+  }
+  return counting;
+}
+
+Schedule schedule_of(const std::vector<FlowPhase>& phases) {
+  Schedule schedule;
+  double t_acc = 0.0;
+  for (const FlowPhase& phase : phases) {
+    schedule.starts_min.push_back(t_acc);
+    schedule.flows_lpm.push_back(phase.flow.in(litres_per_minute));
+    t_acc += phase.duration ? phase.duration->in(minutes) : 0.0;  // the last: open-ended
+  }
+  return schedule;
+}
+
+// "20.0 bar", "290 psi gauge": the reserve as the plan's sentences say it.
+std::string reserve_text(const PlanInput& input) {
+  const auto& unit = *input.pressure_unit;
+  bool in_psi = unit.symbol == "psi";
+  return format_number(input.reserve_gauge.in(unit), in_psi ? 0 : 1) + " " +
+         std::string(unit.symbol) + (in_psi ? " gauge" : "");
+}
+
+// What the plan assumes, shown with it; sets `extrapolated` for a cylinder beyond the EOS data.
+void note_assumptions(EvacuationPlan& plan, const PlanInput& input, const std::vector<Stock>& stock,
+                      const std::string& reserve) {
+  plan.assumptions = {
+      "Cylinders are used one after another in the order listed, each down to the reserve "
+      "pressure of " + reserve + "; a swap takes no time.",
+      "Each cylinder stays at its own temperature (cooling as gas is drawn off is ignored).",
+      "Flows are free-gas litres per minute (at 1 atm); a flowmeter at altitude may deliver "
+      "differently (see the flow corrections).",
+      "The last flow phase continues until arrival; spare time is counted at the flow in use "
+      "at arrival."};
+  for (const Stock& s : stock) {
+    if (s.usable_l <= kVolumeEpsilonL) {
+      plan.assumptions.push_back(s.label + " is at or below the reserve pressure: not used.");
+    }
+    plan.extrapolated = plan.extrapolated || oxygen_eos::extrapolated(s.reading.temperature);
+  }
+  std::vector<cylinder::LetterSize> assumed;
+  for (const CylinderSpec& spec : input.cylinders) {
+    if (spec.letter_size && !spec.water_capacity &&
+        std::find(assumed.begin(), assumed.end(), *spec.letter_size) == assumed.end()) {
+      assumed.push_back(*spec.letter_size);
+      plan.assumptions.push_back(cylinder::letter_size_assumption(*spec.letter_size) + ".");
+    }
+  }
+  if (plan.extrapolated) {
+    std::string text(oxygen_eos::extrapolated_text);
+    plan.assumptions.push_back("A cylinder is warmer than 300 K: " + text + "; no \"enough\" from it.");
+  }
+}
+
+// The timeline walked: which cylinder supplies when, and what is left.
+struct Walk {
+  std::vector<Segment> segments;
+  std::vector<double> remaining;  // litres above reserve per cylinder at the end
+  std::size_t current = 0;        // the cylinder in use at the end
+  double ran_out_at = -1.0;       // minutes; < 0: the oxygen lasted
+};
+
+// Cylinder exhaustion and phase boundaries cut the evacuation into segments; fills the plan's
+// uses and events on the way.
+Walk walk_timeline(EvacuationPlan& plan, const std::vector<Stock>& stock, const Schedule& schedule,
+                   double evac, Pressure reserve_gauge, const std::string& reserve) {
+  Walk w;
+  for (const Stock& s : stock) w.remaining.push_back(s.usable_l);
+  auto next_cylinder = [&](std::size_t from) {
+    std::size_t i = from;
+    while (i < stock.size() && w.remaining[i] <= kVolumeEpsilonL) ++i;
+    return i;
+  };
+  std::size_t& current = w.current;
+  current = next_cylinder(0);
+  double t = 0.0;
+  if (current < stock.size()) {
+    plan.events.push_back({minutes(0), EventKind::Start, current, "Open " + stock[current].label});
+    plan.uses.push_back({current, stock[current].label, minutes(0), minutes(0),
+                         stock[current].reading.gauge_pressure, reserve_gauge, litres(0), false});
+  } else {
+    w.ran_out_at = 0.0;
+    plan.events.push_back({minutes(0), EventKind::Reserve, 0,
+                           "No cylinder is filled above the reserve pressure"});
+  }
+  while (w.ran_out_at < 0.0 && t < evac) {
+    std::size_t phase = schedule.phase_at(t);
+    double flow = schedule.flows_lpm[phase];
+    double phase_end = std::min(evac, schedule.next_boundary(t));
+    double exhaust = flow > 0.0 ? t + w.remaining[current] / flow : INFINITY;
+    double end = std::min(phase_end, exhaust);
+    w.segments.push_back({current, t, end, w.remaining[current], flow});
+    w.remaining[current] = end == exhaust ? 0.0 : w.remaining[current] - flow * (end - t);
+    plan.uses.back().delivered += litres(flow * (end - t));
+    t = end;
+    if (end == exhaust) {
+      CylinderUse& use = plan.uses.back();
+      use.end = minutes(t);
+      use.reached_reserve = true;
+      std::size_t next = next_cylinder(current + 1);
+      if (next < stock.size()) {
+        plan.events.push_back({minutes(t), EventKind::Swap, next,
+                               "Swap " + stock[current].label + " (at reserve " + reserve +
+                                   ") to " + stock[next].label});
+        plan.uses.push_back({next, stock[next].label, minutes(t), minutes(t),
+                             stock[next].reading.gauge_pressure, reserve_gauge, litres(0), false});
+        current = next;
+      } else {
+        w.ran_out_at = t;
+        plan.events.push_back({minutes(t), EventKind::Reserve, current,
+                               stock[current].label + " at reserve " + reserve +
+                                   ": no oxygen above reserve left"});
+      }
+    } else if (t < evac) {
+      plan.events.push_back({minutes(t), EventKind::FlowChange, current,
+                             "Flow " + format_number(schedule.flows_lpm[schedule.phase_at(t)], 1) +
+                                 " L/min"});
+    }
+  }
+  if (!plan.uses.empty() && !plan.uses.back().reached_reserve) {
+    CylinderUse& use = plan.uses.back();
+    use.end = minutes(evac);
+    use.end_gauge = bar(gauge_bar_at(stock[current], w.remaining[current]));
+  }
+  plan.events.push_back({minutes(evac), EventKind::Arrival,
+                         plan.uses.empty() ? 0 : plan.uses.back().cylinder_index,
+                         "Arrival after " + minutes_text(evac)});
+  return w;
+}
+
+// Enough or short, in minutes and in cylinders of the counting size.
+void add_totals(EvacuationPlan& plan, const Walk& w, const Schedule& schedule, double evac,
+                double counting_l) {
+  double left = 0.0;
+  for (double r : w.remaining) left += r;
+  plan.counting_cylinder_usable = litres(counting_l);
+  if (w.ran_out_at < 0.0) {
+    plan.enough = true;
+    plan.shortfall = minutes(0);
+    plan.shortfall_volume = litres(0);
+    plan.spare_volume = litres(left);
+    plan.extra_cylinders_needed = 0;
+    plan.spare_cylinders = left / counting_l;
+    double final_flow = schedule.flows_lpm[schedule.phase_at(evac)];
+    if (final_flow > 0.0) {
+      plan.spare = minutes(left / final_flow);
+      plan.supply_lasts = minutes(evac + left / final_flow);
+    } else {
+      plan.spare = minutes(0);
+      plan.assumptions.push_back("The flow at arrival is 0 L/min: spare time is not counted.");
+    }
+  } else {
+    double missing = schedule.demand_l(w.ran_out_at, evac);
+    plan.enough = missing <= kVolumeEpsilonL;
+    plan.supply_lasts = minutes(w.ran_out_at);
+    plan.shortfall = plan.enough ? minutes(0) : minutes(evac - w.ran_out_at);
+    plan.shortfall_volume = litres(plan.enough ? 0.0 : missing);
+    plan.spare_volume = litres(0);
+    plan.spare = minutes(0);
+    plan.spare_cylinders = 0.0;
+    plan.extra_cylinders_needed =
+        plan.enough ? 0 : static_cast<int>(std::ceil(missing / counting_l - 1e-9));
+  }
+}
+
+// The verdict: enough only with the margin, never from an extrapolated figure; and the reverse
+// question, the steady flows the stock holds.
+void decide_verdict(EvacuationPlan& plan, const PlanInput& input, double usable_total) {
+  const double evac = input.evacuation.in(minutes);
+  plan.margin = std::max(input.margin_minimum, input.evacuation * input.margin_fraction);
+  if (!plan.enough) {
+    plan.verdict = Verdict::Short;
+  } else if (plan.extrapolated) {
+    plan.verdict = Verdict::Extrapolated;
+  } else {
+    bool margin_kept = !plan.supply_lasts ||
+                       *plan.supply_lasts >= input.evacuation + plan.margin - minutes(1e-9);
+    plan.verdict = margin_kept ? Verdict::Enough : Verdict::BelowMargin;
+  }
+  plan.max_sustainable_flow = steady_flow(usable_total, evac + plan.margin.in(minutes));
+  plan.max_flow_to_arrival = steady_flow(usable_total, evac);
+}
+
+// Pressure-vs-time samples: every interval and every segment end (events), capped in number.
+void add_samples(EvacuationPlan& plan, const Walk& w, const std::vector<Stock>& stock, double evac,
+                 double interval) {
+  if (evac / interval > kMaxSamples) {
+    interval = std::ceil(evac / kMaxSamples);
+    plan.assumptions.push_back("Samples every " + minutes_text(interval) + " to keep the plot small.");
+  }
+  auto add_sample = [&](double time, std::size_t cyl, double remaining_l, double flow) {
+    PressureSample s{minutes(time), cyl, bar(gauge_bar_at(stock[cyl], remaining_l)),
+                     litres_per_minute(flow)};
+    if (!plan.samples.empty() && plan.samples.back().time == s.time &&
+        plan.samples.back().cylinder_index == cyl) {
+      plan.samples.back() = s;  // same instant and cylinder: keep the newer flow
+    } else {
+      plan.samples.push_back(s);
+    }
+  };
+  for (const Segment& seg : w.segments) {
+    add_sample(seg.start_min, seg.cylinder, seg.remaining_at_start_l, seg.flow_lpm);
+    for (double k = std::floor(seg.start_min / interval) + 1; k * interval < seg.end_min; ++k) {
+      double at = k * interval;
+      add_sample(at, seg.cylinder, seg.remaining_at_start_l - seg.flow_lpm * (at - seg.start_min),
+                 seg.flow_lpm);
+    }
+    double at_end = seg.remaining_at_start_l - seg.flow_lpm * (seg.end_min - seg.start_min);
+    add_sample(seg.end_min, seg.cylinder, at_end, seg.flow_lpm);
+  }
+  // After the oxygen ran out: the last cylinder stays at reserve until arrival.
+  if (w.ran_out_at >= 0.0 && w.ran_out_at < evac && !plan.uses.empty()) {
+    std::size_t last = plan.uses.back().cylinder_index;
+    for (double k = std::floor(w.ran_out_at / interval) + 1; k * interval < evac; ++k) {
+      add_sample(k * interval, last, 0.0, 0.0);
+    }
+    add_sample(evac, last, 0.0, 0.0);
+  }
+}
+
 }  // namespace
 
 std::string_view verdict_key(Verdict verdict) {
@@ -218,223 +461,23 @@ Result<EvacuationPlan> plan_evacuation(const PlanInput& input) {
     if (!s) return s.error();
     stock.push_back(s.value());
   }
-  // Count in the chosen cylinder, else in the first one filled above the reserve.
-  Result<Stock> counting = Error{""};
-  if (input.counting_cylinder) {
-    CylinderSpec spec = *input.counting_cylinder;
-    // A letter size with no pressure given means a full one at its service pressure.
-    if (spec.letter_size && spec.gauge_pressure == Pressure{}) {
-      spec.gauge_pressure = cylinder::letter_size_info(*spec.letter_size).full_gauge;
-    }
-    counting = resolve(spec, input);
-    if (!counting) return counting.error();
-  } else {
-    counting = stock.front();
-    for (const Stock& s : stock) {
-      if (s.usable_l > kVolumeEpsilonL) {
-        counting = s;
-        break;
-      }
-    }
-  }
-  if (counting->usable_l <= kVolumeEpsilonL) {
-    return Error{"the cylinder to start with (" + counting->label +
-                 ") must be filled above the reserve pressure"};
-  }
-
-  Schedule schedule;
-  double t_acc = 0.0;
-  for (const FlowPhase& phase : input.phases) {
-    schedule.starts_min.push_back(t_acc);
-    schedule.flows_lpm.push_back(phase.flow.in(litres_per_minute));
-    t_acc += phase.duration ? phase.duration->in(minutes) : 0.0;  // the last: open-ended
-  }
+  Result<Stock> counting = counting_stock(input, stock);
+  if (!counting) return counting.error();
 
   EvacuationPlan plan;
+  const Schedule schedule = schedule_of(input.phases);
   const double evac = input.evacuation.in(minutes);
-  const auto& unit = *input.pressure_unit;
-  const std::string reserve_text =
-      format_number(input.reserve_gauge.in(unit), unit.symbol == "psi" ? 0 : 1) + " " +
-      std::string(unit.symbol) + (unit.symbol == "psi" ? " gauge" : "");
+  const std::string reserve = reserve_text(input);
   plan.oxygen_needed = litres(schedule.demand_l(0.0, evac));
   double usable_total = 0.0;
   for (const Stock& s : stock) usable_total += s.usable_l;
   plan.oxygen_usable = litres(usable_total);
+  note_assumptions(plan, input, stock, reserve);
 
-  plan.assumptions = {
-      "Cylinders are used one after another in the order listed, each down to the reserve "
-      "pressure of " + reserve_text + "; a swap takes no time.",
-      "Each cylinder stays at its own temperature (cooling as gas is drawn off is ignored).",
-      "Flows are free-gas litres per minute (at 1 atm); a flowmeter at altitude may deliver "
-      "differently (see the flow corrections).",
-      "The last flow phase continues until arrival; spare time is counted at the flow in use "
-      "at arrival."};
-  for (const Stock& s : stock) {
-    if (s.usable_l <= kVolumeEpsilonL) {
-      plan.assumptions.push_back(s.label + " is at or below the reserve pressure: not used.");
-    }
-    plan.extrapolated = plan.extrapolated || oxygen_eos::extrapolated(s.reading.temperature);
-  }
-  std::vector<cylinder::LetterSize> assumed;
-  for (const CylinderSpec& spec : input.cylinders) {
-    if (spec.letter_size && !spec.water_capacity &&
-        std::find(assumed.begin(), assumed.end(), *spec.letter_size) == assumed.end()) {
-      assumed.push_back(*spec.letter_size);
-      plan.assumptions.push_back(cylinder::letter_size_assumption(*spec.letter_size) + ".");
-    }
-  }
-  if (plan.extrapolated) {
-    std::string text(oxygen_eos::extrapolated_text);
-    plan.assumptions.push_back("A cylinder is warmer than 300 K: " + text + "; no \"enough\" from it.");
-  }
-
-  // Walk the timeline: cylinder exhaustion and phase boundaries cut it into segments.
-  std::vector<double> remaining;
-  for (const Stock& s : stock) remaining.push_back(s.usable_l);
-  auto next_cylinder = [&](std::size_t from) {
-    std::size_t i = from;
-    while (i < stock.size() && remaining[i] <= kVolumeEpsilonL) ++i;
-    return i;
-  };
-  std::vector<Segment> segments;
-  std::size_t current = next_cylinder(0);
-  double t = 0.0;
-  double ran_out_at = -1.0;
-  if (current < stock.size()) {
-    plan.events.push_back({minutes(0), EventKind::Start, current, "Open " + stock[current].label});
-    plan.uses.push_back({current, stock[current].label, minutes(0), minutes(0),
-                         stock[current].reading.gauge_pressure, input.reserve_gauge, litres(0),
-                         false});
-  } else {
-    ran_out_at = 0.0;
-    plan.events.push_back({minutes(0), EventKind::Reserve, 0,
-                           "No cylinder is filled above the reserve pressure"});
-  }
-  while (ran_out_at < 0.0 && t < evac) {
-    std::size_t phase = schedule.phase_at(t);
-    double flow = schedule.flows_lpm[phase];
-    double phase_end = std::min(evac, schedule.next_boundary(t));
-    double exhaust = flow > 0.0 ? t + remaining[current] / flow : INFINITY;
-    double end = std::min(phase_end, exhaust);
-    segments.push_back({current, t, end, remaining[current], flow});
-    remaining[current] = end == exhaust ? 0.0 : remaining[current] - flow * (end - t);
-    plan.uses.back().delivered += litres(flow * (end - t));
-    t = end;
-    if (end == exhaust) {
-      CylinderUse& use = plan.uses.back();
-      use.end = minutes(t);
-      use.reached_reserve = true;
-      std::size_t next = next_cylinder(current + 1);
-      if (next < stock.size()) {
-        plan.events.push_back({minutes(t), EventKind::Swap, next,
-                               "Swap " + stock[current].label + " (at reserve " + reserve_text +
-                                   ") to " + stock[next].label});
-        plan.uses.push_back({next, stock[next].label, minutes(t), minutes(t),
-                             stock[next].reading.gauge_pressure, input.reserve_gauge, litres(0),
-                             false});
-        current = next;
-      } else {
-        ran_out_at = t;
-        plan.events.push_back({minutes(t), EventKind::Reserve, current,
-                               stock[current].label + " at reserve " + reserve_text +
-                                   ": no oxygen above reserve left"});
-      }
-    } else if (t < evac) {
-      plan.events.push_back({minutes(t), EventKind::FlowChange, current,
-                             "Flow " + format_number(schedule.flows_lpm[schedule.phase_at(t)], 1) +
-                                 " L/min"});
-    }
-  }
-  if (!plan.uses.empty() && !plan.uses.back().reached_reserve) {
-    CylinderUse& use = plan.uses.back();
-    use.end = minutes(evac);
-    use.end_gauge = bar(gauge_bar_at(stock[current], remaining[current]));
-  }
-  plan.events.push_back({minutes(evac), EventKind::Arrival,
-                         plan.uses.empty() ? 0 : plan.uses.back().cylinder_index,
-                         "Arrival after " + minutes_text(evac)});
-
-  // Totals: enough or short, in minutes and in cylinders of the counting size.
-  double left = 0.0;
-  for (double r : remaining) left += r;
-  double counting_l = counting->usable_l;
-  plan.counting_cylinder_usable = litres(counting_l);
-  if (ran_out_at < 0.0) {
-    plan.enough = true;
-    plan.shortfall = minutes(0);
-    plan.shortfall_volume = litres(0);
-    plan.spare_volume = litres(left);
-    plan.extra_cylinders_needed = 0;
-    plan.spare_cylinders = left / counting_l;
-    double final_flow = schedule.flows_lpm[schedule.phase_at(evac)];
-    if (final_flow > 0.0) {
-      plan.spare = minutes(left / final_flow);
-      plan.supply_lasts = minutes(evac + left / final_flow);
-    } else {
-      plan.spare = minutes(0);
-      plan.assumptions.push_back("The flow at arrival is 0 L/min: spare time is not counted.");
-    }
-  } else {
-    double missing = schedule.demand_l(ran_out_at, evac);
-    plan.enough = missing <= kVolumeEpsilonL;
-    plan.supply_lasts = minutes(ran_out_at);
-    plan.shortfall = plan.enough ? minutes(0) : minutes(evac - ran_out_at);
-    plan.shortfall_volume = litres(plan.enough ? 0.0 : missing);
-    plan.spare_volume = litres(0);
-    plan.spare = minutes(0);
-    plan.spare_cylinders = 0.0;
-    plan.extra_cylinders_needed =
-        plan.enough ? 0 : static_cast<int>(std::ceil(missing / counting_l - 1e-9));
-  }
-
-  // The verdict: enough only with the margin, never from an extrapolated figure.
-  plan.margin = std::max(input.margin_minimum, input.evacuation * input.margin_fraction);
-  if (!plan.enough) {
-    plan.verdict = Verdict::Short;
-  } else if (plan.extrapolated) {
-    plan.verdict = Verdict::Extrapolated;
-  } else {
-    bool margin_kept = !plan.supply_lasts ||
-                       *plan.supply_lasts >= input.evacuation + plan.margin - minutes(1e-9);
-    plan.verdict = margin_kept ? Verdict::Enough : Verdict::BelowMargin;
-  }
-  plan.max_sustainable_flow = steady_flow(usable_total, evac + plan.margin.in(minutes));
-  plan.max_flow_to_arrival = steady_flow(usable_total, evac);
-
-  // Pressure-vs-time samples: every interval and every segment end (events), capped in number.
-  double interval = input.sample_interval.in(minutes);
-  if (evac / interval > kMaxSamples) {
-    interval = std::ceil(evac / kMaxSamples);
-    plan.assumptions.push_back("Samples every " + minutes_text(interval) + " to keep the plot small.");
-  }
-  auto add_sample = [&](double time, std::size_t cyl, double remaining_l, double flow) {
-    PressureSample s{minutes(time), cyl, bar(gauge_bar_at(stock[cyl], remaining_l)),
-                     litres_per_minute(flow)};
-    if (!plan.samples.empty() && plan.samples.back().time == s.time &&
-        plan.samples.back().cylinder_index == cyl) {
-      plan.samples.back() = s;  // same instant and cylinder: keep the newer flow
-    } else {
-      plan.samples.push_back(s);
-    }
-  };
-  for (const Segment& seg : segments) {
-    add_sample(seg.start_min, seg.cylinder, seg.remaining_at_start_l, seg.flow_lpm);
-    for (double k = std::floor(seg.start_min / interval) + 1; k * interval < seg.end_min; ++k) {
-      double at = k * interval;
-      add_sample(at, seg.cylinder, seg.remaining_at_start_l - seg.flow_lpm * (at - seg.start_min),
-                 seg.flow_lpm);
-    }
-    double at_end = seg.remaining_at_start_l - seg.flow_lpm * (seg.end_min - seg.start_min);
-    add_sample(seg.end_min, seg.cylinder, at_end, seg.flow_lpm);
-  }
-  // After the oxygen ran out: the last cylinder stays at reserve until arrival.
-  if (ran_out_at >= 0.0 && ran_out_at < evac && !plan.uses.empty()) {
-    std::size_t last = plan.uses.back().cylinder_index;
-    for (double k = std::floor(ran_out_at / interval) + 1; k * interval < evac; ++k) {
-      add_sample(k * interval, last, 0.0, 0.0);
-    }
-    add_sample(evac, last, 0.0, 0.0);
-  }
+  const Walk walk = walk_timeline(plan, stock, schedule, evac, input.reserve_gauge, reserve);
+  add_totals(plan, walk, schedule, evac, counting->usable_l);
+  decide_verdict(plan, input, usable_total);
+  add_samples(plan, walk, stock, evac, input.sample_interval.in(minutes));
   return plan;
 }
 
