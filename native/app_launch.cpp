@@ -1,5 +1,8 @@
 #include "app_launch.hpp"
 
+#include "model/atmosphere.hpp"
+#include "ui/format.hpp"
+
 #include <array>
 #include <string_view>
 #include <utility>
@@ -38,7 +41,8 @@ Result<bool> apply_launch_options(AppState& state, const std::string& screen,
   if (screen == "keypad") {
     // The keypad open on the Here screen's altitude: for screenshots of the number entry.
     state.screen = Screen::Here;
-    state.keypad = Keypad{true, "altitude", "Altitude", "\xE2\x88\x92" "500 to 9\xC2\xA0" "000 m", "4250", false, {"m", "ft"}, 0, false, 0,
+    const units::Range<units::LengthDimension>& site = atmosphere::kSiteAltitudeRange;
+    state.keypad = Keypad{true, "altitude", "Altitude", range_text(site.low_in_unit(), site.high_in_unit(), "m", 0), "4250", false, {"m", "ft"}, 0, false, 0,
                           /*allow_negative=*/true, /*allow_decimal=*/false};
   } else if (!screen.empty()) {
     Result<Screen> s = lookup(kScreenKeys, screen, "screen");

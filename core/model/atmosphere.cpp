@@ -108,19 +108,10 @@ Result<Length> altitude_at(Pressure pressure, Model model) {
 }
 
 namespace {
-constexpr double kQnhLowHpa = 900.0, kQnhHighHpa = 1100.0;
-constexpr double kQnhAltitudeLow = -500.0, kQnhAltitudeHigh = 9000.0;
-
 Result<double> check_qnh_inputs(Length altitude, Pressure qnh) {
-  double z = altitude.in(metres);
-  if (!in_range(z, kQnhAltitudeLow, kQnhAltitudeHigh)) {
-    return range_error("altitude", kQnhAltitudeLow, kQnhAltitudeHigh, "m", z);
-  }
-  double q = qnh.in(hectopascals);
-  if (!in_range(q, kQnhLowHpa, kQnhHighHpa)) {
-    return range_error("QNH (sea-level pressure)", kQnhLowHpa, kQnhHighHpa, "hPa", q);
-  }
-  return geopotential_from_geometric_m(z);
+  if (auto z = check("altitude", altitude, kSiteAltitudeRange); !z) return z.error();
+  if (auto q = check("QNH (sea-level pressure)", qnh, kQnhRange); !q) return q.error();
+  return geopotential_from_geometric_m(altitude.in(metres));
 }
 }  // namespace
 
@@ -164,11 +155,7 @@ Result<QnhWithTemperature> qnh_with_temperature(Length geometric_altitude, Press
 }
 
 Result<Pressure> pressure_from_station_reading(Pressure reading) {
-  double hpa = reading.in(hectopascals);
-  if (!in_range(hpa, 150.0, 1100.0)) {
-    return range_error("station barometer reading", 150.0, 1100.0, "hPa", hpa);
-  }
-  return reading;
+  return check("station barometer reading", reading, kStationReadingRange);
 }
 
 Result<StationCheck> check_station_reading(Pressure reading, Length geometric_altitude, Model model) {

@@ -44,8 +44,19 @@ Result<Length> altitude_at(Pressure pressure, Model model);
 // Where the local barometric pressure came from.
 enum class TemperatureAt { SeaLevel, Station };
 
+// Where a rescue can be: below the lowest shore on land (the Dead Sea, about −430 m) to above the
+// highest summit (8,849 m). The situation's altitude field and the QNH reduction take this.
+inline constexpr units::Range<units::LengthDimension> kSiteAltitudeRange{
+    units::metres(-500.0), units::metres(9000.0), &units::metres};
+// A reported sea-level pressure (QNH) and a station barometer reading (an absolute pressure a
+// person can be in).
+inline constexpr units::Range<units::PressureDimension> kQnhRange{
+    units::hectopascals(900.0), units::hectopascals(1100.0), &units::hectopascals};
+inline constexpr units::Range<units::PressureDimension> kStationReadingRange{
+    units::hectopascals(150.0), units::hectopascals(1100.0), &units::hectopascals};
+
 // Pressure at an altitude from the day's sea-level pressure (QNH), using the ISA lapse rate
-// (ICAO altimeter setting convention).  Valid QNH 900…1100 hPa, altitude −500…9 000 m.
+// (ICAO altimeter setting convention). Altitude in kSiteAltitudeRange, QNH in kQnhRange.
 Result<Pressure> pressure_from_qnh(Length geometric_altitude, Pressure qnh);
 
 // Same, but with a measured air temperature (at sea level or at the station) by the hypsometric
@@ -68,7 +79,7 @@ Result<QnhWithTemperature> qnh_with_temperature(Length geometric_altitude, Press
                                                 Temperature temperature, TemperatureAt where);
 
 // A station barometer reading (not corrected to sea level) is PB itself; this only checks it is
-// a plausible absolute pressure for a person to be in: 150…1100 hPa.
+// a plausible absolute pressure for a person to be in (kStationReadingRange).
 Result<Pressure> pressure_from_station_reading(Pressure reading);
 
 // A station reading checked against a known altitude. `LooksLikeSeaLevel`: above 950 hPa at a

@@ -166,6 +166,29 @@ bool within(Quantity<Dimension> q, double low, double high, const Unit<Dimension
   return in_range(q.in(si), unit(low).in(si), unit(high).in(si));
 }
 
+// A valid range, published once by the model that owns it and read by the fields, the saved
+// state and the CLI; `unit` is the one its messages use ("between 900 and 1100 hPa").
+template <class Dimension>
+struct Range {
+  Quantity<Dimension> low, high;
+  const Unit<Dimension>* unit;
+
+  constexpr double low_in_unit() const { return low.in(*unit); }
+  constexpr double high_in_unit() const { return high.in(*unit); }
+  bool contains(Quantity<Dimension> q) const {
+    return within(q, low_in_unit(), high_in_unit(), *unit);
+  }
+};
+
+// The one range check: the value, or a message naming `what`, the range and its unit.
+template <class Dimension>
+Result<Quantity<Dimension>> check(std::string_view what, Quantity<Dimension> q,
+                                  const Range<Dimension>& range) {
+  if (range.contains(q)) return q;
+  return range_error(what, range.low_in_unit(), range.high_in_unit(), range.unit->symbol,
+                     q.in(*range.unit));
+}
+
 // [SECTION] Parsing "number + unit" text typed by a user or passed on the command line.
 
 inline constexpr std::array<const Unit<LengthDimension>*, 3> length_units{&metres, &feet,

@@ -14,7 +14,8 @@ using namespace units;
 QuantityField<LengthDimension> altitude_field(const AppState& state, const char* label,
                                               const char* id) {
   return {label, id, "altitude", {kAltitudeUnits.begin(), kAltitudeUnits.end()},
-          static_cast<int>(state.settings.units.altitude), metres(-500), metres(9000),
+          static_cast<int>(state.settings.units.altitude), atmosphere::kSiteAltitudeRange.low,
+          atmosphere::kSiteAltitudeRange.high,
           {100.0, 500.0}, 0};
 }
 

@@ -93,7 +93,8 @@ void draw_where(AppState& state) {
   if (s.source == PressureSource::Station) {
     edit_quantity(state,
                   air_pressure_field(state, "Barometer reading here (not sea-level)", "station",
-                                     hectopascals(150), hectopascals(1100)),
+                                     atmosphere::kStationReadingRange.low,
+                                     atmosphere::kStationReadingRange.high),
                   s.station_reading);
     toggle_row(state, "station-altitude", "Altitude unknown", "Altitude known",
                &s.station_altitude_known);
@@ -104,7 +105,7 @@ void draw_where(AppState& state) {
   }
   if (s.source == PressureSource::Qnh) {
     edit_quantity(state, air_pressure_field(state, "Sea-level pressure reported (QNH)", "qnh",
-                                            hectopascals(900), hectopascals(1100)),
+                                            atmosphere::kQnhRange.low, atmosphere::kQnhRange.high),
                   s.qnh);
     toggle_row(state, "qnh-temperature", "Temperature unknown", "Temperature known",
                &s.qnh_temperature_known);

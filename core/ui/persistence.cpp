@@ -76,6 +76,14 @@ void read(const Json& j, const char* key, const Unit<D>& unit, double low, doubl
   read(j, key, low, high, v);
   out = unit(v);
 }
+// A saved quantity (a number in `unit`), kept only inside the model's published range.
+template <class D>
+void read(const Json& j, const char* key, const Unit<D>& unit, const Range<D>& range,
+          Quantity<D>& out) {
+  Quantity<D> v = out;
+  read(j, key, unit, -1e300, 1e300, v);
+  if (range.contains(v)) out = v;
+}
 Json child(const Json& j, const char* key) {
   auto it = j.find(key);
   return it != j.end() && it->is_object() ? *it : Json::object();
@@ -168,7 +176,7 @@ bool state_from_json(AppState& state, const std::string& text) {
   const Json si = child(j, "situation");
   Situation& s = state.situation;
   read(si, "source", kSourceKeys, s.source);
-  read(si, "altitude_m", metres, -500, 9000, s.altitude);
+  read(si, "altitude_m", metres, atmosphere::kSiteAltitudeRange, s.altitude);
   // Saves from before the flag: an altitude other than the old default of 3,000 m was typed
   // or stepped by someone; 3,000 m may be the default nobody entered, so it shows empty.
   s.altitude_entered = si.contains("altitude_m") && s.altitude.in(metres) != 3000.0;
@@ -176,8 +184,8 @@ bool state_from_json(AppState& state, const std::string& text) {
   double entered_at = static_cast<double>(s.altitude_entered_at);
   read(si, "altitude_entered_at", 0.0, 4102444800.0, entered_at);  // up to the year 2100
   s.altitude_entered_at = static_cast<std::int64_t>(entered_at);
-  read(si, "station_pa", pascals, 15000, 110000, s.station_reading);
-  read(si, "qnh_pa", pascals, 90000, 110000, s.qnh);
+  read(si, "station_pa", pascals, atmosphere::kStationReadingRange, s.station_reading);
+  read(si, "qnh_pa", pascals, atmosphere::kQnhRange, s.qnh);
   read(si, "temperature_known", s.qnh_temperature_known);
   read(si, "air_temperature_k", kelvin, 213.15, 323.15, s.air_temperature);
   read(si, "station_altitude_known", s.station_altitude_known);

@@ -31,6 +31,16 @@ TEST_CASE("a temperature is a point on its scale: not added or scaled; a differe
   CHECK((fahrenheit(50) - step).in(fahrenheit) == Approx(23.0));
 }
 
+TEST_CASE("a published range checks a quantity in any unit and speaks in its own", "[units]") {
+  constexpr Range<PressureDimension> qnh{hectopascals(900), hectopascals(1100), &hectopascals};
+  CHECK(check("QNH", mmhg(760), qnh).ok());  // 760 mmHg = 1013.25 hPa (1 atm, NIST SP 811)
+  CHECK(check("QNH", hectopascals(1100), qnh).ok());  // bounds included
+  Result<Pressure> low = check("QNH", inhg(25), qnh);  // 25 × 33.86389 hPa = 846.597 hPa (NIST SP 811)
+  REQUIRE_FALSE(low.ok());
+  CHECK(low.error().message.find("QNH must be between 900 and 1100 hPa (got 846.59") == 0);
+  CHECK_FALSE(check("QNH", hectopascals(NAN), qnh).ok());
+}
+
 TEST_CASE("conversion factors", "[units]") {
   // NIST SP 811 (2008), Appendix B.8: 1 ft = 0.3048 m; 1 mmHg = 133.3224 Pa; 1 psi =
   // 6894.757 Pa; 1 inHg (32 °F) = 3386.38 Pa; 1 atm = 101 325 Pa.
