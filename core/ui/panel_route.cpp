@@ -169,19 +169,20 @@ void draw_cylinder_bars(const AppState& state, const route::RouteInput& in, cons
   double n = static_cast<double>(in.stock.cylinders.size());
   Plot plot = begin_plot(state, "Cylinders on the casualty",
                          std::to_string(plan.swaps.size()) + " changes before arrival",
-                         static_cast<float>(2.0 + 2.2 * n), {0, end_h, 0, n, end_h > 6 ? 2.0 : 1.0, n, "hours", ""});
+                         static_cast<float>(2.0 + 2.8 * n), {0, end_h, 0, n, end_h > 6 ? 2.0 : 1.0, 0, "hours", ""});  // rows: no y numbers
   for (const route::CylinderSpan& s : plan.spans) {
     double row = n - 1 - static_cast<double>(s.cylinder);
-    ImVec2 a = plot.at(s.start.in(hours), row + 0.1), b = plot.at(s.end.in(hours), row + 0.5);
+    // The bar in the lower half of its row, its label (one line, ~1 em of the row's 2.8) above.
+    ImVec2 a = plot.at(s.start.in(hours), row + 0.1), b = plot.at(s.end.in(hours), row + 0.45);
     plot.draw->AddRectFilled(ImVec2(a.x, b.y), ImVec2(b.x, a.y),
                              plot_colour(state, s.reached_reserve ? PlotColour::Warning : PlotColour::Accent, 0.6f));
     const route::StockCylinder& c = in.stock.cylinders[s.cylinder];
     // Name and gauge above the bar, kept inside the plot when the bar starts near its right end.
     std::string label = c.label + "  " + cylinder_pressure_text(s.start_gauge, state.settings.units) +
-                        " > " + cylinder_pressure_text(s.end_gauge, state.settings.units);
+                        " \xE2\x86\x92 " + cylinder_pressure_text(s.end_gauge, state.settings.units);
     float width = ImGui::CalcTextSize(label.c_str()).x;
     ImVec2 top = plot.at(s.start.in(hours), row + 1.0);
-    float x = std::max(plot.min.x, std::min(top.x, plot.max.x - width));
+    float x = std::max(plot.min.x + 0.2f * em(), std::min(top.x, plot.max.x - width - 0.2f * em()));
     plot.draw->AddText(ImVec2(x, top.y), plot_colour(state, PlotColour::Text), label.c_str());
   }
   plot_legend(state, {{plot_colour(state, PlotColour::Accent, 0.6f), "on the casualty at arrival"},
