@@ -19,10 +19,7 @@ double moles_per_min(VolumeFlow flow, double pressure_pa, double temperature_k) 
 }
 
 Result<double> check(const Settings& s) {
-  double g = s.gauge.in(hectopascals);  // hPa = mbar: one name for the unit on every screen
-  if (!in_range(g, 0.0, max_gauge_mbar)) {
-    return range_error("bag gauge pressure", 0, max_gauge_mbar, "hPa", g);
-  }
+  if (auto g = units::check("bag gauge pressure", s.gauge, kGaugeRange); !g) return g.error();
   if (s.flush) {
     double f = s.flush->in(litres_per_minute);
     if (!in_range(f, min_flush_lpm, max_flush_lpm)) {

@@ -25,6 +25,9 @@ using units::VolumeFlow;
 
 // Validity of the settings.
 inline constexpr double max_gauge_mbar = 250.0;  // devices run up to ~220 mbar (from memory)
+// The bag gauge pressure (inside minus ambient) the model, the Bag screen and the record take.
+inline constexpr units::Range<units::PressureDimension> kGaugeRange{
+    units::hectopascals(0.0), units::hectopascals(max_gauge_mbar), &units::hectopascals};
 inline constexpr double min_flush_lpm = 5.0, max_flush_lpm = 300.0;
 inline constexpr double max_oxygen_feed_lpm = 15.0;
 inline constexpr double min_bag_volume_l = 100.0, max_bag_volume_l = 2000.0;

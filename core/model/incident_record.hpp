@@ -9,6 +9,8 @@
 #include <string_view>
 #include <vector>
 
+#include "model/atmosphere.hpp"
+#include "model/hyperbaric_bag.hpp"
 #include "model/result.hpp"
 #include "model/supplemental_oxygen.hpp"
 #include "model/units.hpp"
@@ -80,11 +82,13 @@ inline constexpr int kSchemaVersion = 1;
 inline constexpr size_t kMaxEntries = 2000;
 inline constexpr size_t kMaxNoteChars = 500;
 inline constexpr size_t kMaxLabelChars = 80;
-inline constexpr double kMinAltitudeM = -500.0, kMaxAltitudeM = 9000.0;
+// The site altitudes and bag gauge pressures of the models that own them.
+inline constexpr double kMinAltitudeM = atmosphere::kSiteAltitudeRange.low_in_unit();
+inline constexpr double kMaxAltitudeM = atmosphere::kSiteAltitudeRange.high_in_unit();
 inline constexpr double kMinSpo2Pct = 30.0, kMaxSpo2Pct = 100.0;
 inline constexpr int kMinHeartRate = 20, kMaxHeartRate = 250;
 inline constexpr int kMinBreathingRate = 2, kMaxBreathingRate = 80;
-inline constexpr double kMaxBagGaugeMbar = 250.0;
+inline constexpr double kMaxBagGaugeMbar = hyperbaric_bag::max_gauge_mbar;
 
 // Reads a record file; every problem is named with its path ("entries[3].spo2: …") and the
 // valid range, all of them joined in the Error.

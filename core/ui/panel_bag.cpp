@@ -28,8 +28,8 @@ QuantityField<PressureDimension> bag_gauge_field(const AppState& state) {
   constexpr int decimals[] = {0, 0, 1, 2};  // a gauge of a few hundred hPa: coarser than air
   std::vector<const Unit<PressureDimension>*> units(kPressureUnits.begin(), kPressureUnits.end());
   units.push_back(&psi);
-  return {"Bag pressure (gauge)", "bag-gauge", "bag gauge pressure", units, index, millibar(0),
-          millibar(bag::max_gauge_mbar), {10.0, 5.0, 1.0, 0.2, 0.1}, decimals[index]};
+  return {"Bag pressure (gauge)", "bag-gauge", "bag gauge pressure", units, index,
+          bag::kGaugeRange.low, bag::kGaugeRange.high, {10.0, 5.0, 1.0, 0.2, 0.1}, decimals[index]};
 }
 
 QuantityField<VolumeFlowDimension> gas_exchange_field(const char* label, const char* id,
