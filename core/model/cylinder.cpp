@@ -14,31 +14,23 @@ using namespace units;
 constexpr double kR = oxygen_eos::gas_constant_j_per_mol_k;
 
 Result<double> check_reading(const Reading& r) {
-  double wc = r.water_capacity.in(litres);
-  if (!in_range(wc, min_water_capacity_l, max_water_capacity_l)) {
-    return range_error("water capacity", min_water_capacity_l, max_water_capacity_l, "L", wc);
+  using units::check;
+  if (auto w = check("water capacity", r.water_capacity, kWaterCapacityRange); !w) {
+    return w.error();
   }
-  double g = r.gauge_pressure.in(bar);
-  if (!in_range(g, 0.0, max_gauge_bar)) {
-    return range_error("cylinder pressure (gauge)", 0.0, max_gauge_bar, "bar", g);
+  if (auto g = check("cylinder pressure (gauge)", r.gauge_pressure, kGaugeRange); !g) {
+    return g.error();
   }
-  double t = r.temperature.in(celsius);
-  if (!in_range(t, min_temperature_c, max_temperature_c)) {
-    return range_error("cylinder temperature", min_temperature_c, max_temperature_c, "°C", t);
+  if (auto t = check("cylinder temperature", r.temperature, kTemperatureRange); !t) {
+    return t.error();
   }
-  double a = r.ambient_pressure.in(hectopascals);
-  if (!in_range(a, min_ambient_hpa, max_ambient_hpa)) {
-    return range_error("ambient pressure", min_ambient_hpa, max_ambient_hpa, "hPa", a);
-  }
+  if (auto a = check("ambient pressure", r.ambient_pressure, kAmbientRange); !a) return a.error();
   return 0.0;
 }
 
 Result<double> check_flow(VolumeFlow flow, std::string_view what = "flow") {
-  double f = flow.in(litres_per_minute);
-  if (!in_range(f, min_flow_lpm, max_flow_lpm)) {
-    return range_error(what, min_flow_lpm, max_flow_lpm, "L/min", f);
-  }
-  return f;
+  if (auto f = units::check(what, flow, kFlowRange); !f) return f.error();
+  return flow.in(litres_per_minute);
 }
 
 // Compressibility at the reference state (≈ 0.9992): a constant of the equation of state,

@@ -35,6 +35,18 @@ inline constexpr double min_flow_lpm = 0.1, max_flow_lpm = 30.0;  // a flowmeter
 // Ambient (absolute) pressure the gauge is referenced to: 150…1100 hPa (sea level to above
 // Everest's summit).
 inline constexpr double min_ambient_hpa = 150.0, max_ambient_hpa = 1100.0;
+// The same limits as ranges, for the one check and for the screens' fields.
+inline constexpr units::Range<units::VolumeDimension> kWaterCapacityRange{
+    units::litres(min_water_capacity_l), units::litres(max_water_capacity_l), &units::litres};
+inline constexpr units::Range<units::PressureDimension> kGaugeRange{
+    units::bar(0.0), units::bar(max_gauge_bar), &units::bar};
+inline constexpr units::Range<units::TemperatureDimension> kTemperatureRange{
+    units::celsius(min_temperature_c), units::celsius(max_temperature_c), &units::celsius};
+inline constexpr units::Range<units::PressureDimension> kAmbientRange{
+    units::hectopascals(min_ambient_hpa), units::hectopascals(max_ambient_hpa), &units::hectopascals};
+inline constexpr units::Range<units::VolumeFlowDimension> kFlowRange{
+    units::litres_per_minute(min_flow_lpm), units::litres_per_minute(max_flow_lpm),
+    &units::litres_per_minute};
 
 // US letter sizes (aluminium / steel medical cylinders as sold in the US).
 enum class LetterSize { D, E, M, H };

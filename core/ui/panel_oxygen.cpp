@@ -150,7 +150,7 @@ ChosenCylinder draw_cylinder(AppState& state, Pressure ambient) {
   OxygenInputs& in = state.oxygen;
   heading("Cylinder");
   ChosenCylinder chosen = choose_cylinder(state);
-  edit_quantity(state, cylinder_pressure_field(state, "Cylinder gauge", "cyl-gauge", bar(cylinder::max_gauge_bar)), in.gauge);
+  edit_quantity(state, cylinder_pressure_field(state, "Cylinder gauge", "cyl-gauge", cylinder::kGaugeRange.high), in.gauge);
   edit_quantity(state, temperature_field(state, "Cylinder temperature", "cyl-temperature",
                                          cylinder::min_temperature_c, cylinder::max_temperature_c),
                 in.cylinder_temperature);
