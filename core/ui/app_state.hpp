@@ -176,6 +176,9 @@ struct TeachingInputs {
   // Sea level to the highest summit (8,848.86 m, the 2020 China–Nepal survey), rounded up.
   static constexpr double kTopM = 8849.0;
   units::Length altitude = units::metres(4000.0);
+  // Where the finger has put the slider's grab while it is down (ImGui moves it on the press);
+  // the altitude follows once the finger slides sideways, or on a tap's release.
+  std::optional<double> slider_metres;
 };
 
 // The Record screen: the incident's casualty record (ui/record_store.hpp keeps it) and the

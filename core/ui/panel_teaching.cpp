@@ -8,6 +8,7 @@
 #include <imgui.h>
 
 #include <algorithm>
+#include <cmath>
 
 #include "model/atmosphere.hpp"
 #include "model/dissociation.hpp"
@@ -109,7 +110,8 @@ void landmark_buttons(AppState& state) {
 // A slider as tall as a touch target, its grab as wide as a thumb; Left/Right keys move 50 m,
 // Page Up/Down 500 m (a projector remote or a laptop in the training room).
 void altitude_slider(AppState& state) {
-  float value = static_cast<float>(state.teaching.altitude.in(metres));
+  TeachingInputs& t = state.teaching;
+  float value = static_cast<float>(t.slider_metres.value_or(t.altitude.in(metres)));
   float grab = 2.5f * em();
   ImGui::PushStyleVar(ImGuiStyleVar_FramePadding,
                       ImVec2(ImGui::GetStyle().FramePadding.x, std::max(ImGui::GetStyle().FramePadding.y,
@@ -130,12 +132,24 @@ void altitude_slider(AppState& state) {
     test_hook::item("Teaching extrapolated");
   }
   ImGui::SetNextItemWidth(-1.0f);
-  if (ImGui::SliderFloat("##teach-altitude", &value, 0.0f, static_cast<float>(TeachingInputs::kTopM), "",
-                         ImGuiSliderFlags_AlwaysClamp | ImGuiSliderFlags_NoInput |
-                             ImGuiSliderFlags_NoRoundToFormat)) {
-    // 50 m steps read cleanly; the top is the summit itself, not 8,850 m.
-    double stepped = std::round(value / 50.0f) * 50.0;
-    set_teaching_altitude(state, value >= TeachingInputs::kTopM - 25.0 ? TeachingInputs::kTopM : stepped);
+  ImGui::SliderFloat("##teach-altitude", &value, 0.0f, static_cast<float>(TeachingInputs::kTopM), "",
+                     ImGuiSliderFlags_AlwaysClamp | ImGuiSliderFlags_NoInput |
+                         ImGuiSliderFlags_NoRoundToFormat);
+  // 50 m steps read cleanly; the top is the summit itself, not 8,850 m.
+  auto stepped = [](double m) {
+    return m >= TeachingInputs::kTopM - 25.0 ? TeachingInputs::kTopM : std::round(m / 50.0) * 50.0;
+  };
+  // A thumb that scrolls the page from the slider must not move the altitude: ImGui sets the
+  // grab on the press, so the figures follow only a sideways slide, or a tap once released.
+  if (ImGui::IsItemActive()) {
+    t.slider_metres = value;
+    ImVec2 moved = ImGui::GetMouseDragDelta(ImGuiMouseButton_Left, 0.0f);
+    if (std::fabs(moved.x) > tap_slop() && std::fabs(moved.x) >= std::fabs(moved.y)) {
+      set_teaching_altitude(state, stepped(value));
+    }
+  } else if (t.slider_metres) {
+    if (!state.press_scrolling) set_teaching_altitude(state, stepped(*t.slider_metres));
+    t.slider_metres.reset();
   }
   ImGui::PopStyleVar(2);
   landmark_ticks(state, grab);

@@ -72,11 +72,11 @@ class Phone {
     return Math.min(...nav.map((i) => i.y));
   }
 
-  // A thumb drag from (x, y) by dy CSS px: `steps` moves, `stepMs` apart (0: a flick whose
-  // moves all land within one frame).
-  async drag(x, y, dy, {steps = 8, stepMs = 40} = {}) {
+  // A thumb drag from (x, y) by dy CSS px (and dx sideways): `steps` moves, `stepMs` apart (0:
+  // a flick whose moves all land within one frame).
+  async drag(x, y, dy, {steps = 8, stepMs = 40, dx = 0} = {}) {
     const began = Date.now();
-    const at = (k) => [{x, y: y + (dy * k) / steps}];
+    const at = (k) => [{x: x + (dx * k) / steps, y: y + (dy * k) / steps}];
     await this.cdp.send('Input.dispatchTouchEvent', {type: 'touchStart', touchPoints: at(0)});
     for (let k = 1; k <= steps; ++k) {
       if (stepMs) await pause(stepMs);
@@ -221,6 +221,30 @@ describe(`phone 390×844 dpr ${DPR}, touch`, () => {
       }
     }
     await phone.page.screenshot({path: join(shots, 'touch-phone-oxygen-after-drags.png')});
+  });
+
+  test('Teaching: a drag over the slider or a landmark scrolls and keeps the altitude', async () => {
+    await phone.screen('Teaching');
+    const before = (await phone.item('Teaching altitude')).text;
+    // 'Teaching altitude' is recorded on the slider itself (its text is the altitude shown).
+    for (const label of ['Teaching altitude', 'Everest']) {
+      const target = await phone.centre(label);
+      await phone.drag(target.x + target.w * 0.8, target.y + target.h / 2, -DRAG_CSS_PX);
+      assert.equal((await phone.item('Teaching altitude')).text, before,
+                   `a drag starting on "${label}" changed the teaching altitude`);
+    }
+    // A sideways slide still moves it: from the grab (4,000 m, 45 % along) to the right.
+    const slider = await phone.centre('Teaching altitude');
+    await phone.drag(slider.x + slider.w * 0.45, slider.y + slider.h / 2, 0,
+                     {dx: slider.w * 0.3, steps: 10});
+    const slid = Number((await phone.item('Teaching altitude')).text.replace(/\D/g, ''));
+    assert.ok(slid > 5000, `a sideways slide moved the altitude to ${slid} m`);
+    await phone.centre('Everest');
+    await phone.tap('Everest');  // a tap still jumps there
+    await phone.waitText('Teaching altitude', (t) => t === '8849 m');
+    await phone.centre('Tarn Hut');
+    await phone.tap('Tarn Hut');
+    await phone.waitText('Teaching altitude', (t) => t === '3850 m');
   });
 
   test('a choice row ignores a drag, takes a tap', async () => {
