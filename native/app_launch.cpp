@@ -5,31 +5,19 @@
 
 #include <array>
 #include <string_view>
-#include <utility>
 
 namespace firn::ui {
 namespace {
 
-constexpr auto kScreenKeys = [] {
-  std::array<std::pair<std::string_view, Screen>, kScreenCount> keys{};
-  for (std::size_t i = 0; i < keys.size(); ++i) keys[i] = {kScreenNames[i].key, kScreenNames[i].screen};
-  return keys;
-}();
-
-constexpr auto kThemes = [] {
-  std::array<std::pair<std::string_view, Theme>, kThemeKeys.size()> keys{};
-  for (std::size_t i = 0; i < keys.size(); ++i) keys[i] = {kThemeKeys[i], static_cast<Theme>(i)};
-  return keys;
-}();
-
+// `keys` in the order of the enum T (kScreenKeys, kThemeKeys).
 template <class T, size_t N>
-Result<T> lookup(const std::array<std::pair<std::string_view, T>, N>& table,
-                 const std::string& name, const char* what) {
+Result<T> lookup(const std::array<std::string_view, N>& keys, const std::string& name,
+                 const char* what) {
   std::string valid;
-  for (const auto& [key, value] : table) {
-    if (key == name) return value;
+  for (size_t i = 0; i < N; ++i) {
+    if (keys[i] == name) return static_cast<T>(i);
     valid += valid.empty() ? "" : ", ";
-    valid += key;
+    valid += keys[i];
   }
   return Error{std::string("unknown ") + what + " '" + name + "': use " + valid};
 }
@@ -45,12 +33,12 @@ Result<bool> apply_launch_options(AppState& state, const std::string& screen,
     state.keypad = Keypad{true, "altitude", "Altitude", range_text(site.low_in_unit(), site.high_in_unit(), "m", 0), "4250", false, {"m", "ft"}, 0, false, 0,
                           /*allow_negative=*/true, /*allow_decimal=*/false};
   } else if (!screen.empty()) {
-    Result<Screen> s = lookup(kScreenKeys, screen, "screen");
+    Result<Screen> s = lookup<Screen>(kScreenKeys, screen, "screen");
     if (!s) return s.error();
     state.screen = s.value();
   }
   if (!theme.empty()) {
-    Result<Theme> t = lookup(kThemes, theme, "theme");
+    Result<Theme> t = lookup<Theme>(kThemeKeys, theme, "theme");
     if (!t) return t.error();
     state.settings.theme = t.value();
     state.built_font_scale = 0.0f;

@@ -59,6 +59,12 @@ static_assert([] {
   }
   return true;
 }(), "kScreenNames follows the order of Screen");
+// The keys alone, in Screen's order (saved state, --screen).
+inline constexpr auto kScreenKeys = [] {
+  std::array<std::string_view, kScreenCount> keys{};
+  for (std::size_t i = 0; i < keys.size(); ++i) keys[i] = kScreenNames[i].key;
+  return keys;
+}();
 
 // Units a user reads and types in. Values are stored as typed quantities (SI inside), so
 // switching units never rounds an entered value away.

@@ -22,11 +22,6 @@ namespace {
 
 constexpr int kFormatVersion = 1;
 
-constexpr auto kScreenKeys = [] {
-  std::array<std::string_view, kScreenCount> keys{};
-  for (std::size_t i = 0; i < keys.size(); ++i) keys[i] = kScreenNames[i].key;
-  return keys;
-}();
 constexpr std::array<std::string_view, 3> kSourceKeys{"altitude", "station", "qnh"};
 // Unit choices are saved as the unit's parsing spelling ("hpa", "c") and read case-insensitively,
 // so files that saved the symbol ("hPa") or "C" read the same.
@@ -80,9 +75,10 @@ void read(const Json& j, const char* key, const Unit<D>& unit, double low, doubl
 template <class D>
 void read(const Json& j, const char* key, const Unit<D>& unit, const Range<D>& range,
           Quantity<D>& out) {
-  Quantity<D> v = out;
-  read(j, key, unit, -1e300, 1e300, v);
-  if (range.contains(v)) out = v;
+  auto it = j.find(key);
+  if (it == j.end() || !it->is_number()) return;
+  Quantity<D> v = unit(it->get<double>());
+  if (range.contains(v)) out = v;  // contains() refuses NaN and infinities too
 }
 Json child(const Json& j, const char* key) {
   auto it = j.find(key);

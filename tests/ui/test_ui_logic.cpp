@@ -504,6 +504,17 @@ TEST_CASE("saved state from before the entered flag: the old default shows empty
   CHECK(typed.situation.altitude_entered);
 }
 
+TEST_CASE("saved state: a pressure outside the model's published range is not restored") {
+  // atmosphere::kQnhRange is 900…1100 hPa: 95 000 Pa is taken, 80 000 Pa left at the default.
+  AppState kept;
+  REQUIRE(state_from_json(kept, R"({"version":1,"situation":{"qnh_pa":95000}})"));
+  CHECK(kept.situation.qnh.in(units::hectopascals) == Approx(950.0));
+  AppState refused;
+  REQUIRE(state_from_json(refused, R"({"version":1,"situation":{"qnh_pa":80000,"altitude_m":12000}})"));
+  CHECK(refused.situation.qnh.in(units::hectopascals) == Approx(1013.25));
+  CHECK_FALSE(refused.situation.altitude_entered);  // 12 000 m is outside −500…9 000 m
+}
+
 TEST_CASE("saved state: unit choices written before one unit table (symbols, C/F) still read") {
   AppState old;
   REQUIRE(state_from_json(old, R"({"version":1,"settings":{"altitude_unit":"ft",
