@@ -1,7 +1,7 @@
 // Screen "Teaching": for the training room. One altitude control (sea level to the highest
-// summit: drag, ±, arrow keys or a landmark) drives
-// the oxygen cascade PB → PiO2 → PAO2 → PaO2 → SaO2 for an acute and an acclimatised lowlander
-// side by side, and their points on the dissociation curve. Independent of the situation, so an
+// summit: drag, ±, arrow keys or a landmark) drives the oxygen cascade PB → PiO2 → PAO2 → PaO2 →
+// SaO2 for an acute and an acclimatised lowlander side by side, and their points on the
+// dissociation curve. Independent of the situation, so an
 // instructor can sweep without touching the casualty's figures.
 #include "ui/panels.hpp"
 
@@ -73,7 +73,8 @@ void landmark_ticks(const AppState& state, float grab) {
   }
 }
 
-// Whether the bands at the teaching altitude lie beyond the field data (either exposure).
+// Whether the bands at the teaching altitude lie beyond the field data (either exposure). Asked
+// before the slider is drawn, so the tag beside the altitude never lags the panel's figures.
 bool extrapolated_at(const AppState& state) {
   Result<Pressure> pb = atmosphere::pressure_at(state.teaching.altitude, state.settings.model);
   if (!pb) return false;
