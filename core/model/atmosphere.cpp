@@ -1,6 +1,9 @@
 #include "model/atmosphere.hpp"
 
+#include <array>
 #include <cmath>
+#include <string>
+#include <utility>
 
 #include "model/latitude_month.hpp"
 
@@ -55,13 +58,6 @@ double west_altitude_km(double torr) {
   return (-kWestB + std::sqrt(kWestB * kWestB - 4.0 * kWestC * k)) / (2.0 * kWestC);
 }
 
-Error altitude_error(Model model, double got_m) {
-  AltitudeRange range = valid_altitudes(model);
-  Error e = range_error("altitude", range.low_m, range.high_m, "m", got_m);
-  e.message += " for the " + std::string(model_name(model)) + " model";
-  return e;
-}
-
 }  // namespace
 
 std::string_view model_name(Model model) { return model == Model::Isa ? "ISA" : "West 1996"; }
@@ -73,33 +69,50 @@ Result<Model> parse_model(std::string_view key) {
   return Error{"unknown atmosphere model '" + std::string(key) + "': use isa or west"};
 }
 
+units::Range<units::LengthDimension> altitude_range(Model model) {
+  if (model == Model::Isa) {
+    return {metres(-500.0), metres(20000.0), &metres, "altitude", " for the ISA model"};
+  }
+  return {metres(0.0), metres(9000.0), &metres, "altitude", " for the West 1996 model"};
+}
+
+units::Range<units::PressureDimension> pressure_range(Model model) {
+  // High altitude = low pressure; computed once per model.
+  static const auto make = [](Model m) {
+    units::Range<units::LengthDimension> z = altitude_range(m);
+    const double low_hpa = std::ceil(pressure_at(z.high, m)->in(hectopascals) * 10) / 10;
+    const double high_hpa = std::floor(pressure_at(z.low, m)->in(hectopascals) * 10) / 10;
+    return std::pair{std::array{low_hpa, high_hpa},
+                     std::string(z.note) + " (" + format_number(z.low_in_unit()) + " to " +
+                         format_number(z.high_in_unit()) + " m)"};
+  };
+  static const auto isa = make(Model::Isa), west = make(Model::West1996);
+  const auto& [hpa, note] = model == Model::Isa ? isa : west;
+  return {hectopascals(hpa[0]), hectopascals(hpa[1]), &hectopascals, "pressure", note};
+}
+
 AltitudeRange valid_altitudes(Model model) {
-  return model == Model::Isa ? AltitudeRange{-500.0, 20000.0} : AltitudeRange{0.0, 9000.0};
+  units::Range<units::LengthDimension> r = altitude_range(model);
+  return {r.low_in_unit(), r.high_in_unit()};
 }
 
 double geopotential_from_geometric_m(double z) { return kEarthRadius * z / (kEarthRadius + z); }
 double geometric_from_geopotential_m(double h) { return kEarthRadius * h / (kEarthRadius - h); }
 
 Result<Pressure> pressure_at(Length geometric_altitude, Model model) {
+  if (auto a = check(geometric_altitude, altitude_range(model)); !a) return a.error();
   double z = geometric_altitude.in(metres);
-  AltitudeRange range = valid_altitudes(model);
-  if (!in_range(z, range.low_m, range.high_m)) return altitude_error(model, z);
   if (model == Model::Isa) return pascals(isa_pressure_pa(geopotential_from_geometric_m(z)));
   return torr(west_pressure_torr(z / 1000.0));
 }
 
 Result<Length> altitude_at(Pressure pressure, Model model) {
-  AltitudeRange range = valid_altitudes(model);
-  // The pressure range is the altitude range mapped through the model (high altitude = low P).
-  double low_hpa = pressure_at(metres(range.high_m), model)->in(hectopascals);
-  double high_hpa = pressure_at(metres(range.low_m), model)->in(hectopascals);
-  double hpa = pressure.in(hectopascals);
-  if (!in_range(hpa, low_hpa, high_hpa)) {
-    Error e = range_error("pressure", std::ceil(low_hpa * 10) / 10, std::floor(high_hpa * 10) / 10,
-                          "hPa", hpa);
-    e.message += " for the " + std::string(model_name(model)) + " model (" +
-                 format_number(range.low_m) + " to " + format_number(range.high_m) + " m)";
-    return e;
+  // Judged on the exact bounds (the pressure at 9,000 m reads back as 9,000 m); refused with the
+  // published range, which lies inside them.
+  units::Range<units::LengthDimension> z = altitude_range(model);
+  if (!in_range(pressure.in(hectopascals), pressure_at(z.high, model)->in(hectopascals),
+                pressure_at(z.low, model)->in(hectopascals))) {
+    return refused(pressure, pressure_range(model));
   }
   if (model == Model::Isa) {
     return metres(geometric_from_geopotential_m(isa_geopotential_m(pressure.in(pascals))));
@@ -125,10 +138,7 @@ Result<Pressure> pressure_from_qnh(Length geometric_altitude, Pressure qnh,
                                    Temperature temperature, TemperatureAt where) {
   Result<double> h = check_qnh_inputs(geometric_altitude, qnh);
   if (!h) return h.error();
-  double celsius_value = temperature.in(celsius);
-  if (!in_range(celsius_value, -60.0, 50.0)) {
-    return range_error("air temperature", -60.0, 50.0, "°C", celsius_value);
-  }
+  if (auto t = check(temperature, kAirTemperatureRange); !t) return t.error();
   // Mean layer temperature with the standard lapse inside the layer (AMS Glossary,
   // "hypsometric equation").
   double t = temperature.in(kelvin);

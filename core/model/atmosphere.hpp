@@ -26,12 +26,15 @@ std::string_view model_name(Model model);       // "ISA" / "West 1996"
 std::string_view model_key(Model model);        // "isa" / "west" (CLI, JSON, profiles)
 Result<Model> parse_model(std::string_view key);  // accepts "isa", "west", "west1996"
 
-// Validity of each model, in geometric metres above sea level.
+// Validity of each model, in geometric metres above sea level: ISA −500…20 000 m; West 0…9 000 m.
+// The pressure range is the altitude range mapped through the model, rounded inward to 0.1 hPa.
+units::Range<units::LengthDimension> altitude_range(Model model);
+units::Range<units::PressureDimension> pressure_range(Model model);
 struct AltitudeRange {
   double low_m;
   double high_m;
 };
-AltitudeRange valid_altitudes(Model model);  // ISA −500…20 000 m; West 0…9 000 m
+AltitudeRange valid_altitudes(Model model);  // altitude_range in metres
 
 // Geometric elevation (maps, GPS) ↔ geopotential height (what ISA is defined on).
 // Effective Earth radius r0 = 6 356 766 m (US Standard Atmosphere 1976).
@@ -47,13 +50,18 @@ enum class TemperatureAt { SeaLevel, Station };
 // Where a rescue can be: below the lowest shore on land (the Dead Sea, about −430 m) to above the
 // highest summit (8,849 m). The situation's altitude field and the QNH reduction take this.
 inline constexpr units::Range<units::LengthDimension> kSiteAltitudeRange{
-    units::metres(-500.0), units::metres(9000.0), &units::metres};
+    units::metres(-500.0), units::metres(9000.0), &units::metres, "altitude"};
 // A reported sea-level pressure (QNH) and a station barometer reading (an absolute pressure a
 // person can be in).
 inline constexpr units::Range<units::PressureDimension> kQnhRange{
-    units::hectopascals(900.0), units::hectopascals(1100.0), &units::hectopascals};
+    units::hectopascals(900.0), units::hectopascals(1100.0), &units::hectopascals,
+    "QNH (sea-level pressure)"};
 inline constexpr units::Range<units::PressureDimension> kStationReadingRange{
-    units::hectopascals(150.0), units::hectopascals(1100.0), &units::hectopascals};
+    units::hectopascals(150.0), units::hectopascals(1100.0), &units::hectopascals,
+    "station barometer reading"};
+// The air temperature a QNH reduction takes (surface air on Earth, with room to spare).
+inline constexpr units::Range<units::TemperatureDimension> kAirTemperatureRange{
+    units::celsius(-60.0), units::celsius(50.0), &units::celsius, "air temperature"};
 
 // Pressure at an altitude from the day's sea-level pressure (QNH), using the ISA lapse rate
 // (ICAO altimeter setting convention). Altitude in kSiteAltitudeRange, QNH in kQnhRange.

@@ -65,8 +65,10 @@ Result<Fraction> planning_fio2(const Casualty& c, Device device, VolumeFlow flow
 }  // namespace
 
 Result<Shunt> virtual_shunt(const Casualty& c) {
-  double spo2 = c.spo2_on_air.in(percent);
-  if (!in_range(spo2, 30.0, 100.0)) return range_error("SpO2 measured on air", 30, 100, "%", spo2);
+  if (auto s = units::check("SpO2 measured on air", c.spo2_on_air.in(percent),
+                            expected_spo2::kMeasuredSpo2Range); !s) {
+    return s.error();
+  }
   Result<Path> air = healthy_middle(c, cascade::dry_air_fio2());
   if (!air) return air.error();
   double capillary = content(air->curve.saturation(air->arterial), air->arterial);
@@ -89,8 +91,9 @@ Result<Fraction> predicted_spo2(const Casualty& c, Device device, VolumeFlow flo
 }
 
 Result<CasualtyFlow> lowest_flow(const Casualty& c, Device device, Fraction target) {
-  double target_pct = target.in(percent);
-  if (!in_range(target_pct, 80.0, 99.0)) return range_error("target SpO2", 80, 99, "%", target_pct);
+  if (auto t = units::check(target.in(percent), supplemental_oxygen::kTargetSpo2Range); !t) {
+    return t.error();
+  }
   Result<Shunt> s = virtual_shunt(c);
   if (!s) return s.error();
   CasualtyFlow out;

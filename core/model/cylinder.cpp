@@ -15,16 +15,10 @@ constexpr double kR = oxygen_eos::gas_constant_j_per_mol_k;
 
 Result<double> check_reading(const Reading& r) {
   using units::check;
-  if (auto w = check("water capacity", r.water_capacity, kWaterCapacityRange); !w) {
-    return w.error();
-  }
-  if (auto g = check("cylinder pressure (gauge)", r.gauge_pressure, kGaugeRange); !g) {
-    return g.error();
-  }
-  if (auto t = check("cylinder temperature", r.temperature, kTemperatureRange); !t) {
-    return t.error();
-  }
-  if (auto a = check("ambient pressure", r.ambient_pressure, kAmbientRange); !a) return a.error();
+  if (auto w = check(r.water_capacity, kWaterCapacityRange); !w) return w.error();
+  if (auto g = check(r.gauge_pressure, kGaugeRange); !g) return g.error();
+  if (auto t = check(r.temperature, kTemperatureRange); !t) return t.error();
+  if (auto a = check(r.ambient_pressure, kAmbientRange); !a) return a.error();
   return 0.0;
 }
 
@@ -183,10 +177,7 @@ Result<DurationEstimate> duration(const Reading& reading, Pressure reserve_gauge
   if (!now) return now.error();
   Result<double> f = check_flow(flow);
   if (!f) return f.error();
-  double reserve_bar = reserve_gauge.in(bar);
-  if (!in_range(reserve_bar, 0.0, max_reserve_bar)) {
-    return range_error("reserve pressure (gauge)", 0.0, max_reserve_bar, "bar", reserve_bar);
-  }
+  if (auto r = units::check(reserve_gauge, kReserveRange); !r) return r.error();
   DurationEstimate d;
   d.contents = now.value();
   if (!(reading.gauge_pressure > reserve_gauge)) {

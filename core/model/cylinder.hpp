@@ -37,16 +37,19 @@ inline constexpr double min_flow_lpm = 0.1, max_flow_lpm = 30.0;  // a flowmeter
 inline constexpr double min_ambient_hpa = 150.0, max_ambient_hpa = 1100.0;
 // The same limits as ranges, for the one check and for the screens' fields.
 inline constexpr units::Range<units::VolumeDimension> kWaterCapacityRange{
-    units::litres(min_water_capacity_l), units::litres(max_water_capacity_l), &units::litres};
+    units::litres(min_water_capacity_l), units::litres(max_water_capacity_l), &units::litres,
+    "water capacity"};
 inline constexpr units::Range<units::PressureDimension> kGaugeRange{
-    units::bar(0.0), units::bar(max_gauge_bar), &units::bar};
+    units::bar(0.0), units::bar(max_gauge_bar), &units::bar, "cylinder pressure (gauge)"};
 inline constexpr units::Range<units::TemperatureDimension> kTemperatureRange{
-    units::celsius(min_temperature_c), units::celsius(max_temperature_c), &units::celsius};
+    units::celsius(min_temperature_c), units::celsius(max_temperature_c), &units::celsius,
+    "cylinder temperature"};
 inline constexpr units::Range<units::PressureDimension> kAmbientRange{
-    units::hectopascals(min_ambient_hpa), units::hectopascals(max_ambient_hpa), &units::hectopascals};
+    units::hectopascals(min_ambient_hpa), units::hectopascals(max_ambient_hpa), &units::hectopascals,
+    "ambient pressure"};
 inline constexpr units::Range<units::VolumeFlowDimension> kFlowRange{
     units::litres_per_minute(min_flow_lpm), units::litres_per_minute(max_flow_lpm),
-    &units::litres_per_minute};
+    &units::litres_per_minute, "flow"};
 
 // US letter sizes (aluminium / steel medical cylinders as sold in the US).
 enum class LetterSize { D, E, M, H };
@@ -75,6 +78,8 @@ inline constexpr Pressure field_rule_residual_gauge = units::psi(200.0);
 // and keeps a cylinder from being run empty (moist air gets in): common practice, our choice.
 inline constexpr Pressure default_reserve_gauge = units::bar(20.0);
 inline constexpr double max_reserve_bar = 100.0;  // a reserve above this is a typing slip
+inline constexpr units::Range<units::PressureDimension> kReserveRange{
+    units::bar(0.0), units::bar(max_reserve_bar), &units::bar, "reserve pressure (gauge)"};
 
 // Letter-size water capacities are typical values FROM MEMORY; D and E in particular vary by
 // maker (steel or aluminium, 2.1…3.0 L and 4.1…4.8 L). The sentence shown wherever one is used.

@@ -8,7 +8,6 @@ namespace {
 
 using namespace units;
 
-constexpr double kPo2MaxMmhg = 1000.0;  // covers 100 % oxygen at sea level and in a bag
 constexpr double kSaturationMaxPercent = 99.9;
 constexpr double kMaxSaturation = 0.9999;  // inverse clamps here: the curve never reaches 1
 
@@ -47,20 +46,17 @@ Pressure Curve::po2_for(Fraction saturation) const {
 Pressure Curve::p50() const { return po2_for(fraction(0.5)); }
 
 Result<Curve> make_curve(const CurveShift& shift) {
-  double t = shift.temperature.in(celsius);
-  if (!in_range(t, 20.0, 43.0)) return range_error("body temperature", 20, 43, "°C", t);
-  if (!in_range(shift.ph, 6.8, 7.8)) {
-    // pH has no unit: say so rather than print an empty one.
-    Error e = range_error("pH", 6.8, 7.8, "(no unit)");
+  if (auto t = units::check(shift.temperature, kBodyTemperatureRange); !t) return t.error();
+  if (!kPhRange.contains(shift.ph)) {
+    // pH has no unit: the value is given without the "(no unit)".
+    Error e = units::range_error(kPhRange.what, kPhRange);
     e.message += std::isfinite(shift.ph) ? " (got " + format_number(shift.ph, 3) + ")"
                                          : std::string(got_not_a_number);
     return e;
   }
-  if (!in_range(shift.base_excess_mmol_l, -30.0, 30.0)) {
-    return range_error("base excess", -30, 30, "mmol/L", shift.base_excess_mmol_l);
-  }
-  double p50 = shift.p50.in(mmhg);
-  if (!in_range(p50, 15.0, 40.0)) return range_error("P50", 15, 40, "mmHg", p50);
+  if (auto be = units::check(shift.base_excess_mmol_l, kBaseExcessRange); !be) return be.error();
+  if (auto p = units::check(shift.p50, kP50Range); !p) return p.error();
+  const double t = shift.temperature.in(celsius), p50 = shift.p50.in(mmhg);
   // Warmer, more acid blood or a higher P50 releases O2 more easily: a right shift, i.e. the
   // same PO2 behaves like a lower PO2 on the standard curve.
   double exponent = 0.024 * (37.0 - t) + 0.48 * (shift.ph - 7.40) - 0.0013 * shift.base_excess_mmol_l;
@@ -68,8 +64,7 @@ Result<Curve> make_curve(const CurveShift& shift) {
 }
 
 Result<Fraction> saturation(Pressure po2, const CurveShift& shift) {
-  double p = po2.in(mmhg);
-  if (!within(po2, 0.0, kPo2MaxMmhg, mmhg)) return range_error("PO2", 0, kPo2MaxMmhg, "mmHg", p);
+  if (auto p = units::check(po2, kPo2Range); !p) return p.error();
   Result<Curve> curve = make_curve(shift);
   if (!curve) return curve.error();
   return curve->saturation(po2);

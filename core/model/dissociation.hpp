@@ -21,6 +21,17 @@ using units::Temperature;
 inline constexpr double kStandardP50Mmhg = 26.85680014307396;
 
 // What moves the curve. Defaults are the standard conditions.
+// The valid shifts and PO2 (body temperature 20…43 °C, pH 6.8…7.8, base excess ±30 mmol/L,
+// P50 15…40 mmHg) and PO2 (0…1000 mmHg: 100 % oxygen at sea level and in a bag).
+inline constexpr units::Range<units::TemperatureDimension> kBodyTemperatureRange{
+    units::celsius(20.0), units::celsius(43.0), &units::celsius, "body temperature"};
+inline constexpr units::NumberRange kPhRange{6.8, 7.8, "(no unit)", "pH"};
+inline constexpr units::NumberRange kBaseExcessRange{-30.0, 30.0, "mmol/L", "base excess"};
+inline constexpr units::Range<units::PressureDimension> kP50Range{units::mmhg(15.0), units::mmhg(40.0),
+                                                                 &units::mmhg, "P50"};
+inline constexpr units::Range<units::PressureDimension> kPo2Range{units::mmhg(0.0), units::mmhg(1000.0),
+                                                                 &units::mmhg, "PO2"};
+
 struct CurveShift {
   Temperature temperature = units::celsius(37.0);  // valid 20…43 °C
   double ph = 7.40;                                // valid 6.80…7.80

@@ -83,8 +83,8 @@ Result<Expectation> expected(Pressure barometric, Acclimatisation acclimatisatio
 }
 
 Result<Assessment> assess(Fraction measured, const Band& band, bool extrapolated) {
-  double spo2 = measured.in(percent);
-  if (!in_range(spo2, 30.0, 100.0)) return range_error("measured SpO2", 30, 100, "%", spo2);
+  const double spo2 = measured.in(percent);
+  if (auto s = units::check(spo2, kMeasuredSpo2Range); !s) return s.error();
   FIRN_ASSERT(band.low <= band.mid && band.mid <= band.high, "band edges out of order");
   Assessment a;
   a.extrapolated = extrapolated;

@@ -121,6 +121,8 @@ struct Assessment {
 
 // Measured SpO2 valid 30…100 %. An extrapolated band gives no "within" or "above" (position
 // Extrapolated); readings below it keep their concern.
+// What a pulse oximeter reading can be taken as (below 30 % oximeters are not calibrated).
+inline constexpr units::NumberRange kMeasuredSpo2Range{30.0, 100.0, "%", "measured SpO2"};
 Result<Assessment> assess(Fraction measured, const Band& band, bool extrapolated = false);
 
 }  // namespace firn::expected_spo2

@@ -2,6 +2,8 @@
 
 #include <algorithm>
 #include <cmath>
+#include <string>
+#include <utility>
 
 namespace firn::hyperbaric_bag {
 namespace {
@@ -34,10 +36,7 @@ Result<double> check(const Settings& s) {
   if (!in_range(v, min_bag_volume_l, max_bag_volume_l)) {
     return range_error("bag volume", min_bag_volume_l, max_bag_volume_l, "L", v);
   }
-  double t = s.chamber_temperature.in(celsius);
-  if (!in_range(t, min_chamber_c, max_chamber_c)) {
-    return range_error("chamber temperature", min_chamber_c, max_chamber_c, "°C", t);
-  }
+  if (auto t = units::check(s.chamber_temperature, kChamberTemperatureRange); !t) return t.error();
   double limit = s.co2_limit.in(percent);
   if (!in_range(limit, min_co2_limit_pct, max_co2_limit_pct)) {
     return range_error("CO2 limit", min_co2_limit_pct, max_co2_limit_pct, "%", limit);
@@ -266,23 +265,35 @@ std::string fire_caution_text(const BagResult& r) {
                 "common practice is a mask inside the bag with exhaled gas vented out.";
 }
 
-// The bag's own range: the model's, cut where the ambient pressure falls below min_ambient_hpa.
-// Found by fuzzing: ISA to 20 000 m gave a negative PiO2 outside (PB below 47 mmHg).
+// The bag's own range: the model's, cut where the ambient pressure falls below min_ambient_hpa
+// (ISA to 20 000 m gave a negative PiO2 outside: docs/hardening.md).
+units::Range<units::LengthDimension> altitude_range(atmosphere::Model model) {
+  static const auto make = [](atmosphere::Model m) {
+    units::Range<units::LengthDimension> r = atmosphere::altitude_range(m);
+    double top_m = r.high_in_unit();
+    bool cut = atmosphere::pressure_at(r.high, m)->in(hectopascals) < min_ambient_hpa;
+    if (cut) top_m = std::floor(atmosphere::altitude_at(hectopascals(min_ambient_hpa), m)->in(metres));
+    std::string note = " for a bag in the " + std::string(atmosphere::model_name(m)) + " model";
+    if (cut) note += " (ambient pressure at least " + format_number(min_ambient_hpa) + " hPa)";
+    return std::pair{top_m, note};
+  };
+  static const auto isa = make(atmosphere::Model::Isa), west = make(atmosphere::Model::West1996);
+  const auto& [top_m, note] = model == atmosphere::Model::Isa ? isa : west;
+  return {atmosphere::altitude_range(model).low, metres(top_m), &metres, "altitude", note};
+}
+
+units::Range<units::PressureDimension> ambient_pressure_range(atmosphere::Model model) {
+  static const std::string isa = " for a bag in the ISA model", west = " for a bag in the West 1996 model";
+  units::Range<units::PressureDimension> r = atmosphere::pressure_range(model);
+  return {std::max(r.low, hectopascals(min_ambient_hpa)), r.high, &hectopascals, "ambient pressure",
+          model == atmosphere::Model::Isa ? isa : west};
+}
+
 Result<BagResult> bag_at_altitude(Length ambient_altitude, atmosphere::Model model,
                                   const Settings& settings) {
   Result<double> ok = check(settings);
   if (!ok) return ok.error();
-  atmosphere::AltitudeRange range = atmosphere::valid_altitudes(model);
-  double top_m = range.high_m;
-  bool cut = atmosphere::pressure_at(metres(top_m), model)->in(hectopascals) < min_ambient_hpa;
-  if (cut) top_m = std::floor(atmosphere::altitude_at(hectopascals(min_ambient_hpa), model)->in(metres));
-  double z = ambient_altitude.in(metres);
-  if (!in_range(z, range.low_m, top_m)) {
-    Error e = range_error("altitude", range.low_m, top_m, "m", z);
-    e.message += " for a bag in the " + std::string(atmosphere::model_name(model)) + " model";
-    if (cut) e.message += " (ambient pressure at least " + format_number(min_ambient_hpa) + " hPa)";
-    return e;
-  }
+  if (auto z = units::check(ambient_altitude, hyperbaric_bag::altitude_range(model)); !z) return z.error();
   Result<Pressure> ambient = pressure_of(ambient_altitude, model, settings);
   if (!ambient) return ambient.error();
   return compute(ambient.value(), ambient_altitude, model, settings);
@@ -292,15 +303,12 @@ Result<BagResult> bag_at_pressure(Pressure ambient_pressure, atmosphere::Model m
                                   const Settings& settings) {
   Result<double> ok = check(settings);
   if (!ok) return ok.error();
-  atmosphere::AltitudeRange range = atmosphere::valid_altitudes(model);
-  double model_low = atmosphere::pressure_at(metres(range.high_m), model)->in(hectopascals);
-  double model_high = atmosphere::pressure_at(metres(range.low_m), model)->in(hectopascals);
-  double hpa = ambient_pressure.in(hectopascals);
-  if (!in_range(hpa, std::max(min_ambient_hpa, model_low), model_high)) {
-    Error e = range_error("ambient pressure", std::max(min_ambient_hpa, std::ceil(model_low * 10) / 10),
-                          std::floor(model_high * 10) / 10, "hPa", hpa);
-    e.message += " for a bag in the " + std::string(atmosphere::model_name(model)) + " model";
-    return e;
+  // Judged on the exact bounds; the published range (rounded inward) names the refusal.
+  units::Range<units::LengthDimension> z = atmosphere::altitude_range(model);
+  double model_low = atmosphere::pressure_at(z.high, model)->in(hectopascals);
+  double model_high = atmosphere::pressure_at(z.low, model)->in(hectopascals);
+  if (!in_range(ambient_pressure.in(hectopascals), std::max(min_ambient_hpa, model_low), model_high)) {
+    return units::refused(ambient_pressure, ambient_pressure_range(model));
   }
   Result<Length> altitude = altitude_of(ambient_pressure, model, settings);
   if (!altitude) return altitude.error();

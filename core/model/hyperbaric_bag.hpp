@@ -27,11 +27,15 @@ using units::VolumeFlow;
 inline constexpr double max_gauge_mbar = 250.0;  // devices run up to ~220 mbar (from memory)
 // The bag gauge pressure (inside minus ambient) the model, the Bag screen and the record take.
 inline constexpr units::Range<units::PressureDimension> kGaugeRange{
-    units::hectopascals(0.0), units::hectopascals(max_gauge_mbar), &units::hectopascals};
+    units::hectopascals(0.0), units::hectopascals(max_gauge_mbar), &units::hectopascals,
+    "bag gauge pressure"};
 inline constexpr double min_flush_lpm = 5.0, max_flush_lpm = 300.0;
 inline constexpr double max_oxygen_feed_lpm = 15.0;
 inline constexpr double min_bag_volume_l = 100.0, max_bag_volume_l = 2000.0;
 inline constexpr double min_chamber_c = -30.0, max_chamber_c = 45.0;
+inline constexpr units::Range<units::TemperatureDimension> kChamberTemperatureRange{
+    units::celsius(min_chamber_c), units::celsius(max_chamber_c), &units::celsius,
+    "chamber temperature"};
 inline constexpr double min_co2_limit_pct = 0.1, max_co2_limit_pct = 5.0;
 inline constexpr double min_stroke_l = 0.1, max_stroke_l = 10.0;
 // The casualty's gas exchange, L/min STPD. Resting values FROM MEMORY (VCO2 0.20, VO2 0.25);
@@ -135,8 +139,13 @@ std::string flush_more_reason(const BagResult& r);
 // The fire caution (empty without fire risk).
 std::string fire_caution_text(const BagResult& r);
 
+// Where a bag can be computed: the model's altitudes whose pressure is at least min_ambient_hpa,
+// and those pressures (rounded inward to 0.1 hPa).
+units::Range<units::LengthDimension> altitude_range(atmosphere::Model model);
+units::Range<units::PressureDimension> ambient_pressure_range(atmosphere::Model model);
+
 // Ambient from an altitude by `model`; the same model gives the equivalent altitude. The altitude
-// must be in the model's range and its pressure at least min_ambient_hpa.
+// must be in altitude_range(model).
 Result<BagResult> bag_at_altitude(Length ambient_altitude, atmosphere::Model model,
                                   const Settings& settings);
 // Ambient from a barometer (station reading); the ambient altitude is then `model` inverted.

@@ -39,14 +39,6 @@ double ratio_to_west(double z_m, const LatitudeMonth& where) {
   return low * (1 - u) + high * u;
 }
 
-Error altitude_error(double got_m) {
-  AltitudeRange range = latitude_month_altitudes();
-  Error e = range_error("altitude", range.low_m, range.high_m, "m", got_m);
-  e.message += " for the latitude and month figures (" +
-               std::string(latitude_month_model_name()) + ")";
-  return e;
-}
-
 }  // namespace
 
 Result<LatitudeMonth> make_latitude_month(double latitude_deg, double month) {
@@ -65,14 +57,26 @@ Result<LatitudeMonth> make_latitude_month(double latitude_deg, double month) {
 
 std::string_view latitude_month_model_name() { return "NRLMSISE-00"; }
 
+units::Range<units::LengthDimension> latitude_month_altitude_range() {
+  return {metres(0.0), metres((kAltitudeNodes - 1) * kAltitudeStepM), &metres, "altitude",
+          " for the latitude and month figures (NRLMSISE-00)"};
+}
+
+units::Range<units::PressureDimension> pressure_range(const LatitudeMonth& where) {
+  units::Range<units::LengthDimension> z = latitude_month_altitude_range();
+  return {hectopascals(std::ceil(pressure_at(z.high, where)->in(hectopascals) * 10) / 10),
+          hectopascals(std::floor(pressure_at(z.low, where)->in(hectopascals) * 10) / 10),
+          &hectopascals, "pressure", " for NRLMSISE-00 at this latitude and month"};
+}
+
 AltitudeRange latitude_month_altitudes() {
-  return {0.0, (kAltitudeNodes - 1) * kAltitudeStepM};
+  units::Range<units::LengthDimension> r = latitude_month_altitude_range();
+  return {r.low_in_unit(), r.high_in_unit()};
 }
 
 Result<Pressure> pressure_at(Length geometric_altitude, const LatitudeMonth& where) {
+  if (auto a = check(geometric_altitude, latitude_month_altitude_range()); !a) return a.error();
   double z = geometric_altitude.in(metres);
-  AltitudeRange range = latitude_month_altitudes();
-  if (!in_range(z, range.low_m, range.high_m)) return altitude_error(z);
   FIRN_ASSERT(make_latitude_month(where.latitude_deg, where.month).ok(),
               "LatitudeMonth not made by make_latitude_month");
   Result<Pressure> west = pressure_at(geometric_altitude, Model::West1996);
@@ -85,12 +89,8 @@ Result<Length> altitude_at(Pressure pressure, const LatitudeMonth& where) {
   double low_hpa = pressure_at(metres(range.high_m), where)->in(hectopascals);
   double high_hpa = pressure_at(metres(range.low_m), where)->in(hectopascals);
   double hpa = pressure.in(hectopascals);
-  if (!in_range(hpa, low_hpa, high_hpa)) {
-    Error e = range_error("pressure", std::ceil(low_hpa * 10) / 10, std::floor(high_hpa * 10) / 10,
-                          "hPa", hpa);
-    e.message += " for " + std::string(latitude_month_model_name()) + " at this latitude and month";
-    return e;
-  }
+  // Exact bounds; the published range (inside them) names the refusal.
+  if (!in_range(hpa, low_hpa, high_hpa)) return refused(pressure, pressure_range(where));
   // Pressure falls monotonically with altitude: bisection to well under a metre.
   double low_m = range.low_m, high_m = range.high_m;
   for (int k = 0; k < 50; ++k) {
@@ -108,9 +108,8 @@ Result<Pressure> pressure_at(Length geometric_altitude, Model model,
 }
 
 Result<PressureEnvelope> climatological_envelope(Length geometric_altitude) {
+  if (auto a = check(geometric_altitude, latitude_month_altitude_range()); !a) return a.error();
   double z = geometric_altitude.in(metres);
-  AltitudeRange range = latitude_month_altitudes();
-  if (!in_range(z, range.low_m, range.high_m)) return altitude_error(z);
   double low = 1e9, high = 0.0;
   for (int month = kFirstMonth; month <= kLastMonth; ++month) {
     for (int i = 0; i < kLatitudeNodes; ++i) {

@@ -33,8 +33,11 @@ Result<LatitudeMonth> make_latitude_month(double latitude_deg, double month);
 // "NRLMSISE-00": the name shown beside every latitude/month figure.
 std::string_view latitude_month_model_name();
 
-// The table's altitudes, geometric metres: 0…9000 m (West 1996's range).
-AltitudeRange latitude_month_altitudes();
+// The table's altitudes, geometric metres: 0…9000 m (West 1996's range), and the pressures they
+// have at one latitude and month (rounded inward to 0.1 hPa).
+units::Range<units::LengthDimension> latitude_month_altitude_range();
+units::Range<units::PressureDimension> pressure_range(const LatitudeMonth& where);
+AltitudeRange latitude_month_altitudes();  // latitude_month_altitude_range in metres
 
 Result<Pressure> pressure_at(Length geometric_altitude, const LatitudeMonth& where);
 Result<Length> altitude_at(Pressure pressure, const LatitudeMonth& where);

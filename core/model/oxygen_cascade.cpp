@@ -109,7 +109,7 @@ std::string_view exposure_key(Exposure exposure) {
 Result<Acclimatisation> acclimatisation_after(Duration time_at_altitude) {
   double d = time_at_altitude.in(units::days);
   if (!within(time_at_altitude, 0.0, kTimeAtAltitudeMaxDays, units::days)) {
-    return range_error("time at altitude", 0, kTimeAtAltitudeMaxDays, "days", d);
+    return units::refused(kTimeAtAltitudeDaysRange.what, d, kTimeAtAltitudeDaysRange);
   }
   auto rise = [](double days_at) { return 1.0 - std::exp(-days_at / kAcclimatisationTimeConstantDays); };
   return Acclimatisation{std::min(1.0, rise(d) / rise(kFullyAcclimatisedDays))};
@@ -135,7 +135,7 @@ Result<Pressure> inspired_po2(Pressure barometric, Fraction fio2) {
     return range_error("barometric pressure", kPbLowHpa, kPbHighHpa, "hPa", pb);
   }
   double f = fio2.in(fraction);
-  if (!in_range(f, 0.15, 1.0)) return range_error("FiO2", 0.15, 1.0, "(fraction)", f);
+  if (auto checked = units::check(f, kFio2Range); !checked) return checked.error();
   return mmhg(f * (barometric.in(mmhg) - kWaterVapourMmhg));
 }
 
@@ -146,7 +146,7 @@ Result<Pressure> alveolar_po2(Pressure inspired, Pressure paco2, Fraction fio2,
   Result<double> r = checked_quotient(respiratory_quotient);
   if (!r) return r.error();
   double f = fio2.in(fraction);
-  if (!in_range(f, 0.15, 1.0)) return range_error("FiO2", 0.15, 1.0, "(fraction)", f);
+  if (auto checked = units::check(f, kFio2Range); !checked) return checked.error();
   double pio2 = inspired.in(mmhg);
   if (!within(inspired, 0.0, kPio2HighMmhg, mmhg)) return alveolar_pio2_error(pio2);
   return positive_alveolar(pio2 - c.value() * (f + (1.0 - f) / r.value()));

@@ -44,6 +44,10 @@ struct Acclimatisation {
 inline constexpr double kAcclimatisationTimeConstantDays = 2.0;
 inline constexpr double kFullyAcclimatisedDays = 21.0;
 inline constexpr double kTimeAtAltitudeMaxDays = 365.0;
+inline constexpr units::NumberRange kTimeAtAltitudeDaysRange{0.0, kTimeAtAltitudeMaxDays, "days",
+                                                             "time at altitude"};
+// FiO2 as a fraction (room air to pure oxygen; below 0.15 is a slip).
+inline constexpr units::NumberRange kFio2Range{0.15, 1.0, "(fraction)", "FiO2"};
 // Time valid 0…365 days.
 Result<Acclimatisation> acclimatisation_after(units::Duration time_at_altitude);
 // The two presets: acute = on arrival (share 0), acclimatised = 21 days (share 1).

@@ -60,8 +60,7 @@ class [[nodiscard]] Result {
 // digits that show them (no trailing zeros); a non-finite "got" is shown as "not a number".
 Error range_error(std::string_view what, double low, double high, std::string_view unit,
                   double got);
-// What range_error appends for a non-finite "got". Kept in one place: the CLI removes it when it
-// asks a model for its range with a value that is not a number (cli::with_valid_range).
+// What range_error appends for a non-finite "got" (the models that word their own message add it).
 inline constexpr std::string_view got_not_a_number = " (got a value that is not a number)";
 Error range_error(std::string_view what, double low, double high, std::string_view unit);
 

@@ -70,14 +70,21 @@ FlowRange valid_flows(Device device) {
   return {litres_per_minute(r.low_lpm), litres_per_minute(r.high_lpm)};
 }
 
+units::Range<units::VolumeFlowDimension> flow_range(Device device) {
+  static const std::array<std::string, 3> what = [] {
+    std::array<std::string, 3> w;
+    for (Device d : {Device::NasalCannula, Device::SimpleMask, Device::NonRebreather}) {
+      w[static_cast<size_t>(d)] = "oxygen flow for a " + std::string(device_name(d));
+    }
+    return w;
+  }();
+  FlowRange r = valid_flows(device);
+  return {r.low, r.high, &litres_per_minute, what[static_cast<size_t>(device)]};
+}
+
 Result<Fraction> delivered_fio2(Device device, VolumeFlow flow) {
-  DeviceRule r = rule(device);
-  double lpm = flow.in(litres_per_minute);
-  if (!in_range(lpm, r.low_lpm, r.high_lpm)) {
-    return range_error("oxygen flow for a " + std::string(device_name(device)), r.low_lpm,
-                       r.high_lpm, "L/min", lpm);
-  }
-  return fraction(fio2_at(device, lpm));
+  if (auto f = units::check(flow, flow_range(device)); !f) return f.error();
+  return fraction(fio2_at(device, flow.in(litres_per_minute)));
 }
 
 std::string_view breathing_key(Breathing breathing) {
@@ -162,10 +169,7 @@ Result<FlowForTarget> lowest_flow_for_target(Pressure barometric, Acclimatisatio
 // Without a breathing: the sea-level rule of thumb (the figure before altitude FiO2 existed).
 Result<FlowForTarget> flow_for_target(Pressure barometric, Acclimatisation exposure, Device device,
                                       Fraction target, std::optional<Breathing> breathing) {
-  double target_pct = target.in(percent);
-  if (!in_range(target_pct, 80.0, 99.0)) {
-    return range_error("target SpO2", 80, 99, "%", target_pct);
-  }
+  if (auto t = units::check(target.in(percent), kTargetSpo2Range); !t) return t.error();
   FlowRange range = valid_flows(device);
   auto low_edge = [&](VolumeFlow flow) -> Result<Prediction> {
     return breathing ? predict(barometric, exposure, device, flow, *breathing)

@@ -30,6 +30,8 @@ struct FlowRange {
   VolumeFlow low, high;
 };
 FlowRange valid_flows(Device device);
+// The same as a range for checks and messages ("oxygen flow for a simple face mask").
+units::Range<units::VolumeFlowDimension> flow_range(Device device);
 
 // Flow outside the device's range is an error naming the range in L/min. The sea-level rule of
 // thumb above (a resting adult).
@@ -82,6 +84,7 @@ Result<Prediction> predict(Pressure barometric, Acclimatisation acclimatisation,
 
 // WMS guidelines (Luks AM et al., Wilderness Environ Med 2019): target SpO2 > 90 % with oxygen.
 inline constexpr double kDefaultTargetPercent = 90.0;
+inline constexpr units::NumberRange kTargetSpo2Range{80.0, 99.0, "%", "target SpO2"};
 
 struct FlowForTarget {
   bool reachable = false;

@@ -87,6 +87,23 @@ Result<Quantity<Dimension>> parse_quantity(std::string_view text, std::string_vi
 
 }  // namespace
 
+Error range_error(std::string_view what, const NumberRange& range) {
+  Error e = firn::range_error(what, range.low, range.high, range.unit);
+  e.message += range.note;
+  return e;
+}
+
+Error refused(std::string_view what, double value, const NumberRange& range) {
+  Error e = firn::range_error(what, range.low, range.high, range.unit, value);
+  e.message += range.note;
+  return e;
+}
+
+Result<double> check(std::string_view what, double value, const NumberRange& range) {
+  if (range.contains(value)) return value;
+  return refused(what, value, range);
+}
+
 Result<double> parse_number(std::string_view text, std::string_view what) {
   std::string_view trimmed = trim(text);
   if (trimmed.empty()) return Error{std::string(what) + " is missing a number"};

@@ -167,11 +167,14 @@ bool within(Quantity<Dimension> q, double low, double high, const Unit<Dimension
 }
 
 // A valid range, published once by the model that owns it and read by the fields, the saved
-// state and the CLI; `unit` is the one its messages use ("between 900 and 1100 hPa").
+// state and the CLI; `unit` is the one its messages use ("between 900 and 1100 hPa"). `what`
+// names the value as the model's messages do, `note` follows the range ("for the ISA model").
 template <class Dimension>
 struct Range {
   Quantity<Dimension> low, high;
   const Unit<Dimension>* unit;
+  std::string_view what{};
+  std::string_view note{};
 
   constexpr double low_in_unit() const { return low.in(*unit); }
   constexpr double high_in_unit() const { return high.in(*unit); }
@@ -180,13 +183,55 @@ struct Range {
   }
 };
 
-// The one range check: the value, or a message naming `what`, the range and its unit.
+// A range of a plain number (SpO2 %, pH, a score), with the unit its messages print.
+struct NumberRange {
+  double low, high;
+  std::string_view unit;
+  std::string_view what{};
+  std::string_view note{};
+
+  bool contains(double value) const { return in_range(value, low, high); }
+};
+
+// The range in words, with no value: "altitude must be between 0 and 9000 m for the West 1996
+// model". What a missing or unreadable entry is told.
+template <class Dimension>
+Error range_error(std::string_view what, const Range<Dimension>& range) {
+  Error e = firn::range_error(what, range.low_in_unit(), range.high_in_unit(), range.unit->symbol);
+  e.message += range.note;
+  return e;
+}
+Error range_error(std::string_view what, const NumberRange& range);
+
+// The refusal of a value outside `range`: its range, unit and the value ("(got 9500 m)").
+template <class Dimension>
+Error refused(std::string_view what, Quantity<Dimension> q, const Range<Dimension>& range) {
+  Error e = firn::range_error(what, range.low_in_unit(), range.high_in_unit(), range.unit->symbol,
+                              q.in(*range.unit));
+  e.message += range.note;
+  return e;
+}
+template <class Dimension>
+Error refused(Quantity<Dimension> q, const Range<Dimension>& range) {
+  return refused(range.what, q, range);
+}
+Error refused(std::string_view what, double value, const NumberRange& range);
+
+// The one range check: the value, or a message naming `what` (the range's own name when not
+// given), the range, its unit and the value.
 template <class Dimension>
 Result<Quantity<Dimension>> check(std::string_view what, Quantity<Dimension> q,
                                   const Range<Dimension>& range) {
   if (range.contains(q)) return q;
-  return range_error(what, range.low_in_unit(), range.high_in_unit(), range.unit->symbol,
-                     q.in(*range.unit));
+  return refused(what, q, range);
+}
+template <class Dimension>
+Result<Quantity<Dimension>> check(Quantity<Dimension> q, const Range<Dimension>& range) {
+  return check(range.what, q, range);
+}
+Result<double> check(std::string_view what, double value, const NumberRange& range);
+inline Result<double> check(double value, const NumberRange& range) {
+  return check(range.what, value, range);
 }
 
 // [SECTION] Parsing "number + unit" text typed by a user or passed on the command line.

@@ -6,6 +6,8 @@
 #include <string>
 #include <iostream>
 
+#include "model/cylinder.hpp"
+
 namespace firn::cli {
 
 double rounded(double value, int decimals) {
@@ -39,6 +41,10 @@ CLI::App* CommandTable::add(const std::string& name, const std::string& descript
   return sub;
 }
 
+Error with_range(Error error, const units::NumberRange& range) {
+  return Error{error.message + "; " + units::range_error(range.what, range).message};
+}
+
 namespace {
 
 Error missing(const std::string& option, const std::string& what) {
@@ -49,13 +55,20 @@ Error missing(const std::string& option, const std::string& what) {
 
 namespace {
 
-template <class Q, class Parse>
-Result<Q> required_quantity(const std::optional<std::string>& text, const std::string& option,
-                            const std::string& what, const std::string& examples, Parse parse,
-                            const RangeProbe<Q>& probe) {
-  if (!text) return with_valid_range(missing(option, what + ", e.g. " + examples), probe);
-  Result<Q> parsed = parse(*text, what);
-  if (!parsed) return with_valid_range(Error{option + ": " + parsed.error().message}, probe);
+template <class Dimension>
+Error with_optional_range(Error error, const OptionalRange<Dimension>& range) {
+  return range ? with_range(std::move(error), *range) : error;
+}
+
+template <class Dimension, class Parse>
+Result<units::Quantity<Dimension>> required_quantity(const std::optional<std::string>& text,
+                                                     const std::string& option,
+                                                     const std::string& what,
+                                                     const std::string& examples, Parse parse,
+                                                     const OptionalRange<Dimension>& range) {
+  if (!text) return with_optional_range(missing(option, what + ", e.g. " + examples), range);
+  Result<units::Quantity<Dimension>> parsed = parse(*text, what);
+  if (!parsed) return with_optional_range(Error{option + ": " + parsed.error().message}, range);
   return parsed;
 }
 
@@ -63,27 +76,37 @@ Result<Q> required_quantity(const std::optional<std::string>& text, const std::s
 
 Result<units::Length> required_length(const std::optional<std::string>& text,
                                       const std::string& option, const std::string& what,
-                                      const RangeProbe<units::Length>& probe) {
-  return required_quantity(text, option, what, "4000m or 13120ft", units::parse_length, probe);
+                                      const OptionalRange<units::LengthDimension>& range) {
+  return required_quantity(text, option, what, "4000m or 13120ft", units::parse_length, range);
 }
 
 Result<units::Pressure> required_pressure(const std::optional<std::string>& text,
                                           const std::string& option, const std::string& what,
-                                          const RangeProbe<units::Pressure>& probe) {
+                                          const OptionalRange<units::PressureDimension>& range) {
   return required_quantity(text, option, what, "616hPa, 462mmHg or 2psi", units::parse_pressure,
-                           probe);
+                           range);
+}
+
+Result<units::Pressure> measured_ambient_pressure(const std::optional<std::string>& text) {
+  Result<units::Pressure> p = required_pressure(text, "--ambient-pressure", "measured air pressure",
+                                                cylinder::kAmbientRange);
+  if (!p) return p.error();
+  if (auto checked = units::check(p.value(), cylinder::kAmbientRange); !checked) {
+    return Error{"--ambient-pressure: " + checked.error().message};
+  }
+  return p;
 }
 
 Result<units::Temperature> required_temperature(const std::optional<std::string>& text,
                                                 const std::string& option, const std::string& what,
-                                                const RangeProbe<units::Temperature>& probe) {
-  return required_quantity(text, option, what, "-5C or 23F", units::parse_temperature, probe);
+                                                const OptionalRange<units::TemperatureDimension>& range) {
+  return required_quantity(text, option, what, "-5C or 23F", units::parse_temperature, range);
 }
 
 Result<units::Volume> required_volume(const std::optional<std::string>& text,
                                       const std::string& option, const std::string& what,
-                                      const RangeProbe<units::Volume>& probe) {
-  return required_quantity(text, option, what, "4.6 or 4.6L", units::parse_volume, probe);
+                                      const OptionalRange<units::VolumeDimension>& range) {
+  return required_quantity(text, option, what, "4.6 or 4.6L", units::parse_volume, range);
 }
 
 Result<atmosphere::Model> model_option(const std::optional<std::string>& text) {

@@ -7,10 +7,8 @@
 #include <nlohmann/json.hpp>
 
 #include <functional>
-#include <limits>
 #include <optional>
 #include <string>
-#include <type_traits>
 #include <utility>
 #include <vector>
 
@@ -53,56 +51,34 @@ void register_profile_commands(CommandTable& table);       // plan, card, profil
 void register_route_commands(CommandTable& table);         // route
 void register_handover_commands(CommandTable& table);      // handover
 
-// The valid range of an option, asked of the model that judges the value: every model refuses
-// a value that is not a number with its range and unit ("altitude must be between 0 and 9000 m
-// for the West 1996 model"; the [sweep] tests check each one). So a missing or unreadable option
-// names its range from the same check that would judge it, with no second copy of the limits.
-template <class Q>
-using RangeProbe = std::function<std::optional<Error>(Q)>;
-
-template <class Q, class Check>
-RangeProbe<Q> range_of(Check check) {
-  return [check](Q value) -> std::optional<Error> {
-    auto judged = check(value);
-    if (judged) return std::nullopt;
-    return judged.error();
-  };
+// A missing or unreadable option is told the valid range the model publishes:
+// `error` + "; " + "altitude must be between 0 and 9000 m for the West 1996 model".
+template <class Dimension>
+Error with_range(Error error, const units::Range<Dimension>& range) {
+  return Error{error.message + "; " + units::range_error(range.what, range).message};
 }
+Error with_range(Error error, const units::NumberRange& range);
 
-// `error` + "; " + what the probe's model says to NaN, without its "(got ...)" part.
-template <class Q>
-Error with_valid_range(Error error, const RangeProbe<Q>& probe) {
-  if (!probe) return error;
-  constexpr double nan = std::numeric_limits<double>::quiet_NaN();
-  std::optional<Error> refusal;
-  if constexpr (std::is_floating_point_v<Q>) {
-    refusal = probe(nan);
-  } else {
-    const units::Unit<typename Q::dimension> si{1.0, 0.0, "", ""};
-    refusal = probe(si(nan));
-  }
-  if (!refusal) return error;
-  std::string range = refusal->message;
-  if (size_t got = range.find(got_not_a_number); got != std::string::npos) {
-    range.erase(got, got_not_a_number.size());
-  }
-  return Error{error.message + "; " + range};
-}
+template <class Dimension>
+using OptionalRange = std::optional<units::Range<Dimension>>;
 
 // Options that hold "number + unit" text are parsed by the core, so messages name the unit, and
-// with a probe the valid range.
+// with a range the valid range.
 Result<units::Length> required_length(const std::optional<std::string>& text,
                                       const std::string& option, const std::string& what,
-                                      const RangeProbe<units::Length>& probe = {});
+                                      const OptionalRange<units::LengthDimension>& range = {});
 Result<units::Pressure> required_pressure(const std::optional<std::string>& text,
                                           const std::string& option, const std::string& what,
-                                          const RangeProbe<units::Pressure>& probe = {});
+                                          const OptionalRange<units::PressureDimension>& range = {});
 Result<units::Temperature> required_temperature(const std::optional<std::string>& text,
                                                 const std::string& option, const std::string& what,
-                                                const RangeProbe<units::Temperature>& probe = {});
+                                                const OptionalRange<units::TemperatureDimension>& range = {});
 Result<units::Volume> required_volume(const std::optional<std::string>& text,
                                       const std::string& option, const std::string& what,
-                                      const RangeProbe<units::Volume>& probe = {});
+                                      const OptionalRange<units::VolumeDimension>& range = {});
+// --ambient-pressure: the air pressure measured where cylinder gauges are read (what the
+// cylinder model takes as the gauges' reference).
+Result<units::Pressure> measured_ambient_pressure(const std::optional<std::string>& text);
 // A plain number in [low, high]; every message names that range and the unit.
 Result<double> required_number(const std::optional<std::string>& text, const std::string& option,
                                const std::string& what, double low, double high,

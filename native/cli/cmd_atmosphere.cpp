@@ -48,9 +48,8 @@ std::string_view check_key(atm::ReadingCheck verdict) {
 // cross-checked (atm::check_station_reading decides).
 Result<Report> run_station(const PressureOptions& o, atm::Model model) {
   if (o.qnh || o.temperature) return Error{"give --station or --qnh, not both"};
-  Result<Pressure> reading = required_pressure(
-      o.station, "--station", "station barometer reading",
-      range_of<Pressure>([](Pressure p) { return atm::pressure_from_station_reading(p); }));
+  Result<Pressure> reading = required_pressure(o.station, "--station", "station barometer reading",
+                                               atm::kStationReadingRange);
   if (!reading) return reading.error();
   Result<Pressure> checked = atm::pressure_from_station_reading(reading.value());
   if (!checked) return Error{"--station: " + checked.error().message};
@@ -66,10 +65,8 @@ Result<Report> run_station(const PressureOptions& o, atm::Model model) {
     report.rows.emplace_back("Pressure altitude", "outside model range");
   }
   if (o.altitude) {
-    Result<Length> altitude = required_length(
-        o.altitude, "--altitude", "altitude", range_of<Length>([&](Length a) {
-          return atm::check_station_reading(reading.value(), a, model);
-        }));
+    Result<Length> altitude = required_length(o.altitude, "--altitude", "altitude",
+                                              atm::latitude_month_altitude_range());
     if (!altitude) return altitude.error();
     Result<atm::StationCheck> check = atm::check_station_reading(reading.value(), altitude.value(), model);
     if (!check) return Error{"--altitude: " + check.error().message};
@@ -92,11 +89,9 @@ Result<Report> run_pressure(const PressureOptions& o) {
     return Error{"--latitude/--month give the pressure from the altitude: not with --qnh or --station"};
   }
   if (o.station) return run_station(o, model.value());
-  const Pressure standard_qnh = atmospheres(1);
-  Result<Length> altitude = required_length(
-      o.altitude, "--altitude", "altitude",
-      o.qnh ? range_of<Length>([&](Length a) { return atm::pressure_from_qnh(a, standard_qnh); })
-            : range_of<Length>([&](Length a) { return atm::pressure_at(a, model.value()); }));
+  Result<Length> altitude =
+      required_length(o.altitude, "--altitude", "altitude",
+                      o.qnh ? atm::kSiteAltitudeRange : atm::altitude_range(model.value()));
   if (!altitude) return altitude.error();
 
   Report report;
@@ -104,15 +99,11 @@ Result<Report> run_pressure(const PressureOptions& o) {
   Result<Pressure> pressure = Error{""};
   std::string method;
   if (o.qnh) {
-    Result<Pressure> qnh = required_pressure(o.qnh, "--qnh", "QNH", range_of<Pressure>([](Pressure q) {
-      return atm::pressure_from_qnh(metres(0), q);
-    }));
+    Result<Pressure> qnh = required_pressure(o.qnh, "--qnh", "QNH", atm::kQnhRange);
     if (!qnh) return qnh.error();
     if (o.temperature) {
-      Result<Temperature> t = required_temperature(
-          o.temperature, "--temperature", "air temperature", range_of<Temperature>([&](Temperature t) {
-            return atm::pressure_from_qnh(metres(0), standard_qnh, t, atm::TemperatureAt::SeaLevel);
-          }));
+      Result<Temperature> t = required_temperature(o.temperature, "--temperature", "air temperature",
+                                                   atm::kAirTemperatureRange);
       if (!t) return t.error();
       atm::TemperatureAt where = atm::TemperatureAt::SeaLevel;
       if (o.temperature_at && *o.temperature_at == "station") {
@@ -167,8 +158,9 @@ Result<Report> run_altitude(const AltitudeOptions& o) {
   auto altitude_for = [&](Pressure p) {
     return where.value() ? atm::altitude_at(p, *where.value()) : atm::altitude_at(p, model.value());
   };
-  Result<Pressure> pressure = required_pressure(o.pressure, "--pressure", "barometric pressure",
-                                                range_of<Pressure>(altitude_for));
+  Result<Pressure> pressure = required_pressure(
+      o.pressure, "--pressure", "barometric pressure",
+      where.value() ? atm::pressure_range(*where.value()) : atm::pressure_range(model.value()));
   if (!pressure) return pressure.error();
   Result<Length> altitude = altitude_for(pressure.value());
   if (!altitude) return altitude.error();

@@ -35,17 +35,13 @@ Result<Place> place_option(const BagOptions& o, atm::Model model) {
   Place place;
   if (o.pressure) {
     Result<Pressure> p = required_pressure(o.pressure, "--pressure", "ambient pressure",
-                                           range_of<Pressure>([&](Pressure at) {
-                                             return hb::bag_at_pressure(at, model, hb::Settings{});
-                                           }));
+                                           hb::ambient_pressure_range(model));
     if (!p) return p.error();
     place.pressure = p.value();
     return place;
   }
   Result<Length> altitude = required_length(o.altitude, o.altitude ? "--altitude" : "--altitude or --pressure",
-                                            "altitude", range_of<Length>([&](Length a) {
-                                              return hb::bag_at_altitude(a, model, hb::Settings{});
-                                            }));
+                                            "altitude", hb::altitude_range(model));
   if (!altitude) return altitude.error();
   place.altitude = altitude.value();
   return place;
@@ -69,23 +65,14 @@ Result<hb::Settings> settings_option(const BagOptions& o, const Place& place, at
   if (!where) return where.error();
   s.where = where.value();
   if (o.gauge) {
-    Result<Pressure> g = required_pressure(o.gauge, "--gauge", "bag gauge pressure",
-                                           range_of<Pressure>([&](Pressure gauge) {
-                                             hb::Settings probe;
-                                             probe.gauge = gauge;
-                                             return bag_at(place, model, probe);
-                                           }));
+    Result<Pressure> g = required_pressure(o.gauge, "--gauge", "bag gauge pressure", hb::kGaugeRange);
     if (!g) return g.error();
     s.gauge = g.value();
   }
   if (o.chamber_temperature) {
     Result<Temperature> t = required_temperature(
         o.chamber_temperature, "--chamber-temperature", "chamber temperature",
-        range_of<Temperature>([&](Temperature at) {
-          hb::Settings probe;
-          probe.chamber_temperature = at;
-          return bag_at(place, model, probe);
-        }));
+        hb::kChamberTemperatureRange);
     if (!t) return t.error();
     s.chamber_temperature = t.value();
   }

@@ -20,13 +20,14 @@ struct CylinderOptions {
 };
 
 // An option read by a core parser; a missing or unreadable value names the model's range.
-template <class Q, class Parse>
-Result<Q> option_value(const std::optional<std::string>& text, const std::string& option,
-                       const std::string& what, const std::string& examples, Parse parse,
-                       const RangeProbe<Q>& probe) {
-  if (!text) return with_valid_range(Error{option + " is required: " + what + ", e.g. " + examples}, probe);
-  Result<Q> parsed = parse(*text, what);
-  if (!parsed) return with_valid_range(Error{option + ": " + parsed.error().message}, probe);
+template <class Dimension, class Parse>
+Result<units::Quantity<Dimension>> option_value(const std::optional<std::string>& text,
+                                                const std::string& option, const std::string& what,
+                                                const std::string& examples, Parse parse,
+                                                const units::Range<Dimension>& range) {
+  if (!text) return with_range(Error{option + " is required: " + what + ", e.g. " + examples}, range);
+  Result<units::Quantity<Dimension>> parsed = parse(*text, what);
+  if (!parsed) return with_range(Error{option + ": " + parsed.error().message}, range);
   return parsed;
 }
 
@@ -37,25 +38,19 @@ struct Ambient {
   std::string source = "sea_level";
 };
 
-Result<Ambient> ambient_option(const CylinderOptions& o, atm::Model model,
-                               const RangeProbe<Pressure>& probe) {
+Result<Ambient> ambient_option(const CylinderOptions& o, atm::Model model) {
   Ambient a;
   if (o.altitude && o.ambient_pressure) {
     return Error{"give --altitude or --ambient-pressure (a measured air pressure), not both"};
   }
   if (o.ambient_pressure) {
-    Result<Pressure> p = required_pressure(o.ambient_pressure, "--ambient-pressure",
-                                           "measured air pressure", probe);
+    Result<Pressure> p = measured_ambient_pressure(o.ambient_pressure);
     if (!p) return p.error();
-    if (std::optional<Error> refused = probe(p.value())) {
-      return Error{"--ambient-pressure: " + refused->message};
-    }
     a.pressure = p.value();
     a.source = "measured";
   } else if (o.altitude) {
-    Result<Length> h = required_length(
-        o.altitude, "--altitude", "altitude",
-        range_of<Length>([&](Length at) { return atm::pressure_at(at, model); }));
+    Result<Length> h =
+        required_length(o.altitude, "--altitude", "altitude", atm::altitude_range(model));
     if (!h) return h.error();
     Result<Pressure> p = atm::pressure_at(h.value(), model);
     if (!p) return Error{"--altitude: " + p.error().message};
@@ -91,17 +86,6 @@ Result<Report> run_cylinder(const CylinderOptions& o) {
   Result<atm::Model> chosen_model = model_option(o.model);
   if (!chosen_model) return chosen_model.error();
   const atm::Model model = chosen_model.value();
-  // Each option's range is probed on a full E cylinder at sea level with everything else valid.
-  const cyl::Reading typical{cyl::letter_size_info(cyl::LetterSize::E).water_capacity, bar(137),
-                             celsius(15), atmospheres(1)};
-  // The contents of the typical cylinder with one field set to the probed value.
-  auto contents_with = [&typical](auto set) {
-    return [&typical, set](auto value) {
-      cyl::Reading r = typical;
-      set(r, value);
-      return cyl::contents(r);
-    };
-  };
   Volume water;
   if (o.size) {
     Result<cyl::LetterSize> s = cyl::parse_letter_size(*o.size);
@@ -113,47 +97,37 @@ Result<Report> run_cylinder(const CylinderOptions& o) {
   // only chooses the field rule.
   if (o.water_capacity) {
     Result<Volume> v = required_volume(o.water_capacity, "--water-capacity", "water capacity",
-                                       range_of<Volume>(contents_with(
-                                           [](cyl::Reading& r, Volume w) { r.water_capacity = w; })));
+                                       cyl::kWaterCapacityRange);
     if (!v) return v.error();
     water = v.value();
   }
   const bool capacity_assumed = size && !o.water_capacity;
-  Result<Pressure> gauge = option_value<Pressure>(
-      o.pressure, "--pressure", "cylinder gauge pressure", "200bar or 2900psi",
-      units::parse_gauge_pressure,
-      range_of<Pressure>(contents_with([](cyl::Reading& r, Pressure g) { r.gauge_pressure = g; })));
+  Result<Pressure> gauge = option_value(o.pressure, "--pressure", "cylinder gauge pressure",
+                                        "200bar or 2900psi", units::parse_gauge_pressure,
+                                        cyl::kGaugeRange);
   if (!gauge) return gauge.error();
-  Result<VolumeFlow> flow = option_value<VolumeFlow>(
-      o.flow, "--flow", "flow", "2 or 2L/min", units::parse_volume_flow,
-      range_of<VolumeFlow>([&](VolumeFlow f) { return cyl::duration(typical, bar(20), f); }));
+  Result<VolumeFlow> flow = option_value(o.flow, "--flow", "flow", "2 or 2L/min",
+                                         units::parse_volume_flow, cyl::kFlowRange);
   if (!flow) return flow.error();
-  if (auto refused = range_of<VolumeFlow>([&](VolumeFlow f) {
-        return cyl::duration(typical, bar(20), f);
-      })(flow.value())) {
-    return Error{"--flow: " + refused->message};
+  if (auto checked = units::check(flow.value(), cyl::kFlowRange); !checked) {
+    return Error{"--flow: " + checked.error().message};
   }
   Pressure reserve = cyl::default_reserve_gauge;
   if (o.reserve) {
-    Result<Pressure> r = option_value<Pressure>(
-        o.reserve, "--reserve", "reserve pressure (gauge)", "20bar or 290psi",
-        units::parse_gauge_pressure, range_of<Pressure>([&](Pressure res) {
-          return cyl::duration(typical, res, flow.value());
-        }));
+    Result<Pressure> r = option_value(o.reserve, "--reserve", "reserve pressure (gauge)",
+                                      "20bar or 290psi", units::parse_gauge_pressure,
+                                      cyl::kReserveRange);
     if (!r) return r.error();
     reserve = r.value();
   }
   Temperature temperature = celsius(15);
   if (o.temperature) {
     Result<Temperature> t = required_temperature(o.temperature, "--temperature",
-                                                 "cylinder temperature",
-                                                 range_of<Temperature>(contents_with(
-                                                     [](cyl::Reading& r, Temperature c) { r.temperature = c; })));
+                                                 "cylinder temperature", cyl::kTemperatureRange);
     if (!t) return t.error();
     temperature = t.value();
   }
-  Result<Ambient> ambient = ambient_option(
-      o, model, range_of<Pressure>(contents_with([](cyl::Reading& r, Pressure p) { r.ambient_pressure = p; })));
+  Result<Ambient> ambient = ambient_option(o, model);
   if (!ambient) return ambient.error();
 
   cyl::Reading reading{water, gauge.value(), temperature, ambient->pressure};

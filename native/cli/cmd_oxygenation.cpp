@@ -34,22 +34,22 @@ struct CurveOptions {
 // A number that may carry a trailing '%': "0.3" → 0.3, "30%" → 0.3 when `percent_sign_scales`.
 Result<double> number_or_percent(const std::string& text, const std::string& option,
                                  const std::string& what, bool percent_sign_scales,
-                                 const RangeProbe<double>& probe) {
+                                 const units::NumberRange& range) {
   std::string body = text;
   bool had_percent = !body.empty() && body.back() == '%';
   if (had_percent) body.pop_back();
   Result<double> n = parse_number(body, what);
-  if (!n) return with_valid_range(Error{option + ": " + n.error().message}, probe);
+  if (!n) return with_range(Error{option + ": " + n.error().message}, range);
   return had_percent && percent_sign_scales ? n.value() / 100.0 : n.value();
 }
 
 // An optional plain number; the model checks its range and names it.
 Result<std::optional<double>> optional_number(const std::optional<std::string>& text,
                                               const std::string& option, const std::string& what,
-                                              const RangeProbe<double>& probe) {
+                                              const units::NumberRange& range) {
   if (!text) return std::optional<double>{};
   Result<double> n = parse_number(*text, what);
-  if (!n) return with_valid_range(Error{option + ": " + n.error().message}, probe);
+  if (!n) return with_range(Error{option + ": " + n.error().message}, range);
   return std::optional<double>{n.value()};
 }
 
@@ -58,9 +58,8 @@ Result<Pressure> barometric_pressure(const OxygenationOptions& o, atm::Model mod
   if (o.altitude && o.pressure) return Error{"give --altitude or --pressure, not both"};
   if (o.pressure && (o.where.latitude || o.where.month)) return Error{"--latitude/--month go with --altitude, not --pressure"};
   if (o.pressure) {
-    Result<Pressure> p = required_pressure(
-        o.pressure, "--pressure", "barometric pressure",
-        range_of<Pressure>([](Pressure at) { return atm::pressure_from_station_reading(at); }));
+    Result<Pressure> p = required_pressure(o.pressure, "--pressure", "barometric pressure",
+                                           atm::kStationReadingRange);
     if (!p) return p.error();
     Result<Pressure> checked = atm::pressure_from_station_reading(p.value());
     if (!checked) return Error{"--pressure: " + checked.error().message};
@@ -68,7 +67,7 @@ Result<Pressure> barometric_pressure(const OxygenationOptions& o, atm::Model mod
   }
   Result<Length> altitude = required_length(
       o.altitude, o.altitude ? "--altitude" : "--altitude or --pressure", "altitude",
-      range_of<Length>([&](Length at) { return atm::pressure_at(at, model); }));
+      atm::altitude_range(model));
   if (!altitude) return altitude.error();
   Result<Pressure> p = ambient_pressure(altitude.value(), model, o.where, report);
   if (!p) return p.error();
@@ -126,11 +125,7 @@ std::optional<Error> add_oxygen_rows(Report& report, const OxygenationOptions& o
   if (o.flow) {
     Result<double> lpm = parse_number(*o.flow, "oxygen flow");
     if (!lpm) {
-      return with_valid_range(Error{"--flow: " + lpm.error().message},
-                              range_of<double>([&](double flow) {
-                                return o2::predict(pb, exposure, device.value(),
-                                                   litres_per_minute(flow));
-                              }));
+      return with_range(Error{"--flow: " + lpm.error().message}, o2::flow_range(device.value()));
     }
     Result<o2::Prediction> p =
         o2::predict(pb, exposure, device.value(), litres_per_minute(lpm.value()));
@@ -151,9 +146,7 @@ std::optional<Error> add_oxygen_rows(Report& report, const OxygenationOptions& o
   Fraction target = percent(o2::kDefaultTargetPercent);
   if (o.target) {
     Result<double> t = number_or_percent(
-        *o.target, "--target", "target SpO2", false, range_of<double>([&](double pct) {
-          return o2::lowest_flow_for_target(pb, exposure, device.value(), percent(pct));
-        }));
+        *o.target, "--target", "target SpO2", false, o2::kTargetSpo2Range);
     if (!t) return t.error();
     target = percent(t.value());
   }
@@ -189,8 +182,8 @@ Result<Duration> time_at_altitude(const OxygenationOptions& o) {
   if (!o.time_at_altitude) return cascade::preset_time_at_altitude(cascade::Exposure::Acute);
   Result<Duration> t = parse_long_duration(*o.time_at_altitude, "time at altitude");
   if (!t) {
-    return with_valid_range(Error{"--time-at-altitude: " + t.error().message},
-                            range_of<Duration>([](Duration d) { return cascade::acclimatisation_after(d); }));
+    return with_range(Error{"--time-at-altitude: " + t.error().message},
+                      cascade::kTimeAtAltitudeDaysRange);
   }
   return t.value();
 }
@@ -215,9 +208,7 @@ std::optional<Error> add_spo2_rows(Report& report, const OxygenationOptions& o, 
     return casualty_spo2::assess(r);
   };
   Result<double> s = number_or_percent(*o.spo2, "--spo2", "measured SpO2", false,
-                                       range_of<double>([&](double pct) {
-                                         return expected_spo2::assess(percent(pct), {});
-                                       }));
+                                       expected_spo2::kMeasuredSpo2Range);
   if (!s) return s.error();
   Result<casualty_spo2::Verdict> v = judged(s.value());
   if (!v) {
@@ -260,14 +251,13 @@ Result<Report> run_oxygenation(const OxygenationOptions& o) {
   if (!pb) return pb.error();
   Fraction fio2 = cascade::dry_air_fio2();
   if (o.fio2) {
-    Result<double> f = number_or_percent(*o.fio2, "--fio2", "FiO2", true,
-                                         range_of<double>([&](double value) {
-                                           return cascade::inspired_po2(pb.value(), fraction(value));
-                                         }));
+    // Typed as a fraction or a percentage: the message says both.
+    const units::NumberRange fio2_range{cascade::kFio2Range.low, cascade::kFio2Range.high,
+                                        "(fraction; or 15% to 100%)", cascade::kFio2Range.what};
+    Result<double> f = number_or_percent(*o.fio2, "--fio2", "FiO2", true, fio2_range);
     if (!f) return f.error();
-    if (!in_range(f.value(), 0.15, 1.0)) {
-      return Error{"--fio2: " + range_error("FiO2", 0.15, 1.0, "(fraction; or 15% to 100%)",
-                                            f.value()).message};
+    if (auto checked = units::check(f.value(), fio2_range); !checked) {
+      return Error{"--fio2: " + checked.error().message};
     }
     fio2 = fraction(f.value());
   }
@@ -319,41 +309,26 @@ Result<Report> run_oxygenation(const OxygenationOptions& o) {
 }
 
 Result<Report> run_curve(const CurveOptions& o) {
-  const dissociation::CurveShift standard;
-  Result<Pressure> po2 = required_pressure(o.po2, "--po2", "PO2", range_of<Pressure>([&](Pressure p) {
-    return dissociation::saturation(p, standard);
-  }));
+  Result<Pressure> po2 = required_pressure(o.po2, "--po2", "PO2", dissociation::kPo2Range);
   if (!po2) return po2.error();
   dissociation::CurveShift shift;
-  auto curve_with = [&](auto set) {
-    return [&, set](auto value) {
-      dissociation::CurveShift probe = standard;
-      set(probe, value);
-      return dissociation::make_curve(probe);
-    };
-  };
   Result<std::optional<double>> ph = optional_number(
-      o.ph, "--ph", "pH",
-      range_of<double>(curve_with([](dissociation::CurveShift& c, double v) { c.ph = v; })));
+      o.ph, "--ph", "pH", dissociation::kPhRange);
   if (!ph) return ph.error();
   if (ph.value()) shift.ph = **ph;
   Result<std::optional<double>> be = optional_number(
-      o.base_excess, "--base-excess", "base excess",
-      range_of<double>(curve_with([](dissociation::CurveShift& c, double v) { c.base_excess_mmol_l = v; })));
+      o.base_excess, "--base-excess", "base excess", dissociation::kBaseExcessRange);
   if (!be) return be.error();
   if (be.value()) shift.base_excess_mmol_l = **be;
   if (o.temperature) {
     Result<Temperature> t = required_temperature(
-        o.temperature, "--temperature", "body temperature",
-        range_of<Temperature>(
-            curve_with([](dissociation::CurveShift& c, Temperature v) { c.temperature = v; })));
+        o.temperature, "--temperature", "body temperature", dissociation::kBodyTemperatureRange);
     if (!t) return t.error();
     shift.temperature = t.value();
   }
   if (o.p50) {
     Result<Pressure> p50 = required_pressure(
-        o.p50, "--p50", "P50",
-        range_of<Pressure>(curve_with([](dissociation::CurveShift& c, Pressure v) { c.p50 = v; })));
+        o.p50, "--p50", "P50", dissociation::kP50Range);
     if (!p50) return p50.error();
     shift.p50 = p50.value();
   }

@@ -80,15 +80,8 @@ Result<Report> run_plan(const PlanOptions& o) {
   input.pressure_unit = p.units == tp::UnitSystem::Us ? &psi : &bar;
   if (o.ambient_pressure) {
     // A measured air pressure where the gauges are read wins over evacuation.altitude.
-    RangeProbe<Pressure> probe = range_of<Pressure>([](Pressure at) {
-      return cylinder::contents({litres(2), bar(100), celsius(15), at});
-    });
-    Result<Pressure> measured = required_pressure(o.ambient_pressure, "--ambient-pressure",
-                                                  "measured air pressure", probe);
+    Result<Pressure> measured = measured_ambient_pressure(o.ambient_pressure);
     if (!measured) return measured.error();
-    if (std::optional<Error> refused = probe(measured.value())) {
-      return Error{"--ambient-pressure: " + refused->message};
-    }
     input.ambient_pressure = measured.value();
   } else if (e.altitude) {
     Result<Pressure> ambient = atmosphere::pressure_at(*e.altitude, p.atmosphere_model);

@@ -262,3 +262,37 @@ TEST_CASE("sweep: just outside every atmosphere range the message names it",
   CHECK_REFUSED_NAMING(pressure_from_station_reading(hectopascals(149.99)), "between 150 and 1100 hPa");
   CHECK_REFUSED_NAMING(pressure_from_station_reading(hectopascals(1100.01)), "between 150 and 1100 hPa");
 }
+
+TEST_CASE("each model publishes its altitude and pressure ranges; the messages are those ranges",
+          "[atmosphere][ranges]") {
+  // West 1996 0…9000 m and ISA −500…20000 m (the models' stated validity, docs/atmosphere.md).
+  units::Range<units::LengthDimension> west = altitude_range(Model::West1996);
+  CHECK(west.low_in_unit() == 0.0);
+  CHECK(west.high_in_unit() == 9000.0);
+  CHECK(altitude_range(Model::Isa).low_in_unit() == -500.0);
+  for (Model model : {Model::Isa, Model::West1996}) {
+    units::Range<units::LengthDimension> z = altitude_range(model);
+    units::Range<units::PressureDimension> p = pressure_range(model);
+    // Rounded inward to 0.1 hPa, so every published pressure has an altitude in the model.
+    const double exact_low = pressure_at(z.high, model)->in(hectopascals);
+    const double exact_high = pressure_at(z.low, model)->in(hectopascals);
+    CHECK(p.low_in_unit() >= exact_low);
+    CHECK(p.low_in_unit() - exact_low < 0.1);
+    CHECK(p.high_in_unit() <= exact_high);
+    CHECK(exact_high - p.high_in_unit() < 0.1);
+    CHECK(altitude_at(p.low, model).ok());
+    CHECK(altitude_at(p.high, model).ok());
+    // The exact ends still read back (judged on the exact bounds).
+    CHECK(altitude_at(pressure_at(z.high, model).value(), model).ok());
+    // A refusal says the published range.
+    Result<Length> refused = altitude_at(hectopascals(10), model);  // above both models
+    REQUIRE_FALSE(refused.ok());
+    CHECK(refused.error().message.rfind(units::range_error("pressure", p).message.substr(0, 30), 0) == 0);
+    Result<Pressure> too_high = pressure_at(z.high + metres(1), model);
+    REQUIRE_FALSE(too_high.ok());
+    CHECK(too_high.error().message.find(std::string(z.note)) != std::string::npos);
+  }
+  // 330 and 1012.6 hPa: West 1996 at 9000 m and at sea level (West 1996, J Appl Physiol 81:1850).
+  CHECK(units::range_error("pressure", pressure_range(Model::West1996)).message ==
+        "pressure must be between 330 and 1012.6 hPa for the West 1996 model (0 to 9000 m)");
+}

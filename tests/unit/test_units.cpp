@@ -163,3 +163,20 @@ TEST_CASE("malformed and ambiguous numbers are refused with a plain message", "[
   CHECK(parse_length("5.2m").value().in(metres) == Approx(5.2));
   CHECK(parse_length("0.500m").value().in(metres) == Approx(0.5));
 }
+
+TEST_CASE("a range states itself in words, with its own name and note; a plain number too",
+          "[units]") {
+  constexpr Range<LengthDimension> site{metres(-500), metres(9000), &metres, "altitude",
+                                        " for this test"};
+  CHECK(range_error(site.what, site).message == "altitude must be between -500 and 9000 m for this test");
+  Result<Length> high = check(feet(30000), site);  // 30000 ft = 9144 m (NIST SP 811: 1 ft = 0.3048 m)
+  REQUIRE_FALSE(high.ok());
+  CHECK(high.error().message == "altitude must be between -500 and 9000 m (got 9144 m) for this test");
+  constexpr NumberRange ph{6.8, 7.8, "(no unit)", "pH"};
+  CHECK(check(7.4, ph).ok());
+  CHECK(check(6.8, ph).ok());
+  REQUIRE_FALSE(check(8.0, ph).ok());
+  CHECK(check(8.0, ph).error().message == "pH must be between 6.8 and 7.8 (no unit) (got 8 (no unit))");
+  CHECK_FALSE(check(NAN, ph).ok());
+  CHECK(range_error("pH", ph).message == "pH must be between 6.8 and 7.8 (no unit)");
+}
