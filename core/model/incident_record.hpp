@@ -10,6 +10,7 @@
 #include <vector>
 
 #include "model/atmosphere.hpp"
+#include "model/expected_spo2.hpp"
 #include "model/hyperbaric_bag.hpp"
 #include "model/result.hpp"
 #include "model/supplemental_oxygen.hpp"
@@ -85,7 +86,8 @@ inline constexpr size_t kMaxLabelChars = 80;
 // The site altitudes and bag gauge pressures of the models that own them.
 inline constexpr double kMinAltitudeM = atmosphere::kSiteAltitudeRange.low_in_unit();
 inline constexpr double kMaxAltitudeM = atmosphere::kSiteAltitudeRange.high_in_unit();
-inline constexpr double kMinSpo2Pct = 30.0, kMaxSpo2Pct = 100.0;
+inline constexpr double kMinSpo2Pct = expected_spo2::kMeasuredSpo2Range.low;
+inline constexpr double kMaxSpo2Pct = expected_spo2::kMeasuredSpo2Range.high;
 inline constexpr int kMinHeartRate = 20, kMaxHeartRate = 250;
 inline constexpr int kMinBreathingRate = 2, kMaxBreathingRate = 80;
 inline constexpr double kMaxBagGaugeMbar = hyperbaric_bag::max_gauge_mbar;

@@ -12,6 +12,7 @@
 #include "model/atmosphere.hpp"
 #include "model/cylinder.hpp"
 #include "model/evacuation_plan.hpp"
+#include "model/hyperbaric_bag.hpp"
 #include "model/result.hpp"
 #include "model/units.hpp"
 
@@ -138,13 +139,15 @@ struct Limits {
   static constexpr double margin_share_high_pct = evacuation::max_margin_fraction * 100.0;
   static constexpr size_t flows_max = 8;
   static constexpr double flow_low_lpm = 0.25, flow_high_lpm = 25.0;
-  static constexpr double bag_gauge_low_hpa = 50.0, bag_gauge_high_hpa = 250.0;
+  static constexpr double bag_gauge_low_hpa = 50.0;
+  static constexpr double bag_gauge_high_hpa = hyperbaric_bag::max_gauge_mbar;
   static constexpr double stroke_low_l = 0.1, stroke_high_l = 10.0;
   static constexpr double co2_limit_low_pct = 0.2, co2_limit_high_pct = 3.0;
   static constexpr double evacuation_low_h = 0.25, evacuation_high_h = 72.0;
   static constexpr size_t cylinders_on_hand_max = 40, phases_max = 12;
   static constexpr double on_hand_pressure_low_bar = 0.0, on_hand_pressure_high_bar = 300.0;
-  static constexpr double temperature_low_c = -40.0, temperature_high_c = 60.0;
+  static constexpr double temperature_low_c = cylinder::min_temperature_c;
+  static constexpr double temperature_high_c = cylinder::max_temperature_c;
 };
 
 // Every problem found in a profile file, each naming field path, value and valid range:

@@ -32,7 +32,7 @@ using namespace units;
 namespace o2 = supplemental_oxygen;
 using expected_spo2::Position;
 
-constexpr double kSpo2Low = 30.0, kSpo2High = 100.0;  // expected_spo2::assess's range
+constexpr const units::NumberRange& kSpo2 = expected_spo2::kMeasuredSpo2Range;
 
 std::string band_text(const expected_spo2::Band& band) {
   return shown_number(band.low.in(percent), 0) + "\xE2\x80\x93" + shown_number(band.high.in(percent), 0) + " %";
@@ -46,15 +46,15 @@ void spo2_field(AppState& state) {
                  s.spo2_measured ? percent_text(s.spo2) : std::string("not entered"),
                  s.spo2_measured ? format_number(s.spo2.in(percent), 4) : std::string(),
                  {"%"}, 0,
-                 format_number(kSpo2Low, 0) + "\xE2\x80\x93" + format_number(kSpo2High, 0) + " %",
+                 format_number(kSpo2.low, 0) + "\xE2\x80\x93" + format_number(kSpo2.high, 0) + " %",
                  s.spo2_measured};
   FieldEvent event = keypad_field(state, spec);
   if (event.kind == FieldEvent::Kind::Commit) {
     Result<double> n = parse_number(event.text, "measured SpO2");
     if (!n) {
       state.field_errors[spec.id] = n.error().message;
-    } else if (!in_range(n.value(), kSpo2Low, kSpo2High)) {
-      state.field_errors[spec.id] = range_error("measured SpO2", kSpo2Low, kSpo2High, "%", n.value()).message;
+    } else if (auto checked = units::check(n.value(), kSpo2); !checked) {
+      state.field_errors[spec.id] = checked.error().message;
     } else {
       state.field_errors.erase(spec.id);
       s.spo2 = percent(n.value());
@@ -62,7 +62,7 @@ void spo2_field(AppState& state) {
     }
   } else if (event.kind != FieldEvent::Kind::None && s.spo2_measured) {
     double step = event.kind == FieldEvent::Kind::Plus ? 1.0 : -1.0;
-    s.spo2 = percent(std::clamp(std::round(s.spo2.in(percent)) + step, kSpo2Low, kSpo2High));
+    s.spo2 = percent(std::clamp(std::round(s.spo2.in(percent)) + step, kSpo2.low, kSpo2.high));
   }
   if (s.spo2_measured && big_button(state, "Clear SpO2")) {
     s.spo2_measured = false;
