@@ -76,22 +76,31 @@ void add_flow_corrections(Report& report, VolumeFlow lpm, Pressure ambient) {
   report.notes.push_back(orifice->explanation);
 }
 
-Result<Report> run_cylinder(const CylinderOptions& o) {
+// What the options say, each value read and checked against the model's range.
+struct CylinderInput {
   std::optional<cyl::LetterSize> size;
+  Volume water;
+  bool capacity_assumed = false;  // from --size alone
+  Pressure gauge, reserve = cyl::default_reserve_gauge;
+  VolumeFlow flow;
+  Temperature temperature = celsius(15);
+  Ambient ambient;
+};
+
+Result<CylinderInput> cylinder_input(const CylinderOptions& o) {
   if (!o.size && !o.water_capacity) {
     return Error{"--size (D, E, M or H) or --water-capacity (litres, " +
                  format_number(cyl::min_water_capacity_l) + " to " +
                  format_number(cyl::max_water_capacity_l) + " L) is required"};
   }
-  Result<atm::Model> chosen_model = model_option(o.model);
-  if (!chosen_model) return chosen_model.error();
-  const atm::Model model = chosen_model.value();
-  Volume water;
+  Result<atm::Model> model = model_option(o.model);
+  if (!model) return model.error();
+  CylinderInput in;
   if (o.size) {
     Result<cyl::LetterSize> s = cyl::parse_letter_size(*o.size);
     if (!s) return Error{"--size: " + s.error().message};
-    size = s.value();
-    water = cyl::letter_size_info(*size).water_capacity;
+    in.size = s.value();
+    in.water = cyl::letter_size_info(*in.size).water_capacity;
   }
   // With --size too, the team's own water capacity wins (D and E vary by maker); the size then
   // only chooses the field rule.
@@ -99,78 +108,78 @@ Result<Report> run_cylinder(const CylinderOptions& o) {
     Result<Volume> v = required_volume(o.water_capacity, "--water-capacity", "water capacity",
                                        cyl::kWaterCapacityRange);
     if (!v) return v.error();
-    water = v.value();
+    in.water = v.value();
   }
-  const bool capacity_assumed = size && !o.water_capacity;
+  in.capacity_assumed = in.size && !o.water_capacity;
   Result<Pressure> gauge = option_value(o.pressure, "--pressure", "cylinder gauge pressure",
                                         "200bar or 2900psi", units::parse_gauge_pressure,
                                         cyl::kGaugeRange);
   if (!gauge) return gauge.error();
+  in.gauge = gauge.value();
   Result<VolumeFlow> flow = option_value(o.flow, "--flow", "flow", "2 or 2L/min",
                                          units::parse_volume_flow, cyl::kFlowRange);
   if (!flow) return flow.error();
   if (auto checked = units::check(flow.value(), cyl::kFlowRange); !checked) {
     return Error{"--flow: " + checked.error().message};
   }
-  Pressure reserve = cyl::default_reserve_gauge;
+  in.flow = flow.value();
   if (o.reserve) {
     Result<Pressure> r = option_value(o.reserve, "--reserve", "reserve pressure (gauge)",
                                       "20bar or 290psi", units::parse_gauge_pressure,
                                       cyl::kReserveRange);
     if (!r) return r.error();
-    reserve = r.value();
+    in.reserve = r.value();
   }
-  Temperature temperature = celsius(15);
   if (o.temperature) {
     Result<Temperature> t = required_temperature(o.temperature, "--temperature",
                                                  "cylinder temperature", cyl::kTemperatureRange);
     if (!t) return t.error();
-    temperature = t.value();
+    in.temperature = t.value();
   }
-  Result<Ambient> ambient = ambient_option(o, model);
+  Result<Ambient> ambient = ambient_option(o, model.value());
   if (!ambient) return ambient.error();
+  in.ambient = ambient.value();
+  return in;
+}
 
-  cyl::Reading reading{water, gauge.value(), temperature, ambient->pressure};
-  const VolumeFlow lpm = flow.value();
-  Result<cyl::DurationEstimate> d = cyl::duration(reading, reserve, lpm);
-  if (!d) return d.error();
-  std::optional<Duration> rule;
-  Result<Duration> rule_result = Error{""};
-  if (size) {
-    rule_result = cyl::field_rule_duration(*size, gauge.value(), lpm);
-    if (rule_result) rule = rule_result.value();
-  }
-
-  Report report;
-  if (size) report.add_text("size", std::string(cyl::letter_size_info(*size).name), "Size");
-  report.add("water_capacity_l", water.in(litres), 2,
-             capacity_assumed ? "Water capacity (assumed for the size)" : "Water capacity", "L");
-  report.json["water_capacity_assumed"] = capacity_assumed;
-  report.add("pressure_bar", gauge->in(bar), 1, "Gauge pressure", "bar");
-  report.add("pressure_psi", gauge->in(psi), 0, "Gauge pressure", "psi (gauge)");
-  report.add("temperature_c", temperature.in(celsius), 1, "Cylinder temperature", "°C");
-  report.add("ambient_pressure_hpa", ambient->pressure.in(hectopascals), 1, "Ambient pressure", "hPa");
-  report.json["ambient_pressure_source"] = ambient->source;
-  report.add("z", d->contents.z_in_cylinder, 4, "Compressibility Z", "");
-  report.add("contents_l", d->contents.free_gas.in(litres), 0, "Contents (free gas)", "L");
-  report.add("ideal_contents_l", d->contents.ideal_free_gas.in(litres), 0,
+// The cylinder, its contents and the duration to reserve by the real-gas model.
+void add_contents_rows(Report& report, const CylinderInput& in, const cyl::DurationEstimate& d) {
+  if (in.size) report.add_text("size", std::string(cyl::letter_size_info(*in.size).name), "Size");
+  report.add("water_capacity_l", in.water.in(litres), 2,
+             in.capacity_assumed ? "Water capacity (assumed for the size)" : "Water capacity", "L");
+  report.json["water_capacity_assumed"] = in.capacity_assumed;
+  report.add("pressure_bar", in.gauge.in(bar), 1, "Gauge pressure", "bar");
+  report.add("pressure_psi", in.gauge.in(psi), 0, "Gauge pressure", "psi (gauge)");
+  report.add("temperature_c", in.temperature.in(celsius), 1, "Cylinder temperature", "°C");
+  report.add("ambient_pressure_hpa", in.ambient.pressure.in(hectopascals), 1, "Ambient pressure", "hPa");
+  report.json["ambient_pressure_source"] = in.ambient.source;
+  report.add("z", d.contents.z_in_cylinder, 4, "Compressibility Z", "");
+  report.add("contents_l", d.contents.free_gas.in(litres), 0, "Contents (free gas)", "L");
+  report.add("ideal_contents_l", d.contents.ideal_free_gas.in(litres), 0,
              "Contents, ideal-gas rule", "L");
-  report.add("cold_gain_pct", d->contents.cold_gain * 100.0, 1, "Extra gas the cold temperature claims", "%");
-  report.json["extrapolated"] = d->contents.extrapolated;
-  report.add("reserve_bar", reserve.in(bar), 1, "Reserve pressure (gauge)", "bar");
-  report.add("reserve_psi", reserve.in(psi), 0, "Reserve pressure", "psi (gauge)");
-  report.add("usable_l", d->usable_free_gas.in(litres), 0, "Usable above reserve", "L");
-  report.add("flow_lpm", lpm.in(litres_per_minute), 1, "Flow", "L/min");
-  report.json["below_reserve"] = d->below_reserve;
-  if (d->below_reserve) report.rows.emplace_back("Verdict", std::string(cyl::below_reserve_text));
+  report.add("cold_gain_pct", d.contents.cold_gain * 100.0, 1, "Extra gas the cold temperature claims", "%");
+  report.json["extrapolated"] = d.contents.extrapolated;
+  report.add("reserve_bar", in.reserve.in(bar), 1, "Reserve pressure (gauge)", "bar");
+  report.add("reserve_psi", in.reserve.in(psi), 0, "Reserve pressure", "psi (gauge)");
+  report.add("usable_l", d.usable_free_gas.in(litres), 0, "Usable above reserve", "L");
+  report.add("flow_lpm", in.flow.in(litres_per_minute), 1, "Flow", "L/min");
+  report.json["below_reserve"] = d.below_reserve;
+  if (d.below_reserve) report.rows.emplace_back("Verdict", std::string(cyl::below_reserve_text));
   // Whole minutes, rounded down: the oxygen never lasts less than the figure says.
-  report.add("duration_min", cyl::whole_minutes_down(d->to_reserve).in(minutes), 0,
+  report.add("duration_min", cyl::whole_minutes_down(d.to_reserve).in(minutes), 0,
              "Duration to reserve (real gas)", "min");
-  if (size) {
-    if (rule) {
+}
+
+// The US field rule beside the real-gas figure, and the one to count on (the shorter).
+void add_field_rule_rows(Report& report, const CylinderInput& in, const cyl::DurationEstimate& d) {
+  std::optional<Duration> rule;
+  if (in.size) {
+    Result<Duration> rule_result = cyl::field_rule_duration(*in.size, in.gauge, in.flow);
+    if (rule_result) {
+      rule = rule_result.value();
       report.add("duration_field_rule_min", cyl::whole_minutes_down(*rule).in(minutes), 0,
                  "US field rule (psi-200)x" +
-                     format_number(cyl::letter_size_info(*size).field_factor, 2) + "/flow",
+                     format_number(cyl::letter_size_info(*in.size).field_factor, 2) + "/flow",
                  "min");
     } else {
       report.json["duration_field_rule_min"] = nullptr;
@@ -178,26 +187,42 @@ Result<Report> run_cylinder(const CylinderOptions& o) {
     }
     report.notes.push_back("The field rule is common practice in EMS references.");
   }
-  cyl::LeadingDuration lead = cyl::leading_duration(d.value(), rule);
+  cyl::LeadingDuration lead = cyl::leading_duration(d, rule);
   report.add("duration_lead_min", lead.duration.in(minutes), 0, "Count on", "min");
   report.json["duration_lead_basis"] =
       lead.basis == cyl::DurationBasis::FieldRule ? "field_rule" : "real_gas";
   report.notes.push_back("Count on " + format_number(lead.duration.in(minutes), 0) + " min: " + lead.why + ".");
-  if (capacity_assumed) {
-    std::string assumption = cyl::letter_size_assumption(*size);
+}
+
+// The assumption, the temperature cautions and the flowmeter corrections at altitude.
+void add_cylinder_notes(Report& report, const CylinderInput& in, const cyl::DurationEstimate& d) {
+  if (in.capacity_assumed) {
+    std::string assumption = cyl::letter_size_assumption(*in.size);
     report.json["water_capacity_assumption"] = assumption;
     assumption[0] = 'S';
     report.notes.push_back(assumption + " (--water-capacity).");
   }
-  std::vector<std::string> cautions = cyl::temperature_cautions(d->contents, temperature);
+  std::vector<std::string> cautions = cyl::temperature_cautions(d.contents, in.temperature);
   report.json["temperature_cautions"] = cautions;
   for (const std::string& c : cautions) report.notes.push_back(c);
-  if (cautions.empty() || d->contents.cold_gain <= cyl::cold_gain_caution_fraction) {
+  if (cautions.empty() || d.contents.cold_gain <= cyl::cold_gain_caution_fraction) {
     report.notes.emplace_back(cyl::temperature_advice);
   }
   report.notes.emplace_back("Pressures are gauge readings (bar, psi gauge, kPa or MPa).");
-  if (ambient->altitude) report.add("altitude_m", ambient->altitude->in(metres), 0, "Altitude", "m");
-  if (ambient->source != "sea_level") add_flow_corrections(report, lpm, ambient->pressure);
+  if (in.ambient.altitude) report.add("altitude_m", in.ambient.altitude->in(metres), 0, "Altitude", "m");
+  if (in.ambient.source != "sea_level") add_flow_corrections(report, in.flow, in.ambient.pressure);
+}
+
+Result<Report> run_cylinder(const CylinderOptions& o) {
+  Result<CylinderInput> in = cylinder_input(o);
+  if (!in) return in.error();
+  cyl::Reading reading{in->water, in->gauge, in->temperature, in->ambient.pressure};
+  Result<cyl::DurationEstimate> d = cyl::duration(reading, in->reserve, in->flow);
+  if (!d) return d.error();
+  Report report;
+  add_contents_rows(report, in.value(), d.value());
+  add_field_rule_rows(report, in.value(), d.value());
+  add_cylinder_notes(report, in.value(), d.value());
   report.json["caution"] = std::string(cautions::short_line);
   report.notes.emplace_back(cautions::short_line);
   return report;
