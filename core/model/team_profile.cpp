@@ -260,4 +260,47 @@ TeamProfile demo_profile() {
   return std::move(demo).value();
 }
 
+namespace {
+evacuation::CylinderSpec spec_for(const CylinderType& type, std::string label, Pressure gauge,
+                                  Temperature temperature) {
+  return {std::move(label), type.letter_size, type.water_capacity, gauge, temperature};
+}
+}  // namespace
+
+Result<evacuation::PlanInput> plan_input(const TeamProfile& p, std::optional<Pressure> measured_ambient) {
+  if (!p.evacuation) {
+    return Error{"evacuation: is missing (the plan needs the cylinders on hand, flow phases and "
+                 "duration; see docs/team-profile.md)"};
+  }
+  const EvacuationSection& e = *p.evacuation;
+  evacuation::PlanInput input;
+  for (size_t i = 0; i < e.cylinders.size(); ++i) {
+    const CylinderOnHand& c = e.cylinders[i];
+    const CylinderType* type = p.find_cylinder(c.type_label);
+    FIRN_ASSERT(type != nullptr, "validated profile lost a cylinder type");
+    input.cylinders.push_back(spec_for(*type, "#" + std::to_string(i + 1) + " " + c.type_label,
+                                       c.pressure_gauge, c.temperature));
+  }
+  for (const FlowPhase& phase : e.phases) input.phases.push_back({phase.flow, phase.duration});
+  input.evacuation = e.evacuation_time;
+  input.reserve_gauge = p.reserve_pressure_gauge;
+  input.margin_minimum = p.safety_margin.minimum;
+  input.margin_fraction = p.safety_margin.share.in(units::fraction);
+  input.pressure_unit = p.units == UnitSystem::Us ? &units::psi : &units::bar;
+  if (measured_ambient) {
+    input.ambient_pressure = *measured_ambient;
+  } else if (e.altitude) {
+    Result<Pressure> ambient = atmosphere::pressure_at(*e.altitude, p.atmosphere_model);
+    if (!ambient) return Error{"evacuation.altitude: " + ambient.error().message};
+    input.ambient_pressure = ambient.value();
+  }
+  if (!e.shortfall_type_label.empty()) {
+    const CylinderType* type = p.find_cylinder(e.shortfall_type_label);
+    FIRN_ASSERT(type != nullptr, "validated profile lost its shortfall cylinder type");
+    input.counting_cylinder =
+        spec_for(*type, "full " + type->label, type->fill_pressure_gauge, units::celsius(15.0));
+  }
+  return input;
+}
+
 }  // namespace firn::team_profile

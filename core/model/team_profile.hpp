@@ -175,4 +175,11 @@ std::string serialize_profile(const TeamProfile& profile);
 std::string_view demo_profile_json();
 TeamProfile demo_profile();
 
+// The evacuation plan the profile's evacuation section describes: each cylinder on hand with its
+// type, the flow phases, the reserve and margin, the ambient pressure from `measured_ambient`
+// when given (the gauges' reference where they are read) else from evacuation.altitude. An
+// error when the section is missing. The CLI's `firn plan` and the app take the same input.
+Result<evacuation::PlanInput> plan_input(const TeamProfile& profile,
+                                         std::optional<Pressure> measured_ambient = std::nullopt);
+
 }  // namespace firn::team_profile

@@ -47,52 +47,21 @@ Json flow_or_null(const std::optional<VolumeFlow>& f) {
   return f ? Json(rounded(f->in(litres_per_minute), 1)) : Json(nullptr);
 }
 
-evacuation::CylinderSpec spec_for(const tp::CylinderType& type, std::string label,
-                                  Pressure gauge, Temperature temperature) {
-  return {std::move(label), type.letter_size, type.water_capacity, gauge, temperature};
-}
-
 Result<Report> run_plan(const PlanOptions& o) {
   Result<tp::TeamProfile> loaded = load_profile(o.profile);
   if (!loaded) return loaded.error();
   const tp::TeamProfile& p = loaded.value();
-  if (!p.evacuation) {
-    return Error{*o.profile + ": evacuation: is missing (the plan needs the cylinders on hand, "
-                              "flow phases and duration; see docs/team-profile.md)"};
-  }
-  const tp::EvacuationSection& e = *p.evacuation;
-  evacuation::PlanInput input;
-  for (size_t i = 0; i < e.cylinders.size(); ++i) {
-    const tp::CylinderOnHand& c = e.cylinders[i];
-    const tp::CylinderType* type = p.find_cylinder(c.type_label);
-    FIRN_ASSERT(type != nullptr, "validated profile lost a cylinder type");
-    input.cylinders.push_back(spec_for(*type, "#" + std::to_string(i + 1) + " " + c.type_label,
-                                       c.pressure_gauge, c.temperature));
-  }
-  for (const tp::FlowPhase& phase : e.phases) {
-    // The last phase runs to the end of the evacuation: its duration (if any) is not used.
-    input.phases.push_back({phase.flow, phase.duration});
-  }
-  input.evacuation = e.evacuation_time;
-  input.reserve_gauge = p.reserve_pressure_gauge;
-  input.margin_minimum = p.safety_margin.minimum;
-  input.margin_fraction = p.safety_margin.share.in(fraction);
-  input.pressure_unit = p.units == tp::UnitSystem::Us ? &psi : &bar;
+  std::optional<Pressure> measured;
   if (o.ambient_pressure) {
     // A measured air pressure where the gauges are read wins over evacuation.altitude.
-    Result<Pressure> measured = measured_ambient_pressure(o.ambient_pressure);
-    if (!measured) return measured.error();
-    input.ambient_pressure = measured.value();
-  } else if (e.altitude) {
-    Result<Pressure> ambient = atmosphere::pressure_at(*e.altitude, p.atmosphere_model);
-    if (!ambient) return Error{"evacuation.altitude: " + ambient.error().message};
-    input.ambient_pressure = ambient.value();
+    Result<Pressure> m = measured_ambient_pressure(o.ambient_pressure);
+    if (!m) return m.error();
+    measured = m.value();
   }
-  if (!e.shortfall_type_label.empty()) {
-    const tp::CylinderType* type = p.find_cylinder(e.shortfall_type_label);
-    input.counting_cylinder =
-        spec_for(*type, "full " + type->label, type->fill_pressure_gauge, celsius(15.0));
-  }
+  Result<evacuation::PlanInput> made = tp::plan_input(p, measured);
+  if (!made) return Error{*o.profile + ": " + made.error().message};
+  const evacuation::PlanInput& input = made.value();
+  const tp::EvacuationSection& e = *p.evacuation;
   Result<evacuation::EvacuationPlan> plan = evacuation::plan_evacuation(input);
   if (!plan) return Error{*o.profile + ": " + plan.error().message};
 

@@ -401,3 +401,35 @@ TEST_CASE("Cylinder pressures are gauge pressures: bar, psi, kPa or MPa", "[prof
   CHECK_THAT(problems_of(demo_with("\"reserve_pressure\": \"20bar\"", "\"reserve_pressure\": \"20\"")),
              Catch::Contains("needs a gauge unit: bar, psi (gauge), kPa or MPa"));
 }
+
+TEST_CASE("The profile's evacuation section becomes the plan's input, for the CLI and the app alike",
+          "[profile][plan]") {
+  // The demo file (assets/demo-profile.json): three cylinders on hand, 15 then 6 L/min, 6 h from
+  // 4,200 m, counted in full 2 L alloy cylinders.
+  const TeamProfile demo = demo_profile();
+  Result<evacuation::PlanInput> in = plan_input(demo);
+  REQUIRE(in.ok());
+  REQUIRE(in->cylinders.size() == 3);
+  CHECK(in->cylinders[0].label == "#1 2 L alloy");
+  CHECK(in->cylinders[2].label == "#3 3 L composite");
+  CHECK(in->cylinders[1].gauge_pressure.in(units::bar) == Approx(150));
+  REQUIRE(in->phases.size() == 2);
+  CHECK(in->phases[0].flow.in(units::litres_per_minute) == Approx(15));
+  CHECK_FALSE(in->phases[1].duration.has_value());  // the last phase runs to arrival
+  CHECK(in->evacuation.in(units::hours) == Approx(6));
+  CHECK(in->reserve_gauge.in(units::bar) == Approx(20));
+  // West 1996 at 4,200 m: exp(6.63268 − 0.1112·4.2 − 0.00149·4.2²) = 463.76 Torr (West 1996,
+  // J Appl Physiol 81:1850, the model's equation worked by hand).
+  CHECK(in->ambient_pressure.in(units::torr) == Approx(463.76).margin(0.05));
+  REQUIRE(in->counting_cylinder.has_value());
+  CHECK(in->counting_cylinder->label == "full 2 L alloy");
+  // A measured air pressure replaces the altitude's.
+  Result<evacuation::PlanInput> measured = plan_input(demo, units::hectopascals(600));
+  REQUIRE(measured.ok());
+  CHECK(measured->ambient_pressure.in(units::hectopascals) == Approx(600));
+  TeamProfile without = demo;
+  without.evacuation.reset();
+  Result<evacuation::PlanInput> missing = plan_input(without);
+  REQUIRE_FALSE(missing.ok());
+  CHECK(missing.error().message.find("evacuation: is missing") == 0);
+}
