@@ -15,7 +15,7 @@
 #include "model/hyperbaric_bag.hpp"
 #include "model/illness_criteria.hpp"
 #include "model/route_plan.hpp"
-#include "model/team_profile.hpp"
+#include "profile/team_profile.hpp"
 #include "model/units.hpp"
 #include "ui/record_store.hpp"
 

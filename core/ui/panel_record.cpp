@@ -9,7 +9,7 @@
 #include <cmath>
 #include <ctime>
 
-#include "model/handover.hpp"
+#include "profile/handover.hpp"
 #include "ui/fields.hpp"
 #include "ui/plot.hpp"
 #include "ui/record_store.hpp"

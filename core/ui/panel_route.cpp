@@ -8,7 +8,7 @@
 #include <cmath>
 #include <string>
 
-#include "model/route_file.hpp"
+#include "profile/route_file.hpp"
 #include "model/route_plan.hpp"
 #include "ui/fields.hpp"
 #include "ui/format.hpp"

@@ -8,7 +8,7 @@
 #include <string>
 
 #include "model/cylinder.hpp"
-#include "model/pocket_card.hpp"
+#include "profile/pocket_card.hpp"
 #include "ui/format.hpp"
 #include "ui/team_store.hpp"
 #include "ui/test_hook.hpp"

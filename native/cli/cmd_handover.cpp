@@ -4,7 +4,7 @@
 #include "cli/cli.hpp"
 #include "cli/files.hpp"
 #include "model/cautions.hpp"
-#include "model/handover.hpp"
+#include "profile/handover.hpp"
 
 namespace firn::cli {
 namespace {

@@ -12,8 +12,8 @@
 #include "model/atmosphere.hpp"
 #include "model/cautions.hpp"
 #include "model/evacuation_plan.hpp"
-#include "model/pocket_card.hpp"
-#include "model/team_profile.hpp"
+#include "profile/pocket_card.hpp"
+#include "profile/team_profile.hpp"
 
 namespace firn::cli {
 namespace {

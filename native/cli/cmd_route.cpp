@@ -10,9 +10,9 @@
 #include "cli/cli.hpp"
 #include "cli/files.hpp"
 #include "model/cautions.hpp"
-#include "model/route_file.hpp"
+#include "profile/route_file.hpp"
 #include "model/route_plan.hpp"
-#include "model/team_profile.hpp"
+#include "profile/team_profile.hpp"
 
 namespace firn::cli {
 namespace {

@@ -6,8 +6,8 @@
 #include "model/expected_spo2.hpp"
 #include "model/hyperbaric_bag.hpp"
 #include "model/oxygen_eos.hpp"
-#include "model/pocket_card.hpp"
-#include "model/team_profile.hpp"
+#include "profile/pocket_card.hpp"
+#include "profile/team_profile.hpp"
 
 namespace firn::bench {
 

@@ -19,7 +19,7 @@
 
 #include "cli/cli.hpp"
 #include "fuzz_checks.hpp"
-#include "model/team_profile.hpp"
+#include "profile/team_profile.hpp"
 
 namespace {
 

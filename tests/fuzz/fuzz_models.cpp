@@ -10,7 +10,7 @@
 #include "fuzz_checks.hpp"
 #include "model_checks.hpp"
 #include "model/atmosphere.hpp"
-#include "model/team_profile.hpp"
+#include "profile/team_profile.hpp"
 
 using namespace firn;
 using namespace firn::units;

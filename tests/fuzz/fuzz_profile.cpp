@@ -1,4 +1,4 @@
-// Fuzz target: team profile JSON loading (core/model/team_profile*.hpp) and the pocket card built
+// Fuzz target: team profile JSON loading (core/profile/team_profile*.hpp) and the pocket card built
 // from whatever loads. Input: the file's text.
 // Invariants: no crash, uncaught exception or sanitizer report; parse_profile fails exactly when
 // check_profile lists problems, and every problem line is non-empty UTF-8 text; a loaded profile
@@ -9,8 +9,8 @@
 
 #include "fuzz_checks.hpp"
 #include "model_checks.hpp"
-#include "model/pocket_card.hpp"
-#include "model/team_profile.hpp"
+#include "profile/pocket_card.hpp"
+#include "profile/team_profile.hpp"
 
 using namespace firn;
 using namespace firn::team_profile;

@@ -14,7 +14,7 @@
 #include "model/lake_louise.hpp"
 #include "model/oxygen_cascade.hpp"
 #include "model/oxygen_eos.hpp"
-#include "model/pocket_card.hpp"
+#include "profile/pocket_card.hpp"
 #include "model/supplemental_oxygen.hpp"
 
 namespace firn::fuzz {

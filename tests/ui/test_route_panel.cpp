@@ -5,7 +5,7 @@
 #include <imgui.h>
 #include <nlohmann/json.hpp>
 
-#include "model/route_file.hpp"
+#include "profile/route_file.hpp"
 #include "model/route_plan.hpp"
 #include "ui/app_state.hpp"
 #include "ui/panels.hpp"

@@ -4,7 +4,7 @@
 #include <fstream>
 #include <sstream>
 
-#include "model/handover.hpp"
+#include "profile/handover.hpp"
 #include "model/incident_record.hpp"
 
 using namespace firn;

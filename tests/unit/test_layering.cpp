@@ -1,5 +1,6 @@
-// The architecture rule, checked: core/model includes no UI or platform header, and core/ui
-// includes no platform header (GLFW, GL, Emscripten). Reads the source tree at test time.
+// The architecture rule, checked: core/model (physics) includes no document, UI or platform
+// header; core/profile (documents) no UI or platform header; core/ui no platform header
+// (GLFW, GL, Emscripten). Reads the source tree at test time.
 #include <catch2/catch.hpp>
 
 #include <filesystem>
@@ -43,7 +44,14 @@ std::vector<std::string> violations(const std::string& folder, const std::vector
 
 TEST_CASE("core/model has no UI or platform dependency", "[layering]") {
   std::vector<std::string> bad =
-      violations("core/model", {"imgui", "GL/", "GLES", "GLFW", "glfw", "emscripten", "ui/"});
+      violations("core/model", {"imgui", "GL/", "GLES", "GLFW", "glfw", "emscripten", "ui/", "profile/"});
+  INFO(Catch::Detail::stringify(bad));
+  CHECK(bad.empty());
+}
+
+TEST_CASE("core/profile has no UI or platform dependency", "[layering]") {
+  std::vector<std::string> bad =
+      violations("core/profile", {"imgui", "GL/", "GLES", "GLFW", "glfw", "emscripten", "ui/"});
   INFO(Catch::Detail::stringify(bad));
   CHECK(bad.empty());
 }

@@ -16,9 +16,9 @@
 #include "model/expected_spo2.hpp"
 #include "model/hyperbaric_bag.hpp"
 #include "model/oxygen_cascade.hpp"
-#include "model/pocket_card.hpp"
+#include "profile/pocket_card.hpp"
 #include "model/supplemental_oxygen.hpp"
-#include "model/team_profile.hpp"
+#include "profile/team_profile.hpp"
 #include "sweep.hpp"
 
 using namespace firn;

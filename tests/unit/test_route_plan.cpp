@@ -8,10 +8,10 @@
 #include "model/atmosphere.hpp"
 #include "model/cylinder.hpp"
 #include "model/evacuation_plan.hpp"
-#include "model/route_file.hpp"
+#include "profile/route_file.hpp"
 #include "model/route_plan.hpp"
 #include "model/supplemental_oxygen.hpp"
-#include "model/team_profile.hpp"
+#include "profile/team_profile.hpp"
 #include "sweep.hpp"
 
 using namespace firn;

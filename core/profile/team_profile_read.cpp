@@ -1,5 +1,5 @@
 // Reading the current schema: every field checked, every problem named with its path.
-#include "model/team_profile_internal.hpp"
+#include "profile/team_profile_internal.hpp"
 
 #include <algorithm>
 #include <cmath>

@@ -1,6 +1,6 @@
 // Reading a route file: every field checked, every problem named with its path, value and range
 // (the team profile's message style; its JSON syntax reporting is shared).
-#include "model/route_file.hpp"
+#include "profile/route_file.hpp"
 
 #include <cmath>
 #include <cstdio>
@@ -8,7 +8,7 @@
 #include <initializer_list>
 
 #include "model/hyperbaric_bag.hpp"
-#include "model/team_profile_internal.hpp"
+#include "profile/team_profile_internal.hpp"
 
 namespace firn::route {
 namespace {

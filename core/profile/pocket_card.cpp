@@ -1,4 +1,4 @@
-#include "model/pocket_card.hpp"
+#include "profile/pocket_card.hpp"
 
 #include <algorithm>
 #include <cmath>

@@ -14,7 +14,7 @@
 
 #include "model/expected_spo2.hpp"
 #include "model/supplemental_oxygen.hpp"
-#include "model/team_profile.hpp"
+#include "profile/team_profile.hpp"
 #include "model/units.hpp"
 
 namespace firn::pocket_card {

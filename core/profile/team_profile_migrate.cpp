@@ -1,6 +1,6 @@
 // Schema 1 → 2. Version 1 (Firn 0.0.x) wrote bare numbers with the unit in the key name
 // ("fill_pressure_bar": 200) and had no evacuation section; version 2 writes text with units.
-#include "model/team_profile_internal.hpp"
+#include "profile/team_profile_internal.hpp"
 
 namespace firn::team_profile::internal {
 

@@ -8,8 +8,8 @@
 
 #include "model/atmosphere.hpp"
 #include "model/cautions.hpp"
-#include "model/html_text.hpp"
-#include "model/pocket_card.hpp"
+#include "profile/html_text.hpp"
+#include "profile/pocket_card.hpp"
 
 namespace firn::pocket_card {
 namespace {

@@ -1,12 +1,12 @@
 // The handover summary of a casualty record, as text and as a printable page.
-#include "model/handover.hpp"
+#include "profile/handover.hpp"
 
 #include <algorithm>
 #include <cmath>
 
 #include "model/atmosphere.hpp"
 #include "model/cautions.hpp"
-#include "model/html_text.hpp"
+#include "profile/html_text.hpp"
 
 namespace firn::handover {
 

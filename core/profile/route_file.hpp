@@ -8,7 +8,7 @@
 
 #include "model/result.hpp"
 #include "model/route_plan.hpp"
-#include "model/team_profile.hpp"
+#include "profile/team_profile.hpp"
 
 namespace firn::route {
 

@@ -4,7 +4,7 @@
 #include <cstdlib>
 #include <initializer_list>
 
-#include "model/team_profile_internal.hpp"
+#include "profile/team_profile_internal.hpp"
 
 namespace firn::team_profile {
 namespace {

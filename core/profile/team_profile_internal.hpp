@@ -7,7 +7,7 @@
 #include <string>
 #include <string_view>
 
-#include "model/team_profile.hpp"
+#include "profile/team_profile.hpp"
 
 namespace firn::team_profile::internal {
 
