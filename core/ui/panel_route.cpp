@@ -244,13 +244,15 @@ void draw_cylinder_bars(const AppState& state, const route::RouteInput& in, cons
   for (const route::CylinderSpan& s : plan.spans) {
     double row = row_of(s.cylinder);
     const route::StockCylinder& c = in.stock.cylinders[s.cylinder];
-    // Name and gauge above the bar, kept inside the plot when the bar starts near its right end.
+    // Name and gauge above the bar, kept inside the plot when the bar starts near its right end;
+    // a label wider than the rest of the plot may start in the left margin (no y numbers here).
     std::string label = c.label + "  " + cylinder_pressure_text(s.start_gauge, state.settings.units) +
                         " \xE2\x86\x92 " + cylinder_pressure_text(s.end_gauge, state.settings.units);
     ImVec2 size = ImGui::CalcTextSize(label.c_str());
     ImVec2 top = plot.at(s.start.in(hours), row + 1.0);
     float pad = 0.15f * em();
-    float x = std::max(plot.min.x + pad, std::min(top.x + pad, plot.max.x - size.x - pad));
+    float left = std::min(plot.min.x + pad, plot.max.x - size.x - pad);
+    float x = std::max(std::max(left, plot.min.x - 3.0f * em()), std::min(top.x + pad, plot.max.x - size.x - pad));
     ImVec2 low(x - pad, top.y + 0.05f * em()), high(x + size.x + pad, top.y + 0.05f * em() + size.y);
     plot.draw->AddRectFilled(low, high, ImGui::GetColorU32(ImGuiCol_WindowBg));
     plot.draw->AddText(ImVec2(x, low.y), plot_colour(state, PlotColour::Text), label.c_str());

@@ -8,7 +8,8 @@ import {join} from 'node:path';
 import {pause, screenshotDir} from './browser.mjs';
 
 export const MIN_TARGET_CSS_PX = 48;  // issue 4: ≥ 48 CSS px (≥ 9 mm) at any device pixel ratio
-export const NAV = ['Here', 'Casualty', 'Curve', 'Bag', 'Oxygen', 'AMS', 'Teaching', 'Settings'];
+export const NAV = ['Here', 'Casualty', 'Curve', 'Bag', 'Oxygen', 'Route', 'AMS', 'Record', 'Teaching',
+                    'Team', 'Settings'];  // core/ui/app_state.hpp kScreenNames: always in view
 
 // What the keypad shows after these keys (< is backspace; - toggles the sign, wherever pressed).
 export function keypadText(keys) {
@@ -102,7 +103,7 @@ export class Driver {
   async reveal(label) {
     // The keypad and the navigation bar are always in view.
     if (/^(Key|Unit) /.test(label) || NAV.includes(label)) return this.item(label);
-    for (let attempt = 0; attempt < 8; ++attempt) {
+    for (let attempt = 0; attempt < 24; ++attempt) {  // the Route screen is ~5 screens tall
       const target = await this.item(label);
       const bottom = await this.visibleBottom();
       if (target.y >= 0 && target.y + target.h <= bottom) return target;
