@@ -1,5 +1,6 @@
 // A Platform whose storage is a map in memory and can be made to refuse writes (a full or blocked
-// localStorage), for the stores' tests.
+// localStorage), for the stores' tests. Files to import are named by path (as natively) and
+// read from `files`.
 #pragma once
 
 #include <map>
@@ -25,9 +26,28 @@ class MemoryPlatform : public Platform {
     stored[std::string(key)] = std::string(text);
     return true;
   }
+  std::map<std::string, std::string> files;  // path → text, for request_file_import
+  std::string requested_path;
+  bool request_file_import(std::string_view path) override {
+    requested_path = std::string(path);
+    auto it = files.find(requested_path);
+    std::string name = requested_path.substr(requested_path.rfind('/') + 1);  // as natively
+    imported_ = it == files.end() ? ImportedFile{name, "", "cannot read " + requested_path}
+                                  : ImportedFile{name, it->second, ""};
+    return true;
+  }
+  bool imports_by_path() const override { return true; }
+  std::optional<ImportedFile> take_imported_file() override {
+    std::optional<ImportedFile> file = std::move(imported_);
+    imported_.reset();
+    return file;
+  }
   bool open_html_document(std::string_view, std::string_view) override { return false; }
   void publish_test_items(std::string_view) override {}
   std::string_view name() const override { return "test"; }
+
+ private:
+  std::optional<ImportedFile> imported_;
 };
 
 }  // namespace firn::ui::testing

@@ -2,6 +2,7 @@
 // device), shows the verdict the model (and `firn route`) gives for the same route, a preset tap
 // adds a leg that the verdict then includes, and no change mark under the chart crosses a label.
 #include <catch2/catch.hpp>
+#include <cstdio>
 #include <imgui.h>
 #include <nlohmann/json.hpp>
 
@@ -140,4 +141,29 @@ TEST_CASE("route screen: opens on the saved route, and every cylinder label is c
       CHECK(apart);
     }
   }
+}
+
+TEST_CASE("route screen: a route file loads by its typed path; a bad one changes nothing") {
+  RouteScreen ui;
+  AppState state;
+  ui.frame(state);
+  ui.platform.files["/field/short.json"] = R"({"schema_version": 1, "name": "Short carry",
+    "casualty": {"device": "mask"},
+    "legs": [{"kind": "carry", "from": "4200m", "to": "3900m", "duration": "45min"}],
+    "stock": {"cylinders": [{"type": "3 L composite", "pressure": "250bar"}], "margin": "20min"}})";
+  std::snprintf(state.route.import_path, sizeof state.route.import_path, "%s", "/field/short.json");
+  ui.tap(state, "Load a route file");
+  CHECK(ui.platform.requested_path == "/field/short.json");
+  CHECK(state.route.input.name == "Short carry");
+  CHECK(ui.text(state, "Verdict").find(model_verdict(state.route.input)) != std::string::npos);
+  CHECK(ui.text(state, "Route message") == "Loaded short.json: Short carry.");
+
+  std::snprintf(state.route.import_path, sizeof state.route.import_path, "%s", "/field/missing.json");
+  ui.tap(state, "Load a route file");
+  CHECK(state.route.input.name == "Short carry");
+  CHECK(ui.text(state, "Route message") == "Nothing loaded: cannot read /field/missing.json");
+  // Nothing typed: the file in the storage folder, named for routes (not the profile's).
+  state.route.import_path[0] = '\0';
+  ui.tap(state, "Load a route file");
+  CHECK(ui.platform.requested_path == ui.platform.storage_location() + "/" + kRouteImportFileName);
 }
