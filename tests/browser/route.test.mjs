@@ -3,7 +3,9 @@
 // and the cylinder changes read from the screen and compared with `firn route --file F --json`
 // (same core, other front end) for the same route written to a temp file by this test; then the
 // route survives a reload, and what the page saved is itself a route file the CLI reads. The
-// cylinder chart's change marks never cross a cylinder label (day and night screenshots).
+// cylinder chart's change marks never cross a cylinder label (day and night screenshots). A route
+// file loads through the browser's file picker (a bad one changes nothing) and the screen's route
+// downloads as a route file.
 // Env: FIRN_SITE (built site), FIRN_BIN (native firn), FIRN_SCREENSHOTS (output folder).
 import assert from 'node:assert/strict';
 import {execFileSync} from 'node:child_process';
@@ -153,18 +155,14 @@ describe('Route screen, phone 390×844', () => {
         assert.ok(apart, `${m.label} ${JSON.stringify(m)} crosses ${l.label} ${JSON.stringify(l)}`);
       }
     }
-    await d.reveal('Cylinders on the casualty');
-    console.log(`route day: ${await d.shot('route-cylinders-day')}`);
-    await d.screen('Settings');
-    await d.tap('Night');
-    await d.waitText('Night', (t) => t === 'selected');
-    await d.screen('Route');
-    await d.reveal('Cylinders on the casualty');
-    console.log(`route night: ${await d.shot('route-cylinders-night')}`);
-    await d.screen('Settings');
-    await d.tap('Day');
-    await d.waitText('Day', (t) => t === 'selected');
-    await d.screen('Route');
+    for (const theme of ['Day', 'Night', 'Day']) {  // back to Day for the next test
+      await d.screen('Settings');
+      await d.tap(theme);
+      await d.waitText(theme, (t) => t === 'selected');
+      await d.screen('Route');
+      await d.reveal('Cylinders on the casualty');
+      console.log(`route ${theme}: ${await d.shot(`route-cylinders-${theme.toLowerCase()}`)}`);
+    }
   });
 
   test('the route survives a reload, and the page kept it as a route file', async () => {
@@ -183,6 +181,35 @@ describe('Route screen, phone 390×844', () => {
     assert.ok(saved, 'nothing saved under firn.route.json');
     const file = join(work, 'saved-route.json');
     writeFileSync(file, saved);
+    assert.equal(`DANGER: ${firnRoute(file).verdict}`, shown.verdict);
+  });
+
+  test('a route file loads through the file picker; the screen saves a route file', async () => {
+    await d.tap('Back to the usual carry-out');
+    assert.match(await d.text('Verdict'), /^OK: enough, 389 min spare/);
+    const pick = async (name, text) => {
+      await d.reveal('Load a route file');
+      const [chooser] = await Promise.all([d.page.waitForEvent('filechooser', {timeout: 5000}),
+                                           d.tap('Load a route file')]);
+      await chooser.setFiles({name, mimeType: 'application/json', buffer: Buffer.from(text)});
+    };
+    // A file with a mistake changes nothing, and the mistake is named with its path and range.
+    const typed = readFileSync(join(work, 'typed-route.json'), 'utf8');
+    await pick('bad-route.json', typed.replace('"75min"', '"30h"'));
+    const refusal = await d.waitText('Route message', (t) => /bad-route\.json was not loaded/.test(t));
+    assert.match(refusal, /legs\[0\]\.duration: 30h \(1800 min\) is outside 1\u20261440 min/);
+    assert.match(await d.text('Verdict'), /^OK: enough, 389 min spare/);
+
+    await pick('typed-route.json', typed);
+    await d.waitText('Route message', (t) => t === 'Loaded typed-route.json: Browser test route.');
+    assert.equal(await d.text('Verdict'), shown.verdict);
+
+    await d.reveal('Save as a route file');
+    const [download] = await Promise.all([d.page.waitForEvent('download', {timeout: 5000}),
+                                          d.tap('Save as a route file')]);
+    assert.equal(download.suggestedFilename(), 'firn-route.json');
+    const file = join(work, 'downloaded-route.json');
+    writeFileSync(file, readFileSync(await download.path()));
     assert.equal(`DANGER: ${firnRoute(file).verdict}`, shown.verdict);
   });
 });
