@@ -24,7 +24,8 @@ inline constexpr const char* kRouteImportFileName = "route-import.json";  // nat
 // At the Route screen's first draw: the saved route, or the usual carry-out (nothing saved, or
 // unreadable: then the text is kept as kBadRouteKey and route.message says so).
 void load_route(RouteState& route, const team_profile::TeamProfile& profile, Platform& platform);
-// Writes the route file only when it differs from what was last written; a refused write is said.
+// Writes the route file only when it differs from what was last written and makes a plan (a route
+// the plan refuses is not saved: the last one that planned stays); a refused write is said once.
 void save_route_if_changed(RouteState& route, Platform& platform);
 
 // The demo team's usual carry-out (assets/demo-route.json), with the team's cylinder types when
