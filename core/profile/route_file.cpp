@@ -291,6 +291,24 @@ std::optional<Leg> read_leg(Reader& r, const Json& v, const std::string& path) {
   return leg;
 }
 
+Volume water_of(const team_profile::CylinderType& t) {
+  return t.water_capacity ? *t.water_capacity : cylinder::letter_size_info(*t.letter_size).water_capacity;
+}
+
+StockCylinder stock_cylinder(const team_profile::CylinderType& t, std::size_t index, Pressure gauge,
+                             Temperature temperature) {
+  return {"#" + std::to_string(index + 1) + " " + t.label, t.label, water_of(t), gauge, temperature};
+}
+
+// Shortfalls and spares counted in full cylinders of the profile's type `label` (if it has it).
+void count_in_type(Stock& s, const team_profile::TeamProfile& profile, const std::string& label) {
+  if (const team_profile::CylinderType* t = profile.find_cylinder(label)) {
+    s.count_in_label = t->label;
+    s.count_in_water_capacity = water_of(*t);
+    s.count_in_fill_gauge = t->fill_pressure_gauge;
+  }
+}
+
 // One cylinder on hand: a type from the team profile, its gauge reading and temperature.
 std::optional<StockCylinder> read_cylinder(Reader& r, const Json& v, const std::string& path,
                                            const team_profile::TeamProfile& profile,
@@ -308,7 +326,7 @@ std::optional<StockCylinder> read_cylinder(Reader& r, const Json& v, const std::
     r.fail(child(path, "type"), "\"" + *type + "\" is not a cylinder type of team \"" +
                                     profile.team_name + "\" (" + known + ")");
   }
-  double high_bar = t ? t->fill_pressure_gauge.in(bar) * 1.1 : tpl::Limits::fill_pressure_high_bar;
+  double high_bar = t ? t->fill_pressure_gauge.in(bar) * kGaugeHighShareOfFill : tpl::Limits::fill_pressure_high_bar;
   auto pressure = r.quantity(v, path, "pressure", true, pressure_parser, bar, 0.0, high_bar,
                              "190bar");
   std::optional<Temperature> temperature = celsius(15.0);
@@ -318,10 +336,7 @@ std::optional<StockCylinder> read_cylinder(Reader& r, const Json& v, const std::
                              "-10C");
   }
   if (!t || !pressure || !temperature) return std::nullopt;
-  Volume water = t->water_capacity ? *t->water_capacity
-                                   : cylinder::letter_size_info(*t->letter_size).water_capacity;
-  return StockCylinder{"#" + std::to_string(index + 1) + " " + t->label, t->label, water,
-                       *pressure, *temperature};
+  return stock_cylinder(*t, index, *pressure, *temperature);
 }
 
 std::optional<Stock> read_stock(Reader& r, const Json& v, const team_profile::TeamProfile& profile) {
@@ -366,13 +381,7 @@ std::optional<Stock> read_stock(Reader& r, const Json& v, const team_profile::Te
     ok = ok && label;
     if (label) count_in = *label;
   }
-  if (const team_profile::CylinderType* t = profile.find_cylinder(count_in)) {
-    s.count_in_label = t->label;
-    s.count_in_water_capacity = t->water_capacity
-                                    ? *t->water_capacity
-                                    : cylinder::letter_size_info(*t->letter_size).water_capacity;
-    s.count_in_fill_gauge = t->fill_pressure_gauge;
-  }
+  count_in_type(s, profile, count_in);
   if (const Json* second = r.find(v, path, "second_consumer", false, "")) {
     std::string sp = child(path, "second_consumer");
     if (r.object(*second, sp)) {
@@ -499,6 +508,23 @@ team_profile::Problems check_route_file(std::string_view json_text,
     problems.lines.push_back("the route file could not be read");
   }
   return problems;
+}
+
+Result<Stock> stock_from_profile(const team_profile::TeamProfile& profile, Duration margin) {
+  if (!profile.evacuation || profile.evacuation->cylinders.empty()) {
+    return Error{"team \"" + profile.team_name + "\" has no evacuation section with cylinders"};
+  }
+  Stock s;
+  for (const team_profile::CylinderOnHand& c : profile.evacuation->cylinders) {
+    const team_profile::CylinderType* t = profile.find_cylinder(c.type_label);
+    if (!t) return Error{"cylinder type \"" + c.type_label + "\" is not in the team profile"};
+    s.cylinders.push_back(stock_cylinder(*t, s.cylinders.size(), c.pressure_gauge, c.temperature));
+  }
+  s.reserve_gauge = profile.reserve_pressure_gauge;
+  s.margin = margin;
+  const std::string& count_in = profile.evacuation->shortfall_type_label;
+  count_in_type(s, profile, count_in.empty() ? s.cylinders.front().type_label : count_in);
+  return s;
 }
 
 Result<RouteInput> read_route_file(std::string_view json_text,

@@ -11,6 +11,7 @@
 #include "ui/panels.hpp"
 #include "ui/keypad.hpp"
 #include "ui/persistence.hpp"
+#include "ui/route_store.hpp"
 #include "ui/situation.hpp"
 #include "ui/team_store.hpp"
 #include "ui/test_hook.hpp"
@@ -239,7 +240,10 @@ void draw_frame(AppState& state, Platform& platform, float width, float height) 
   draw_keypad(state, width, height);
 
   // Save once a gesture is over, not on every frame of a drag.
-  if (!ImGui::IsMouseDown(ImGuiMouseButton_Left)) save_state_if_changed(state, platform);
+  if (!ImGui::IsMouseDown(ImGuiMouseButton_Left)) {
+    save_state_if_changed(state, platform);
+    save_route_if_changed(state.route, platform);
+  }
 #if FIRN_TEST_HOOKS
   platform.publish_test_items(test_hook::frame_json());
 #endif

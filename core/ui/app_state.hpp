@@ -162,10 +162,16 @@ struct OxygenInputs {
 };
 
 // The Route screen: the carry-out being planned (the team's usual one until edited).
+// ui/route_store.hpp keeps it on the device.
 struct RouteState {
   route::RouteInput input;
   bool loaded = false;
-  std::string message;  // why the usual carry-out could not be loaded
+  std::string message;  // the last load/import outcome, or why the saved route was not read
+  bool message_is_problem = false;
+  std::string saved_text;    // the route file last written (or found): written again only on change
+  std::string refused_text;  // last not saved (storage refused, or no plan): not retried each frame
+  bool import_requested = false;  // waiting for the platform's picker
+  char import_path[512] = {};     // native: typed path of the route file to load
 };
 
 // Each Lake Louise item 0–3, or kUnanswered until the casualty has answered it.

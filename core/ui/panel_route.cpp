@@ -13,6 +13,8 @@
 #include "ui/fields.hpp"
 #include "ui/format.hpp"
 #include "ui/plot.hpp"
+#include "ui/route_store.hpp"
+#include "ui/test_hook.hpp"
 #include "ui/widgets.hpp"
 
 namespace firn::ui {
@@ -23,20 +25,10 @@ using route::Leg;
 using route::LegKind;
 using route::Limits;
 
-// In supplemental_oxygen::Device order.
-
-void load_usual_route(AppState& state) {
-  RouteState& r = state.route;
-  r.loaded = true;
-  Result<route::RouteInput> in = route::read_route_file(route::demo_route_json(), state.team.profile);
-  if (in) {
-    r.input = in.value();
-    r.message.clear();
-    return;
-  }
-  // A team profile without the demo's cylinder types: the demo team's route and stock.
-  r.input = route::read_route_file(route::demo_route_json(), team_profile::demo_profile()).value();
-  r.message = "The usual carry-out uses the DEMO team's cylinders (" + in.error().message + ").";
+void draw_route_message(const AppState& state) {
+  if (state.route.message.empty()) return;
+  message_line(state, state.route.message, state.route.message_is_problem);
+  test_hook::item_text("Route message", state.route.message);
 }
 
 double end_altitude_m(const route::RouteInput& in) {
@@ -74,29 +66,80 @@ void draw_presets(AppState& state) {
     in.legs.push_back(preset_leg(LegKind::Flight, here + 500, here + 500, 30, "flight"));
   }
   if (in.legs.size() > 1 && big_button(state, "Remove the last leg")) in.legs.pop_back();
-  if (big_button(state, "Back to the usual carry-out")) load_usual_route(state);
+}
+
+void collect_route_file(AppState& state, Platform& platform) {
+  RouteState& route = state.route;
+  if (!route.import_requested) return;  // a file picked for the Team screen is not ours
+  std::optional<ImportedFile> file = platform.take_imported_file();
+  if (!file) return;
+  route.import_requested = false;
+  if (!file->error.empty()) {
+    route.message = "Nothing loaded: " + file->error;
+    route.message_is_problem = true;
+    return;
+  }
+  import_route(route, state.team.profile, file->text, file->name.empty() ? "the file" : file->name);
+}
+
+// Whole routes in (the usual carry-out, a route file), the profile's cylinders, a route file out.
+void draw_route_loading(AppState& state, Platform& platform) {
+  RouteState& route = state.route;
+  const team_profile::TeamProfile& profile = state.team.profile;
+  heading("Load or keep a route");
+  if (big_button(state, "Back to the usual carry-out")) use_usual_route(route, profile);
+  if (profile.evacuation && big_button(state, "Cylinders from the team profile")) {
+    use_profile_stock(route, profile);
+  }
+  if (platform.imports_by_path()) {
+    std::string hint = platform.storage_location() + "/" + kRouteImportFileName;
+    ImGui::TextDisabled("Route file to load");
+    ImGui::SetNextItemWidth(-1.0f);
+    ImGui::InputTextWithHint("##route-import-path", hint.c_str(), route.import_path, sizeof route.import_path);
+    test_hook::item_text("Route file to load", route.import_path);
+  }
+  if (big_button(state, "Load a route file")) {
+    std::string path = route.import_path[0] != '\0' || !platform.imports_by_path()
+                           ? std::string(route.import_path)
+                           : platform.storage_location() + "/" + kRouteImportFileName;
+    route.import_requested = platform.request_file_import(path);
+    if (!route.import_requested) {
+      route.message = "This device cannot pick a file here; use firn route --file FILE.";
+      route.message_is_problem = true;
+    }
+  }
+  collect_route_file(state, platform);
+  if (big_button(state, "Save as a route file")) {
+    std::string where = platform.offer_download(kRouteExportFileName, route::write_route_file(route.input));
+    route.message = where.empty() ? "The route file could not be written here."
+                                  : "Route file written to " + where + " (firn route --file reads it).";
+    route.message_is_problem = where.empty();
+  }
+  draw_route_message(state);
 }
 
 void draw_leg_fields(AppState& state, std::size_t i, Leg& leg) {
   std::string n = std::to_string(i + 1);
   heading(("Leg " + n + ": " + std::string(route::leg_kind_key(leg.kind)) +
            (leg.label.empty() ? "" : " - " + leg.label)).c_str());
-  auto field = [&](const char* what, const std::string& id) {
-    QuantityField<LengthDimension> f = altitude_field(state, what, id.c_str());
+  // Labels carry the leg's number: each field is found by its label (keypad title, tests).
+  std::string from = "Leg " + n + ": from", to = "Leg " + n + ": to", time = "Leg " + n + ": for";
+  std::string at = "Leg " + n + (leg.kind == LegKind::Flight ? ": cruising at" : ": at");
+  auto field = [&](const std::string& label, const std::string& id) {
+    QuantityField<LengthDimension> f = altitude_field(state, label.c_str(), id.c_str());
     f.low = metres(Limits::altitude_low_m);
+    f.high = metres(Limits::altitude_high_m);
     return f;
   };
   if (leg.kind == LegKind::Carry) {
-    std::string from = "route-from-" + n, to = "route-to-" + n;
-    edit_quantity(state, field("From", from), leg.start_altitude);
-    edit_quantity(state, field("To", to), leg.end_altitude);
+    edit_quantity(state, field(from, "route-from-" + n), leg.start_altitude);
+    edit_quantity(state, field(to, "route-to-" + n), leg.end_altitude);
   } else {
-    std::string at = "route-at-" + n;
-    edit_quantity(state, field(leg.kind == LegKind::Flight ? "Cruising at" : "At", at), leg.start_altitude);
+    edit_quantity(state, field(at, "route-at-" + n), leg.start_altitude);
     leg.end_altitude = leg.start_altitude;
   }
-  std::string time = "route-time-" + n;
-  edit_quantity(state, duration_field("For", time.c_str(), Limits::leg_low_min, Limits::leg_high_h * 60),
+  std::string time_id = "route-time-" + n;
+  edit_quantity(state, duration_field(time.c_str(), time_id.c_str(), Limits::leg_low_min, Limits::leg_high_h * 60),
                 leg.duration);
 }
 
@@ -106,7 +149,11 @@ void draw_stock(AppState& state) {
   for (std::size_t i = 0; i < stock.cylinders.size(); ++i) {
     route::StockCylinder& c = stock.cylinders[i];
     std::string id = "route-gauge-" + std::to_string(i + 1);
-    edit_quantity(state, cylinder_pressure_field(state, c.label.c_str(), id.c_str(), bar(300)), c.gauge);
+    // The route file's range for this type, so whatever is entered here is saved and read back.
+    const team_profile::CylinderType* t = state.team.profile.find_cylinder(c.type_label);
+    Pressure high = t ? t->fill_pressure_gauge * route::kGaugeHighShareOfFill
+                      : bar(team_profile::Limits::fill_pressure_high_bar);
+    edit_quantity(state, cylinder_pressure_field(state, c.label.c_str(), id.c_str(), high), c.gauge);
   }
   for (const team_profile::CylinderType& t : state.team.profile.cylinders) {
     std::string add = "+ full " + t.label;
@@ -163,33 +210,57 @@ void draw_spo2_chart(const AppState& state, const route::RoutePlan& plan, Fracti
                       {plot_colour(state, PlotColour::Warning), "target"}});
 }
 
-// One bar per cylinder over time: when it is on the casualty, gauge at each end.
+// One bar per cylinder over time: when it is on the casualty, gauge at each end. Each row holds
+// its label (name and gauges) above its bar; a change is marked on the two bars it joins only,
+// never across a label, and each label sits on a plate of the background so no grid line runs
+// through its text (a phone is narrow: labels and changes share the same few centimetres).
 void draw_cylinder_bars(const AppState& state, const route::RouteInput& in, const route::RoutePlan& plan) {
+  constexpr float kRowEm = 2.6f;                     // label line (1.2 em) + bar (1 em) + gap
+  constexpr double kBarLow = 0.12, kBarHigh = 0.5;   // the bar, in the lower part of its row
+  constexpr double kMarkLow = 0.06, kMarkHigh = 0.56;  // a change mark: just beyond the bar
   double end_h = std::max(plan.route_time.in(hours), 0.5);
   double n = static_cast<double>(in.stock.cylinders.size());
   Plot plot = begin_plot(state, "Cylinders on the casualty",
                          std::to_string(plan.swaps.size()) + " changes before arrival",
-                         static_cast<float>(2.0 + 2.8 * n), {0, end_h, 0, n, end_h > 6 ? 2.0 : 1.0, 0, "hours", ""});  // rows: no y numbers
+                         static_cast<float>(4.0 + kRowEm * n), {0, end_h, 0, n, end_h > 6 ? 2.0 : 1.0, 0, "hours", ""});  // rows: no y numbers
+  auto row_of = [&](std::size_t cylinder) { return n - 1 - static_cast<double>(cylinder); };
   for (const route::CylinderSpan& s : plan.spans) {
-    double row = n - 1 - static_cast<double>(s.cylinder);
-    // The bar in the lower half of its row, its label (one line, ~1 em of the row's 2.8) above.
-    ImVec2 a = plot.at(s.start.in(hours), row + 0.1), b = plot.at(s.end.in(hours), row + 0.45);
+    double row = row_of(s.cylinder);
+    ImVec2 a = plot.at(s.start.in(hours), row + kBarLow), b = plot.at(s.end.in(hours), row + kBarHigh);
     plot.draw->AddRectFilled(ImVec2(a.x, b.y), ImVec2(b.x, a.y),
                              plot_colour(state, s.reached_reserve ? PlotColour::Warning : PlotColour::Accent, 0.6f));
+  }
+  ImU32 mark = plot_colour(state, PlotColour::Text);
+  for (std::size_t i = 0; i < plan.swaps.size(); ++i) {
+    const route::Swap& s = plan.swaps[i];
+    for (std::size_t cylinder : {s.from, s.to}) {
+      ImVec2 top = plot.at(s.time.in(hours), row_of(cylinder) + kMarkHigh);
+      ImVec2 bottom = plot.at(s.time.in(hours), row_of(cylinder) + kMarkLow);
+      plot.draw->AddLine(top, bottom, mark, std::max(1.0f, 0.12f * em()));
+      test_hook::drawn("Change mark " + std::to_string(i + 1), "", top.x - 0.06f * em(), top.y,
+                       top.x + 0.06f * em(), bottom.y);
+    }
+  }
+  for (const route::CylinderSpan& s : plan.spans) {
+    double row = row_of(s.cylinder);
     const route::StockCylinder& c = in.stock.cylinders[s.cylinder];
-    // Name and gauge above the bar, kept inside the plot when the bar starts near its right end.
+    // Name and gauge above the bar, kept inside the plot when the bar starts near its right end;
+    // a label wider than the rest of the plot may start in the left margin (no y numbers here).
     std::string label = c.label + "  " + cylinder_pressure_text(s.start_gauge, state.settings.units) +
                         " \xE2\x86\x92 " + cylinder_pressure_text(s.end_gauge, state.settings.units);
-    float width = ImGui::CalcTextSize(label.c_str()).x;
+    ImVec2 size = ImGui::CalcTextSize(label.c_str());
     ImVec2 top = plot.at(s.start.in(hours), row + 1.0);
-    float x = std::max(plot.min.x + 0.2f * em(), std::min(top.x, plot.max.x - width - 0.2f * em()));
-    plot.draw->AddText(ImVec2(x, top.y), plot_colour(state, PlotColour::Text), label.c_str());
+    float pad = 0.15f * em();
+    float left = std::min(plot.min.x + pad, plot.max.x - size.x - pad);
+    float x = std::max(std::max(left, plot.min.x - 3.0f * em()), std::min(top.x + pad, plot.max.x - size.x - pad));
+    ImVec2 low(x - pad, top.y + 0.05f * em()), high(x + size.x + pad, top.y + 0.05f * em() + size.y);
+    plot.draw->AddRectFilled(low, high, ImGui::GetColorU32(ImGuiCol_WindowBg));
+    plot.draw->AddText(ImVec2(x, low.y), plot_colour(state, PlotColour::Text), label.c_str());
+    test_hook::drawn("Cylinder label " + std::to_string(s.cylinder + 1), label, low.x, low.y, high.x, high.y);
   }
   plot_legend(state, {{plot_colour(state, PlotColour::Accent, 0.6f), "on the casualty at arrival"},
-                      {plot_colour(state, PlotColour::Warning, 0.6f), "down to the reserve"}});
-  for (const route::Swap& s : plan.swaps) {
-    plot_vline(plot, s.time.in(hours), plot_colour(state, PlotColour::Dim));
-  }
+                      {plot_colour(state, PlotColour::Warning, 0.6f), "down to the reserve"},
+                      {mark, "a change of cylinder"}});
 }
 
 void draw_result(AppState& state) {
@@ -212,22 +283,27 @@ void draw_result(AppState& state) {
   for (const route::Swap& s : p.swaps) {
     std::string when = in.start_clock_min ? route::clock_text(*in.start_clock_min, s.time)
                                           : duration_text(s.time);
-    bullet_line(when + "  change to " + in.stock.cylinders[s.to].label);
+    std::string line = when + "  change to " + in.stock.cylinders[s.to].label;
+    bullet_line(line);
+    test_hook::item_text("Change " + std::to_string(&s - p.swaps.data() + 1), line);
   }
   for (std::size_t i = 0; i < p.legs.size(); ++i) {
     const route::LegResult& l = p.legs[i];
-    bullet_line("Leg " + std::to_string(i + 1) + ": " + flow_text(l.flow) + ", SpO2 from " +
-                percent_text(l.spo2_at_flow.low) + ", " + volume_text(l.oxygen_used));
+    std::string line = "Leg " + std::to_string(i + 1) + ": " + flow_text(l.flow) + ", SpO2 from " +
+                       percent_text(l.spo2_at_flow.low) + ", " + volume_text(l.oxygen_used);
+    bullet_line(line);
+    test_hook::item_text("Leg " + std::to_string(i + 1) + " plan", line);
   }
   for (const std::string& c : p.cautions) message_line(state, c, true);
 }
 
 }  // namespace
 
-void draw_route_panel(AppState& state, Platform&) {
-  if (!state.route.loaded) load_usual_route(state);
+void draw_route_panel(AppState& state, Platform& platform) {
+  if (!state.route.loaded) load_route(state.route, state.team.profile, platform);
   route::RouteInput& in = state.route.input;
-  if (!state.route.message.empty()) message_line(state, state.route.message, true);
+  // A saved route that could not be read is said first; other outcomes under the load buttons.
+  if (state.route.message_is_problem) draw_route_message(state);
   if (in.demo) message_line(state, "DEMO route: fictional team and range.");
   draw_result(state);
   heading("Casualty");
@@ -242,6 +318,7 @@ void draw_route_panel(AppState& state, Platform&) {
   for (std::size_t i = 0; i < in.legs.size(); ++i) draw_leg_fields(state, i, in.legs[i]);
   draw_presets(state);
   draw_stock(state);
+  draw_route_loading(state, platform);
   caution_line(state);
 }
 

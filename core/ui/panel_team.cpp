@@ -108,6 +108,7 @@ void draw_profile_details(const AppState& state) {
 }
 
 void collect_imported_file(AppState& state, Platform& platform) {
+  if (!state.team.import_requested) return;  // a file picked for the Route screen is not ours
   std::optional<ImportedFile> file = platform.take_imported_file();
   if (!file) return;
   state.team.import_requested = false;

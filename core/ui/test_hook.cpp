@@ -43,19 +43,32 @@ void begin_frame() { items().clear(); }
 
 void item(std::string_view label) { item_text(label, {}); }
 
-void item_text(std::string_view label, std::string_view shown_text) {
+namespace {
+
+void record(std::string_view label, std::string_view shown_text, ImVec2 min, ImVec2 max) {
 #if FIRN_TEST_HOOKS
   std::string unique(label);
   int repeats = 1;
   for (const RecordedItem& existing : items()) {
     if (existing.label == unique) unique = std::string(label) + "#" + std::to_string(++repeats);
   }
-  items().push_back({unique, std::string(shown_text), ImGui::GetItemRectMin(),
-                     ImGui::GetItemRectMax()});
+  items().push_back({unique, std::string(shown_text), min, max});
 #else
   (void)label;
   (void)shown_text;
+  (void)min;
+  (void)max;
 #endif
+}
+
+}  // namespace
+
+void item_text(std::string_view label, std::string_view shown_text) {
+  record(label, shown_text, ImGui::GetItemRectMin(), ImGui::GetItemRectMax());
+}
+
+void drawn(std::string_view label, std::string_view shown_text, float x0, float y0, float x1, float y1) {
+  record(label, shown_text, ImVec2(x0, y0), ImVec2(x1, y1));
 }
 
 std::string frame_json() {

@@ -13,6 +13,9 @@ void begin_frame();
 void item(std::string_view label);
 // Records the last ImGui item under `label` with the text it shows ("701.2 hPa").
 void item_text(std::string_view label, std::string_view shown_text);
+// Records something drawn rather than an ImGui item (a chart's label or mark), with its rectangle
+// in framebuffer pixels, so a test can check what it overlaps.
+void drawn(std::string_view label, std::string_view shown_text, float x0, float y0, float x1, float y1);
 // The frame's items as a JSON array [{"label","text","x","y","w","h"}].
 std::string frame_json();
 

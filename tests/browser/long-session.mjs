@@ -30,8 +30,10 @@ const NAV = [...readFileSync(new URL('../../core/ui/app_state.hpp', import.meta.
 if (NAV.length < 11) throw new Error(`screen labels not found in app_state.hpp: ${NAV}`);
 const UNITS = ['m', 'ft', 'hPa', 'mmHg', 'kPa', 'inHg', 'bar', 'psi', '°C', '°F'];
 const THEMES = ['Day', 'Night', 'Projector'];
-// These leave the canvas (print dialogue, download, file picker): covered by profile.test.mjs.
-const LEAVES_THE_PAGE = new Set(['Print pocket card', 'Import profile', 'Export profile']);
+// These leave the canvas (print dialogue, download, file picker): covered by profile.test.mjs
+// and route.test.mjs.
+const LEAVES_THE_PAGE = new Set(['Print pocket card', 'Import profile', 'Export profile',
+                                 'Load a route file', 'Save as a route file']);
 const KEYS = ['0', '1', '2', '3', '4', '5', '6', '7', '8', '9', '.', '-', 'Backspace', 'Enter',
               'Escape', 'Tab'];
 

@@ -9,20 +9,18 @@
 // One browser for both devices; one page per device, reused by every step.
 import assert from 'node:assert/strict';
 import {execFileSync} from 'node:child_process';
-import {join} from 'node:path';
 import {after, before, describe, test} from 'node:test';
 
 import {PHONE_DPR, launchBrowser, pause, requiredEnv, screenshotDir, waitForApp} from './browser.mjs';
+import {Driver} from './driver.mjs';
 import {serveSite} from '../../web/serve.mjs';
 
 const site = requiredEnv('FIRN_SITE', 'the built site folder (build/web/site)');
 const firnBin = requiredEnv('FIRN_BIN', 'the native firn executable (for the CLI comparison)');
 const shots = screenshotDir();
-const MIN_TARGET_CSS_PX = 48;  // issue 4: ≥ 48 CSS px (≥ 9 mm) at any device pixel ratio
 const FEET_PER_METRE = 1 / 0.3048;  // international foot, exactly 0.3048 m (1959 agreement)
 const PSI_PER_BAR = 1e5 / 6894.757;  // 1 psi = 6894.757 Pa (NIST SP 811, appendix B)
 
-const NAV = ['Here', 'Casualty', 'Curve', 'Bag', 'Oxygen', 'AMS', 'Teaching', 'Settings'];
 const firn = (...args) => JSON.parse(execFileSync(firnBin, [...args, '--json'], {encoding: 'utf8'}));
 
 let server;
@@ -60,199 +58,6 @@ function minutesShown(text) {
   const match = text.match(/^(?:(\d+) h )?(\d+) min$/);
   assert.ok(match, `duration shown as ${JSON.stringify(text)}`);
   return Number(match[1] ?? 0) * 60 + Number(match[2]);
-}
-
-// What the keypad shows after these keys (< is backspace; - toggles the sign, wherever pressed).
-function keypadText(keys) {
-  let text = '';
-  for (const k of keys) {
-    if (k === '<') text = text.slice(0, -1);
-    else if (k === '-') text = text.startsWith('-') ? text.slice(1) : `-${text}`;
-    else text += k;
-  }
-  return text;
-}
-
-// Drives one page by label, by touch (phone) or mouse (laptop).
-class Driver {
-  constructor(name, page, touch) {
-    Object.assign(this, {name, page, touch, taps: 0, smallest: Infinity});
-  }
-
-  async items() {
-    return this.page.evaluate(() => {
-      const ratio = window.devicePixelRatio || 1;
-      return (window.firnTestItems ?? []).map((i) => ({...i, x: i.x / ratio, y: i.y / ratio,
-                                                        w: i.w / ratio, h: i.h / ratio}));
-    });
-  }
-
-  async find(label) {
-    return (await this.items()).find((i) => i.label === label);
-  }
-
-  async item(label, timeout = 3000) {
-    const end = Date.now() + timeout;
-    for (;;) {
-      const found = await this.find(label);
-      if (found) return found;
-      if (Date.now() > end) {
-        const labels = (await this.items()).map((i) => i.label).join(', ');
-        assert.fail(`${this.name}: no item "${label}"; items: ${labels}`);
-      }
-      await pause(50);
-    }
-  }
-
-  async text(label) {
-    return (await this.item(label)).text;
-  }
-
-  async waitText(label, predicate, timeout = 4000) {
-    const end = Date.now() + timeout;
-    let last;
-    while (Date.now() < end) {
-      last = (await this.find(label))?.text;
-      if (last !== undefined && predicate(last)) return last;
-      await pause(50);
-    }
-    assert.fail(`${this.name}: "${label}" shows ${JSON.stringify(last)} after ${timeout} ms`);
-  }
-
-  // The content area ends at the navigation bar (always on screen, at the bottom).
-  async visibleBottom() {
-    const all = await this.items();
-    const nav = all.filter((i) => i.label === 'Here' || i.label === 'Settings');
-    assert.ok(nav.length > 0, `${this.name}: no navigation bar`);
-    return Math.min(...nav.map((i) => i.y));
-  }
-
-  // Scrolls the column under `x` by `dy` CSS px (positive: content moves up).
-  async scroll(x, y, dy) {
-    if (!this.touch) {
-      await this.page.mouse.move(x, y);
-      await this.page.mouse.wheel(0, dy);
-      await pause(150);
-      return;
-    }
-    // A thumb drag: touch events through CDP (page.touchscreen only taps); the page shell turns
-    // them into mouse events and the app drags the page.
-    const cdp = this.cdp ??= await this.page.context().newCDPSession(this.page);
-    const steps = 8;
-    const point = (k) => [{x, y: y - (dy * k) / steps}];
-    await cdp.send('Input.dispatchTouchEvent', {type: 'touchStart', touchPoints: point(0)});
-    for (let k = 1; k <= steps; ++k) {
-      await pause(40);  // one move per frame: ImGui 1.86 has no input queue
-      await cdp.send('Input.dispatchTouchEvent', {type: 'touchMove', touchPoints: point(k)});
-    }
-    await pause(40);
-    await cdp.send('Input.dispatchTouchEvent', {type: 'touchEnd', touchPoints: []});
-    await pause(150);
-  }
-
-  // Brings a labelled item fully between the top of the screen and the navigation bar.
-  async reveal(label) {
-    // The keypad and the navigation bar are always in view.
-    if (/^(Key|Unit) /.test(label) || NAV.includes(label)) return this.item(label);
-    for (let attempt = 0; attempt < 8; ++attempt) {
-      const target = await this.item(label);
-      const bottom = await this.visibleBottom();
-      if (target.y >= 0 && target.y + target.h <= bottom) return target;
-      const centre = bottom / 2;
-      const wanted = target.y + target.h / 2 - centre;
-      const dy = Math.sign(wanted) * Math.min(Math.abs(wanted), bottom * 0.4);
-      const x = target.x + Math.min(target.w / 2, 40);
-      // Drag from a point in the same column, clear of the item itself.
-      await this.scroll(x, dy > 0 ? bottom * 0.75 : bottom * 0.25, dy);
-    }
-    assert.fail(`${this.name}: could not scroll "${label}" into view`);
-  }
-
-  // `settle: false` skips waiting for frames after a touch: the page shell queues touch-made
-  // button events itself, one per frame, so keys on the (fixed) keypad can be tapped briskly.
-  async tap(label, {settle = true} = {}) {
-    const target = await this.reveal(label);
-    this.taps += 1;
-    this.smallest = Math.min(this.smallest, target.h);
-    assert.ok(target.h >= MIN_TARGET_CSS_PX - 0.05,
-              `${this.name}: "${label}" is ${target.h.toFixed(1)} CSS px tall (< ${MIN_TARGET_CSS_PX})`);
-    const x = target.x + target.w / 2;
-    const y = target.y + target.h / 2;
-    // Nothing of the page may sit over the canvas where we tap (a notice over the keypad once
-    // swallowed taps). A notice's own button is dismissed first, as a user would.
-    const over = await this.page.evaluate(([px, py]) => {
-      const element = document.elementFromPoint(px, py);
-      if (!element || element.id === 'canvas') return null;
-      const button = element.closest('#offline-note') && element.closest('button');
-      return {what: element.closest('[id]')?.id ?? element.tagName, button: !!button};
-    }, [x, y]);
-    if (over?.button) {
-      console.log(`${this.name}: dismissing the ${over.what} over "${label}"`);
-      await this.page.evaluate(() => document.querySelector('#offline-note button:last-child')?.click());
-      await pause(100);
-    } else {
-      assert.equal(over, null, `${this.name}: "${label}" is covered by ${JSON.stringify(over)}`);
-    }
-    if (this.touch) {
-      // The page shell holds each touch-made button event until a frame has seen the last.
-      await this.page.touchscreen.tap(x, y);
-    } else {
-      // A mouse is held until a frame has seen the press: ImGui 1.86 loses a press and release
-      // inside one frame, and software-rendered frames here can take longer than a click.
-      await this.page.mouse.move(x, y);
-      await this.framesPass(1);
-      await this.page.mouse.down();
-      await this.framesPass(1);
-      await this.page.mouse.up();
-    }
-    if (settle || !this.touch) await this.framesPass(2);
-  }
-
-  // Waits until `count` more frames have been drawn (or the page went idle without them).
-  async framesPass(count, timeout = 3000) {
-    const frames = () => this.page.evaluate(() => window.firnFramesDrawn ?? 0);
-    const start = await frames();
-    const end = Date.now() + timeout;
-    while ((await frames()) < start + count && Date.now() < end) await pause(20);
-  }
-
-  async screen(name) {
-    await this.tap(name);
-    await this.waitText(name, (t) => t === 'selected');
-  }
-
-  // Opens the field's keypad, optionally picks the unit on it, types `digits`, checks the
-  // keypad shows them, presses OK and waits until the keypad is gone.
-  async enter(field, digits, {unit} = {}) {
-    await this.tap(field);
-    await this.item('Keypad value');
-    if (unit) await this.tap(`Unit ${unit}`);
-    for (const c of digits) await this.tap(c === '<' ? 'Key Backspace' : `Key ${c}`, {settle: false});
-    await this.waitText('Keypad value', (t) => t.split(' ')[0] === keypadText(digits));
-    await this.tap('Key OK');
-    const end = Date.now() + 3000;
-    while (await this.find('Keypad value')) {
-      assert.ok(Date.now() < end, `${this.name}: keypad still open after OK on "${field}"`);
-      await pause(50);
-    }
-    await pause(100);
-  }
-
-  async shot(name) {
-    const file = join(shots, `${this.name}-${name}.png`);
-    await this.page.screenshot({path: file});
-    return file;
-  }
-
-  // The caution line with "Read more" is reachable (scrolled to) and opens the full text.
-  // On the phone checked on the longest screens only.
-  async cautionReachable(screen) {
-    if (this.touch && !['Here', 'Oxygen'].includes(screen)) return;
-    await this.tap('Read more');
-    await this.item('Read less');
-    await this.tap('Read less');
-    await this.item('Read more');
-  }
 }
 
 const DEVICES = [

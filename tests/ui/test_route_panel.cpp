@@ -1,15 +1,18 @@
-// The Route screen without GL: it opens on the team's usual carry-out, shows the verdict the
-// model (and `firn route`) gives for the same route, and a preset tap adds a leg that the
-// verdict then includes.
+// The Route screen without GL: it opens on the team's usual carry-out (or the route saved on the
+// device), shows the verdict the model (and `firn route`) gives for the same route, a preset tap
+// adds a leg that the verdict then includes, and no change mark under the chart crosses a label.
 #include <catch2/catch.hpp>
+#include <cstdio>
 #include <imgui.h>
 #include <nlohmann/json.hpp>
 
+#include "memory_platform.hpp"
 #include "profile/route_file.hpp"
 #include "model/route_plan.hpp"
 #include "ui/app_state.hpp"
 #include "ui/panels.hpp"
 #include "ui/platform.hpp"
+#include "ui/route_store.hpp"
 #include "ui/test_hook.hpp"
 #include "ui/widgets.hpp"
 
@@ -18,17 +21,8 @@ using namespace firn::ui;
 
 namespace {
 
-class NoPlatform : public Platform {
- public:
-  std::optional<std::string> load_text(std::string_view) override { return std::nullopt; }
-  bool save_text(std::string_view, std::string_view) override { return true; }
-  bool open_html_document(std::string_view, std::string_view) override { return false; }
-  void publish_test_items(std::string_view) override {}
-  std::string_view name() const override { return "test"; }
-};
-
 struct RouteScreen {
-  NoPlatform platform;
+  testing::MemoryPlatform platform;
   RouteScreen() {
     ImGui::CreateContext();
     ImGuiIO& io = ImGui::GetIO();
@@ -107,4 +101,69 @@ TEST_CASE("route screen: the usual carry-out's verdict is the model's, and a pre
   CHECK(after != shown);  // an hour more at 2 L/min: 30 min less spare
   ui.tap(state, "Remove the last leg");
   CHECK(ui.text(state, "Verdict") == shown);
+}
+
+TEST_CASE("route screen: opens on the saved route, and every cylinder label is clear of change marks") {
+  RouteScreen ui;
+  AppState state;
+  route::RouteInput saved =
+      route::read_route_file(route::demo_route_json(), state.team.profile).value();
+  saved.legs.resize(3);
+  saved.legs[2].duration = units::minutes(200);  // a long bag session: more changes
+  saved.stock.cylinders[0].gauge = units::bar(90);
+  saved.name = "Saved on this phone";
+  ui.platform.stored[kRouteKey] = route::write_route_file(saved);
+  nlohmann::json items = ui.frame(state);
+  CHECK(state.route.input.name == "Saved on this phone");
+  CHECK(ui.text(state, "Verdict").find(model_verdict(saved)) != std::string::npos);
+
+  struct Box { std::string label; float x0, y0, x1, y1; };
+  std::vector<Box> labels, marks;
+  for (const auto& i : items) {
+    std::string label = i["label"];
+    Box b{label, i["x"], i["y"], i["x"].get<float>() + i["w"].get<float>(),
+          i["y"].get<float>() + i["h"].get<float>()};
+    if (label.rfind("Cylinder label", 0) == 0) labels.push_back(b);
+    if (label.rfind("Change mark", 0) == 0) marks.push_back(b);
+  }
+  Result<route::RoutePlan> plan = route::plan_route(saved);
+  REQUIRE(plan.ok());
+  REQUIRE(plan->swaps.size() >= 2);
+  CHECK(labels.size() == plan->spans.size());
+  CHECK(marks.size() == 2 * plan->swaps.size());  // one on each bar a change joins
+  for (const Box& l : labels) {
+    CHECK(l.x0 >= 0.0f);
+    CHECK(l.x1 <= 390.0f);  // inside a phone's width
+    for (const Box& m : marks) {
+      INFO(l.label << " [" << l.x0 << "," << l.y0 << "," << l.x1 << "," << l.y1 << "] vs " << m.label
+                   << " [" << m.x0 << "," << m.y0 << "," << m.x1 << "," << m.y1 << "]");
+      bool apart = m.x1 <= l.x0 || m.x0 >= l.x1 || m.y1 <= l.y0 || m.y0 >= l.y1;
+      CHECK(apart);
+    }
+  }
+}
+
+TEST_CASE("route screen: a route file loads by its typed path; a bad one changes nothing") {
+  RouteScreen ui;
+  AppState state;
+  ui.frame(state);
+  ui.platform.files["/field/short.json"] = R"({"schema_version": 1, "name": "Short carry",
+    "casualty": {"device": "mask"},
+    "legs": [{"kind": "carry", "from": "4200m", "to": "3900m", "duration": "45min"}],
+    "stock": {"cylinders": [{"type": "3 L composite", "pressure": "250bar"}], "margin": "20min"}})";
+  std::snprintf(state.route.import_path, sizeof state.route.import_path, "%s", "/field/short.json");
+  ui.tap(state, "Load a route file");
+  CHECK(ui.platform.requested_path == "/field/short.json");
+  CHECK(state.route.input.name == "Short carry");
+  CHECK(ui.text(state, "Verdict").find(model_verdict(state.route.input)) != std::string::npos);
+  CHECK(ui.text(state, "Route message") == "Loaded short.json: Short carry.");
+
+  std::snprintf(state.route.import_path, sizeof state.route.import_path, "%s", "/field/missing.json");
+  ui.tap(state, "Load a route file");
+  CHECK(state.route.input.name == "Short carry");
+  CHECK(ui.text(state, "Route message") == "Nothing loaded: cannot read /field/missing.json");
+  // Nothing typed: the file in the storage folder, named for routes (not the profile's).
+  state.route.import_path[0] = '\0';
+  ui.tap(state, "Load a route file");
+  CHECK(ui.platform.requested_path == ui.platform.storage_location() + "/" + kRouteImportFileName);
 }
