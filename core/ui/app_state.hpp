@@ -128,6 +128,7 @@ struct Situation {
 
   bool spo2_measured = false;                    // false: nothing entered, no verdict
   units::Fraction spo2 = units::percent(88.0);   // meaningful only when spo2_measured
+  std::int64_t spo2_entered_at = 0;              // when (seconds since 1970 UTC); 0 unknown
   units::Duration time_at_altitude = units::hours(0.0);  // at (or above) this altitude
   bool distress = false;  // breathing fast and deep: lowers the FiO2 a device gives
   bool on_oxygen = false;

@@ -42,7 +42,11 @@ std::string entered_note(std::int64_t entered_at) {
   char buffer[48];
   bool same_day = at.tm_year == today.tm_year && at.tm_yday == today.tm_yday;
   std::strftime(buffer, sizeof buffer, same_day ? "entered %H:%M" : "entered %d %b, %H:%M", &at);
-  return buffer;
+  // A value restored from an earlier session must look old (issue 16): the age from an hour on.
+  std::int64_t hours_ago = (static_cast<std::int64_t>(now) - entered_at) / 3600;
+  if (hours_ago < 1) return buffer;
+  return std::string(buffer) + ", " +
+         (hours_ago < 48 ? std::to_string(hours_ago) + " h ago" : std::to_string(hours_ago / 24) + " d ago");
 }
 
 bool tenfold_change(double last, double next, double floor) {

@@ -48,6 +48,8 @@ void spo2_field(AppState& state) {
                  {"%"}, 0,
                  format_number(kSpo2Low, 0) + "\xE2\x80\x93" + format_number(kSpo2High, 0) + " %",
                  s.spo2_measured};
+  // When it was measured: a reading restored from an earlier session must not pass as current.
+  if (s.spo2_measured) spec.note = entered_note(s.spo2_entered_at);
   FieldEvent event = keypad_field(state, spec);
   if (event.kind == FieldEvent::Kind::Commit) {
     Result<double> n = parse_number(event.text, "measured SpO2");
@@ -59,10 +61,12 @@ void spo2_field(AppState& state) {
       state.field_errors.erase(spec.id);
       s.spo2 = percent(n.value());
       s.spo2_measured = true;
+      s.spo2_entered_at = now_seconds();
     }
   } else if (event.kind != FieldEvent::Kind::None && s.spo2_measured) {
     double step = event.kind == FieldEvent::Kind::Plus ? 1.0 : -1.0;
     s.spo2 = percent(std::clamp(std::round(s.spo2.in(percent)) + step, kSpo2Low, kSpo2High));
+    s.spo2_entered_at = now_seconds();
   }
   if (s.spo2_measured && big_button(state, "Clear SpO2")) {
     s.spo2_measured = false;

@@ -73,6 +73,12 @@ int archived_count(Platform& platform) {
   return count;
 }
 
+bool incident_in_progress(const RecordStore& store, record::ClockTime now) {
+  if (store.record.entries.empty()) return false;
+  std::int64_t since_last = record::minutes_between(store.record.entries.back().time, now);
+  return since_last <= kInProgressHours * 60;
+}
+
 record::ClockTime clock_now() {
   std::time_t now = std::time(nullptr);
   std::tm local{};

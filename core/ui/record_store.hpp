@@ -38,4 +38,9 @@ int archived_count(Platform& platform);
 // The device's clock now, as the record writes it (local time).
 record::ClockTime clock_now();
 
+// An incident is in progress while its record has entries and the last is at most this old:
+// the app then opens on the Record screen (an older record stays, and is not pushed forward).
+inline constexpr int kInProgressHours = 24;
+bool incident_in_progress(const RecordStore& store, record::ClockTime now);
+
 }  // namespace firn::ui

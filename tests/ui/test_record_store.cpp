@@ -105,3 +105,15 @@ TEST_CASE("record store: new incident archives, the oldest beyond the slots is d
   load_record(restarted, storage);
   CHECK(restarted.record.entries.empty());
 }
+
+TEST_CASE("record store: an incident is in progress up to a day after its last entry", "[record]") {
+  FlakyStorage storage;
+  RecordStore store;
+  load_record(store, storage);
+  record::ClockTime last = record::parse_clock_time("2026-07-14T14:00").value();
+  CHECK_FALSE(incident_in_progress(store, last));  // no entries: nothing in progress
+  REQUIRE(add_entry(store, storage, spo2_at("2026-07-14T14:00", 80)));
+  CHECK(incident_in_progress(store, last));
+  CHECK(incident_in_progress(store, record::ClockTime{last.minutes + kInProgressHours * 60}));
+  CHECK_FALSE(incident_in_progress(store, record::ClockTime{last.minutes + kInProgressHours * 60 + 1}));
+}

@@ -495,6 +495,34 @@ TEST_CASE("situation altitude: empty until entered, no pressure, then stamped") 
   CHECK(back.situation.altitude_entered_at == state.situation.altitude_entered_at);
 }
 
+// Issue 16: a value restored from an earlier session shows when it was entered and, from an
+// hour on, how long ago; a value entered now shows only its time (the age would go stale).
+TEST_CASE("restored values show when they were entered and how long ago") {
+  std::int64_t now = now_seconds();
+  CHECK(entered_note(now).find("ago") == std::string::npos);
+  CHECK(entered_note(now - 59 * 60).find("ago") == std::string::npos);
+  CHECK(entered_note(now - 3 * 3600 - 60).find(", 3 h ago") != std::string::npos);
+  CHECK(entered_note(now - 3 * 86400).find(", 3 d ago") != std::string::npos);
+  CHECK(entered_note(0).empty());  // unknown: no made-up time
+  AppState state;
+  state.situation.spo2_measured = true;
+  state.situation.spo2 = units::percent(68.0);
+  state.situation.spo2_entered_at = now - 3 * 3600 - 60;
+  AppState back;
+  REQUIRE(state_from_json(back, state_to_json(state)));
+  CHECK(back.situation.spo2_entered_at == state.situation.spo2_entered_at);
+  Headless ui;
+  ui.panel = draw_casualty_panel;
+  std::string note = ui.text(back, "Measured SpO2 note");
+  CHECK(note.rfind("entered ", 0) == 0);
+  CHECK(note.find(", 3 h ago") != std::string::npos);
+  ui.click(back, "Measured SpO2");  // measured again: stamped now, no age
+  type_on_keypad(ui, back, "81");
+  ui.click(back, "Key OK");
+  CHECK(back.situation.spo2_entered_at >= now);
+  CHECK(ui.text(back, "Measured SpO2 note").find("ago") == std::string::npos);
+}
+
 TEST_CASE("saved state from before the entered flag: the old default shows empty") {
   AppState old_default;
   REQUIRE(state_from_json(old_default, R"({"version":1,"situation":{"altitude_m":3000}})"));
