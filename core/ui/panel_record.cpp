@@ -302,11 +302,13 @@ void spo2_chart(AppState& state, const record::Record& rec, const handover::Summ
     plot_vline(plot, axis.x_of(b.start), plot_colour(state, PlotColour::Dim), "bag");
     if (b.end) plot_vline(plot, axis.x_of(*b.end), plot_colour(state, PlotColour::Dim));
   }
+  // The flow bar along the bottom, its label a line of text above it.
+  double per_em = (100.0 - y0) / (plot.max.y - plot.min.y) * em();
   for (const handover::OxygenPeriod& p : s.oxygen) {
     double to = p.to ? axis.x_of(*p.to) : axis.span;
-    double bar = y0 + 3.0;
+    double bar = y0 + 0.4 * per_em;
     plot_line(plot, {{axis.x_of(p.from), bar}, {to, bar}}, plot_colour(state, PlotColour::Accent), 0.35f);
-    plot_text(plot, {axis.x_of(p.from), bar + 3.0}, plot_colour(state, PlotColour::Accent),
+    plot_text(plot, {axis.x_of(p.from), bar + 1.4 * per_em}, plot_colour(state, PlotColour::Accent),
               format_number(p.setting.flow.in(litres_per_minute), 1) + " L/min");
   }
   plot_line(plot, line, plot_colour(state, PlotColour::Text));
@@ -315,11 +317,15 @@ void spo2_chart(AppState& state, const record::Record& rec, const handover::Summ
   }
   std::vector<std::pair<ImU32, std::string>> legend{
       {plot_colour(state, PlotColour::Text), "SpO2 (point: air or O2)"},
-      {plot_colour(state, PlotColour::Accent, 0.4f), "expected on air, healthy newcomers (time there as on Casualty)"},
+      {plot_colour(state, PlotColour::Accent, 0.4f), "expected on air (healthy newcomers)"},
       {plot_colour(state, PlotColour::Accent), "oxygen given (L/min)"},
       {plot_colour(state, PlotColour::Dim), "bag session"}};
   if (extrapolated > 0) legend.push_back({plot_colour(state, PlotColour::Warning), "band extrapolated: no reassurance"});
   plot_legend(state, legend);
+  ImGui::PushTextWrapPos(0.0f);
+  ImGui::TextDisabled("Band at each entry's altitude and time there (the Casualty screen's time at "
+                      "altitude, counted back); for comparison only, never a verdict.");
+  ImGui::PopTextWrapPos();
 }
 
 // Heart and breathing rate beneath, on the same minutes.
