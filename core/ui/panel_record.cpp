@@ -422,13 +422,20 @@ void draw_record_panel(AppState& state, Platform& platform) {
                               : ("Casualty record: " + std::to_string(rec.entries.size()) + " entries, since " +
                                  record::clock_hhmm(*s.first_time)).c_str());
   if (!in.store.problem.empty()) verdict_line(state, Tone::Danger, in.store.problem);
-  timers(state, s, now);
+  // A record left from an earlier incident keeps no timers running (and wakes nothing).
+  if (incident_in_progress(in.store, now)) {
+    timers(state, s, now);
+  } else if (s.last_time) {
+    std::string last = record::clock_text(*s.last_time);
+    std::replace(last.begin(), last.end(), 'T', ' ');
+    message_line(state, "Last entry " + last + ", " + ago_text(record::minutes_between(*s.last_time, now)) +
+                            ": no timers. \"New incident\" below starts the record of a new casualty.");
+  }
   if (s.latest_spo2) {
-    std::int64_t ago = record::minutes_between(s.latest_spo2->time, now);
     message_line(state, "Latest SpO2 " + format_number(s.latest_spo2->spo2.in(percent), 0) + " % on " +
                             (s.latest_spo2->on ? record::breathing_words(*s.latest_spo2->on) : "?") +
                             " at " + record::clock_hhmm(s.latest_spo2->time) + ", " +
-                            std::to_string(ago) + " min ago");
+                            ago_text(record::minutes_between(s.latest_spo2->time, now)));
   }
   observation_form(state, platform, s, now);
   event_buttons(state, platform, s, now);

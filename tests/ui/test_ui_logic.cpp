@@ -17,6 +17,7 @@
 #include "ui/panels.hpp"
 #include "ui/persistence.hpp"
 #include "ui/platform.hpp"
+#include "ui/record_store.hpp"
 #include "ui/situation.hpp"
 #include "ui/theme.hpp"
 #include "ui/test_hook.hpp"
@@ -504,6 +505,11 @@ TEST_CASE("restored values show when they were entered and how long ago") {
   CHECK(entered_note(now - 3 * 3600 - 60).find(", 3 h ago") != std::string::npos);
   CHECK(entered_note(now - 3 * 86400).find(", 3 d ago") != std::string::npos);
   CHECK(entered_note(0).empty());  // unknown: no made-up time
+  CHECK(ago_text(0) == "just now");
+  CHECK(ago_text(59) == "59 min ago");
+  CHECK(ago_text(60) == "1 h ago");
+  CHECK(ago_text(48 * 60 - 1) == "47 h ago");
+  CHECK(ago_text(48 * 60) == "2 d ago");
   AppState state;
   state.situation.spo2_measured = true;
   state.situation.spo2 = units::percent(68.0);
@@ -521,6 +527,48 @@ TEST_CASE("restored values show when they were entered and how long ago") {
   ui.click(back, "Key OK");
   CHECK(back.situation.spo2_entered_at >= now);
   CHECK(ui.text(back, "Measured SpO2 note").find("ago") == std::string::npos);
+}
+
+// Issue 16: the SpO2 check timer runs (and asks for a wake at its next minute) only for an
+// incident in progress; a record left from days ago shows its age and wakes nothing.
+TEST_CASE("record timers only for an incident in progress") {
+  auto record_with_spo2_at = [](record::ClockTime t) {
+    record::Record r;
+    record::Entry e;
+    e.time = t;
+    e.kind = record::Kind::Observation;
+    e.spo2 = units::percent(80.0);
+    e.breathing = record::Breathing{std::nullopt, units::litres_per_minute(0.0)};
+    r.entries.push_back(e);
+    return record::write_record(r);
+  };
+  auto verdicts = [](const nlohmann::json& items) {
+    std::string all;
+    for (const auto& i : items) {
+      if (i["label"].get<std::string>().rfind("Verdict", 0) == 0) all += i["text"].get<std::string>() + "\n";
+    }
+    return all;
+  };
+  record::ClockTime now = clock_now();
+  {
+    Headless ui;
+    ui.panel = draw_record_panel;
+    ui.platform.stored[kRecordKey] = record_with_spo2_at(record::ClockTime{now.minutes - 5});
+    AppState state;
+    CHECK(verdicts(ui.frame(state)).find("Next SpO2 check in 10 min") != std::string::npos);
+    CHECK(state.wake_after_seconds > 0.0);
+    CHECK(state.wake_after_seconds <= 60.0);
+  }
+  Headless ui;
+  ui.panel = draw_record_panel;
+  ui.platform.stored[kRecordKey] = record_with_spo2_at(record::ClockTime{now.minutes - 3 * 24 * 60});
+  AppState state;
+  nlohmann::json items = ui.frame(state);
+  CHECK(verdicts(items).find("SpO2 check") == std::string::npos);
+  CHECK(state.wake_after_seconds == 0.0);
+  bool said = false;
+  for (const auto& i : items) said |= i["text"].get<std::string>().find("3 d ago: no timers") != std::string::npos;
+  CHECK(said);
 }
 
 TEST_CASE("saved state from before the entered flag: the old default shows empty") {
