@@ -260,21 +260,21 @@ std::vector<BandStep> band_steps(const AppState& state, const record::Record& re
   return steps;
 }
 
-// A calibrated stretch is a filled band; an extrapolated one only its two edges in the warning
-// colour, labelled once: it must not read as a reassuring range.
-void draw_band(AppState& state, const Plot& plot, const std::vector<BandStep>& steps) {
-  bool labelled = false;
+// A calibrated stretch is a filled band; an extrapolated one only its two edges, dashed, in the
+// warning colour (named in the legend): it must not read as a reassuring range.
+void draw_band(AppState& state, const Plot& plot, const std::vector<BandStep>& steps, double span) {
+  double dash = span / 60.0;
   for (const BandStep& b : steps) {
-    std::vector<PlotPoint> low{{b.from, b.band.low.in(percent)}, {b.to, b.band.low.in(percent)}};
-    std::vector<PlotPoint> high{{b.from, b.band.high.in(percent)}, {b.to, b.band.high.in(percent)}};
+    double low = b.band.low.in(percent), high = b.band.high.in(percent);
     if (!b.extrapolated) {
-      plot_band(plot, low, high, plot_colour(state, PlotColour::Accent, 0.2f));
+      plot_band(plot, {{b.from, low}, {b.to, low}}, {{b.from, high}, {b.to, high}},
+                plot_colour(state, PlotColour::Accent, 0.2f));
       continue;
     }
-    plot_line(plot, low, plot_colour(state, PlotColour::Warning), 0.08f);
-    plot_line(plot, high, plot_colour(state, PlotColour::Warning), 0.08f);
-    if (!labelled) plot_text(plot, {b.from, b.band.high.in(percent) + 4.0}, plot_colour(state, PlotColour::Warning), "extrapolated");
-    labelled = true;
+    for (double x = b.from; x < b.to; x += 2 * dash) {
+      double end = std::min(x + dash, b.to);
+      for (double y : {low, high}) plot_line(plot, {{x, y}, {end, y}}, plot_colour(state, PlotColour::Warning), 0.1f);
+    }
   }
 }
 
@@ -297,7 +297,7 @@ void spo2_chart(AppState& state, const record::Record& rec, const handover::Summ
   std::string summary = std::to_string(line.size()) + " SpO2 points: " + points + "; band on air: " +
                         std::to_string(band.size()) + " stretches, " + std::to_string(extrapolated) + " extrapolated";
   Plot plot = begin_plot(state, "SpO2 trend", summary, 12.0f, axis.axes(y0, 100.0, 10.0, "SpO2 %"));
-  draw_band(state, plot, band);
+  draw_band(state, plot, band, axis.span);
   for (const handover::BagSession& b : s.bag_sessions) {
     plot_vline(plot, axis.x_of(b.start), plot_colour(state, PlotColour::Dim), "bag");
     if (b.end) plot_vline(plot, axis.x_of(*b.end), plot_colour(state, PlotColour::Dim));
@@ -320,7 +320,7 @@ void spo2_chart(AppState& state, const record::Record& rec, const handover::Summ
       {plot_colour(state, PlotColour::Accent, 0.4f), "expected on air (healthy newcomers)"},
       {plot_colour(state, PlotColour::Accent), "oxygen given (L/min)"},
       {plot_colour(state, PlotColour::Dim), "bag session"}};
-  if (extrapolated > 0) legend.push_back({plot_colour(state, PlotColour::Warning), "band extrapolated: no reassurance"});
+  if (extrapolated > 0) legend.push_back({plot_colour(state, PlotColour::Warning), "band extrapolated (dashed): no reassurance"});
   plot_legend(state, legend);
   ImGui::PushTextWrapPos(0.0f);
   ImGui::TextDisabled("Band at each entry's altitude and time there (the Casualty screen's time at "
