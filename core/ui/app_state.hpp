@@ -17,6 +17,7 @@
 #include "model/route_plan.hpp"
 #include "model/team_profile.hpp"
 #include "model/units.hpp"
+#include "ui/file_exchange.hpp"
 #include "ui/record_store.hpp"
 
 struct ImFont;
@@ -200,6 +201,7 @@ struct RecordInputs {
   int minutes_ago = 0;    // an entry written up late
   units::Duration check_interval = units::minutes(15.0);  // next SpO2 check
   bool confirm_new = false, confirm_delete = false;
+  FileExchange file;  // import/export of the record file
 };
 
 // The in-app numeric keypad (the canvas cannot summon a phone keyboard). One field at a time.
@@ -225,10 +227,7 @@ struct TeamState {
   team_profile::TeamProfile profile = team_profile::demo_profile();
   bool stored = false;         // saved on this device (false: the built-in demo, unsaved)
   bool backup_kept = false;    // an unreadable saved profile was kept as team-profile.json.bad
-  std::string message;         // last import/export/print outcome, shown on the Team screen
-  bool message_is_problem = false;
-  bool import_requested = false;   // waiting for the platform's picker
-  char import_path[512] = {};      // native: typed path of the file to import
+  FileExchange file;  // import/export of the profile file; its message also says print outcomes
   int card_size = 0;               // 0 A6, 1 wallet
 };
 

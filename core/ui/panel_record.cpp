@@ -13,6 +13,7 @@
 #include "model/expected_spo2.hpp"
 #include "model/handover.hpp"
 #include "ui/fields.hpp"
+#include "ui/file_exchange.hpp"
 #include "ui/plot.hpp"
 #include "ui/record_store.hpp"
 #include "ui/situation.hpp"
@@ -383,6 +384,24 @@ void handover_section(AppState& state, Platform& platform, const record::Record&
   }
 }
 
+constexpr FileKind kRecordFile{"Import record", "Export record", "Record file to import", "incident-import.json",
+                               kRecordExportName, "firn handover --record FILE reads a record file."};
+
+// The record as the file the CLI reads, to hand over or keep; an imported one becomes the
+// current incident (the one before archived).
+void record_file(AppState& state, Platform& platform) {
+  RecordInputs& in = state.record;
+  heading("Record file");
+  if (std::optional<ImportedFile> file = import_control(state, platform, in.file, kRecordFile)) {
+    Result<std::string> done = import_record(in.store, platform, file->text, file->name.empty() ? "The file" : file->name);
+    in.file.tell(done ? done.value() : done.error().message, !done);
+  }
+  if (!in.store.record.entries.empty()) {
+    export_control(state, platform, in.file, kRecordFile, "record", [&] { return record::write_record(in.store.record); });
+  }
+  if (!in.file.message.empty()) message_line(state, in.file.message, in.file.message_is_problem);
+}
+
 void incident_buttons(AppState& state, Platform& platform) {
   RecordInputs& in = state.record;
   heading("Incident");
@@ -441,6 +460,7 @@ void draw_record_panel(AppState& state, Platform& platform) {
   event_buttons(state, platform, s, now);
   trend_charts(state, rec, s, now);
   if (!rec.entries.empty()) handover_section(state, platform, rec, s);
+  record_file(state, platform);
   incident_buttons(state, platform);
   caution_line(state);
 }

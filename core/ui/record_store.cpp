@@ -60,6 +60,20 @@ void new_incident(RecordStore& store, Platform& platform) {
   save(store, platform);
 }
 
+Result<std::string> import_record(RecordStore& store, Platform& platform, std::string_view text,
+                                  std::string_view source) {
+  Result<record::Record> parsed = record::parse_record(text);
+  if (!parsed) {
+    return Error{std::string(source) + " was not imported, nothing changed: " + parsed.error().message};
+  }
+  bool archived = !store.record.entries.empty();
+  new_incident(store, platform);
+  store.record = parsed.value();
+  save(store, platform);
+  return std::string(source) + " imported: " + std::to_string(store.record.entries.size()) + " entries" +
+         (archived ? "; the incident before it was archived." : ".");
+}
+
 void delete_all_records(RecordStore& store, Platform& platform) {
   for (int slot = 1; slot <= kArchiveSlots; ++slot) platform.save_text(archive_key(slot), "");
   platform.save_text(kBadRecordKey, "");

@@ -30,6 +30,12 @@ void load_record(RecordStore& store, Platform& platform);
 bool add_entry(RecordStore& store, Platform& platform, const record::Entry& entry);
 // Archives the current incident (if it has entries) and starts an empty one.
 void new_incident(RecordStore& store, Platform& platform);
+// Makes a record file (the one `firn handover --record` reads) the current incident, the current
+// one archived first as by new_incident. Unreadable: nothing changes, the error names each
+// problem with its path and valid range. Returns what was imported, in words, or the error.
+inline constexpr const char* kRecordExportName = "firn-incident-record.json";
+Result<std::string> import_record(RecordStore& store, Platform& platform, std::string_view text,
+                                  std::string_view source);
 // Deletes the current incident and every archived one (privacy), leaving an empty record.
 void delete_all_records(RecordStore& store, Platform& platform);
 // How many archived incidents are stored.

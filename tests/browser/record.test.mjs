@@ -159,6 +159,18 @@ describe(`Record screen, phone 390×844 dpr ${PHONE_DPR}, touch`, () => {
     assert.match(shown, new RegExp(`Hyperbaric bag: ${hhmm(12)}–${hhmm(32)} \\(20 min\\)`));
     assert.match(shown, /8 entries/);
 
+    // The screen to look at, day and night (FIRN_PHONE_DPR=3 for a phone's sharpness).
+    await phone.screen('Settings');
+    await phone.tap('Night');
+    await phone.waitText('Night', (t) => t === 'selected');
+    await phone.screen('Record');
+    await phone.centre('SpO2 trend');
+    await phone.page.screenshot({path: join(shots, 'record-phone-trend-night.png')});
+    await phone.screen('Settings');
+    await phone.tap('Day');
+    await phone.waitText('Day', (t) => t === 'selected');
+    await phone.screen('Record');
+
     // ... and the same text the CLI writes from the record the page stored.
     saved = await stored(phone, RECORD_KEY);
     assert.ok(saved, `nothing stored under ${RECORD_KEY}`);

@@ -117,3 +117,34 @@ TEST_CASE("record store: an incident is in progress up to a day after its last e
   CHECK(incident_in_progress(store, record::ClockTime{last.minutes + kInProgressHours * 60}));
   CHECK_FALSE(incident_in_progress(store, record::ClockTime{last.minutes + kInProgressHours * 60 + 1}));
 }
+
+TEST_CASE("record store: an imported record file becomes the incident, the one before archived", "[record]") {
+  FlakyStorage storage;
+  RecordStore store;
+  load_record(store, storage);
+  REQUIRE(add_entry(store, storage, spo2_at("2026-07-14T14:00", 80)));
+  std::string before = storage.stored[kRecordKey];
+
+  // Unreadable: nothing changes, each problem named with its path and range.
+  Result<std::string> refused = import_record(store, storage,
+      R"({"firn_record": 1, "entries": [{"time": "2026-07-14T15:00", "kind": "observation", "spo2": "120%"}]})",
+      "bad.json");
+  REQUIRE_FALSE(refused);
+  CHECK(refused.error().message.find("bad.json was not imported, nothing changed") == 0);
+  CHECK(refused.error().message.find("entries[0].spo2") != std::string::npos);
+  CHECK(storage.stored[kRecordKey] == before);
+  CHECK(archived_count(storage) == 0);
+
+  record::Record other;
+  other.incident = "DEMO import";
+  other.entries = {spo2_at("2026-07-15T09:00", 91), spo2_at("2026-07-15T09:10", 93)};
+  Result<std::string> done = import_record(store, storage, record::write_record(other), "other.json");
+  REQUIRE(done);
+  CHECK(done.value() == "other.json imported: 2 entries; the incident before it was archived.");
+  CHECK(storage.stored[archive_key(1)] == before);  // nothing lost
+  RecordStore restarted;
+  load_record(restarted, storage);
+  REQUIRE(restarted.record.entries.size() == 2);
+  CHECK(restarted.record.incident == "DEMO import");
+  CHECK(restarted.record.entries[1].spo2->in(units::percent) == Approx(93));
+}

@@ -8,6 +8,7 @@
 #include <cmath>
 #include <functional>
 #include <map>
+#include <utility>
 
 #include "model/atmosphere.hpp"
 #include "model/casualty_spo2.hpp"
@@ -43,6 +44,21 @@ class MemoryPlatform : public Platform {
   bool open_html_document(std::string_view, std::string_view) override { return false; }
   void publish_test_items(std::string_view) override {}
   std::string_view name() const override { return "test"; }
+  // Files the user could pick (by name) and the ones handed over, as a native path would.
+  std::map<std::string, std::string> files, downloads;
+  std::optional<ImportedFile> picked;
+  bool imports_by_path() const override { return true; }
+  bool request_file_import(std::string_view path, std::string_view default_name) override {
+    std::string name(path.empty() ? default_name : path);
+    auto it = files.find(name);
+    picked = it == files.end() ? ImportedFile{name, "", "cannot read " + name} : ImportedFile{name, it->second, ""};
+    return true;
+  }
+  std::optional<ImportedFile> take_imported_file() override { return std::exchange(picked, std::nullopt); }
+  std::string offer_download(std::string_view file_name, std::string_view text) override {
+    downloads[std::string(file_name)] = std::string(text);
+    return "memory/" + std::string(file_name);
+  }
 };
 
 // One ImGui context per test, no renderer: Render() only builds draw lists.
@@ -569,6 +585,40 @@ TEST_CASE("record timers only for an incident in progress") {
   bool said = false;
   for (const auto& i : items) said |= i["text"].get<std::string>().find("3 d ago: no timers") != std::string::npos;
   CHECK(said);
+}
+
+// Issue 16: the Record screen exports the file the CLI reads and imports one through the
+// platform's file exchange (the Team screen's path); a missing file is said, nothing changes.
+TEST_CASE("record screen: export and import of the record file") {
+  Headless ui;
+  ImGui::GetIO().DisplaySize = ImVec2(390, 4000);  // the whole screen without scrolling
+  ui.panel = draw_record_panel;
+  record::Record r;
+  r.incident = "DEMO";
+  record::Entry e;
+  e.time = record::ClockTime{clock_now().minutes - 5};
+  e.kind = record::Kind::Observation;
+  e.spo2 = units::percent(77.0);
+  e.breathing = record::Breathing{std::nullopt, units::litres_per_minute(0.0)};
+  r.entries.push_back(e);
+  ui.platform.stored[kRecordKey] = record::write_record(r);
+  AppState state;
+  ui.click(state, "Export record");
+  CHECK(ui.platform.downloads[kRecordExportName] == ui.platform.stored[kRecordKey]);
+  CHECK(state.record.file.message == "Record exported to memory/" + std::string(kRecordExportName) + ".");
+
+  ui.click(state, "Import record");  // nothing typed, no incident-import.json
+  CHECK(state.record.file.message == "Nothing imported: cannot read incident-import.json");
+  CHECK(state.record.store.record.entries.size() == 1);
+
+  r.entries.push_back(e);
+  r.entries.back().spo2 = units::percent(85.0);
+  ui.platform.files["incident-import.json"] = record::write_record(r);
+  ui.click(state, "Import record");
+  CHECK(state.record.file.message == "incident-import.json imported: 2 entries; the incident before it was archived.");
+  REQUIRE(state.record.store.record.entries.size() == 2);
+  CHECK(ui.platform.stored[kRecordKey] == record::write_record(r));
+  CHECK(ui.text(state, "SpO2 trend").rfind("2 SpO2 points:", 0) == 0);
 }
 
 TEST_CASE("saved state from before the entered flag: the old default shows empty") {
