@@ -13,7 +13,7 @@
 // Env: FIRN_SITE (built site), FIRN_BIN (native firn), FIRN_SCREENSHOTS (output folder, optional).
 import assert from 'node:assert/strict';
 import {execFileSync} from 'node:child_process';
-import {mkdtempSync, rmSync, writeFileSync} from 'node:fs';
+import {mkdtempSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {after, before, describe, test} from 'node:test';
@@ -222,6 +222,27 @@ describe(`Record screen, phone 390×844 dpr ${PHONE_DPR}, touch`, () => {
     assert.equal(await stored(phone, BACKUP_KEY), corrupt);
     assert.match(await stored(phone, RECORD_KEY), /"spo2": ?"90 ?%"/);
     assert.match((await phone.item('SpO2 trend')).text, /^1 SpO2 points: 0 min 90 % air;/);
+  });
+
+  test('export hands over the stored file; an imported record becomes the incident', async () => {
+    assert.ok(saved, 'needs the record of the first test');
+    const current = await stored(phone, RECORD_KEY);
+    await phone.centre('Export record');
+    const [download] = await Promise.all([phone.page.waitForEvent('download', {timeout: 5000}),
+                                          phone.tap('Export record')]);
+    assert.equal(download.suggestedFilename(), 'firn-incident-record.json');
+    assert.equal(readFileSync(await download.path(), 'utf8'), current);
+    await phone.centre('Import record');
+    const [chooser] = await Promise.all([phone.page.waitForEvent('filechooser', {timeout: 5000}),
+                                         phone.tap('Import record')]);
+    await chooser.setFiles({name: 'incident.json', mimeType: 'application/json', buffer: Buffer.from(saved)});
+    await phone.page.waitForFunction((k) => localStorage.getItem(k) !== null && localStorage.getItem(k).includes('"91'),
+                                     RECORD_KEY, {timeout: 5000});
+    assert.equal(await stored(phone, RECORD_KEY), saved);
+    assert.equal(await stored(phone, 'firn.incident-archive-1.json'), current, 'the incident before was not archived');
+    assert.match((await phone.item('SpO2 trend')).text, /^5 SpO2 points: 0 min 78 % air/);
+    const said = (await phone.items()).find((i) => i.label.startsWith('Message') && /imported: 8 entries/.test(i.text));
+    assert.ok(said, 'no message saying what was imported');
   });
 });
 
