@@ -207,6 +207,31 @@ void event_buttons(AppState& state, Platform& platform, const handover::Summary&
   }
 }
 
+// [SECTION] Correcting a time
+
+// The latest entry's clock time, typed on the keypad (an event stamped "now" that happened
+// earlier); valid from the incident's start to now (typed_entry_time says so otherwise).
+void latest_entry_time(AppState& state, Platform& platform, ClockTime now) {
+  RecordInputs& in = state.record;
+  if (in.store.record.entries.empty()) return;
+  const record::Entry& latest = in.store.record.entries.back();
+  std::string what(record::kind_key(latest.kind));
+  std::replace(what.begin(), what.end(), '_', ' ');
+  std::string hhmm = record::clock_hhmm(latest.time);
+  std::string digits = hhmm.substr(0, 2) + hhmm.substr(3);
+  FieldSpec spec{"Time of the latest entry", "record-time", hhmm + " (" + what + ")", digits, {}, 0,
+                 "e.g. 1405, up to " + record::clock_hhmm(now), false, false, true};
+  FieldEvent event = keypad_field(state, spec);
+  if (event.kind != FieldEvent::Kind::Commit) return;
+  Result<ClockTime> t = typed_entry_time(in.store, event.text, now);
+  if (!t) {
+    state.field_errors[spec.id] = t.error().message;
+    return;
+  }
+  state.field_errors.erase(spec.id);
+  retime_latest_entry(in.store, platform, t.value());
+}
+
 // [SECTION] Trend
 
 // Minutes since the first entry: the one time axis of the SpO2 chart and the rates beneath it.
@@ -458,6 +483,7 @@ void draw_record_panel(AppState& state, Platform& platform) {
   }
   observation_form(state, platform, s, now);
   event_buttons(state, platform, s, now);
+  latest_entry_time(state, platform, now);
   trend_charts(state, rec, s, now);
   if (!rec.entries.empty()) handover_section(state, platform, rec, s);
   record_file(state, platform);

@@ -621,6 +621,45 @@ TEST_CASE("record screen: export and import of the record file") {
   CHECK(ui.text(state, "SpO2 trend").rfind("2 SpO2 points:", 0) == 0);
 }
 
+// Issue 16: the latest entry's time, corrected on the keypad; a time before the incident's
+// start is refused with the valid range and changes nothing.
+TEST_CASE("record screen: the latest entry's time corrected on the keypad") {
+  Headless ui;
+  ImGui::GetIO().DisplaySize = ImVec2(390, 4000);
+  ui.panel = draw_record_panel;
+  record::ClockTime now = clock_now();
+  record::Record r;
+  for (int ago : {10, 5}) {
+    record::Entry e;
+    e.time = record::ClockTime{now.minutes - ago};
+    e.kind = ago == 10 ? record::Kind::Observation : record::Kind::BagStart;
+    if (ago == 10) e.spo2 = units::percent(70.0);
+    r.entries.push_back(e);
+  }
+  ui.platform.stored[kRecordKey] = record::write_record(r);
+  auto digits = [](record::ClockTime t) {
+    std::string hhmm = record::clock_hhmm(t);
+    return hhmm.substr(0, 2) + hhmm.substr(3);
+  };
+  AppState state;
+  CHECK(ui.text(state, "Time of the latest entry") == record::clock_hhmm(r.entries[1].time) + " (bag start)");
+  ui.click(state, "Time of the latest entry");
+  type_on_keypad(ui, state, digits(record::ClockTime{now.minutes - 20}));  // the first key replaces
+  ui.click(state, "Key OK");
+  CHECK(ui.text(state, "Warning").find("between " + record::clock_hhmm(r.entries[0].time) + " and ") !=
+        std::string::npos);
+  CHECK(state.record.store.record.entries.back().kind == record::Kind::BagStart);
+  ui.click(state, "Time of the latest entry");
+  type_on_keypad(ui, state, digits(r.entries[0].time));
+  ui.click(state, "Key OK");
+  CHECK(ui.text(state, "Warning") == "(absent)");
+  // Moved to the incident's start: equal times keep the moved one after (time order kept).
+  REQUIRE(state.record.store.record.entries.size() == 2);
+  CHECK(state.record.store.record.entries[1].time == r.entries[0].time);
+  CHECK(state.record.store.record.entries[1].kind == record::Kind::BagStart);
+  CHECK(record::parse_record(ui.platform.stored[kRecordKey])->entries[1].time == r.entries[0].time);
+}
+
 TEST_CASE("saved state from before the entered flag: the old default shows empty") {
   AppState old_default;
   REQUIRE(state_from_json(old_default, R"({"version":1,"situation":{"altitude_m":3000}})"));
