@@ -228,3 +228,14 @@ export class Phone {
     await this.tap('Key OK');
   }
 }
+
+// A new phone-sized context (its own empty storage) on `url`, started, driven by touch.
+// `initScript` runs in the page before its own scripts (record.test.mjs: the page's clock).
+export async function openPhone(browser, url, options, {initScript} = {}) {
+  const context = await browser.newContext(options);
+  if (initScript) await context.addInitScript(initScript);
+  const page = await context.newPage();
+  await page.goto(url);
+  await waitForApp(page);
+  return new Phone(page, await context.newCDPSession(page));
+}

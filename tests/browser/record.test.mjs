@@ -18,7 +18,7 @@ import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {after, before, describe, test} from 'node:test';
 
-import {PHONE_DPR, Phone, launchBrowser, pause, requiredEnv, screenshotDir, waitForApp} from './browser.mjs';
+import {PHONE_DPR, launchBrowser, openPhone as openPhoneAt, pause, requiredEnv, screenshotDir, waitForApp} from './browser.mjs';
 import {serveSite} from '../../web/serve.mjs';
 
 const site = requiredEnv('FIRN_SITE', 'the built site folder (build/web/site)');
@@ -51,14 +51,7 @@ after(async () => {
   await server?.close();
 });
 
-async function openPhone() {
-  const context = await browser.newContext(PHONE);
-  await context.addInitScript(clockHook);
-  const page = await context.newPage();
-  await page.goto(server.url);
-  await waitForApp(page);
-  return new Phone(page, await context.newCDPSession(page));
-}
+const openPhone = () => openPhoneAt(browser, server.url, PHONE, {initScript: clockHook});
 
 // Taps an item anywhere on the (long) Record screen: scrolled into view first.
 async function tapIn(phone, label) {

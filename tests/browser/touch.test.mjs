@@ -9,7 +9,7 @@ import assert from 'node:assert/strict';
 import {join} from 'node:path';
 import {after, before, describe, test} from 'node:test';
 
-import {PHONE_DPR, Phone, launchBrowser, pause, requiredEnv, screenshotDir, waitForApp} from './browser.mjs';
+import {PHONE_DPR, launchBrowser, openPhone as openPhoneAt, pause, requiredEnv, screenshotDir} from './browser.mjs';
 import {serveSite} from '../../web/serve.mjs';
 
 const site = requiredEnv('FIRN_SITE', 'the built site folder (build/web/site)');
@@ -31,13 +31,7 @@ after(async () => {
   await server?.close();
 });
 
-async function openPhone() {
-  const context = await browser.newContext(PHONE);
-  const page = await context.newPage();
-  await page.goto(server.url);
-  await waitForApp(page);
-  return new Phone(page, await context.newCDPSession(page));
-}
+const openPhone = () => openPhoneAt(browser, server.url, PHONE);
 
 describe(`phone 390×844 dpr ${DPR}, touch`, () => {
   let phone;
