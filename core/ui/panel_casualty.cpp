@@ -49,7 +49,9 @@ void spo2_field(AppState& state) {
                  format_number(kSpo2Low, 0) + "\xE2\x80\x93" + format_number(kSpo2High, 0) + " %",
                  s.spo2_measured};
   // When it was measured: a reading restored from an earlier session must not pass as current.
-  if (s.spo2_measured) spec.note = entered_note(s.spo2_entered_at);
+  if (s.spo2_measured) {
+    spec.note = s.spo2_entered_at > 0 ? entered_note(s.spo2_entered_at) : "when: not known (saved by an older Firn)";
+  }
   FieldEvent event = keypad_field(state, spec);
   if (event.kind == FieldEvent::Kind::Commit) {
     Result<double> n = parse_number(event.text, "measured SpO2");

@@ -543,6 +543,9 @@ TEST_CASE("restored values show when they were entered and how long ago") {
   ui.click(back, "Key OK");
   CHECK(back.situation.spo2_entered_at >= now);
   CHECK(ui.text(back, "Measured SpO2 note").find("ago") == std::string::npos);
+  AppState older;  // saved before the time was kept: said, never a made-up time
+  REQUIRE(state_from_json(older, R"({"version":1,"situation":{"spo2_measured":true,"spo2":0.7}})"));
+  CHECK(ui.text(older, "Measured SpO2 note") == "when: not known (saved by an older Firn)");
 }
 
 // Issue 16: the SpO2 check timer runs (and asks for a wake at its next minute) only for an
