@@ -10,6 +10,8 @@
 #include <map>
 #include <utility>
 
+#include "ui_harness.hpp"
+
 #include "model/atmosphere.hpp"
 #include "model/casualty_spo2.hpp"
 #include "ui/app_state.hpp"
@@ -18,7 +20,6 @@
 #include "ui/panels.hpp"
 #include "ui/persistence.hpp"
 #include "ui/platform.hpp"
-#include "ui/record_store.hpp"
 #include "ui/situation.hpp"
 #include "ui/theme.hpp"
 #include "ui/test_hook.hpp"
@@ -26,113 +27,9 @@
 
 using namespace firn;
 using namespace firn::ui;
+using namespace firn::ui::testing;
 
 namespace {
-
-class MemoryPlatform : public Platform {
- public:
-  std::map<std::string, std::string> stored;
-  std::optional<std::string> load_text(std::string_view key) override {
-    auto it = stored.find(std::string(key));
-    if (it == stored.end()) return std::nullopt;
-    return it->second;
-  }
-  bool save_text(std::string_view key, std::string_view text) override {
-    stored[std::string(key)] = std::string(text);
-    return true;
-  }
-  bool open_html_document(std::string_view, std::string_view) override { return false; }
-  void publish_test_items(std::string_view) override {}
-  std::string_view name() const override { return "test"; }
-  // Files the user could pick (by name) and the ones handed over, as a native path would.
-  std::map<std::string, std::string> files, downloads;
-  std::optional<ImportedFile> picked;
-  bool imports_by_path() const override { return true; }
-  bool request_file_import(std::string_view path, std::string_view default_name) override {
-    std::string name(path.empty() ? default_name : path);
-    auto it = files.find(name);
-    picked = it == files.end() ? ImportedFile{name, "", "cannot read " + name} : ImportedFile{name, it->second, ""};
-    return true;
-  }
-  std::optional<ImportedFile> take_imported_file() override { return std::exchange(picked, std::nullopt); }
-  std::string offer_download(std::string_view file_name, std::string_view text) override {
-    downloads[std::string(file_name)] = std::string(text);
-    return "memory/" + std::string(file_name);
-  }
-};
-
-// One ImGui context per test, no renderer: Render() only builds draw lists.
-struct Headless {
-  Headless() {
-    ImGui::CreateContext();
-    ImGuiIO& io = ImGui::GetIO();
-    io.DisplaySize = ImVec2(390, 844);
-    io.IniFilename = nullptr;
-    io.Fonts->AddFontDefault();
-    unsigned char* pixels = nullptr;
-    int w = 0, h = 0;
-    io.Fonts->GetTexDataAsAlpha8(&pixels, &w, &h);  // builds the atlas
-    for (int i = 0; i < ImGuiKey_COUNT; ++i) io.KeyMap[i] = i;
-  }
-  ~Headless() { ImGui::DestroyContext(); }
-
-  // When set, the frame draws this screen instead of `draw`.
-  void (*panel)(AppState&, Platform&) = nullptr;
-  MemoryPlatform platform;
-  // What a frame draws before the keypad: by default the altitude field (no "entered" flag).
-  std::function<void(AppState&)> draw = [](AppState& state) {
-    edit_quantity(state, altitude_field(state, "Altitude", "altitude"), state.situation.altitude);
-  };
-
-  // One frame with the panel (or `draw`) and the keypad; returns the labelled items.
-  nlohmann::json frame(AppState& state) {
-    ImGuiIO& io = ImGui::GetIO();
-    io.DeltaTime = 1.0f / 60.0f;
-    ImGui::NewFrame();
-    test_hook::begin_frame();
-    ++state.frames_drawn;
-    press_scrolls(state);  // as draw_frame does, before any widget
-    ImGui::SetNextWindowPos(ImVec2(0, 0));
-    ImGui::SetNextWindowSize(io.DisplaySize);
-    ImGui::Begin("test", nullptr, ImGuiWindowFlags_NoDecoration);
-    if (panel) {
-      panel(state, platform);
-    } else {
-      draw(state);
-    }
-    ImGui::End();
-    draw_keypad(state, io.DisplaySize.x, io.DisplaySize.y);
-    ImGui::Render();
-    for (bool& down : io.KeysDown) down = false;
-    return nlohmann::json::parse(test_hook::frame_json());
-  }
-
-  // Presses and releases the mouse on a labelled item, one frame each.
-  void click(AppState& state, const std::string& label) {
-    nlohmann::json items = frame(state);
-    bool found = false;
-    for (const auto& i : items) {
-      if (i["label"] != label) continue;
-      found = true;
-      ImGui::GetIO().MousePos = ImVec2(i["x"].get<float>() + i["w"].get<float>() / 2,
-                                       i["y"].get<float>() + i["h"].get<float>() / 2);
-    }
-    REQUIRE(found);
-    frame(state);  // hover
-    ImGui::GetIO().MouseDown[0] = true;
-    frame(state);
-    ImGui::GetIO().MouseDown[0] = false;
-    frame(state);
-    frame(state);  // the field takes a committed value on the next draw
-  }
-
-  std::string text(AppState& state, const std::string& label) {
-    for (const auto& i : frame(state)) {
-      if (i["label"] == label) return i["text"];
-    }
-    return "(absent)";
-  }
-};
 
 // A state whose altitude someone entered (the screens give no figures before one is).
 void enter_altitude(AppState& state, double metres) {
@@ -430,9 +327,6 @@ void draw_situation_altitude(AppState& state) {
   edit_quantity(state, situation_altitude_field(state, "Altitude"), state.situation.altitude);
 }
 
-void type_on_keypad(Headless& ui, AppState& state, const std::string& keys) {
-  for (char c : keys) ui.click(state, std::string("Key ") + c);
-}
 
 }  // namespace
 
@@ -510,157 +404,6 @@ TEST_CASE("situation altitude: empty until entered, no pressure, then stamped") 
   REQUIRE(state_from_json(back, state_to_json(state)));
   CHECK(back.situation.altitude_entered);
   CHECK(back.situation.altitude_entered_at == state.situation.altitude_entered_at);
-}
-
-// Issue 16: a value restored from an earlier session shows when it was entered and, from an
-// hour on, how long ago; a value entered now shows only its time (the age would go stale).
-TEST_CASE("restored values show when they were entered and how long ago") {
-  std::int64_t now = now_seconds();
-  CHECK(entered_note(now).find("ago") == std::string::npos);
-  CHECK(entered_note(now - 59 * 60).find("ago") == std::string::npos);
-  CHECK(entered_note(now - 3 * 3600 - 60).find(", 3 h ago") != std::string::npos);
-  CHECK(entered_note(now - 3 * 86400).find(", 3 d ago") != std::string::npos);
-  CHECK(entered_note(0).empty());  // unknown: no made-up time
-  CHECK(ago_text(0) == "just now");
-  CHECK(ago_text(59) == "59 min ago");
-  CHECK(ago_text(60) == "1 h ago");
-  CHECK(ago_text(48 * 60 - 1) == "47 h ago");
-  CHECK(ago_text(48 * 60) == "2 d ago");
-  AppState state;
-  state.situation.spo2_measured = true;
-  state.situation.spo2 = units::percent(68.0);
-  state.situation.spo2_entered_at = now - 3 * 3600 - 60;
-  AppState back;
-  REQUIRE(state_from_json(back, state_to_json(state)));
-  CHECK(back.situation.spo2_entered_at == state.situation.spo2_entered_at);
-  Headless ui;
-  ui.panel = draw_casualty_panel;
-  std::string note = ui.text(back, "Measured SpO2 note");
-  CHECK(note.rfind("entered ", 0) == 0);
-  CHECK(note.find(", 3 h ago") != std::string::npos);
-  ui.click(back, "Measured SpO2");  // measured again: stamped now, no age
-  type_on_keypad(ui, back, "81");
-  ui.click(back, "Key OK");
-  CHECK(back.situation.spo2_entered_at >= now);
-  CHECK(ui.text(back, "Measured SpO2 note").find("ago") == std::string::npos);
-  AppState older;  // saved before the time was kept: said, never a made-up time
-  REQUIRE(state_from_json(older, R"({"version":1,"situation":{"spo2_measured":true,"spo2":0.7}})"));
-  CHECK(ui.text(older, "Measured SpO2 note") == "when: not known (saved by an older Firn)");
-}
-
-// Issue 16: the SpO2 check timer runs (and asks for a wake at its next minute) only for an
-// incident in progress; a record left from days ago shows its age and wakes nothing.
-TEST_CASE("record timers only for an incident in progress") {
-  auto record_with_spo2_at = [](record::ClockTime t) {
-    record::Record r;
-    record::Entry e;
-    e.time = t;
-    e.kind = record::Kind::Observation;
-    e.spo2 = units::percent(80.0);
-    e.breathing = record::Breathing{std::nullopt, units::litres_per_minute(0.0)};
-    r.entries.push_back(e);
-    return record::write_record(r);
-  };
-  auto verdicts = [](const nlohmann::json& items) {
-    std::string all;
-    for (const auto& i : items) {
-      if (i["label"].get<std::string>().rfind("Verdict", 0) == 0) all += i["text"].get<std::string>() + "\n";
-    }
-    return all;
-  };
-  record::ClockTime now = clock_now();
-  {
-    Headless ui;
-    ui.panel = draw_record_panel;
-    ui.platform.stored[kRecordKey] = record_with_spo2_at(record::ClockTime{now.minutes - 5});
-    AppState state;
-    CHECK(verdicts(ui.frame(state)).find("Next SpO2 check in 10 min") != std::string::npos);
-    CHECK(state.wake_after_seconds > 0.0);
-    CHECK(state.wake_after_seconds <= 60.0);
-  }
-  Headless ui;
-  ui.panel = draw_record_panel;
-  ui.platform.stored[kRecordKey] = record_with_spo2_at(record::ClockTime{now.minutes - 3 * 24 * 60});
-  AppState state;
-  nlohmann::json items = ui.frame(state);
-  CHECK(verdicts(items).find("SpO2 check") == std::string::npos);
-  CHECK(state.wake_after_seconds == 0.0);
-  bool said = false;
-  for (const auto& i : items) said |= i["text"].get<std::string>().find("3 d ago: no timers") != std::string::npos;
-  CHECK(said);
-}
-
-// Issue 16: the Record screen exports the file the CLI reads and imports one through the
-// platform's file exchange (the Team screen's path); a missing file is said, nothing changes.
-TEST_CASE("record screen: export and import of the record file") {
-  Headless ui;
-  ImGui::GetIO().DisplaySize = ImVec2(390, 4000);  // the whole screen without scrolling
-  ui.panel = draw_record_panel;
-  record::Record r;
-  r.incident = "DEMO";
-  record::Entry e;
-  e.time = record::ClockTime{clock_now().minutes - 5};
-  e.kind = record::Kind::Observation;
-  e.spo2 = units::percent(77.0);
-  e.breathing = record::Breathing{std::nullopt, units::litres_per_minute(0.0)};
-  r.entries.push_back(e);
-  ui.platform.stored[kRecordKey] = record::write_record(r);
-  AppState state;
-  ui.click(state, "Export record");
-  CHECK(ui.platform.downloads[kRecordExportName] == ui.platform.stored[kRecordKey]);
-  CHECK(state.record.file.message == "Record exported to memory/" + std::string(kRecordExportName) + ".");
-
-  ui.click(state, "Import record");  // nothing typed, no incident-import.json
-  CHECK(state.record.file.message == "Nothing imported: cannot read incident-import.json");
-  CHECK(state.record.store.record.entries.size() == 1);
-
-  r.entries.push_back(e);
-  r.entries.back().spo2 = units::percent(85.0);
-  ui.platform.files["incident-import.json"] = record::write_record(r);
-  ui.click(state, "Import record");
-  CHECK(state.record.file.message == "incident-import.json imported: 2 entries; the incident before it was archived.");
-  REQUIRE(state.record.store.record.entries.size() == 2);
-  CHECK(ui.platform.stored[kRecordKey] == record::write_record(r));
-  CHECK(ui.text(state, "SpO2 trend").rfind("2 SpO2 points:", 0) == 0);
-}
-
-// Issue 16: the latest entry's time, corrected on the keypad; a time before the incident's
-// start is refused with the valid range and changes nothing.
-TEST_CASE("record screen: the latest entry's time corrected on the keypad") {
-  Headless ui;
-  ImGui::GetIO().DisplaySize = ImVec2(390, 4000);
-  ui.panel = draw_record_panel;
-  record::ClockTime now = clock_now();
-  record::Record r;
-  for (int ago : {10, 5}) {
-    record::Entry e;
-    e.time = record::ClockTime{now.minutes - ago};
-    e.kind = ago == 10 ? record::Kind::Observation : record::Kind::BagStart;
-    if (ago == 10) e.spo2 = units::percent(70.0);
-    r.entries.push_back(e);
-  }
-  ui.platform.stored[kRecordKey] = record::write_record(r);
-  auto digits = [](record::ClockTime t) {
-    std::string hhmm = record::clock_hhmm(t);
-    return hhmm.substr(0, 2) + hhmm.substr(3);
-  };
-  AppState state;
-  CHECK(ui.text(state, "Time of the latest entry") == record::clock_hhmm(r.entries[1].time) + " (bag start)");
-  ui.click(state, "Time of the latest entry");
-  type_on_keypad(ui, state, digits(record::ClockTime{now.minutes - 20}));  // the first key replaces
-  ui.click(state, "Key OK");
-  CHECK(ui.text(state, "Warning").find("between " + record::clock_hhmm(r.entries[0].time) + " and ") !=
-        std::string::npos);
-  CHECK(state.record.store.record.entries.back().kind == record::Kind::BagStart);
-  ui.click(state, "Time of the latest entry");
-  type_on_keypad(ui, state, digits(r.entries[0].time));
-  ui.click(state, "Key OK");
-  CHECK(ui.text(state, "Warning") == "(absent)");
-  // Moved to the incident's start: equal times keep the moved one after (time order kept).
-  REQUIRE(state.record.store.record.entries.size() == 2);
-  CHECK(state.record.store.record.entries[1].time == r.entries[0].time);
-  CHECK(state.record.store.record.entries[1].kind == record::Kind::BagStart);
-  CHECK(record::parse_record(ui.platform.stored[kRecordKey])->entries[1].time == r.entries[0].time);
 }
 
 TEST_CASE("saved state from before the entered flag: the old default shows empty") {
