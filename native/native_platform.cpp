@@ -74,8 +74,8 @@ std::string NativePlatform::document_location(std::string_view title) const {
   return path_for(document_file_name(title));
 }
 
-bool NativePlatform::request_file_import(std::string_view path) {
-  std::string wanted = path.empty() ? path_for("team-profile-import.json") : std::string(path);
+bool NativePlatform::request_file_import(std::string_view path, std::string_view default_name) {
+  std::string wanted = path.empty() ? path_for(default_name) : std::string(path);
   ui::ImportedFile file;
   file.name = fs::path(wanted).filename().string();
   std::error_code ec;

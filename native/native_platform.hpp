@@ -19,7 +19,7 @@ class NativePlatform final : public ui::Platform {
   void publish_test_items(std::string_view json) override;
   std::string_view name() const override { return "native"; }
   // A typed path (empty: <config dir>/team-profile-import.json); read at once.
-  bool request_file_import(std::string_view path) override;
+  bool request_file_import(std::string_view path, std::string_view default_name) override;
   bool imports_by_path() const override { return true; }
   std::optional<ui::ImportedFile> take_imported_file() override;
   std::string offer_download(std::string_view file_name, std::string_view text) override;

@@ -168,7 +168,7 @@ void WebPlatform::publish_test_items(std::string_view json) {
   firn_js_publish_test_items(std::string(json).c_str());
 }
 
-bool WebPlatform::request_file_import(std::string_view) {
+bool WebPlatform::request_file_import(std::string_view, std::string_view) {
   return firn_js_request_file_import(this) != 0;
 }
 

@@ -17,7 +17,7 @@ class WebPlatform final : public ui::Platform {
   void publish_test_items(std::string_view json) override;
   std::string_view name() const override { return "web"; }
   // The browser's file picker; the chosen file's text arrives through firn_file_imported().
-  bool request_file_import(std::string_view path) override;
+  bool request_file_import(std::string_view path, std::string_view default_name) override;
   std::optional<ui::ImportedFile> take_imported_file() override;
   std::string offer_download(std::string_view file_name, std::string_view text) override;
   std::string storage_location() const override { return "this browser's storage"; }

@@ -78,6 +78,8 @@ void init_app(AppState& state, Platform& platform) {
   load_team_profile(state, platform);
   load_record(state.record.store, platform);
   state.record.loaded = true;
+  // The incident in progress first, not the last screen of the session before (issue 16).
+  if (incident_in_progress(state.record.store, clock_now())) state.screen = Screen::Record;
   state.built_font_scale = 0.0f;
   apply_theme(state.settings.theme, state.pixel_ratio, state.settings.night_dim);
 }

@@ -17,6 +17,7 @@
 #include "model/route_plan.hpp"
 #include "profile/team_profile.hpp"
 #include "model/units.hpp"
+#include "ui/file_exchange.hpp"
 #include "ui/record_store.hpp"
 
 struct ImFont;
@@ -128,6 +129,7 @@ struct Situation {
 
   bool spo2_measured = false;                    // false: nothing entered, no verdict
   units::Fraction spo2 = units::percent(88.0);   // meaningful only when spo2_measured
+  std::int64_t spo2_entered_at = 0;              // when (seconds since 1970 UTC); 0 unknown
   units::Duration time_at_altitude = units::hours(0.0);  // at (or above) this altitude
   bool distress = false;  // breathing fast and deep: lowers the FiO2 a device gives
   bool on_oxygen = false;
@@ -166,12 +168,9 @@ struct OxygenInputs {
 struct RouteState {
   route::RouteInput input;
   bool loaded = false;
-  std::string message;  // the last load/import outcome, or why the saved route was not read
-  bool message_is_problem = false;
   std::string saved_text;    // the route file last written (or found): written again only on change
   std::string refused_text;  // last not saved (storage refused, or no plan): not retried each frame
-  bool import_requested = false;  // waiting for the platform's picker
-  char import_path[512] = {};     // native: typed path of the route file to load
+  FileExchange file;  // route file in and out; its message also says why a saved route was not read
 };
 
 // Each Lake Louise item 0–3, or kUnanswered until the casualty has answered it.
@@ -205,6 +204,7 @@ struct RecordInputs {
   int minutes_ago = 0;    // an entry written up late
   units::Duration check_interval = units::minutes(15.0);  // next SpO2 check
   bool confirm_new = false, confirm_delete = false;
+  FileExchange file;  // import/export of the record file
 };
 
 // The in-app numeric keypad (the canvas cannot summon a phone keyboard). One field at a time.
@@ -230,10 +230,7 @@ struct TeamState {
   team_profile::TeamProfile profile = team_profile::demo_profile();
   bool stored = false;         // saved on this device (false: the built-in demo, unsaved)
   bool backup_kept = false;    // an unreadable saved profile was kept as team-profile.json.bad
-  std::string message;         // last import/export/print outcome, shown on the Team screen
-  bool message_is_problem = false;
-  bool import_requested = false;   // waiting for the platform's picker
-  char import_path[512] = {};      // native: typed path of the file to import
+  FileExchange file;  // import/export of the profile file; its message also says print outcomes
   int card_size = 0;               // 0 A6, 1 wallet
 };
 

@@ -42,7 +42,16 @@ std::string entered_note(std::int64_t entered_at) {
   char buffer[48];
   bool same_day = at.tm_year == today.tm_year && at.tm_yday == today.tm_yday;
   std::strftime(buffer, sizeof buffer, same_day ? "entered %H:%M" : "entered %d %b, %H:%M", &at);
-  return buffer;
+  // A value restored from an earlier session must look old (issue 16): the age from an hour on.
+  std::int64_t minutes_ago = (static_cast<std::int64_t>(now) - entered_at) / 60;
+  return minutes_ago < 60 ? std::string(buffer) : std::string(buffer) + ", " + ago_text(minutes_ago);
+}
+
+std::string ago_text(std::int64_t minutes) {
+  if (minutes < 1) return "just now";
+  if (minutes < 60) return std::to_string(minutes) + " min ago";
+  if (minutes < 48 * 60) return std::to_string(minutes / 60) + " h ago";
+  return std::to_string(minutes / (24 * 60)) + " d ago";
 }
 
 bool tenfold_change(double last, double next, double floor) {

@@ -40,6 +40,8 @@ struct QuantityField {
 // "Enter the altitude" prompt, "entered 14:05" note.
 std::string empty_prompt(const char* what);
 std::string entered_note(std::int64_t entered_at);
+// "just now", "12 min ago", "3 h ago", "5 d ago": whole units, rounded down.
+std::string ago_text(std::int64_t minutes);
 std::int64_t now_seconds();
 // Whether `next` differs from `last` by a factor of ten or more (values under `floor` count as
 // `floor`): 5,200 m → 52 m or 520 m asks, 5,200 → 3,000 does not.

@@ -48,6 +48,10 @@ void spo2_field(AppState& state) {
                  {"%"}, 0,
                  format_number(kSpo2.low, 0) + "\xE2\x80\x93" + format_number(kSpo2.high, 0) + " %",
                  s.spo2_measured};
+  // When it was measured: a reading restored from an earlier session must not pass as current.
+  if (s.spo2_measured) {
+    spec.note = s.spo2_entered_at > 0 ? entered_note(s.spo2_entered_at) : "when: not known (saved by an older Firn)";
+  }
   FieldEvent event = keypad_field(state, spec);
   if (event.kind == FieldEvent::Kind::Commit) {
     Result<double> n = parse_number(event.text, "measured SpO2");
@@ -59,10 +63,12 @@ void spo2_field(AppState& state) {
       state.field_errors.erase(spec.id);
       s.spo2 = percent(n.value());
       s.spo2_measured = true;
+      s.spo2_entered_at = now_seconds();
     }
   } else if (event.kind != FieldEvent::Kind::None && s.spo2_measured) {
     double step = event.kind == FieldEvent::Kind::Plus ? 1.0 : -1.0;
     s.spo2 = percent(std::clamp(std::round(s.spo2.in(percent)) + step, kSpo2.low, kSpo2.high));
+    s.spo2_entered_at = now_seconds();
   }
   if (s.spo2_measured && big_button(state, "Clear SpO2")) {
     s.spo2_measured = false;

@@ -9,8 +9,11 @@
 #include <cmath>
 #include <ctime>
 
+#include "model/atmosphere.hpp"
+#include "model/expected_spo2.hpp"
 #include "profile/handover.hpp"
 #include "ui/fields.hpp"
+#include "ui/file_exchange.hpp"
 #include "ui/plot.hpp"
 #include "ui/record_store.hpp"
 #include "ui/situation.hpp"
@@ -204,40 +207,191 @@ void event_buttons(AppState& state, Platform& platform, const handover::Summary&
   }
 }
 
+// [SECTION] Correcting a time
+
+// The latest entry's clock time, typed on the keypad (an event stamped "now" that happened
+// earlier); valid from the incident's start to now (typed_entry_time says so otherwise).
+void latest_entry_time(AppState& state, Platform& platform, ClockTime now) {
+  RecordInputs& in = state.record;
+  if (in.store.record.entries.empty()) return;
+  const record::Entry& latest = in.store.record.entries.back();
+  std::string what(record::kind_key(latest.kind));
+  std::replace(what.begin(), what.end(), '_', ' ');
+  std::string hhmm = record::clock_hhmm(latest.time);
+  std::string digits = hhmm.substr(0, 2) + hhmm.substr(3);
+  FieldSpec spec{"Time of the latest entry", "record-time", hhmm + " (" + what + ")", digits, {}, 0,
+                 "e.g. 1405, up to " + record::clock_hhmm(now), false, false, true};
+  FieldEvent event = keypad_field(state, spec);
+  if (event.kind != FieldEvent::Kind::Commit) return;
+  Result<ClockTime> t = typed_entry_time(in.store, event.text, now);
+  if (!t) {
+    state.field_errors[spec.id] = t.error().message;
+    return;
+  }
+  state.field_errors.erase(spec.id);
+  retime_latest_entry(in.store, platform, t.value());
+}
+
 // [SECTION] Trend
 
-void trend_chart(AppState& state, const record::Record& rec, const handover::Summary& s) {
-  if (!s.first_time || !s.first_spo2) return;
+// Minutes since the first entry: the one time axis of the SpO2 chart and the rates beneath it.
+struct TrendAxis {
+  ClockTime first;
+  double span = 30.0;
+  double x_of(ClockTime t) const { return static_cast<double>(record::minutes_between(first, t)); }
+  PlotAxes axes(double y0, double y1, double y_tick, std::string y_label) const {
+    return {0.0, span, y0, y1, span > 240 ? 60.0 : 30.0, y_tick, "minutes since first entry", std::move(y_label)};
+  }
+};
+
+// "0 min 82 % air": a charted point as the test hook and a reader get it.
+std::string point_words(double x, double value, const char* unit, const char* mark = "") {
+  return format_number(x, 0) + " min " + format_number(value, 0) + " " + unit + (*mark ? " " : "") + mark;
+}
+
+// The healthy-lowlander band on air over one stretch of the record (the altitude of the entry
+// that starts it; constant until the next entry), after the time spent there.
+struct BandStep {
+  double from, to;
+  expected_spo2::Band band;
+  bool extrapolated;
+};
+
+// Time at altitude at a past moment: the Casualty screen's figure (meant as now) counted back,
+// never below 0 (then the acute band, the lower one: no low reading looks expected).
+std::optional<expected_spo2::Expectation> band_on_air(const AppState& state, Length altitude,
+                                                      ClockTime at, ClockTime now) {
+  double back = static_cast<double>(record::minutes_between(at, now));
+  Duration there = minutes(std::max(0.0, state.situation.time_at_altitude.in(minutes) - back));
+  Result<Pressure> pb = atmosphere::pressure_at(altitude, atmosphere::default_medical_model);
+  Result<cascade::Acclimatisation> a = cascade::acclimatisation_after(there);
+  if (!pb || !a) return std::nullopt;
+  Result<expected_spo2::Expectation> x = expected_spo2::expected(*pb, *a);
+  return x ? std::optional(x.value()) : std::nullopt;
+}
+
+std::vector<BandStep> band_steps(const AppState& state, const record::Record& rec, const TrendAxis& axis,
+                                 ClockTime now) {
+  std::vector<BandStep> steps;
+  std::optional<Length> altitude;
+  for (const record::Entry& e : rec.entries) {
+    if (e.altitude) altitude = e.altitude;
+    if (!altitude) continue;
+    double x = axis.x_of(e.time);
+    if (!steps.empty()) steps.back().to = x;
+    std::optional<expected_spo2::Expectation> band = band_on_air(state, *altitude, e.time, now);
+    if (band) steps.push_back({x, axis.span, band->band, band->extrapolated});
+  }
+  std::erase_if(steps, [](const BandStep& b) { return b.to <= b.from; });
+  return steps;
+}
+
+// A calibrated stretch is a filled band; an extrapolated one only its two edges, dashed, in the
+// warning colour (named in the legend): it must not read as a reassuring range.
+void draw_band(AppState& state, const Plot& plot, const std::vector<BandStep>& steps, double span) {
+  double dash = span / 60.0;
+  for (const BandStep& b : steps) {
+    double low = b.band.low.in(percent), high = b.band.high.in(percent);
+    if (!b.extrapolated) {
+      plot_band(plot, {{b.from, low}, {b.to, low}}, {{b.from, high}, {b.to, high}},
+                plot_colour(state, PlotColour::Accent, 0.2f));
+      continue;
+    }
+    for (double x = b.from; x < b.to; x += 2 * dash) {
+      double end = std::min(x + dash, b.to);
+      for (double y : {low, high}) plot_line(plot, {{x, y}, {end, y}}, plot_colour(state, PlotColour::Warning), 0.1f);
+    }
+  }
+}
+
+void spo2_chart(AppState& state, const record::Record& rec, const handover::Summary& s, const TrendAxis& axis,
+                ClockTime now) {
   heading("SpO2 over time");
-  double span = std::max<double>(30.0, static_cast<double>(record::minutes_between(*s.first_time, *s.last_time)));
-  PlotAxes axes{0.0, span, 50.0, 100.0, span > 240 ? 60.0 : 30.0, 10.0, "minutes since first entry", "SpO2 %"};
-  std::string summary = std::to_string(s.entries) + " entries, SpO2 " +
-                        format_number(s.first_spo2->spo2.in(percent), 0) + " to " +
-                        format_number(s.latest_spo2->spo2.in(percent), 0) + " %";
-  Plot plot = begin_plot(state, "SpO2 trend", summary, 12.0f, axes);
-  auto x_of = [&](ClockTime t) { return static_cast<double>(record::minutes_between(*s.first_time, t)); };
-  for (const handover::BagSession& b : s.bag_sessions) {
-    plot_vline(plot, x_of(b.start), plot_colour(state, PlotColour::Dim), "bag");
-    if (b.end) plot_vline(plot, x_of(*b.end), plot_colour(state, PlotColour::Dim));
-  }
-  for (const handover::OxygenPeriod& p : s.oxygen) {
-    double to = p.to ? x_of(*p.to) : span;
-    plot_line(plot, {{x_of(p.from), 53.0}, {to, 53.0}}, plot_colour(state, PlotColour::Accent), 0.35f);
-    plot_text(plot, {x_of(p.from), 56.0}, plot_colour(state, PlotColour::Accent),
-              format_number(p.setting.flow.in(litres_per_minute), 1) + " L/min");
-  }
   std::vector<PlotPoint> line;
+  std::vector<bool> on_air;
+  std::string points;
   for (const record::Entry& e : rec.entries) {
     if (e.kind != record::Kind::Observation || !e.spo2) continue;
-    PlotPoint p{x_of(e.time), std::clamp(e.spo2->in(percent), 50.0, 100.0)};
-    line.push_back(p);
-    bool on_air = e.breathing && e.breathing->on_air();
-    plot_point(plot, p, plot_colour(state, on_air ? PlotColour::Danger : PlotColour::Text), on_air ? "air" : "O2");
+    line.push_back({axis.x_of(e.time), e.spo2->in(percent)});
+    on_air.push_back(e.breathing && e.breathing->on_air());
+    points += (points.empty() ? "" : " | ") + point_words(line.back().x, line.back().y, "%", on_air.back() ? "air" : "O2");
+  }
+  std::vector<BandStep> band = band_steps(state, rec, axis, now);
+  int extrapolated = static_cast<int>(std::count_if(band.begin(), band.end(), [](const BandStep& b) { return b.extrapolated; }));
+  double lowest = std::min_element(line.begin(), line.end(), [](PlotPoint a, PlotPoint b) { return a.y < b.y; })->y;
+  double y0 = std::min(50.0, std::floor(lowest / 10.0) * 10.0);
+  std::string summary = std::to_string(line.size()) + " SpO2 points: " + points + "; band on air: " +
+                        std::to_string(band.size()) + " stretches, " + std::to_string(extrapolated) + " extrapolated";
+  Plot plot = begin_plot(state, "SpO2 trend", summary, 12.0f, axis.axes(y0, 100.0, 10.0, "SpO2 %"));
+  draw_band(state, plot, band, axis.span);
+  for (const handover::BagSession& b : s.bag_sessions) {
+    plot_vline(plot, axis.x_of(b.start), plot_colour(state, PlotColour::Dim), "bag");
+    if (b.end) plot_vline(plot, axis.x_of(*b.end), plot_colour(state, PlotColour::Dim));
+  }
+  // The flow bar along the bottom, its label a line of text above it.
+  double per_em = (100.0 - y0) / (plot.max.y - plot.min.y) * em();
+  for (const handover::OxygenPeriod& p : s.oxygen) {
+    double to = p.to ? axis.x_of(*p.to) : axis.span;
+    double bar = y0 + 0.4 * per_em;
+    plot_line(plot, {{axis.x_of(p.from), bar}, {to, bar}}, plot_colour(state, PlotColour::Accent), 0.35f);
+    plot_text(plot, {axis.x_of(p.from), bar + 1.4 * per_em}, plot_colour(state, PlotColour::Accent),
+              format_number(p.setting.flow.in(litres_per_minute), 1) + " L/min");
   }
   plot_line(plot, line, plot_colour(state, PlotColour::Text));
-  plot_legend(state, {{plot_colour(state, PlotColour::Text), "SpO2 (point: air or O2)"},
-                      {plot_colour(state, PlotColour::Accent), "oxygen given (L/min)"},
-                      {plot_colour(state, PlotColour::Dim), "bag session"}});
+  for (size_t i = 0; i < line.size(); ++i) {
+    plot_point(plot, line[i], plot_colour(state, on_air[i] ? PlotColour::Danger : PlotColour::Text), on_air[i] ? "air" : "O2");
+  }
+  std::vector<std::pair<ImU32, std::string>> legend{
+      {plot_colour(state, PlotColour::Text), "SpO2 (point: air or O2)"},
+      {plot_colour(state, PlotColour::Accent, 0.4f), "expected on air (healthy newcomers)"},
+      {plot_colour(state, PlotColour::Accent), "oxygen given (L/min)"},
+      {plot_colour(state, PlotColour::Dim), "bag session"}};
+  if (extrapolated > 0) legend.push_back({plot_colour(state, PlotColour::Warning), "band extrapolated (dashed): no reassurance"});
+  plot_legend(state, legend);
+  ImGui::PushTextWrapPos(0.0f);
+  ImGui::TextDisabled("Band at each entry's altitude and time there (the Casualty screen's time at "
+                      "altitude, counted back); for comparison only, never a verdict.");
+  ImGui::PopTextWrapPos();
+}
+
+// Heart and breathing rate beneath, on the same minutes.
+void rates_chart(AppState& state, const record::Record& rec, const TrendAxis& axis) {
+  std::vector<PlotPoint> heart, breathing;
+  std::string heart_words, breathing_words;
+  for (const record::Entry& e : rec.entries) {
+    if (e.kind != record::Kind::Observation) continue;
+    double x = axis.x_of(e.time);
+    if (e.heart_rate) {
+      heart.push_back({x, static_cast<double>(*e.heart_rate)});
+      heart_words += (heart_words.empty() ? "" : " | ") + point_words(x, *e.heart_rate, "/min");
+    }
+    if (e.breathing_rate) {
+      breathing.push_back({x, static_cast<double>(*e.breathing_rate)});
+      breathing_words += (breathing_words.empty() ? "" : " | ") + point_words(x, *e.breathing_rate, "/min");
+    }
+  }
+  if (heart.empty() && breathing.empty()) return;
+  heading("Heart rate and breathing rate");
+  double highest = 0.0;
+  for (const PlotPoint& p : heart) highest = std::max(highest, p.y);
+  for (const PlotPoint& p : breathing) highest = std::max(highest, p.y);
+  double top = std::max(160.0, std::ceil(highest / 40.0) * 40.0);
+  std::string summary = "heart rate: " + (heart_words.empty() ? std::string("none") : heart_words) +
+                        "; breathing rate: " + (breathing_words.empty() ? std::string("none") : breathing_words);
+  Plot plot = begin_plot(state, "Rates trend", summary, 8.0f, axis.axes(0.0, top, 40.0, "per min"));
+  ImU32 heart_colour = plot_colour(state, PlotColour::Text), breathing_colour = plot_colour(state, PlotColour::Warning);
+  plot_line(plot, heart, heart_colour);
+  plot_line(plot, breathing, breathing_colour);
+  for (const PlotPoint& p : heart) plot_point(plot, p, heart_colour, {}, 0.3f);
+  for (const PlotPoint& p : breathing) plot_point(plot, p, breathing_colour, {}, 0.3f);
+  plot_legend(state, {{heart_colour, "heart rate /min"}, {breathing_colour, "breathing rate /min"}});
+}
+
+void trend_charts(AppState& state, const record::Record& rec, const handover::Summary& s, ClockTime now) {
+  if (!s.first_time) return;
+  TrendAxis axis{*s.first_time, std::max(30.0, static_cast<double>(record::minutes_between(*s.first_time, *s.last_time)))};
+  if (s.first_spo2) spo2_chart(state, rec, s, axis, now);
+  rates_chart(state, rec, axis);
 }
 
 // [SECTION] Handover and the incident
@@ -253,6 +407,24 @@ void handover_section(AppState& state, Platform& platform, const record::Record&
   if (big_button(state, "Print handover (A4)")) {
     platform.open_html_document("Firn handover", handover::render_html(rec, s, units, handover::Page::A4));
   }
+}
+
+constexpr FileKind kRecordFile{"Import record", "Export record", "Record file to import", "incident-import.json",
+                               kRecordExportName, "firn handover --record FILE reads a record file."};
+
+// The record as the file the CLI reads, to hand over or keep; an imported one becomes the
+// current incident (the one before archived).
+void record_file(AppState& state, Platform& platform) {
+  RecordInputs& in = state.record;
+  heading("Record file");
+  if (std::optional<ImportedFile> file = import_control(state, platform, in.file, kRecordFile)) {
+    Result<std::string> done = import_record(in.store, platform, file->text, file->name.empty() ? "The file" : file->name);
+    in.file.tell(done ? done.value() : done.error().message, !done);
+  }
+  if (!in.store.record.entries.empty()) {
+    export_control(state, platform, in.file, kRecordFile, "record", [&] { return record::write_record(in.store.record); });
+  }
+  if (!in.file.message.empty()) message_line(state, in.file.message, in.file.message_is_problem);
 }
 
 void incident_buttons(AppState& state, Platform& platform) {
@@ -294,18 +466,27 @@ void draw_record_panel(AppState& state, Platform& platform) {
                               : ("Casualty record: " + std::to_string(rec.entries.size()) + " entries, since " +
                                  record::clock_hhmm(*s.first_time)).c_str());
   if (!in.store.problem.empty()) verdict_line(state, Tone::Danger, in.store.problem);
-  timers(state, s, now);
+  // A record left from an earlier incident keeps no timers running (and wakes nothing).
+  if (incident_in_progress(in.store, now)) {
+    timers(state, s, now);
+  } else if (s.last_time) {
+    std::string last = record::clock_text(*s.last_time);
+    std::replace(last.begin(), last.end(), 'T', ' ');
+    message_line(state, "Last entry " + last + ", " + ago_text(record::minutes_between(*s.last_time, now)) +
+                            ": no timers. \"New incident\" below starts the record of a new casualty.");
+  }
   if (s.latest_spo2) {
-    std::int64_t ago = record::minutes_between(s.latest_spo2->time, now);
     message_line(state, "Latest SpO2 " + format_number(s.latest_spo2->spo2.in(percent), 0) + " % on " +
                             (s.latest_spo2->on ? record::breathing_words(*s.latest_spo2->on) : "?") +
                             " at " + record::clock_hhmm(s.latest_spo2->time) + ", " +
-                            std::to_string(ago) + " min ago");
+                            ago_text(record::minutes_between(s.latest_spo2->time, now)));
   }
   observation_form(state, platform, s, now);
   event_buttons(state, platform, s, now);
-  trend_chart(state, rec, s);
+  latest_entry_time(state, platform, now);
+  trend_charts(state, rec, s, now);
   if (!rec.entries.empty()) handover_section(state, platform, rec, s);
+  record_file(state, platform);
   incident_buttons(state, platform);
   caution_line(state);
 }

@@ -8,9 +8,10 @@
 #include <cmath>
 #include <string>
 
-#include "profile/route_file.hpp"
 #include "model/route_plan.hpp"
+#include "profile/route_file.hpp"
 #include "ui/fields.hpp"
+#include "ui/file_exchange.hpp"
 #include "ui/format.hpp"
 #include "ui/plot.hpp"
 #include "ui/route_store.hpp"
@@ -26,9 +27,10 @@ using route::LegKind;
 using route::Limits;
 
 void draw_route_message(const AppState& state) {
-  if (state.route.message.empty()) return;
-  message_line(state, state.route.message, state.route.message_is_problem);
-  test_hook::item_text("Route message", state.route.message);
+  const FileExchange& file = state.route.file;
+  if (file.message.empty()) return;
+  message_line(state, file.message, file.message_is_problem);
+  test_hook::item_text("Route message", file.message);
 }
 
 double end_altitude_m(const route::RouteInput& in) {
@@ -68,19 +70,8 @@ void draw_presets(AppState& state) {
   if (in.legs.size() > 1 && big_button(state, "Remove the last leg")) in.legs.pop_back();
 }
 
-void collect_route_file(AppState& state, Platform& platform) {
-  RouteState& route = state.route;
-  if (!route.import_requested) return;  // a file picked for the Team screen is not ours
-  std::optional<ImportedFile> file = platform.take_imported_file();
-  if (!file) return;
-  route.import_requested = false;
-  if (!file->error.empty()) {
-    route.message = "Nothing loaded: " + file->error;
-    route.message_is_problem = true;
-    return;
-  }
-  import_route(route, state.team.profile, file->text, file->name.empty() ? "the file" : file->name);
-}
+constexpr FileKind kRouteFile{"Load a route file", "Save as a route file", "Route file to load",
+                              kRouteImportFileName, kRouteExportFileName, "use firn route --file FILE."};
 
 // Whole routes in (the usual carry-out, a route file), the profile's cylinders, a route file out.
 void draw_route_loading(AppState& state, Platform& platform) {
@@ -91,30 +82,11 @@ void draw_route_loading(AppState& state, Platform& platform) {
   if (profile.evacuation && big_button(state, "Cylinders from the team profile")) {
     use_profile_stock(route, profile);
   }
-  if (platform.imports_by_path()) {
-    std::string hint = platform.storage_location() + "/" + kRouteImportFileName;
-    ImGui::TextDisabled("Route file to load");
-    ImGui::SetNextItemWidth(-1.0f);
-    ImGui::InputTextWithHint("##route-import-path", hint.c_str(), route.import_path, sizeof route.import_path);
-    test_hook::item_text("Route file to load", route.import_path);
+  if (std::optional<ImportedFile> file = import_control(state, platform, route.file, kRouteFile)) {
+    import_route(route, profile, file->text, file->name.empty() ? "the file" : file->name);
   }
-  if (big_button(state, "Load a route file")) {
-    std::string path = route.import_path[0] != '\0' || !platform.imports_by_path()
-                           ? std::string(route.import_path)
-                           : platform.storage_location() + "/" + kRouteImportFileName;
-    route.import_requested = platform.request_file_import(path);
-    if (!route.import_requested) {
-      route.message = "This device cannot pick a file here; use firn route --file FILE.";
-      route.message_is_problem = true;
-    }
-  }
-  collect_route_file(state, platform);
-  if (big_button(state, "Save as a route file")) {
-    std::string where = platform.offer_download(kRouteExportFileName, route::write_route_file(route.input));
-    route.message = where.empty() ? "The route file could not be written here."
-                                  : "Route file written to " + where + " (firn route --file reads it).";
-    route.message_is_problem = where.empty();
-  }
+  export_control(state, platform, route.file, kRouteFile, "route file",
+                 [&] { return route::write_route_file(route.input); });
   draw_route_message(state);
 }
 
@@ -303,7 +275,7 @@ void draw_route_panel(AppState& state, Platform& platform) {
   if (!state.route.loaded) load_route(state.route, state.team.profile, platform);
   route::RouteInput& in = state.route.input;
   // A saved route that could not be read is said first; other outcomes under the load buttons.
-  if (state.route.message_is_problem) draw_route_message(state);
+  if (state.route.file.message_is_problem) draw_route_message(state);
   if (in.demo) message_line(state, "DEMO route: fictional team and range.");
   draw_result(state);
   heading("Casualty");

@@ -107,46 +107,18 @@ void draw_profile_details(const AppState& state) {
   for (const std::string& note : p.card.notes) bullet_line(note);
 }
 
-void collect_imported_file(AppState& state, Platform& platform) {
-  if (!state.team.import_requested) return;  // a file picked for the Route screen is not ours
-  std::optional<ImportedFile> file = platform.take_imported_file();
-  if (!file) return;
-  state.team.import_requested = false;
-  if (!file->error.empty()) {
-    state.team.message = "Nothing imported: " + file->error;
-    state.team.message_is_problem = true;
-    return;
-  }
-  import_team_profile(state, platform, file->text, file->name.empty() ? "the file" : file->name);
-}
+constexpr FileKind kProfileFile{"Import profile", "Export profile", "Profile file to import",
+                                "team-profile-import.json", kExportFileName,
+                                "use firn profile --check FILE."};
 
 void draw_file_actions(AppState& state, Platform& platform) {
-  TeamState& team = state.team;
   heading("Profile file");
   if (big_button(state, "Load demo profile")) use_demo_profile(state, platform);
-
-  if (platform.imports_by_path()) {
-    // Empty: the file in the config folder.
-    std::string hint = platform.storage_location() + "/team-profile-import.json";
-    ImGui::TextDisabled("Profile file to import");
-    ImGui::SetNextItemWidth(-1.0f);
-    ImGui::InputTextWithHint("##import-path", hint.c_str(), team.import_path, sizeof team.import_path);
-    test_hook::item_text("Profile file to import", team.import_path);
+  if (std::optional<ImportedFile> file = import_control(state, platform, state.team.file, kProfileFile)) {
+    import_team_profile(state, platform, file->text, file->name.empty() ? "the file" : file->name);
   }
-  if (big_button(state, "Import profile")) {
-    team.import_requested = platform.request_file_import(team.import_path);
-    if (!team.import_requested) {
-      team.message = "This device cannot pick a file here; use firn profile --check FILE.";
-      team.message_is_problem = true;
-    }
-  }
-  collect_imported_file(state, platform);
-
-  if (big_button(state, "Export profile")) {
-    std::string where = platform.offer_download(kExportFileName, exported_profile_text(state));
-    team.message = where.empty() ? "The profile could not be exported." : "Profile exported to " + where + ".";
-    team.message_is_problem = where.empty();
-  }
+  export_control(state, platform, state.team.file, kProfileFile, "profile",
+                 [&] { return exported_profile_text(state); });
 }
 
 // Opens one printout (pocket card or reference sheet) in the platform's document viewer.
@@ -155,15 +127,15 @@ void open_printout(AppState& state, Platform& platform, pocket_card::Size size, 
   TeamState& team = state.team;
   std::string html = pocket_card::render_html(pocket_card::build_card(team.profile, today_iso_date()), size);
   if (!platform.open_html_document(title, html)) {
-    team.message = "The " + what + " could not be opened here; firn card --profile FILE --out " +
+    team.file.message = "The " + what + " could not be opened here; firn card --profile FILE --out " +
                    title + ".html --size " + std::string(pocket_card::size_key(size)) + " writes it.";
-    team.message_is_problem = true;
+    team.file.message_is_problem = true;
     return;
   }
   std::string file = platform.document_location(title);
-  team.message = file.empty() ? "The " + what + " opened in a new window: print it from there."
+  team.file.message = file.empty() ? "The " + what + " opened in a new window: print it from there."
                               : "The " + what + " was written to " + file + " and opened.";
-  team.message_is_problem = false;
+  team.file.message_is_problem = false;
 }
 
 void draw_card_actions(AppState& state, Platform& platform) {
@@ -193,9 +165,9 @@ void draw_use_in_calculators(AppState& state) {
   state.oxygen.reserve = p.reserve_pressure_gauge;
   state.oxygen.flow = p.flows.front();
   state.bag.gauge = p.bag.gauge_pressure;
-  state.team.message = "Oxygen screen: " + c.label + " full, reserve and flow from the profile; "
+  state.team.file.message = "Oxygen screen: " + c.label + " full, reserve and flow from the profile; "
                        "Bag screen: the profile's gauge pressure.";
-  state.team.message_is_problem = false;
+  state.team.file.message_is_problem = false;
 }
 
 }  // namespace
@@ -206,9 +178,9 @@ void draw_team_panel(AppState& state, Platform& platform) {
   draw_profile_summary(state, platform);
   draw_card_actions(state, platform);
   draw_file_actions(state, platform);
-  if (!state.team.message.empty()) {
-    message_line(state, state.team.message, state.team.message_is_problem);
-    test_hook::item_text("Team message", state.team.message);
+  if (!state.team.file.message.empty()) {
+    message_line(state, state.team.file.message, state.team.file.message_is_problem);
+    test_hook::item_text("Team message", state.team.file.message);
   }
   draw_profile_details(state);
   draw_use_in_calculators(state);

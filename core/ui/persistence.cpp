@@ -39,6 +39,13 @@ void read(const Json& j, const char* key, double low, double high, double& out) 
   double v = it->get<double>();
   if (std::isfinite(v) && v >= low && v <= high) out = v;
 }
+// When a value was entered, seconds since 1970: 0 (unknown) … the year 2100.
+std::int64_t read_entered_at(const Json& j, const char* key, std::int64_t fallback) {
+  double at = static_cast<double>(fallback);
+  read(j, key, 0.0, 4102444800.0, at);
+  return static_cast<std::int64_t>(at);
+}
+
 void read(const Json& j, const char* key, bool& out) {
   auto it = j.find(key);
   if (it != j.end() && it->is_boolean()) out = it->get<bool>();
@@ -119,6 +126,7 @@ std::string state_to_json(const AppState& state) {
                     {"month", s.month},
                     {"spo2_measured", s.spo2_measured},
                     {"spo2", s.spo2.in(fraction)},
+                    {"spo2_entered_at", s.spo2_entered_at},
                     {"time_at_altitude_h", s.time_at_altitude.in(hours)},
                     {"distress", s.distress},
                     {"on_oxygen", s.on_oxygen},
@@ -177,9 +185,7 @@ bool state_from_json(AppState& state, const std::string& text) {
   // or stepped by someone; 3,000 m may be the default nobody entered, so it shows empty.
   s.altitude_entered = si.contains("altitude_m") && s.altitude.in(metres) != 3000.0;
   read(si, "altitude_entered", s.altitude_entered);
-  double entered_at = static_cast<double>(s.altitude_entered_at);
-  read(si, "altitude_entered_at", 0.0, 4102444800.0, entered_at);  // up to the year 2100
-  s.altitude_entered_at = static_cast<std::int64_t>(entered_at);
+  s.altitude_entered_at = read_entered_at(si, "altitude_entered_at", s.altitude_entered_at);
   read(si, "station_pa", pascals, atmosphere::kStationReadingRange, s.station_reading);
   read(si, "qnh_pa", pascals, atmosphere::kQnhRange, s.qnh);
   read(si, "temperature_known", s.qnh_temperature_known);
@@ -190,6 +196,7 @@ bool state_from_json(AppState& state, const std::string& text) {
   read(si, "month", 1, 12, s.month);
   read(si, "spo2_measured", s.spo2_measured);
   read(si, "spo2", fraction, 0.3, 1.0, s.spo2);
+  s.spo2_entered_at = read_entered_at(si, "spo2_entered_at", s.spo2_entered_at);
   bool acclimatised = false;  // saved by versions with two states only: the preset
   read(si, "acclimatised", acclimatised);
   if (acclimatised) s.time_at_altitude = cascade::preset_time_at_altitude(cascade::Exposure::Acclimatised);

@@ -40,11 +40,14 @@ class Platform {
   // platform cannot (the UI then says where the CLI can write it instead).
   virtual bool open_html_document(std::string_view title, std::string_view html) = 0;
 
-  // [Files the user shares: the team profile.] Asks for a file to import. Web: opens the
-  // browser's file picker (`path` unused), the answer arrives later; native: reads `path`.
-  // Returns false when nothing can be asked. The picked file is collected with
-  // take_imported_file() on a later frame (once).
-  virtual bool request_file_import(std::string_view path) { return (void)path, false; }
+  // [Files the user shares: the team profile, the incident record (ui/file_exchange.hpp).]
+  // Asks for a file to import. Web: opens the browser's file picker (`path` and `default_name`
+  // unused), the answer arrives later; native: reads `path`, or `default_name` in the storage
+  // folder when no path was typed. Returns false when nothing can be asked. The picked file is
+  // collected with take_imported_file() on a later frame (once).
+  virtual bool request_file_import(std::string_view path, std::string_view default_name) {
+    return (void)path, (void)default_name, false;
+  }
   // True where the file to import is named by a typed path (a desktop keyboard), false where
   // the platform's own picker names it.
   virtual bool imports_by_path() const { return false; }

@@ -167,7 +167,9 @@ void plot_vline(const Plot& plot, double x, ImU32 colour, const std::string& lab
 }
 
 void plot_text(const Plot& plot, PlotPoint p, ImU32 colour, const std::string& text) {
-  plot.draw->AddText(plot.at(p.x, p.y), colour, text.c_str());
+  ImVec2 at = plot.at(p.x, p.y);
+  at.x = std::min(at.x, plot.max.x - ImGui::CalcTextSize(text.c_str()).x);  // never past the right edge
+  plot.draw->AddText(at, colour, text.c_str());
 }
 
 void plot_legend(const AppState&, const std::vector<std::pair<ImU32, std::string>>& entries) {

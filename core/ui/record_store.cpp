@@ -60,6 +60,20 @@ void new_incident(RecordStore& store, Platform& platform) {
   save(store, platform);
 }
 
+Result<std::string> import_record(RecordStore& store, Platform& platform, std::string_view text,
+                                  std::string_view source) {
+  Result<record::Record> parsed = record::parse_record(text);
+  if (!parsed) {
+    return Error{std::string(source) + " was not imported, nothing changed: " + parsed.error().message};
+  }
+  bool archived = !store.record.entries.empty();
+  new_incident(store, platform);
+  store.record = parsed.value();
+  save(store, platform);
+  return std::string(source) + " imported: " + std::to_string(store.record.entries.size()) + " entries" +
+         (archived ? "; the incident before it was archived." : ".");
+}
+
 void delete_all_records(RecordStore& store, Platform& platform) {
   for (int slot = 1; slot <= kArchiveSlots; ++slot) platform.save_text(archive_key(slot), "");
   platform.save_text(kBadRecordKey, "");
@@ -67,10 +81,61 @@ void delete_all_records(RecordStore& store, Platform& platform) {
   save(store, platform);
 }
 
+Result<record::ClockTime> typed_entry_time(const RecordStore& store, std::string_view typed,
+                                           record::ClockTime now) {
+  const auto& entries = store.record.entries;
+  record::ClockTime low = entries.size() > 1 ? entries.front().time
+                                             : record::ClockTime{now.minutes - kInProgressHours * 60};
+  std::string range = "between " + record::clock_hhmm(low) + " and " + record::clock_hhmm(now) +
+                      (entries.size() > 1 ? " (the incident's start and now)" : " (the last 24 h)");
+  int hours = -1, minutes = -1;
+  size_t mark = typed.find_first_of(".:");
+  auto whole = [](std::string_view digits, int& out) {
+    if (digits.empty() || digits.size() > 4) return false;
+    out = 0;
+    for (char c : digits) {
+      if (c < '0' || c > '9') return false;
+      out = out * 10 + (c - '0');
+    }
+    return true;
+  };
+  bool read = false;
+  if (mark != std::string_view::npos) {
+    read = mark <= 2 && typed.size() - mark - 1 == 2 && whole(typed.substr(0, mark), hours) &&
+           whole(typed.substr(mark + 1), minutes);
+  } else if (typed.size() == 3 || typed.size() == 4) {
+    int n = 0;
+    read = whole(typed, n);
+    hours = n / 100;
+    minutes = n % 100;
+  }
+  if (!read || hours > 23 || minutes > 59) {
+    return Error{"Type the time as hours and minutes, e.g. 1405 for 14:05, " + range + "."};
+  }
+  record::ClockTime t{now.minutes - now.minutes % (24 * 60) + hours * 60 + minutes};
+  if (t > now) t.minutes -= 24 * 60;
+  if (t < low) return Error{"The time must be " + range + " (got " + record::clock_hhmm(t) + ")."};
+  return t;
+}
+
+bool retime_latest_entry(RecordStore& store, Platform& platform, record::ClockTime time) {
+  if (store.record.entries.empty()) return false;
+  record::Entry moved = store.record.entries.back();
+  store.record.entries.pop_back();
+  moved.time = time;
+  return add_entry(store, platform, moved);
+}
+
 int archived_count(Platform& platform) {
   int count = 0;
   for (int slot = 1; slot <= kArchiveSlots; ++slot) count += has_text(platform.load_text(archive_key(slot)));
   return count;
+}
+
+bool incident_in_progress(const RecordStore& store, record::ClockTime now) {
+  if (store.record.entries.empty()) return false;
+  std::int64_t since_last = record::minutes_between(store.record.entries.back().time, now);
+  return since_last <= kInProgressHours * 60;
 }
 
 record::ClockTime clock_now() {

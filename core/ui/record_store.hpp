@@ -30,12 +30,31 @@ void load_record(RecordStore& store, Platform& platform);
 bool add_entry(RecordStore& store, Platform& platform, const record::Entry& entry);
 // Archives the current incident (if it has entries) and starts an empty one.
 void new_incident(RecordStore& store, Platform& platform);
+// Makes a record file (the one `firn handover --record` reads) the current incident, the current
+// one archived first as by new_incident. Unreadable: nothing changes, the error names each
+// problem with its path and valid range. Returns what was imported, in words, or the error.
+inline constexpr const char* kRecordExportName = "firn-incident-record.json";
+Result<std::string> import_record(RecordStore& store, Platform& platform, std::string_view text,
+                                  std::string_view source);
 // Deletes the current incident and every archived one (privacy), leaving an empty record.
 void delete_all_records(RecordStore& store, Platform& platform);
+// A clock time the medic types for the latest entry ("1405", "905", "14.05"), on the day of
+// `now` (the day before if that would be later than now). Valid from the incident's start (its
+// first entry; for a lone entry, kInProgressHours before now) to now: otherwise a message with
+// that range.
+Result<record::ClockTime> typed_entry_time(const RecordStore& store, std::string_view typed,
+                                           record::ClockTime now);
+// Moves the latest entry to `time` (the record stays in time order) and saves.
+bool retime_latest_entry(RecordStore& store, Platform& platform, record::ClockTime time);
 // How many archived incidents are stored.
 int archived_count(Platform& platform);
 
 // The device's clock now, as the record writes it (local time).
 record::ClockTime clock_now();
+
+// An incident is in progress while its record has entries and the last is at most this old:
+// the app then opens on the Record screen (an older record stays, and is not pushed forward).
+inline constexpr int kInProgressHours = 24;
+bool incident_in_progress(const RecordStore& store, record::ClockTime now);
 
 }  // namespace firn::ui

@@ -8,8 +8,7 @@ namespace firn::ui {
 namespace {
 
 void tell(RouteState& route, std::string text, bool problem) {
-  route.message = std::move(text);
-  route.message_is_problem = problem;
+  route.file.tell(std::move(text), problem);
 }
 
 }  // namespace

@@ -22,7 +22,7 @@ inline constexpr const char* kRouteExportFileName = "firn-route.json";
 inline constexpr const char* kRouteImportFileName = "route-import.json";  // native, no path typed
 
 // At the Route screen's first draw: the saved route, or the usual carry-out (nothing saved, or
-// unreadable: then the text is kept as kBadRouteKey and route.message says so).
+// unreadable: then the text is kept as kBadRouteKey and route.file.message says so).
 void load_route(RouteState& route, const team_profile::TeamProfile& profile, Platform& platform);
 // Writes the route file only when it differs from what was last written and makes a plan (a route
 // the plan refuses is not saved: the last one that planned stays); a refused write is said once.

@@ -8,10 +8,7 @@ namespace tp = team_profile;
 
 namespace {
 
-void tell(TeamState& team, std::string text, bool problem) {
-  team.message = std::move(text);
-  team.message_is_problem = problem;
-}
+void tell(TeamState& team, std::string text, bool problem) { team.file.tell(std::move(text), problem); }
 
 void append_status(AppState& state, const std::string& text) {
   if (!state.status_message.empty()) state.status_message += "\n";

@@ -9,7 +9,7 @@ import assert from 'node:assert/strict';
 import {join} from 'node:path';
 import {after, before, describe, test} from 'node:test';
 
-import {PHONE_DPR, launchBrowser, pause, requiredEnv, screenshotDir, waitForApp} from './browser.mjs';
+import {PHONE_DPR, launchBrowser, openPhone as openPhoneAt, pause, requiredEnv, screenshotDir} from './browser.mjs';
 import {serveSite} from '../../web/serve.mjs';
 
 const site = requiredEnv('FIRN_SITE', 'the built site folder (build/web/site)');
@@ -31,109 +31,7 @@ after(async () => {
   await server?.close();
 });
 
-class Phone {
-  constructor(page, cdp) { Object.assign(this, {page, cdp, dragMs: []}); }
-
-  async items() {
-    return this.page.evaluate(() => {
-      const ratio = window.devicePixelRatio || 1;
-      return (window.firnTestItems ?? []).map((i) => ({...i, x: i.x / ratio, y: i.y / ratio,
-                                                        w: i.w / ratio, h: i.h / ratio}));
-    });
-  }
-  async find(label) { return (await this.items()).find((i) => i.label === label); }
-  async item(label, timeout = 3000) {
-    const end = Date.now() + timeout;
-    for (;;) {
-      const found = await this.find(label);
-      if (found) return found;
-      if (Date.now() > end) assert.fail(`no item "${label}": ${(await this.items()).map((i) => i.label).join(', ')}`);
-      await pause(50);
-    }
-  }
-  async waitText(label, predicate, timeout = 4000) {
-    const end = Date.now() + timeout;
-    let last;
-    while (Date.now() < end) {
-      last = (await this.find(label))?.text;
-      if (last !== undefined && predicate(last)) return last;
-      await pause(50);
-    }
-    assert.fail(`"${label}" shows ${JSON.stringify(last)} after ${timeout} ms`);
-  }
-  async framesPass(count, timeout = 3000) {
-    const frames = () => this.page.evaluate(() => window.firnFramesDrawn ?? 0);
-    const start = await frames();
-    const end = Date.now() + timeout;
-    while ((await frames()) < start + count && Date.now() < end) await pause(20);
-  }
-  async navBottom() {
-    const nav = (await this.items()).filter((i) => i.label === 'Here' || i.label === 'Settings');
-    return Math.min(...nav.map((i) => i.y));
-  }
-
-  // A thumb drag from (x, y) by dy CSS px (and dx sideways): `steps` moves, `stepMs` apart (0:
-  // a flick whose moves all land within one frame).
-  async drag(x, y, dy, {steps = 8, stepMs = 40, dx = 0} = {}) {
-    const began = Date.now();
-    const at = (k) => [{x: x + (dx * k) / steps, y: y + (dy * k) / steps}];
-    await this.cdp.send('Input.dispatchTouchEvent', {type: 'touchStart', touchPoints: at(0)});
-    for (let k = 1; k <= steps; ++k) {
-      if (stepMs) await pause(stepMs);
-      await this.cdp.send('Input.dispatchTouchEvent', {type: 'touchMove', touchPoints: at(k)});
-    }
-    await this.cdp.send('Input.dispatchTouchEvent', {type: 'touchEnd', touchPoints: []});
-    await this.framesPass(3);
-    await pause(100);
-    this.dragMs.push(Date.now() - began);
-  }
-
-  async tap(label) {
-    const target = await this.item(label);
-    await this.page.touchscreen.tap(target.x + target.w / 2, target.y + target.h / 2);
-    await this.framesPass(2);
-    await pause(80);
-  }
-
-  // Scrolls (by dragging from the column's left edge) until `label` is well inside the content
-  // area, away from its edges; stops when a drag no longer moves it (the end of the page).
-  async centre(label) {
-    let target = await this.item(label);
-    for (let attempt = 0; attempt < 6; ++attempt) {
-      const bottom = await this.navBottom();
-      const middle = target.y + target.h / 2;
-      if (middle > bottom * 0.2 && middle < bottom * 0.8) return target;
-      const offset = middle - bottom / 2;
-      const dy = -Math.sign(offset) * Math.min(Math.abs(offset), bottom * 0.4);
-      // Maybe over a control: a drag never fires one (that is what these tests check).
-      await this.drag(14, dy < 0 ? bottom * 0.8 : bottom * 0.2, dy);
-      const moved = await this.item(label);
-      if (Math.abs(moved.y - target.y) < 1) return moved;
-      target = moved;
-    }
-    return target;
-  }
-
-  async screen(name) {
-    await this.tap(name);
-    await this.waitText(name, (t) => t === 'selected');
-  }
-
-  async enter(field, keys) {
-    await this.tap(field);
-    await this.item('Keypad value');
-    for (const c of keys) await this.tap(`Key ${c}`);
-    await this.tap('Key OK');
-  }
-}
-
-async function openPhone() {
-  const context = await browser.newContext(PHONE);
-  const page = await context.newPage();
-  await page.goto(server.url);
-  await waitForApp(page);
-  return new Phone(page, await context.newCDPSession(page));
-}
+const openPhone = () => openPhoneAt(browser, server.url, PHONE);
 
 describe(`phone 390×844 dpr ${DPR}, touch`, () => {
   let phone;

@@ -151,19 +151,19 @@ TEST_CASE("route screen: a route file loads by its typed path; a bad one changes
     "casualty": {"device": "mask"},
     "legs": [{"kind": "carry", "from": "4200m", "to": "3900m", "duration": "45min"}],
     "stock": {"cylinders": [{"type": "3 L composite", "pressure": "250bar"}], "margin": "20min"}})";
-  std::snprintf(state.route.import_path, sizeof state.route.import_path, "%s", "/field/short.json");
+  std::snprintf(state.route.file.import_path, sizeof state.route.file.import_path, "%s", "/field/short.json");
   ui.tap(state, "Load a route file");
   CHECK(ui.platform.requested_path == "/field/short.json");
   CHECK(state.route.input.name == "Short carry");
   CHECK(ui.text(state, "Verdict").find(model_verdict(state.route.input)) != std::string::npos);
   CHECK(ui.text(state, "Route message") == "Loaded short.json: Short carry.");
 
-  std::snprintf(state.route.import_path, sizeof state.route.import_path, "%s", "/field/missing.json");
+  std::snprintf(state.route.file.import_path, sizeof state.route.file.import_path, "%s", "/field/missing.json");
   ui.tap(state, "Load a route file");
   CHECK(state.route.input.name == "Short carry");
-  CHECK(ui.text(state, "Route message") == "Nothing loaded: cannot read /field/missing.json");
+  CHECK(ui.text(state, "Route message") == "Nothing imported: cannot read /field/missing.json");
   // Nothing typed: the file in the storage folder, named for routes (not the profile's).
-  state.route.import_path[0] = '\0';
+  state.route.file.import_path[0] = '\0';
   ui.tap(state, "Load a route file");
   CHECK(ui.platform.requested_path == ui.platform.storage_location() + "/" + kRouteImportFileName);
 }

@@ -27,7 +27,7 @@ TEST_CASE("route store: the edited route survives a restart, as a route file", "
   RouteState route;
   load_route(route, demo(), storage);
   REQUIRE(route.loaded);
-  CHECK(route.message.empty());
+  CHECK(route.file.message.empty());
   CHECK(route.input.name == route::read_route_file(route::demo_route_json(), demo())->name);
   // The medic's edits: a leg's time, a gauge, the device, the start time.
   route.input.legs[1].duration = units::minutes(150);
@@ -41,7 +41,7 @@ TEST_CASE("route store: the edited route survives a restart, as a route file", "
 
   RouteState restarted;
   load_route(restarted, demo(), storage);
-  CHECK(restarted.message.empty());
+  CHECK(restarted.file.message.empty());
   CHECK(restarted.input.legs.size() == route.input.legs.size());
   CHECK(restarted.input.legs[1].duration.in(units::minutes) == Approx(150));
   CHECK(restarted.input.stock.cylinders[0].gauge.in(units::bar) == Approx(120));
@@ -61,9 +61,9 @@ TEST_CASE("route store: an unreadable saved route is kept as a backup and said",
   RouteState route;
   load_route(route, demo(), storage);
   CHECK(storage.stored[kBadRouteKey] == damaged);
-  CHECK(route.message_is_problem);
-  CHECK_THAT(route.message, Catch::Contains("saved route could not be read"));
-  CHECK_THAT(route.message, Catch::Contains(kBadRouteKey));
+  CHECK(route.file.message_is_problem);
+  CHECK_THAT(route.file.message, Catch::Contains("saved route could not be read"));
+  CHECK_THAT(route.file.message, Catch::Contains(kBadRouteKey));
   CHECK(route.input.legs.size() == 6);  // the usual carry-out (assets/demo-route.json)
   save_route_if_changed(route, storage);  // the backup is safe: the usual route is saved
   CHECK(route::check_route_file(storage.stored[kRouteKey], demo()).empty());
@@ -76,7 +76,7 @@ TEST_CASE("route store: an unreadable saved route is kept as a backup and said",
   RouteState again;
   load_route(again, other, storage);
   CHECK(storage.stored[kBadRouteKey] == saved);
-  CHECK_THAT(again.message, Catch::Contains("\"2 L alloy\" is not a cylinder type"));
+  CHECK_THAT(again.file.message, Catch::Contains("\"2 L alloy\" is not a cylinder type"));
 }
 
 TEST_CASE("route store: a refused write is said once; a route with no plan is not saved", "[route]") {
@@ -85,7 +85,7 @@ TEST_CASE("route store: a refused write is said once; a route with no plan is no
   load_route(route, demo(), storage);
   storage.refuse_writes = true;
   save_route_if_changed(route, storage);
-  CHECK_THAT(route.message, Catch::Contains("could not be saved"));
+  CHECK_THAT(route.file.message, Catch::Contains("could not be saved"));
   int writes = storage.writes;
   save_route_if_changed(route, storage);
   CHECK(storage.writes == writes);  // not retried every frame
@@ -110,9 +110,9 @@ TEST_CASE("route store: a route file and the profile's cylinders load whole or n
   CHECK_FALSE(import_route(route, demo(), R"({"schema_version": 1, "name": "x", "legs": []})",
                            "mine.json"));
   CHECK(route.input.legs.size() == legs);
-  CHECK(route.message_is_problem);
-  CHECK_THAT(route.message, Catch::Contains("mine.json was not loaded, nothing changed"));
-  CHECK_THAT(route.message, Catch::Contains("legs: 0 entries is outside 1"));
+  CHECK(route.file.message_is_problem);
+  CHECK_THAT(route.file.message, Catch::Contains("mine.json was not loaded, nothing changed"));
+  CHECK_THAT(route.file.message, Catch::Contains("legs: 0 entries is outside 1"));
 
   std::string two_legs = R"({"schema_version": 1, "name": "Short carry", "casualty": {"device": "mask"},
     "legs": [{"kind": "carry", "from": "4200m", "to": "3900m", "duration": "45min"},
@@ -121,7 +121,7 @@ TEST_CASE("route store: a route file and the profile's cylinders load whole or n
   REQUIRE(import_route(route, demo(), two_legs, "short.json"));
   CHECK(route.input.name == "Short carry");
   CHECK(route.input.legs.size() == 2);
-  CHECK_FALSE(route.message_is_problem);
+  CHECK_FALSE(route.file.message_is_problem);
 
   REQUIRE(use_profile_stock(route, demo()));
   const team_profile::EvacuationSection& e = *demo().evacuation;
@@ -133,6 +133,6 @@ TEST_CASE("route store: a route file and the profile's cylinders load whole or n
   team_profile::TeamProfile none = demo();
   none.evacuation.reset();
   CHECK_FALSE(use_profile_stock(route, none));
-  CHECK_THAT(route.message, Catch::Contains("no evacuation section"));
+  CHECK_THAT(route.file.message, Catch::Contains("no evacuation section"));
   CHECK(route.input.stock.cylinders.size() == e.cylinders.size());
 }

@@ -8,6 +8,9 @@
 #include <cmath>
 #include <functional>
 #include <map>
+#include <utility>
+
+#include "ui_harness.hpp"
 
 #include "model/atmosphere.hpp"
 #include "model/casualty_spo2.hpp"
@@ -24,98 +27,9 @@
 
 using namespace firn;
 using namespace firn::ui;
+using namespace firn::ui::testing;
 
 namespace {
-
-class MemoryPlatform : public Platform {
- public:
-  std::map<std::string, std::string> stored;
-  std::optional<std::string> load_text(std::string_view key) override {
-    auto it = stored.find(std::string(key));
-    if (it == stored.end()) return std::nullopt;
-    return it->second;
-  }
-  bool save_text(std::string_view key, std::string_view text) override {
-    stored[std::string(key)] = std::string(text);
-    return true;
-  }
-  bool open_html_document(std::string_view, std::string_view) override { return false; }
-  void publish_test_items(std::string_view) override {}
-  std::string_view name() const override { return "test"; }
-};
-
-// One ImGui context per test, no renderer: Render() only builds draw lists.
-struct Headless {
-  Headless() {
-    ImGui::CreateContext();
-    ImGuiIO& io = ImGui::GetIO();
-    io.DisplaySize = ImVec2(390, 844);
-    io.IniFilename = nullptr;
-    io.Fonts->AddFontDefault();
-    unsigned char* pixels = nullptr;
-    int w = 0, h = 0;
-    io.Fonts->GetTexDataAsAlpha8(&pixels, &w, &h);  // builds the atlas
-    for (int i = 0; i < ImGuiKey_COUNT; ++i) io.KeyMap[i] = i;
-  }
-  ~Headless() { ImGui::DestroyContext(); }
-
-  // When set, the frame draws this screen instead of `draw`.
-  void (*panel)(AppState&, Platform&) = nullptr;
-  MemoryPlatform platform;
-  // What a frame draws before the keypad: by default the altitude field (no "entered" flag).
-  std::function<void(AppState&)> draw = [](AppState& state) {
-    edit_quantity(state, altitude_field(state, "Altitude", "altitude"), state.situation.altitude);
-  };
-
-  // One frame with the panel (or `draw`) and the keypad; returns the labelled items.
-  nlohmann::json frame(AppState& state) {
-    ImGuiIO& io = ImGui::GetIO();
-    io.DeltaTime = 1.0f / 60.0f;
-    ImGui::NewFrame();
-    test_hook::begin_frame();
-    ++state.frames_drawn;
-    press_scrolls(state);  // as draw_frame does, before any widget
-    ImGui::SetNextWindowPos(ImVec2(0, 0));
-    ImGui::SetNextWindowSize(io.DisplaySize);
-    ImGui::Begin("test", nullptr, ImGuiWindowFlags_NoDecoration);
-    if (panel) {
-      panel(state, platform);
-    } else {
-      draw(state);
-    }
-    ImGui::End();
-    draw_keypad(state, io.DisplaySize.x, io.DisplaySize.y);
-    ImGui::Render();
-    for (bool& down : io.KeysDown) down = false;
-    return nlohmann::json::parse(test_hook::frame_json());
-  }
-
-  // Presses and releases the mouse on a labelled item, one frame each.
-  void click(AppState& state, const std::string& label) {
-    nlohmann::json items = frame(state);
-    bool found = false;
-    for (const auto& i : items) {
-      if (i["label"] != label) continue;
-      found = true;
-      ImGui::GetIO().MousePos = ImVec2(i["x"].get<float>() + i["w"].get<float>() / 2,
-                                       i["y"].get<float>() + i["h"].get<float>() / 2);
-    }
-    REQUIRE(found);
-    frame(state);  // hover
-    ImGui::GetIO().MouseDown[0] = true;
-    frame(state);
-    ImGui::GetIO().MouseDown[0] = false;
-    frame(state);
-    frame(state);  // the field takes a committed value on the next draw
-  }
-
-  std::string text(AppState& state, const std::string& label) {
-    for (const auto& i : frame(state)) {
-      if (i["label"] == label) return i["text"];
-    }
-    return "(absent)";
-  }
-};
 
 // A state whose altitude someone entered (the screens give no figures before one is).
 void enter_altitude(AppState& state, double metres) {
@@ -413,9 +327,6 @@ void draw_situation_altitude(AppState& state) {
   edit_quantity(state, situation_altitude_field(state, "Altitude"), state.situation.altitude);
 }
 
-void type_on_keypad(Headless& ui, AppState& state, const std::string& keys) {
-  for (char c : keys) ui.click(state, std::string("Key ") + c);
-}
 
 }  // namespace
 

@@ -1,0 +1,164 @@
+// Issue 16 on the screens without GL: the Record screen's timers (and their wake) only for an
+// incident in progress, export and import of the record file, the latest entry's time corrected
+// on the keypad; restored values elsewhere show when they were entered.
+#include "ui_harness.hpp"
+
+#include "model/incident_record.hpp"
+#include "ui/panels.hpp"
+#include "ui/persistence.hpp"
+#include "ui/record_store.hpp"
+
+using namespace firn;
+using namespace firn::ui;
+using namespace firn::ui::testing;
+
+// Issue 16: a value restored from an earlier session shows when it was entered and, from an
+// hour on, how long ago; a value entered now shows only its time (the age would go stale).
+TEST_CASE("restored values show when they were entered and how long ago") {
+  std::int64_t now = now_seconds();
+  CHECK(entered_note(now).find("ago") == std::string::npos);
+  CHECK(entered_note(now - 59 * 60).find("ago") == std::string::npos);
+  CHECK(entered_note(now - 3 * 3600 - 60).find(", 3 h ago") != std::string::npos);
+  CHECK(entered_note(now - 3 * 86400).find(", 3 d ago") != std::string::npos);
+  CHECK(entered_note(0).empty());  // unknown: no made-up time
+  CHECK(ago_text(0) == "just now");
+  CHECK(ago_text(59) == "59 min ago");
+  CHECK(ago_text(60) == "1 h ago");
+  CHECK(ago_text(48 * 60 - 1) == "47 h ago");
+  CHECK(ago_text(48 * 60) == "2 d ago");
+  AppState state;
+  state.situation.spo2_measured = true;
+  state.situation.spo2 = units::percent(68.0);
+  state.situation.spo2_entered_at = now - 3 * 3600 - 60;
+  AppState back;
+  REQUIRE(state_from_json(back, state_to_json(state)));
+  CHECK(back.situation.spo2_entered_at == state.situation.spo2_entered_at);
+  Headless ui;
+  ui.panel = draw_casualty_panel;
+  std::string note = ui.text(back, "Measured SpO2 note");
+  CHECK(note.rfind("entered ", 0) == 0);
+  CHECK(note.find(", 3 h ago") != std::string::npos);
+  ui.click(back, "Measured SpO2");  // measured again: stamped now, no age
+  type_on_keypad(ui, back, "81");
+  ui.click(back, "Key OK");
+  CHECK(back.situation.spo2_entered_at >= now);
+  CHECK(ui.text(back, "Measured SpO2 note").find("ago") == std::string::npos);
+  AppState older;  // saved before the time was kept: said, never a made-up time
+  REQUIRE(state_from_json(older, R"({"version":1,"situation":{"spo2_measured":true,"spo2":0.7}})"));
+  CHECK(ui.text(older, "Measured SpO2 note") == "when: not known (saved by an older Firn)");
+}
+
+// Issue 16: the SpO2 check timer runs (and asks for a wake at its next minute) only for an
+// incident in progress; a record left from days ago shows its age and wakes nothing.
+TEST_CASE("record timers only for an incident in progress") {
+  auto record_with_spo2_at = [](record::ClockTime t) {
+    record::Record r;
+    record::Entry e;
+    e.time = t;
+    e.kind = record::Kind::Observation;
+    e.spo2 = units::percent(80.0);
+    e.breathing = record::Breathing{std::nullopt, units::litres_per_minute(0.0)};
+    r.entries.push_back(e);
+    return record::write_record(r);
+  };
+  auto verdicts = [](const nlohmann::json& items) {
+    std::string all;
+    for (const auto& i : items) {
+      if (i["label"].get<std::string>().rfind("Verdict", 0) == 0) all += i["text"].get<std::string>() + "\n";
+    }
+    return all;
+  };
+  record::ClockTime now = clock_now();
+  {
+    Headless ui;
+    ui.panel = draw_record_panel;
+    ui.platform.stored[kRecordKey] = record_with_spo2_at(record::ClockTime{now.minutes - 5});
+    AppState state;
+    CHECK(verdicts(ui.frame(state)).find("Next SpO2 check in 10 min") != std::string::npos);
+    CHECK(state.wake_after_seconds > 0.0);
+    CHECK(state.wake_after_seconds <= 60.0);
+  }
+  Headless ui;
+  ui.panel = draw_record_panel;
+  ui.platform.stored[kRecordKey] = record_with_spo2_at(record::ClockTime{now.minutes - 3 * 24 * 60});
+  AppState state;
+  nlohmann::json items = ui.frame(state);
+  CHECK(verdicts(items).find("SpO2 check") == std::string::npos);
+  CHECK(state.wake_after_seconds == 0.0);
+  bool said = false;
+  for (const auto& i : items) said |= i["text"].get<std::string>().find("3 d ago: no timers") != std::string::npos;
+  CHECK(said);
+}
+
+// Issue 16: the Record screen exports the file the CLI reads and imports one through the
+// platform's file exchange (the Team screen's path); a missing file is said, nothing changes.
+TEST_CASE("record screen: export and import of the record file") {
+  Headless ui;
+  ImGui::GetIO().DisplaySize = ImVec2(390, 4000);  // the whole screen without scrolling
+  ui.panel = draw_record_panel;
+  record::Record r;
+  r.incident = "DEMO";
+  record::Entry e;
+  e.time = record::ClockTime{clock_now().minutes - 5};
+  e.kind = record::Kind::Observation;
+  e.spo2 = units::percent(77.0);
+  e.breathing = record::Breathing{std::nullopt, units::litres_per_minute(0.0)};
+  r.entries.push_back(e);
+  ui.platform.stored[kRecordKey] = record::write_record(r);
+  AppState state;
+  ui.click(state, "Export record");
+  CHECK(ui.platform.downloads[kRecordExportName] == ui.platform.stored[kRecordKey]);
+  CHECK(state.record.file.message == "Record exported to memory/" + std::string(kRecordExportName) + ".");
+
+  ui.click(state, "Import record");  // nothing typed, no incident-import.json
+  CHECK(state.record.file.message == "Nothing imported: cannot read memory/incident-import.json");
+  CHECK(state.record.store.record.entries.size() == 1);
+
+  r.entries.push_back(e);
+  r.entries.back().spo2 = units::percent(85.0);
+  ui.platform.files["memory/incident-import.json"] = record::write_record(r);
+  ui.click(state, "Import record");
+  CHECK(state.record.file.message == "incident-import.json imported: 2 entries; the incident before it was archived.");
+  REQUIRE(state.record.store.record.entries.size() == 2);
+  CHECK(ui.platform.stored[kRecordKey] == record::write_record(r));
+  CHECK(ui.text(state, "SpO2 trend").rfind("2 SpO2 points:", 0) == 0);
+}
+
+// Issue 16: the latest entry's time, corrected on the keypad; a time before the incident's
+// start is refused with the valid range and changes nothing.
+TEST_CASE("record screen: the latest entry's time corrected on the keypad") {
+  Headless ui;
+  ImGui::GetIO().DisplaySize = ImVec2(390, 4000);
+  ui.panel = draw_record_panel;
+  record::ClockTime now = clock_now();
+  record::Record r;
+  for (int ago : {10, 5}) {
+    record::Entry e;
+    e.time = record::ClockTime{now.minutes - ago};
+    e.kind = ago == 10 ? record::Kind::Observation : record::Kind::BagStart;
+    if (ago == 10) e.spo2 = units::percent(70.0);
+    r.entries.push_back(e);
+  }
+  ui.platform.stored[kRecordKey] = record::write_record(r);
+  auto digits = [](record::ClockTime t) {
+    std::string hhmm = record::clock_hhmm(t);
+    return hhmm.substr(0, 2) + hhmm.substr(3);
+  };
+  AppState state;
+  CHECK(ui.text(state, "Time of the latest entry") == record::clock_hhmm(r.entries[1].time) + " (bag start)");
+  ui.click(state, "Time of the latest entry");
+  type_on_keypad(ui, state, digits(record::ClockTime{now.minutes - 20}));  // the first key replaces
+  ui.click(state, "Key OK");
+  CHECK(ui.text(state, "Warning").find("between " + record::clock_hhmm(r.entries[0].time) + " and ") !=
+        std::string::npos);
+  CHECK(state.record.store.record.entries.back().kind == record::Kind::BagStart);
+  ui.click(state, "Time of the latest entry");
+  type_on_keypad(ui, state, digits(r.entries[0].time));
+  ui.click(state, "Key OK");
+  CHECK(ui.text(state, "Warning") == "(absent)");
+  // Moved to the incident's start: equal times keep the moved one after (time order kept).
+  REQUIRE(state.record.store.record.entries.size() == 2);
+  CHECK(state.record.store.record.entries[1].time == r.entries[0].time);
+  CHECK(state.record.store.record.entries[1].kind == record::Kind::BagStart);
+  CHECK(record::parse_record(ui.platform.stored[kRecordKey])->entries[1].time == r.entries[0].time);
+}
