@@ -14,5 +14,7 @@ set(FIRN_WEB_LINK_FLAGS
 # goes (firn.js 146 → 95 KB raw, 38 → 25 KB gzip). The bare example keeps it: it saves
 # imgui.ini through stdio, and without a file system that write throws and stops its loop.
 set(FIRN_WEB_PAGE_ONLY_LINK_FLAGS -sFILESYSTEM=0)
-# Release and MinSizeRel builds optimise every library and the link for size.
-set(FIRN_WEB_SIZE_FLAG -Oz)
+# Release and MinSizeRel builds optimise every library and the link for size, across files
+# (-flto: the objects are LLVM bitcode, optimised together at the link; Firn's wasm −13.5 KB
+# gzip, the link ~20 s longer; docs/BENCHMARKS.md).
+set(FIRN_WEB_SIZE_FLAG -Oz -flto)
