@@ -9,7 +9,7 @@ import {dirname, join, resolve} from 'node:path';
 import {fileURLToPath} from 'node:url';
 
 import {launch, pause} from '../browser/browser.mjs';
-import {serveSite} from '../browser/serve.mjs';
+import {serveSite} from '../../web/serve.mjs';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const root = resolve(here, '../..');
