@@ -16,5 +16,6 @@ set(FIRN_WEB_LINK_FLAGS
 set(FIRN_WEB_PAGE_ONLY_LINK_FLAGS -sFILESYSTEM=0)
 # Release and MinSizeRel builds optimise every library and the link for size, across files
 # (-flto: the objects are LLVM bitcode, optimised together at the link; Firn's wasm −13.5 KB
-# gzip, the link ~20 s longer; docs/BENCHMARKS.md).
-set(FIRN_WEB_SIZE_FLAG -Oz -flto)
+# gzip, the link ~20 s longer), without RTTI (nothing uses typeid or dynamic_cast: −1.6 KB;
+# docs/BENCHMARKS.md).
+set(FIRN_WEB_SIZE_FLAG -Oz -flto -fno-rtti)
