@@ -17,13 +17,14 @@ LOGS="$ROOT/build/logs"
 
 # Debian packages: compilers and build tools, Emscripten, GLFW, Catch2, JSON and argument
 # parsing, stb, the UI font, fonttools (font subsetting), Xvfb + Mesa (software GL), Chromium
-# (browser tests, card PDF), poppler (PDF checks), librsvg (icons), dpkg-dev (apt-get source),
+# (browser tests, card PDF), poppler (PDF checks), librsvg (icons), node-terser (the page's glue
+# script minified), dpkg-dev (apt-get source),
 # clang-14 + libclang-rt-14-dev (ASan/UBSan unit tests and libFuzzer targets, docs/hardening.md),
 # python3-fluids (reference atmospheres the tests check against; Debian's python3, not pyenv's).
 PACKAGES=(build-essential cmake pkg-config git ca-certificates xz-utils dpkg-dev
   emscripten libglfw3-dev libgl-dev libegl-dev libgl1-mesa-dri catch2 nlohmann-json3-dev
   libcli11-dev libstb-dev fonts-dejavu-core fonttools xvfb xauth chromium poppler-utils
-  librsvg2-bin clang-14 libclang-rt-14-dev python3-fluids)
+  librsvg2-bin node-terser clang-14 libclang-rt-14-dev python3-fluids)
 
 say() { printf 'firn: %s\n' "$*"; }
 as_root() { if [ "$(id -u)" -eq 0 ]; then "$@"; else sudo "$@"; fi; }

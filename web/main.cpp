@@ -113,8 +113,8 @@ extern "C" EMSCRIPTEN_KEEPALIVE void firn_wake(void* runner_pointer) {
   }
 }
 
-// Bytes the app holds on its heap right now (dlmalloc's in-use total): the long-session browser
-// test checks that it stays level over thousands of interactions.
+// Bytes the app holds on its heap right now (emmalloc's in-use total): the long-session
+// browser test checks that it stays level over thousands of interactions.
 extern "C" EMSCRIPTEN_KEEPALIVE unsigned firn_heap_in_use() {
   return static_cast<unsigned>(mallinfo().uordblks);
 }

@@ -15,7 +15,7 @@
 
 namespace firn::ui {
 
-using Json = nlohmann::json;
+using Json = nlohmann::ordered_json;  // core/model's instantiation: one json type in the page
 using namespace units;
 
 namespace {

@@ -14,7 +14,7 @@ import {writeFileSync} from 'node:fs';
 import {loadavg} from 'node:os';
 
 import {launch, pause} from '../browser/browser.mjs';
-import {serveSite} from '../browser/serve.mjs';
+import {serveSite} from '../../web/serve.mjs';
 
 const options = {firn: '', bare: '', loads: 5, idle: 10, json: ''};
 const argv = process.argv.slice(2);
