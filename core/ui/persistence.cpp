@@ -15,7 +15,7 @@
 
 namespace firn::ui {
 
-using Json = nlohmann::ordered_json;  // core/model's instantiation: one json type in the page
+using Json = nlohmann::ordered_json;  // core/profile's instantiation: one json type in the page
 using namespace units;
 
 namespace {
