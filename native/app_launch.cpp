@@ -30,8 +30,15 @@ Result<bool> apply_launch_options(AppState& state, const std::string& screen,
     // The keypad open on the Here screen's altitude: for screenshots of the number entry.
     state.screen = Screen::Here;
     const units::Range<units::LengthDimension>& site = atmosphere::kSiteAltitudeRange;
-    state.keypad = Keypad{true, "altitude", "Altitude", range_text(site.low_in_unit(), site.high_in_unit(), "m", 0), "4250", false, {"m", "ft"}, 0, false, 0,
-                          /*allow_negative=*/true, /*allow_decimal=*/false};
+    state.keypad = Keypad{.open = true,
+                          .field_id = "altitude",
+                          .label = "Altitude",
+                          .hint = range_text(site.low_in_unit(), site.high_in_unit(), "m", 0),
+                          .text = "4250",
+                          .fresh = false,
+                          .unit_symbols = {"m", "ft"},
+                          .allow_negative = true,
+                          .allow_decimal = false};
   } else if (!screen.empty()) {
     Result<Screen> s = lookup<Screen>(kScreenKeys, screen, "screen");
     if (!s) return s.error();

@@ -75,7 +75,7 @@ std::string clock_text(ClockTime t) {
   std::int64_t days = t.minutes >= 0 ? t.minutes / 1440 : (t.minutes - 1439) / 1440;
   int in_day = static_cast<int>(t.minutes - days * 1440);
   Civil c = civil_from_days(days);
-  char buffer[40];
+  char buffer[64];  // room for any year GCC can imagine (-Wformat-truncation)
   std::snprintf(buffer, sizeof buffer, "%04lld-%02u-%02uT%02d:%02d",
                 static_cast<long long>(c.year), c.month, c.day, in_day / 60, in_day % 60);
   return buffer;

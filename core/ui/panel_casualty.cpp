@@ -42,12 +42,13 @@ std::string band_text(const expected_spo2::Band& band) {
 // invent a reading), and a Clear that makes it empty again.
 void spo2_field(AppState& state) {
   Situation& s = state.situation;
-  FieldSpec spec{"Measured SpO2", "spo2",
-                 s.spo2_measured ? percent_text(s.spo2) : std::string("not entered"),
-                 s.spo2_measured ? format_number(s.spo2.in(percent), 4) : std::string(),
-                 {"%"}, 0,
-                 format_number(kSpo2.low, 0) + "\xE2\x80\x93" + format_number(kSpo2.high, 0) + " %",
-                 s.spo2_measured};
+  FieldSpec spec{.label = "Measured SpO2",
+                 .id = "spo2",
+                 .shown = s.spo2_measured ? percent_text(s.spo2) : std::string("not entered"),
+                 .edit_text = s.spo2_measured ? format_number(s.spo2.in(percent), 4) : std::string(),
+                 .unit_symbols = {"%"},
+                 .hint = format_number(kSpo2.low, 0) + "\xE2\x80\x93" + format_number(kSpo2.high, 0) + " %",
+                 .steppers = s.spo2_measured};
   // When it was measured: a reading restored from an earlier session must not pass as current.
   if (s.spo2_measured) {
     spec.note = s.spo2_entered_at > 0 ? entered_note(s.spo2_entered_at) : "when: not known (saved by an older Firn)";

@@ -23,10 +23,13 @@ namespace {
 void edit_latitude(AppState& state, double& latitude_deg) {
   int south = latitude_deg < 0 ? 1 : 0;
   double size = std::fabs(latitude_deg);
-  FieldSpec spec{"Latitude", "latitude",
-                 shown_number(size, 1) + (south ? " \xC2\xB0S" : " \xC2\xB0N"),
-                 format_number(size, 4), {"\xC2\xB0N", "\xC2\xB0S"}, south,
-                 "0\xE2\x80\x93" "90 \xC2\xB0N or \xC2\xB0S", true};
+  FieldSpec spec{.label = "Latitude",
+                 .id = "latitude",
+                 .shown = shown_number(size, 1) + (south ? " \xC2\xB0S" : " \xC2\xB0N"),
+                 .edit_text = format_number(size, 4),
+                 .unit_symbols = {"\xC2\xB0N", "\xC2\xB0S"},
+                 .unit_index = south,
+                 .hint = "0\xE2\x80\x93" "90 \xC2\xB0N or \xC2\xB0S"};
   FieldEvent event = keypad_field(state, spec);
   if (event.kind == FieldEvent::Kind::None) return;
   if (event.kind == FieldEvent::Kind::Commit) {
@@ -50,8 +53,11 @@ void edit_latitude(AppState& state, double& latitude_deg) {
 
 // Month by name; ± step through the year, the keypad takes 1…12.
 void edit_month(AppState& state, int& month) {
-  FieldSpec spec{"Month", "month", month_name(month), std::to_string(month), {}, 0,
-                 "1\xE2\x80\x93" "12 (1 = January)", true};
+  FieldSpec spec{.label = "Month",
+                 .id = "month",
+                 .shown = month_name(month),
+                 .edit_text = std::to_string(month),
+                 .hint = "1\xE2\x80\x93" "12 (1 = January)"};
   FieldEvent event = keypad_field(state, spec);
   if (event.kind == FieldEvent::Kind::None) return;
   if (event.kind == FieldEvent::Kind::Commit) {

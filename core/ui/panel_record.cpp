@@ -94,9 +94,13 @@ void timers(AppState& state, const handover::Summary& s, ClockTime now) {
 void optional_field(AppState& state, const char* label, const char* id, const char* what,
                     std::optional<double>& value, double low, double high, const char* unit,
                     std::optional<int> last) {
-  FieldSpec spec{label, id, value ? format_number(*value, 0) + " " + unit : "\xE2\x80\x94  (tap to enter)",
-                 value ? format_number(*value, 0) : "", {unit}, 0,
-                 format_number(low, 0) + "\xE2\x80\x93" + format_number(high, 0) + " " + unit, false};
+  FieldSpec spec{.label = label,
+                 .id = id,
+                 .shown = value ? format_number(*value, 0) + " " + unit : "\xE2\x80\x94  (tap to enter)",
+                 .edit_text = value ? format_number(*value, 0) : "",
+                 .unit_symbols = {unit},
+                 .hint = format_number(low, 0) + "\xE2\x80\x93" + format_number(high, 0) + " " + unit,
+                 .steppers = false};
   FieldEvent event = keypad_field(state, spec);
   if (event.kind == FieldEvent::Kind::Commit) {
     Result<double> n = parse_number(event.text, what);

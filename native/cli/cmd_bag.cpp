@@ -59,7 +59,7 @@ std::optional<Error> number_option(const std::optional<std::string>& text, const
   return std::nullopt;
 }
 
-Result<hb::Settings> settings_option(const BagOptions& o, const Place& place, atm::Model model) {
+Result<hb::Settings> settings_option(const BagOptions& o) {
   hb::Settings s;
   Result<std::optional<atm::LatitudeMonth>> where = latitude_month_option(o.where);
   if (!where) return where.error();
@@ -143,7 +143,7 @@ Result<Report> run_bag(const BagOptions& o) {
   const atm::Model model = chosen_model.value();
   Result<Place> place = place_option(o, model);
   if (!place) return place.error();
-  Result<hb::Settings> settings = settings_option(o, place.value(), model);
+  Result<hb::Settings> settings = settings_option(o);
   if (!settings) return settings.error();
   const hb::Settings& s = settings.value();
   Result<hb::BagResult> bag = bag_at(place.value(), model, s);
