@@ -210,8 +210,10 @@ void draw_frame(AppState& state, Platform& platform, float width, float height) 
   ++state.frames_drawn;
   state.wake_after_seconds = 0.0;  // a screen with a running timer sets it again this frame
   test_hook::begin_frame();
+  // The keypad is drawn first (it stays on top: it takes the focus) so that the value OK
+  // commits reaches its field in the same frame.
   Keypad& keypad = state.keypad;
-  if (keypad.committed && state.frames_drawn > keypad.committed_at_frame + 1) keypad = Keypad{};
+  draw_keypad(state, width, height);
   bool modal = keypad.open && !keypad.committed;
   press_scrolls(state);  // before any widget: a scroll lets go of what it started on
 
@@ -239,7 +241,7 @@ void draw_frame(AppState& state, Platform& platform, float width, float height) 
   draw_nav_bar(state, width);
   ImGui::EndDisabled();
   ImGui::End();
-  draw_keypad(state, width, height);
+  if (keypad.committed) keypad = Keypad{};  // its field is not on screen: nothing changes
 
   // Save once a gesture is over, not on every frame of a drag.
   if (!ImGui::IsMouseDown(ImGuiMouseButton_Left)) {

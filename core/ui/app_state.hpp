@@ -217,8 +217,7 @@ struct Keypad {
   bool fresh = true;    // the first key replaces the shown value
   std::vector<std::string> unit_symbols;
   int unit_index = 0;
-  bool committed = false;  // OK pressed: the field takes the text on its next draw
-  int committed_at_frame = 0;  // dropped if its field was not drawn in the frame after
+  bool committed = false;  // OK pressed: its field takes the text when drawn later this frame
   bool allow_negative = true;  // the − key: only for fields whose range goes below zero
   bool allow_decimal = true;   // the . key: only where a fraction of the unit means something
   std::string question;        // asked before OK applies (an altitude ten times the last one)

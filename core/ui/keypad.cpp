@@ -69,8 +69,7 @@ void close_keypad(AppState& state, bool commit) {
   state.keypad.open = !commit ? false : state.keypad.open;
   if (commit) {
     state.keypad.confirmed = !state.keypad.question.empty();
-    state.keypad.committed = true;  // the field picks it up on its next draw
-    state.keypad.committed_at_frame = state.frames_drawn;
+    state.keypad.committed = true;  // its field, drawn after the keypad, takes it this frame
   }
 }
 

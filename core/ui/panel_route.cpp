@@ -8,12 +8,14 @@
 #include <cmath>
 #include <string>
 
+#include "model/clock.hpp"
 #include "model/route_plan.hpp"
 #include "profile/route_file.hpp"
 #include "ui/fields.hpp"
 #include "ui/file_exchange.hpp"
 #include "ui/format.hpp"
 #include "ui/plot.hpp"
+#include "ui/record_store.hpp"
 #include "ui/route_store.hpp"
 #include "ui/test_hook.hpp"
 #include "ui/widgets.hpp"
@@ -269,6 +271,37 @@ void draw_result(AppState& state) {
   for (const std::string& c : p.cautions) message_line(state, c, true);
 }
 
+// When the carry-out starts: then the changes read as clock times, else as time from the start.
+void draw_start_time(AppState& state) {
+  std::optional<int>& start = state.route.input.start_clock_min;
+  heading("Start");
+  std::string hhmm = start ? route::clock_text(*start, minutes(0)) : std::string();
+  FieldSpec spec{.label = "Start time",
+                 .id = "route-start",
+                 .shown = start ? hhmm : std::string("not set (tap to enter)"),
+                 .edit_text = start ? hhmm.substr(0, 2) + hhmm.substr(3) : std::string(),
+                 .hint = "e.g. 0730 for 07:30",
+                 .steppers = false,
+                 .allow_negative = false,
+                 .empty = !start,
+                 .note = start ? std::string() : std::string("changes are shown as time from the start")};
+  FieldEvent event = keypad_field(state, spec);
+  if (event.kind == FieldEvent::Kind::Commit) {
+    std::optional<int> typed = clock::typed_minutes_of_day(event.text);
+    if (typed) {
+      start = typed;
+      state.field_errors.erase(spec.id);
+    } else {
+      state.field_errors[spec.id] = "Type the start as hours and minutes, e.g. 0730 for 07:30 (00:00 to 23:59).";
+    }
+  }
+  if (big_button(state, "Start now")) {
+    constexpr int kDay = 24 * 60;
+    start = static_cast<int>((clock_now().minutes % kDay + kDay) % kDay);
+  }
+  if (start && big_button(state, "No start time")) start.reset();
+}
+
 }  // namespace
 
 void draw_route_panel(AppState& state, Platform& platform) {
@@ -287,6 +320,7 @@ void draw_route_panel(AppState& state, Platform& platform) {
   edit_quantity(state, percent_field("Target SpO2", "route-target", "target SpO2",
                                      Limits::target_low_pct, Limits::target_high_pct),
                 in.casualty.target);
+  draw_start_time(state);
   for (std::size_t i = 0; i < in.legs.size(); ++i) draw_leg_fields(state, i, in.legs[i]);
   draw_presets(state);
   draw_stock(state);

@@ -3,6 +3,8 @@
 #include <algorithm>
 #include <ctime>
 
+#include "model/clock.hpp"
+
 namespace firn::ui {
 
 std::string archive_key(int slot) { return "incident-archive-" + std::to_string(slot) + ".json"; }
@@ -88,31 +90,9 @@ Result<record::ClockTime> typed_entry_time(const RecordStore& store, std::string
                                              : record::ClockTime{now.minutes - kInProgressHours * 60};
   std::string range = "between " + record::clock_hhmm(low) + " and " + record::clock_hhmm(now) +
                       (entries.size() > 1 ? " (the incident's start and now)" : " (the last 24 h)");
-  int hours = -1, minutes = -1;
-  size_t mark = typed.find_first_of(".:");
-  auto whole = [](std::string_view digits, int& out) {
-    if (digits.empty() || digits.size() > 4) return false;
-    out = 0;
-    for (char c : digits) {
-      if (c < '0' || c > '9') return false;
-      out = out * 10 + (c - '0');
-    }
-    return true;
-  };
-  bool read = false;
-  if (mark != std::string_view::npos) {
-    read = mark <= 2 && typed.size() - mark - 1 == 2 && whole(typed.substr(0, mark), hours) &&
-           whole(typed.substr(mark + 1), minutes);
-  } else if (typed.size() == 3 || typed.size() == 4) {
-    int n = 0;
-    read = whole(typed, n);
-    hours = n / 100;
-    minutes = n % 100;
-  }
-  if (!read || hours > 23 || minutes > 59) {
-    return Error{"Type the time as hours and minutes, e.g. 1405 for 14:05, " + range + "."};
-  }
-  record::ClockTime t{now.minutes - now.minutes % (24 * 60) + hours * 60 + minutes};
+  std::optional<int> of_day = clock::typed_minutes_of_day(typed);
+  if (!of_day) return Error{"Type the time as hours and minutes, e.g. 1405 for 14:05, " + range + "."};
+  record::ClockTime t{now.minutes - now.minutes % (24 * 60) + *of_day};
   if (t > now) t.minutes -= 24 * 60;
   if (t < low) return Error{"The time must be " + range + " (got " + record::clock_hhmm(t) + ")."};
   return t;

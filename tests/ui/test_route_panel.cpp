@@ -6,10 +6,11 @@
 #include <imgui.h>
 #include <nlohmann/json.hpp>
 
-#include "memory_platform.hpp"
-#include "profile/route_file.hpp"
 #include "model/route_plan.hpp"
+#include "profile/route_file.hpp"
+#include "ui_harness.hpp"
 #include "ui/app_state.hpp"
+#include "ui/format.hpp"
 #include "ui/panels.hpp"
 #include "ui/platform.hpp"
 #include "ui/route_store.hpp"
@@ -166,4 +167,36 @@ TEST_CASE("route screen: a route file loads by its typed path; a bad one changes
   state.route.file.import_path[0] = '\0';
   ui.tap(state, "Load a route file");
   CHECK(ui.platform.requested_path == ui.platform.storage_location() + "/" + kRouteImportFileName);
+}
+
+TEST_CASE("route screen: the start time typed on the keypad makes the changes clock times") {
+  testing::Headless ui;
+  ImGui::GetIO().DisplaySize = ImVec2(390, 8000);  // every widget on screen, the keypad beneath
+  ui.panel = draw_route_panel;
+  AppState state;
+  ui.frame(state);
+  REQUIRE(state.route.input.start_clock_min == 7 * 60 + 30);  // the demo route starts 07:30
+  Result<route::RoutePlan> plan = route::plan_route(state.route.input);
+  REQUIRE(plan.ok());
+  REQUIRE_FALSE(plan->swaps.empty());
+  units::Duration first = plan->swaps.front().time;
+  CHECK(ui.text(state, "Change 1").rfind(route::clock_text(7 * 60 + 30, first), 0) == 0);
+
+  ui.click(state, "No start time");
+  CHECK_FALSE(state.route.input.start_clock_min.has_value());
+  CHECK(ui.text(state, "Start time") == "not set (tap to enter)");
+  CHECK(ui.text(state, "Change 1").rfind(duration_text(first), 0) == 0);
+
+  ui.click(state, "Start time");
+  testing::type_on_keypad(ui, state, "2400");  // not a clock time: refused, nothing changes
+  ui.click(state, "Key OK");
+  CHECK_FALSE(state.route.input.start_clock_min.has_value());
+  CHECK(state.field_errors.count("route-start") == 1);
+
+  ui.click(state, "Start time");
+  testing::type_on_keypad(ui, state, "1405");
+  ui.click(state, "Key OK");
+  CHECK(state.route.input.start_clock_min == 14 * 60 + 5);
+  CHECK(ui.text(state, "Start time") == "14:05");
+  CHECK(ui.text(state, "Change 1").rfind(route::clock_text(14 * 60 + 5, first), 0) == 0);
 }

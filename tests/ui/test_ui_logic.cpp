@@ -5,6 +5,7 @@
 #include <imgui.h>
 #include <nlohmann/json.hpp>
 
+#include <algorithm>
 #include <cmath>
 #include <functional>
 #include <map>
@@ -49,6 +50,27 @@ TEST_CASE("keypad: digits, backspace and OK set the altitude") {
   ui.click(state, "Key OK");
   CHECK_FALSE(state.keypad.open);
   CHECK(state.situation.altitude.in(units::metres) == Approx(4321.0).margin(1e-9));
+  CHECK(ui.text(state, "Altitude") == "4321 m");
+}
+
+TEST_CASE("keypad: OK's value reaches its field in the frame the key is released") {
+  Headless ui;
+  AppState state;
+  ui.click(state, "Altitude");
+  type_on_keypad(ui, state, "4321");
+  nlohmann::json items = ui.frame(state);
+  auto ok = std::find_if(items.begin(), items.end(), [](const auto& i) { return i["label"] == "Key OK"; });
+  REQUIRE(ok != items.end());
+  ImGuiIO& io = ImGui::GetIO();
+  io.MousePos = ImVec2((*ok)["x"].get<float>() + 5, (*ok)["y"].get<float>() + 5);
+  ui.frame(state);  // hover
+  io.MouseDown[0] = true;
+  ui.frame(state);
+  io.MouseDown[0] = false;
+  ui.frame(state);  // released: the keypad (drawn first) commits, the field takes it
+  CHECK(state.situation.altitude.in(units::metres) == Approx(4321.0).margin(1e-9));
+  CHECK_FALSE(state.keypad.open);
+  CHECK_FALSE(state.keypad.committed);  // nothing left pending for a later frame
   CHECK(ui.text(state, "Altitude") == "4321 m");
 }
 

@@ -41,12 +41,12 @@ struct Headless {
   // When set, the frame draws this screen instead of `draw`.
   void (*panel)(AppState&, Platform&) = nullptr;
   MemoryPlatform platform;
-  // What a frame draws before the keypad: by default the altitude field (no "entered" flag).
+  // What a frame draws under the keypad: by default the altitude field (no "entered" flag).
   std::function<void(AppState&)> draw = [](AppState& state) {
     edit_quantity(state, altitude_field(state, "Altitude", "altitude"), state.situation.altitude);
   };
 
-  // One frame with the panel (or `draw`) and the keypad; returns the labelled items.
+  // One frame with the keypad and the panel (or `draw`); returns the labelled items.
   nlohmann::json frame(AppState& state) {
     ImGuiIO& io = ImGui::GetIO();
     io.DeltaTime = 1.0f / 60.0f;
@@ -54,16 +54,17 @@ struct Headless {
     test_hook::begin_frame();
     ++state.frames_drawn;
     press_scrolls(state);  // as draw_frame does, before any widget
+    draw_keypad(state, io.DisplaySize.x, io.DisplaySize.y);  // first, as draw_frame does
     ImGui::SetNextWindowPos(ImVec2(0, 0));
     ImGui::SetNextWindowSize(io.DisplaySize);
-    ImGui::Begin("test", nullptr, ImGuiWindowFlags_NoDecoration);
+    ImGui::Begin("test", nullptr, ImGuiWindowFlags_NoDecoration | ImGuiWindowFlags_NoBringToFrontOnFocus);
     if (panel) {
       panel(state, platform);
     } else {
       draw(state);
     }
     ImGui::End();
-    draw_keypad(state, io.DisplaySize.x, io.DisplaySize.y);
+    if (state.keypad.committed) state.keypad = Keypad{};  // as the app: only its field takes it
     ImGui::Render();
     for (bool& down : io.KeysDown) down = false;
     return nlohmann::json::parse(test_hook::frame_json());
@@ -84,8 +85,7 @@ struct Headless {
     ImGui::GetIO().MouseDown[0] = true;
     frame(state);
     ImGui::GetIO().MouseDown[0] = false;
-    frame(state);
-    frame(state);  // the field takes a committed value on the next draw
+    frame(state);  // released: a key acts, and OK's value reaches its field in this frame
   }
 
   std::string text(AppState& state, const std::string& label) {
