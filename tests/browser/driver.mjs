@@ -109,10 +109,11 @@ export class Driver {
       if (target.y >= 0 && target.y + target.h <= bottom) return target;
       const centre = bottom / 2;
       const wanted = target.y + target.h / 2 - centre;
-      const dy = Math.sign(wanted) * Math.min(Math.abs(wanted), bottom * 0.4);
+      // Up to 70 % of the view per drag (the page has no fling: it moves as far as the thumb).
+      const dy = Math.sign(wanted) * Math.min(Math.abs(wanted), bottom * 0.7);
       const x = target.x + Math.min(target.w / 2, 40);
       // Drag from a point in the same column, clear of the item itself.
-      await this.scroll(x, dy > 0 ? bottom * 0.75 : bottom * 0.25, dy);
+      await this.scroll(x, dy > 0 ? bottom * 0.85 : bottom * 0.15, dy);
     }
     assert.fail(`${this.name}: could not scroll "${label}" into view`);
   }
