@@ -5,7 +5,10 @@ import assert from 'node:assert/strict';
 import {mkdirSync, mkdtempSync, rmSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join} from 'node:path';
+import {after, before} from 'node:test';
 import {chromium} from 'playwright-core';
+
+import {serveSite} from '../../web/serve.mjs';
 
 export const CHROMIUM = process.env.FIRN_CHROMIUM ?? '/usr/bin/chromium';
 
@@ -131,10 +134,10 @@ export async function waitForText(page, label, predicate, timeout = 5000) {
   assert.fail(`"${label}" still shows ${JSON.stringify(last)} after ${timeout} ms`);
 }
 
-// A phone page driven by real touches (CDP Input.dispatchTouchEvent, as on a phone; the page
-// shell turns them into mouse events), with items in CSS px. `cdp`: page.context().newCDPSession.
-export class Phone {
-  constructor(page, cdp) { Object.assign(this, {page, cdp, dragMs: []}); }
+// A page's widgets by label (window.firnTestItems, framebuffer pixels → CSS px here): looked up,
+// waited for, and the frames the page draws counted. Phone and Driver (driver.mjs) build on it.
+export class LabelledPage {
+  constructor(page, name = 'page') { Object.assign(this, {page, name}); }
 
   async items() {
     return this.page.evaluate(() => {
@@ -149,10 +152,13 @@ export class Phone {
     for (;;) {
       const found = await this.find(label);
       if (found) return found;
-      if (Date.now() > end) assert.fail(`no item "${label}": ${(await this.items()).map((i) => i.label).join(', ')}`);
+      if (Date.now() > end) {
+        assert.fail(`${this.name}: no item "${label}"; items: ${(await this.items()).map((i) => i.label).join(', ')}`);
+      }
       await pause(50);
     }
   }
+  async text(label) { return (await this.item(label)).text; }
   async waitText(label, predicate, timeout = 4000) {
     const end = Date.now() + timeout;
     let last;
@@ -161,17 +167,29 @@ export class Phone {
       if (last !== undefined && predicate(last)) return last;
       await pause(50);
     }
-    assert.fail(`"${label}" shows ${JSON.stringify(last)} after ${timeout} ms`);
+    assert.fail(`${this.name}: "${label}" shows ${JSON.stringify(last)} after ${timeout} ms`);
   }
+  // Waits until `count` more frames have been drawn (or the page went idle without them).
   async framesPass(count, timeout = 3000) {
     const frames = () => this.page.evaluate(() => window.firnFramesDrawn ?? 0);
     const start = await frames();
     const end = Date.now() + timeout;
     while ((await frames()) < start + count && Date.now() < end) await pause(20);
   }
+  // The content area ends at the navigation bar (always on screen, at the bottom).
   async navBottom() {
     const nav = (await this.items()).filter((i) => i.label === 'Here' || i.label === 'Settings');
+    assert.ok(nav.length > 0, `${this.name}: no navigation bar`);
     return Math.min(...nav.map((i) => i.y));
+  }
+}
+
+// A phone page driven by real touches (CDP Input.dispatchTouchEvent, as on a phone; the page
+// shell turns them into mouse events), with items in CSS px. `cdp`: page.context().newCDPSession.
+export class Phone extends LabelledPage {
+  constructor(page, cdp) {
+    super(page, 'phone');
+    Object.assign(this, {cdp, dragMs: []});
   }
 
   // A thumb drag from (x, y) by dy CSS px (and dx sideways): `steps` moves, `stepMs` apart (0:
@@ -238,4 +256,20 @@ export async function openPhone(browser, url, options, {initScript} = {}) {
   await page.goto(url);
   await waitForApp(page);
   return new Phone(page, await context.newCDPSession(page));
+}
+
+// One static server for the site and one Chromium per test file, started before its tests and
+// closed after them (then `cleanup`, if given). Read .server and .browser inside the tests.
+export function siteAndBrowser(site, {cleanup} = {}) {
+  const shared = {server: null, browser: null};
+  before(async () => {
+    shared.server = await serveSite(site);
+    shared.browser = await launchBrowser();
+  });
+  after(async () => {
+    await shared.browser?.close();
+    await shared.server?.close();
+    cleanup?.();
+  });
+  return shared;
 }

@@ -5,7 +5,7 @@
 import assert from 'node:assert/strict';
 import {join} from 'node:path';
 
-import {pause, screenshotDir} from './browser.mjs';
+import {LabelledPage, pause, screenshotDir} from './browser.mjs';
 
 export const MIN_TARGET_CSS_PX = 48;  // issue 4: ≥ 48 CSS px (≥ 9 mm) at any device pixel ratio
 export const NAV = ['Here', 'Casualty', 'Curve', 'Bag', 'Oxygen', 'Route', 'AMS', 'Record', 'Teaching',
@@ -23,57 +23,10 @@ export function keypadText(keys) {
 }
 
 // Drives one page by label, by touch (phone) or mouse (laptop).
-export class Driver {
+export class Driver extends LabelledPage {
   constructor(name, page, touch) {
-    Object.assign(this, {name, page, touch, taps: 0, smallest: Infinity});
-  }
-
-  async items() {
-    return this.page.evaluate(() => {
-      const ratio = window.devicePixelRatio || 1;
-      return (window.firnTestItems ?? []).map((i) => ({...i, x: i.x / ratio, y: i.y / ratio,
-                                                        w: i.w / ratio, h: i.h / ratio}));
-    });
-  }
-
-  async find(label) {
-    return (await this.items()).find((i) => i.label === label);
-  }
-
-  async item(label, timeout = 3000) {
-    const end = Date.now() + timeout;
-    for (;;) {
-      const found = await this.find(label);
-      if (found) return found;
-      if (Date.now() > end) {
-        const labels = (await this.items()).map((i) => i.label).join(', ');
-        assert.fail(`${this.name}: no item "${label}"; items: ${labels}`);
-      }
-      await pause(50);
-    }
-  }
-
-  async text(label) {
-    return (await this.item(label)).text;
-  }
-
-  async waitText(label, predicate, timeout = 4000) {
-    const end = Date.now() + timeout;
-    let last;
-    while (Date.now() < end) {
-      last = (await this.find(label))?.text;
-      if (last !== undefined && predicate(last)) return last;
-      await pause(50);
-    }
-    assert.fail(`${this.name}: "${label}" shows ${JSON.stringify(last)} after ${timeout} ms`);
-  }
-
-  // The content area ends at the navigation bar (always on screen, at the bottom).
-  async visibleBottom() {
-    const all = await this.items();
-    const nav = all.filter((i) => i.label === 'Here' || i.label === 'Settings');
-    assert.ok(nav.length > 0, `${this.name}: no navigation bar`);
-    return Math.min(...nav.map((i) => i.y));
+    super(page, name);
+    Object.assign(this, {touch, taps: 0, smallest: Infinity});
   }
 
   // Scrolls the column under `x` by `dy` CSS px (positive: content moves up).
@@ -105,7 +58,7 @@ export class Driver {
     if (/^(Key|Unit) /.test(label) || NAV.includes(label)) return this.item(label);
     for (let attempt = 0; attempt < 24; ++attempt) {  // the Route screen is ~5 screens tall
       const target = await this.item(label);
-      const bottom = await this.visibleBottom();
+      const bottom = await this.navBottom();
       if (target.y >= 0 && target.y + target.h <= bottom) return target;
       const centre = bottom / 2;
       const wanted = target.y + target.h / 2 - centre;
@@ -156,14 +109,6 @@ export class Driver {
       await this.page.mouse.up();
     }
     if (settle || !this.touch) await this.framesPass(2);
-  }
-
-  // Waits until `count` more frames have been drawn (or the page went idle without them).
-  async framesPass(count, timeout = 3000) {
-    const frames = () => this.page.evaluate(() => window.firnFramesDrawn ?? 0);
-    const start = await frames();
-    const end = Date.now() + timeout;
-    while ((await frames()) < start + count && Date.now() < end) await pause(20);
   }
 
   async screen(name) {

@@ -18,8 +18,7 @@ import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {after, before, describe, test} from 'node:test';
 
-import {PHONE_DPR, launchBrowser, openPhone as openPhoneAt, pause, requiredEnv, screenshotDir, waitForApp} from './browser.mjs';
-import {serveSite} from '../../web/serve.mjs';
+import {openPhone as openPhoneAt, pause, PHONE_DPR, requiredEnv, screenshotDir, siteAndBrowser, waitForApp} from './browser.mjs';
 
 const site = requiredEnv('FIRN_SITE', 'the built site folder (build/web/site)');
 const firn = requiredEnv('FIRN_BIN', 'the native firn executable (handover comparison)');
@@ -40,18 +39,9 @@ function clockHook() {
   };
 }
 
-let server;
-let browser;
-before(async () => {
-  server = await serveSite(site);
-  browser = await launchBrowser();
-});
-after(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const run = siteAndBrowser(site);
 
-const openPhone = () => openPhoneAt(browser, server.url, PHONE, {initScript: clockHook});
+const openPhone = () => openPhoneAt(run.browser, run.server.url, PHONE, {initScript: clockHook});
 
 // Taps an item anywhere on the (long) Record screen: scrolled into view first.
 async function tapIn(phone, label) {

@@ -14,9 +14,8 @@ import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {after, before, describe, test} from 'node:test';
 
-import {PHONE_DPR, launchBrowser, requiredEnv, waitForApp} from './browser.mjs';
+import {PHONE_DPR, requiredEnv, siteAndBrowser, waitForApp} from './browser.mjs';
 import {Driver} from './driver.mjs';
-import {serveSite} from '../../web/serve.mjs';
 
 const site = requiredEnv('FIRN_SITE', 'the built site folder (build/web/site)');
 const firnBin = requiredEnv('FIRN_BIN', 'the native firn executable (for the CLI comparison)');
@@ -59,25 +58,15 @@ function numbers(text) {
     .map((m) => Number(m[0]));
 }
 
-let server;
-let browser;
-before(async () => {
-  server = await serveSite(site);
-  browser = await launchBrowser();
-});
-after(async () => {
-  await browser?.close();
-  await server?.close();
-  rmSync(work, {recursive: true, force: true});
-});
+const run = siteAndBrowser(site, {cleanup: () => rmSync(work, {recursive: true, force: true})});
 
 describe('Route screen, phone 390×844', () => {
   let d;
   before(async () => {
-    const context = await browser.newContext(PHONE);
+    const context = await run.browser.newContext(PHONE);
     const page = await context.newPage();
     d = new Driver('phone', page, true);
-    await page.goto(server.url);
+    await page.goto(run.server.url);
     await waitForApp(page);
   });
   after(async () => {

@@ -9,8 +9,7 @@ import assert from 'node:assert/strict';
 import {join} from 'node:path';
 import {after, before, describe, test} from 'node:test';
 
-import {PHONE_DPR, launchBrowser, openPhone as openPhoneAt, pause, requiredEnv, screenshotDir} from './browser.mjs';
-import {serveSite} from '../../web/serve.mjs';
+import {openPhone as openPhoneAt, pause, PHONE_DPR, requiredEnv, screenshotDir, siteAndBrowser} from './browser.mjs';
 
 const site = requiredEnv('FIRN_SITE', 'the built site folder (build/web/site)');
 const shots = screenshotDir();
@@ -20,18 +19,9 @@ const DPR = Math.max(2, PHONE_DPR);
 const PHONE = {viewport: {width: 390, height: 844}, deviceScaleFactor: DPR, isMobile: true, hasTouch: true};
 const DRAG_CSS_PX = 160;  // a short thumb scroll: ~2.5 cm, far beyond the 12 CSS px tap slop
 
-let server;
-let browser;
-before(async () => {
-  server = await serveSite(site);
-  browser = await launchBrowser();
-});
-after(async () => {
-  await browser?.close();
-  await server?.close();
-});
+const run = siteAndBrowser(site);
 
-const openPhone = () => openPhoneAt(browser, server.url, PHONE);
+const openPhone = () => openPhoneAt(run.browser, run.server.url, PHONE);
 
 describe(`phone 390×844 dpr ${DPR}, touch`, () => {
   let phone;

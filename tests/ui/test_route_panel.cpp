@@ -22,57 +22,13 @@ using namespace firn::ui;
 
 namespace {
 
-struct RouteScreen {
-  testing::MemoryPlatform platform;
+// The Route screen in the headless harness, tall enough that every widget is on screen.
+struct RouteScreen : testing::Headless {
   RouteScreen() {
-    ImGui::CreateContext();
-    ImGuiIO& io = ImGui::GetIO();
-    io.DisplaySize = ImVec2(390, 8000);  // tall: every widget on screen, no scrolling
-    io.IniFilename = nullptr;
-    io.Fonts->AddFontDefault();
-    unsigned char* pixels = nullptr;
-    int w = 0, h = 0;
-    io.Fonts->GetTexDataAsAlpha8(&pixels, &w, &h);
+    ImGui::GetIO().DisplaySize = ImVec2(390, 8000);
+    panel = draw_route_panel;
   }
-  ~RouteScreen() { ImGui::DestroyContext(); }
-
-  nlohmann::json frame(AppState& state) {
-    ImGuiIO& io = ImGui::GetIO();
-    io.DeltaTime = 1.0f / 60.0f;
-    ImGui::NewFrame();
-    test_hook::begin_frame();
-    ++state.frames_drawn;
-    ImGui::SetNextWindowPos(ImVec2(0, 0));
-    ImGui::SetNextWindowSize(io.DisplaySize);
-    ImGui::Begin("test", nullptr, ImGuiWindowFlags_NoDecoration);
-    draw_route_panel(state, platform);
-    ImGui::End();
-    ImGui::Render();
-    return nlohmann::json::parse(test_hook::frame_json());
-  }
-
-  std::string text(AppState& state, const std::string& label) {
-    for (const auto& i : frame(state)) {
-      if (i["label"] == label) return i["text"];
-    }
-    return "(absent)";
-  }
-
-  void tap(AppState& state, const std::string& label) {
-    bool found = false;
-    for (const auto& i : frame(state)) {
-      if (i["label"] != label) continue;
-      found = true;
-      ImGui::GetIO().MousePos = ImVec2(i["x"].get<float>() + i["w"].get<float>() / 2,
-                                       i["y"].get<float>() + i["h"].get<float>() / 2);
-    }
-    REQUIRE(found);
-    frame(state);
-    ImGui::GetIO().MouseDown[0] = true;
-    frame(state);
-    ImGui::GetIO().MouseDown[0] = false;
-    frame(state);
-  }
+  void tap(AppState& state, const std::string& label) { click(state, label); }
 };
 
 std::string model_verdict(const route::RouteInput& in) {
@@ -170,9 +126,7 @@ TEST_CASE("route screen: a route file loads by its typed path; a bad one changes
 }
 
 TEST_CASE("route screen: the start time typed on the keypad makes the changes clock times") {
-  testing::Headless ui;
-  ImGui::GetIO().DisplaySize = ImVec2(390, 8000);  // every widget on screen, the keypad beneath
-  ui.panel = draw_route_panel;
+  RouteScreen ui;
   AppState state;
   ui.frame(state);
   REQUIRE(state.route.input.start_clock_min == 7 * 60 + 30);  // the demo route starts 07:30
