@@ -92,10 +92,9 @@ QuantityField<PressureDimension> cylinder_pressure_field(const AppState& state, 
 }
 
 QuantityField<TemperatureDimension> temperature_field(const AppState& state, const char* label,
-                                                      const char* id, double low_c, double high_c) {
+                                                      const char* id, const Range<TemperatureDimension>& range) {
   return {label, id, "temperature", {kTemperatureUnits.begin(), kTemperatureUnits.end()},
-          static_cast<int>(state.settings.units.temperature), celsius(low_c),
-          celsius(high_c), {1.0, 2.0}, 0};
+          static_cast<int>(state.settings.units.temperature), range.low, range.high, {1.0, 2.0}, 0};
 }
 
 QuantityField<FractionDimension> percent_field(const char* label, const char* id, const char* what,

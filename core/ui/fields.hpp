@@ -144,9 +144,10 @@ QuantityField<units::PressureDimension> air_pressure_field(const AppState& state
 QuantityField<units::PressureDimension> cylinder_pressure_field(const AppState& state,
                                                                 const char* label, const char* id,
                                                                 units::Pressure high);
-QuantityField<units::TemperatureDimension> temperature_field(const AppState& state,
-                                                             const char* label, const char* id,
-                                                             double low_c, double high_c);
+// A temperature within a model's published range, in the user's temperature unit.
+QuantityField<units::TemperatureDimension> temperature_field(
+    const AppState& state, const char* label, const char* id,
+    const units::Range<units::TemperatureDimension>& range);
 QuantityField<units::FractionDimension> percent_field(const char* label, const char* id,
                                                       const char* what, double low, double high);
 QuantityField<units::VolumeFlowDimension> flow_field(const char* label, const char* id,

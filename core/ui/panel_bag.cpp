@@ -132,7 +132,7 @@ void draw_casualty_fields(AppState& state) {
                           shown_number(bag::rest_vo2_lpm, 2) +
                           " L/min (typical resting figures); shivering or distress several times more.");
   edit_quantity(state, temperature_field(state, "Gas temperature in the bag", "bag-chamber",
-                                         bag::min_chamber_c, bag::max_chamber_c),
+                                         bag::kChamberTemperatureRange),
                 in.chamber_temperature);
 }
 

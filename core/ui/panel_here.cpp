@@ -116,7 +116,8 @@ void draw_where(AppState& state) {
     toggle_row(state, "qnh-temperature", "Temperature unknown", "Temperature known",
                &s.qnh_temperature_known);
     if (s.qnh_temperature_known) {
-      edit_quantity(state, temperature_field(state, "Air temperature here", "air-temperature", -60, 50),
+      edit_quantity(state, temperature_field(state, "Air temperature here", "air-temperature",
+                                             atmosphere::kAirTemperatureRange),
                     s.air_temperature);
     }
   }

@@ -152,7 +152,7 @@ ChosenCylinder draw_cylinder(AppState& state, Pressure ambient) {
   ChosenCylinder chosen = choose_cylinder(state);
   edit_quantity(state, cylinder_pressure_field(state, "Cylinder gauge", "cyl-gauge", cylinder::kGaugeRange.high), in.gauge);
   edit_quantity(state, temperature_field(state, "Cylinder temperature", "cyl-temperature",
-                                         cylinder::min_temperature_c, cylinder::max_temperature_c),
+                                         cylinder::kTemperatureRange),
                 in.cylinder_temperature);
   ImGui::PushTextWrapPos(0.0f);
   ImGui::TextDisabled("%s", std::string(cylinder::temperature_advice).c_str());

@@ -11,6 +11,8 @@
 #include <cmath>
 #include <string_view>
 
+#include "model/cylinder.hpp"
+#include "model/hyperbaric_bag.hpp"
 #include "model/oxygen_cascade.hpp"
 
 namespace firn::ui {
@@ -213,14 +215,13 @@ bool state_from_json(AppState& state, const std::string& text) {
   namespace hb = hyperbaric_bag;
   read(b, "vco2_lpm", litres_per_minute, hb::min_vco2_lpm, hb::max_vco2_lpm, state.bag.vco2);
   read(b, "vo2_lpm", litres_per_minute, hb::min_vo2_lpm, hb::max_vo2_lpm, state.bag.vo2);
-  read(b, "chamber_temperature_c", celsius, hb::min_chamber_c, hb::max_chamber_c,
-       state.bag.chamber_temperature);
+  read(b, "chamber_temperature_c", celsius, hb::kChamberTemperatureRange, state.bag.chamber_temperature);
 
   const Json o = child(j, "oxygen");
   OxygenInputs& ox = state.oxygen;
   read(o, "water_capacity_l", litres, 0.1, 100, ox.water_capacity);
   read(o, "gauge_pa", pascals, 0, 35e6, ox.gauge);
-  read(o, "cylinder_temperature_k", kelvin, 233.15, 333.15, ox.cylinder_temperature);
+  read(o, "cylinder_temperature_k", kelvin, cylinder::kTemperatureRange, ox.cylinder_temperature);
   read(o, "reserve_pa", pascals, 0, 35e6, ox.reserve);
   read(o, "flow_lpm", litres_per_minute, 0, 30, ox.flow);
   read(o, "cylinders", 1, 20, ox.cylinder_count);
