@@ -202,6 +202,7 @@ struct RecordInputs {
   units::VolumeFlow flow = units::litres_per_minute(2.0);
   int avpu = -1;          // -1 not assessed
   int minutes_ago = 0;    // an entry written up late
+  std::optional<size_t> correcting;  // the entry whose time the keypad corrects; none: the latest
   units::Duration check_interval = units::minutes(15.0);  // next SpO2 check
   bool confirm_new = false, confirm_delete = false;
   FileExchange file;  // import/export of the record file

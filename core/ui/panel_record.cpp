@@ -213,27 +213,44 @@ void event_buttons(AppState& state, Platform& platform, const handover::Summary&
 
 // [SECTION] Correcting a time
 
-// The latest entry's clock time, typed on the keypad (an event stamped "now" that happened
-// earlier); valid from the incident's start to now (typed_entry_time says so otherwise).
-void latest_entry_time(AppState& state, Platform& platform, ClockTime now) {
+// An entry's clock time typed on the keypad (an event stamped "now" that happened earlier, or
+// one written up late): the latest by default, an earlier one picked with the buttons. Valid
+// from the incident's start to now (typed_entry_time says so otherwise).
+void entry_time(AppState& state, Platform& platform, ClockTime now) {
   RecordInputs& in = state.record;
-  if (in.store.record.entries.empty()) return;
-  const record::Entry& latest = in.store.record.entries.back();
-  std::string what(record::kind_key(latest.kind));
+  const auto& entries = in.store.record.entries;
+  if (entries.empty()) return;
+  size_t last = entries.size() - 1;
+  size_t index = std::min(in.correcting.value_or(last), last);
+  const record::Entry& entry = entries[index];
+  std::string what(record::kind_key(entry.kind));
   std::replace(what.begin(), what.end(), '_', ' ');
-  std::string hhmm = record::clock_hhmm(latest.time);
-  std::string digits = hhmm.substr(0, 2) + hhmm.substr(3);
-  FieldSpec spec{"Time of the latest entry", "record-time", hhmm + " (" + what + ")", digits, {}, 0,
-                 "e.g. 1405, up to " + record::clock_hhmm(now), false, false, true};
+  std::string hhmm = record::clock_hhmm(entry.time);
+  std::string label = index == last ? std::string("Time of the latest entry")
+                                    : "Time of entry " + std::to_string(index + 1) + " of " +
+                                          std::to_string(entries.size());
+  FieldSpec spec{.label = label.c_str(),
+                 .id = "record-time",
+                 .shown = hhmm + " (" + what + ")",
+                 .edit_text = hhmm.substr(0, 2) + hhmm.substr(3),
+                 .hint = "e.g. 1405, up to " + record::clock_hhmm(now),
+                 .steppers = false,
+                 .allow_negative = false};
   FieldEvent event = keypad_field(state, spec);
-  if (event.kind != FieldEvent::Kind::Commit) return;
-  Result<ClockTime> t = typed_entry_time(in.store, event.text, now);
-  if (!t) {
-    state.field_errors[spec.id] = t.error().message;
-    return;
+  if (event.kind == FieldEvent::Kind::Commit) {
+    Result<ClockTime> t = typed_entry_time(in.store, event.text, now, index);
+    if (!t) {
+      state.field_errors[spec.id] = t.error().message;
+    } else {
+      state.field_errors.erase(spec.id);
+      retime_entry(in.store, platform, t.value(), index);
+      in.correcting.reset();  // it may have moved: back to the latest
+    }
   }
-  state.field_errors.erase(spec.id);
-  retime_latest_entry(in.store, platform, t.value());
+  if (index > 0 && big_button(state, "Correct an earlier entry")) in.correcting = index - 1;
+  if (index < last && big_button(state, "Correct a later entry")) {
+    in.correcting = index + 1 == last ? std::nullopt : std::optional<size_t>(index + 1);
+  }
 }
 
 // [SECTION] Trend
@@ -487,7 +504,7 @@ void draw_record_panel(AppState& state, Platform& platform) {
   }
   observation_form(state, platform, s, now);
   event_buttons(state, platform, s, now);
-  latest_entry_time(state, platform, now);
+  entry_time(state, platform, now);
   trend_charts(state, rec, s, now);
   if (!rec.entries.empty()) handover_section(state, platform, rec, s);
   record_file(state, platform);

@@ -84,12 +84,13 @@ void delete_all_records(RecordStore& store, Platform& platform) {
 }
 
 Result<record::ClockTime> typed_entry_time(const RecordStore& store, std::string_view typed,
-                                           record::ClockTime now) {
+                                           record::ClockTime now, std::optional<size_t> index) {
   const auto& entries = store.record.entries;
-  record::ClockTime low = entries.size() > 1 ? entries.front().time
-                                             : record::ClockTime{now.minutes - kInProgressHours * 60};
+  bool after_start = entries.size() > 1 && index.value_or(entries.size() - 1) > 0;
+  record::ClockTime low = after_start ? entries.front().time
+                                      : record::ClockTime{now.minutes - kInProgressHours * 60};
   std::string range = "between " + record::clock_hhmm(low) + " and " + record::clock_hhmm(now) +
-                      (entries.size() > 1 ? " (the incident's start and now)" : " (the last 24 h)");
+                      (after_start ? " (the incident's start and now)" : " (the last 24 h)");
   std::optional<int> of_day = clock::typed_minutes_of_day(typed);
   if (!of_day) return Error{"Type the time as hours and minutes, e.g. 1405 for 14:05, " + range + "."};
   record::ClockTime t{now.minutes - now.minutes % (24 * 60) + *of_day};
@@ -98,10 +99,13 @@ Result<record::ClockTime> typed_entry_time(const RecordStore& store, std::string
   return t;
 }
 
-bool retime_latest_entry(RecordStore& store, Platform& platform, record::ClockTime time) {
-  if (store.record.entries.empty()) return false;
-  record::Entry moved = store.record.entries.back();
-  store.record.entries.pop_back();
+bool retime_entry(RecordStore& store, Platform& platform, record::ClockTime time,
+                  std::optional<size_t> index) {
+  auto& entries = store.record.entries;
+  size_t at = index.value_or(entries.size() - 1);
+  if (entries.empty() || at >= entries.size()) return false;
+  record::Entry moved = entries[at];
+  entries.erase(entries.begin() + static_cast<std::ptrdiff_t>(at));
   moved.time = time;
   return add_entry(store, platform, moved);
 }

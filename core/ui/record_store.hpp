@@ -38,14 +38,15 @@ Result<std::string> import_record(RecordStore& store, Platform& platform, std::s
                                   std::string_view source);
 // Deletes the current incident and every archived one (privacy), leaving an empty record.
 void delete_all_records(RecordStore& store, Platform& platform);
-// A clock time the medic types for the latest entry ("1405", "905", "14.05"), on the day of
-// `now` (the day before if that would be later than now). Valid from the incident's start (its
-// first entry; for a lone entry, kInProgressHours before now) to now: otherwise a message with
-// that range.
+// A clock time the medic types for an entry ("1405", "905", "14.05"; `index` in the record,
+// none: the latest), on the day of `now` (the day before if that would be later than now).
+// Valid from the incident's start (its first entry; for a lone entry or the first one itself,
+// kInProgressHours before now) to now: otherwise a message with that range.
 Result<record::ClockTime> typed_entry_time(const RecordStore& store, std::string_view typed,
-                                           record::ClockTime now);
-// Moves the latest entry to `time` (the record stays in time order) and saves.
-bool retime_latest_entry(RecordStore& store, Platform& platform, record::ClockTime time);
+                                           record::ClockTime now, std::optional<size_t> index = {});
+// Moves an entry (`index`, none: the latest) to `time` (the record stays in time order), saves.
+bool retime_entry(RecordStore& store, Platform& platform, record::ClockTime time,
+                  std::optional<size_t> index = {});
 // How many archived incidents are stored.
 int archived_count(Platform& platform);
 

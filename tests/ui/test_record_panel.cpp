@@ -162,3 +162,51 @@ TEST_CASE("record screen: the latest entry's time corrected on the keypad") {
   CHECK(state.record.store.record.entries[1].kind == record::Kind::BagStart);
   CHECK(record::parse_record(ui.platform.stored[kRecordKey])->entries[1].time == r.entries[0].time);
 }
+
+TEST_CASE("Record: an earlier entry's time is corrected after picking it; the first may move earlier") {
+  Headless ui;
+  ImGui::GetIO().DisplaySize = ImVec2(390, 4000);
+  ui.panel = draw_record_panel;
+  record::ClockTime now = clock_now();
+  record::Record r;
+  for (int ago : {30, 20, 10}) {
+    record::Entry e;
+    e.time = record::ClockTime{now.minutes - ago};
+    e.kind = record::Kind::Observation;
+    e.spo2 = units::percent(60.0 + ago);  // 90, 80, 70 %: each entry told apart by its SpO2
+    r.entries.push_back(e);
+  }
+  ui.platform.stored[kRecordKey] = record::write_record(r);
+  auto digits = [](record::ClockTime t) {
+    std::string hhmm = record::clock_hhmm(t);
+    return hhmm.substr(0, 2) + hhmm.substr(3);
+  };
+  AppState state;
+  CHECK(ui.text(state, "Correct a later entry") == "(absent)");  // the latest is picked first
+  ui.click(state, "Correct an earlier entry");
+  ui.click(state, "Correct an earlier entry");
+  CHECK(ui.text(state, "Time of entry 1 of 3") == record::clock_hhmm(r.entries[0].time) + " (observation)");
+  CHECK(ui.text(state, "Correct an earlier entry") == "(absent)");
+  // The incident's first entry may move earlier (written up late): the last 24 h are open to it.
+  ui.click(state, "Time of entry 1 of 3");
+  type_on_keypad(ui, state, digits(record::ClockTime{now.minutes - 45}));
+  ui.click(state, "Key OK");
+  CHECK(ui.text(state, "Warning") == "(absent)");
+  const auto& entries = state.record.store.record.entries;
+  REQUIRE(entries.size() == 3);
+  CHECK(entries[0].time.minutes == now.minutes - 45);
+  CHECK(entries[0].spo2->in(units::percent) == Approx(90));
+  CHECK(ui.text(state, "Time of the latest entry") == record::clock_hhmm(r.entries[2].time) + " (observation)");
+
+  // The middle entry moved after the latest: the record stays in time order.
+  ui.click(state, "Correct an earlier entry");
+  CHECK(ui.text(state, "Time of entry 2 of 3") == record::clock_hhmm(r.entries[1].time) + " (observation)");
+  ui.click(state, "Time of entry 2 of 3");
+  type_on_keypad(ui, state, digits(record::ClockTime{now.minutes - 5}));
+  ui.click(state, "Key OK");
+  REQUIRE(entries.size() == 3);
+  CHECK(entries[1].spo2->in(units::percent) == Approx(70));
+  CHECK(entries[2].spo2->in(units::percent) == Approx(80));
+  CHECK(entries[2].time.minutes == now.minutes - 5);
+  CHECK(record::parse_record(ui.platform.stored[kRecordKey])->entries[2].time.minutes == now.minutes - 5);
+}

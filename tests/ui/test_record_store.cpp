@@ -178,7 +178,7 @@ TEST_CASE("record store: the latest entry's time corrected, within the incident'
     REQUIRE_FALSE(t);
     CHECK(t.error().message.find("between 13:40 and 15:05 (the incident's start and now)") != std::string::npos);
   }
-  REQUIRE(retime_latest_entry(store, storage, typed_entry_time(store, "1452", now).value()));
+  REQUIRE(retime_entry(store, storage, typed_entry_time(store, "1452", now).value()));
   RecordStore restarted;
   load_record(restarted, storage);
   REQUIRE(restarted.record.entries.size() == 3);
