@@ -13,6 +13,32 @@
 
 namespace firn::ui {
 
+// Wrapped text in which a number never ends a line apart from its unit ("150 L", "91 %",
+// "2 h"): the space between them is drawn as a no-break space (U+00A0, in the fonts' ranges),
+// which ImGui's word wrap does not break at. Test hooks keep the text as given.
+void wrapped_text(std::string_view text) {
+  std::string drawn;
+  drawn.reserve(text.size() + 8);
+  for (size_t i = 0; i < text.size(); ++i) {
+    auto c = static_cast<unsigned char>(text[i]);
+    bool glue = c == ' ' && i > 0 && i + 1 < text.size() &&
+                std::isdigit(static_cast<unsigned char>(text[i - 1])) &&
+                (std::isalpha(static_cast<unsigned char>(text[i + 1])) || text[i + 1] == '%' ||
+                 static_cast<unsigned char>(text[i + 1]) >= 0x80);  // °C, µg, …
+    if (glue) drawn += "\xC2\xA0";
+    else drawn += text[i];
+  }
+  ImGui::PushTextWrapPos(0.0f);
+  ImGui::TextUnformatted(drawn.data(), drawn.data() + drawn.size());
+  ImGui::PopTextWrapPos();
+}
+
+void dim_wrapped_text(std::string_view text) {
+  ImGui::PushStyleColor(ImGuiCol_Text, ImGui::GetStyleColorVec4(ImGuiCol_TextDisabled));
+  wrapped_text(text);
+  ImGui::PopStyleColor();
+}
+
 float em() { return ImGui::GetFontSize(); }
 
 float touch_target(const AppState& state) { return 48.0f * state.pixel_ratio; }
@@ -129,24 +155,20 @@ void result_value(AppState& state, const char* label, const std::string& shown,
     // Secondary results on one line: the large ones stay above the fold on a phone.
     // Label and value share a line when they fit; otherwise the value wraps on its own line
     // (a long cascade or a range must never run off the right edge of a phone).
-    ImGui::TextDisabled("%s", label);
+    dim_wrapped_text(label);  // a long label wraps on a 360 px phone, never clipped
     float needed = ImGui::CalcTextSize(shown.c_str()).x + ImGui::GetStyle().ItemSpacing.x;
     if (ImGui::GetItemRectMax().x + needed <= ImGui::GetWindowPos().x + ImGui::GetWindowContentRegionMax().x) {
       ImGui::SameLine();
     }
-    ImGui::PushTextWrapPos(0.0f);
-    ImGui::TextUnformatted(shown.c_str());
-    ImGui::PopTextWrapPos();
+    wrapped_text(shown);
     test_hook::item_text(label, shown);
     return;
   }
-  ImGui::TextDisabled("%s", label);
+  dim_wrapped_text(label);  // a long label wraps on a 360 px phone, never clipped
   bool large = state.font_large != nullptr;
   if (large) ImGui::PushFont(state.font_large);
   // Wrapped: a long verdict in large type must not run off the right edge of a phone.
-  ImGui::PushTextWrapPos(0.0f);
-  ImGui::TextUnformatted(shown.c_str());
-  ImGui::PopTextWrapPos();
+  wrapped_text(shown);
   if (large) ImGui::PopFont();
   test_hook::item_text(label, shown);
 }
@@ -185,9 +207,7 @@ bool int_stepper(const AppState& state, const char* label, const char* id, int* 
 
 void message_line(const AppState&, const std::string& text, bool warning) {
   if (warning) ImGui::PushStyleColor(ImGuiCol_Text, ImGui::GetStyleColorVec4(ImGuiCol_PlotHistogram));
-  ImGui::PushTextWrapPos(0.0f);
-  ImGui::TextUnformatted(text.c_str());
-  ImGui::PopTextWrapPos();
+  wrapped_text(text);
   if (warning) ImGui::PopStyleColor();
   test_hook::item_text(warning ? "Warning" : "Message", text);
 }
@@ -271,9 +291,7 @@ void verdict_line(const AppState& state, Tone tone, const std::string& text) {
   tone_word_badge(tone, colour32, background32);
   ImGui::SameLine();
   ImGui::PushStyleColor(ImGuiCol_Text, colour);
-  ImGui::PushTextWrapPos(0.0f);
-  ImGui::TextUnformatted(text.c_str());
-  ImGui::PopTextWrapPos();
+  wrapped_text(text);
   ImGui::PopStyleColor();
   ImGui::EndGroup();
   test_hook::item_text("Verdict", std::string(tone_word(tone)) + ": " + text);
@@ -281,16 +299,12 @@ void verdict_line(const AppState& state, Tone tone, const std::string& text) {
 
 void bullet_line(std::string_view text) {
   ImGui::Bullet();
-  ImGui::PushTextWrapPos(0.0f);
-  ImGui::TextUnformatted(text.data(), text.data() + text.size());
-  ImGui::PopTextWrapPos();
+  wrapped_text(text);
 }
 
 void heading(const char* text) {
   ImGui::Spacing();
-  ImGui::PushTextWrapPos(0.0f);
-  ImGui::TextDisabled("%s", text);
-  ImGui::PopTextWrapPos();
+  dim_wrapped_text(text);
 }
 
 void result_error(AppState& state, const char* label, const std::string& message) {

@@ -78,6 +78,9 @@ void verdict_line(const AppState& state, Tone tone, const std::string& text);
 void message_line(const AppState& state, const std::string& text, bool warning = false);
 // A bullet with wrapped text (ImGui::BulletText runs off a phone's edge). Not recorded.
 void bullet_line(std::string_view text);
+// Text wrapped at the content edge, a number kept on the line of its unit.
+void wrapped_text(std::string_view text);
+void dim_wrapped_text(std::string_view text);  // the same in the theme's dim colour
 // Small dim heading above a group of widgets.
 void heading(const char* text);
 
