@@ -154,6 +154,7 @@ struct OxygenInputs {
   int letter_size = 1;      // D, E, M, H
   units::Volume water_capacity = units::litres(2.0);
   units::Pressure gauge = units::bar(200.0);
+  std::int64_t gauge_read_at = 0;  // when the gauge was typed (s since 1970 UTC); 0: never
   units::Temperature cylinder_temperature = units::celsius(0.0);
   units::Pressure reserve = cylinder::default_reserve_gauge;  // the one default (model)
   units::VolumeFlow flow = units::litres_per_minute(4.0);

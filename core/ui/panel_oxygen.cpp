@@ -11,6 +11,7 @@
 
 #include "model/cylinder.hpp"
 #include "model/evacuation_plan.hpp"
+#include "ui/cylinder_in_hand.hpp"
 #include "ui/fields.hpp"
 #include "ui/format.hpp"
 #include "ui/plot.hpp"
@@ -62,50 +63,30 @@ void draw_timeline(const AppState& state, const evacuation::PlanInput& input,
   }
 }
 
-// The cylinder in hand: one of the team's types, a US letter size (its water capacity assumed,
-// and said so), or a water capacity typed in.
-struct ChosenCylinder {
-  Volume water_capacity;
-  std::optional<cylinder::LetterSize> letter_size;  // for the field rule
-  std::string assumption;                           // non-empty: a capacity we assumed
-  std::string label;                                // "Cyl", or the team's label
-};
-
-ChosenCylinder choose_cylinder(AppState& state) {
+// The cylinder in hand (ui/cylinder_in_hand): its source and type picked here.
+CylinderInHand choose_cylinder(AppState& state) {
   OxygenInputs& in = state.oxygen;
   const team_profile::TeamProfile& team = state.team.profile;
   static constexpr const char* kSources[] = {"Team's cylinders", "Letter size", "Water capacity"};
   choice_row(state, "cyl-source", kSources, 3, &in.cylinder_source);
-  ChosenCylinder c{in.water_capacity, std::nullopt, "", "Cyl"};
   if (in.cylinder_source == 0 && !team.cylinders.empty()) {
     std::vector<const char*> labels;
     for (const auto& t : team.cylinders) labels.push_back(t.label.c_str());
     in.team_type = std::clamp(in.team_type, 0, static_cast<int>(labels.size()) - 1);
     choice_row(state, "cyl-team-type", labels.data(), static_cast<int>(labels.size()), &in.team_type);
     const team_profile::CylinderType& t = team.cylinders[static_cast<size_t>(in.team_type)];
-    c.letter_size = t.letter_size;
-    c.label = t.label;
     if (t.water_capacity) {
-      c.water_capacity = *t.water_capacity;
-      result_value(state, "Water capacity (team profile)", volume_text(c.water_capacity), false);
-    } else if (t.letter_size) {
-      c.water_capacity = cylinder::letter_size_info(*t.letter_size).water_capacity;
-      c.assumption = cylinder::letter_size_assumption(*t.letter_size) + " on the Team screen.";
+      result_value(state, "Water capacity (team profile)", volume_text(*t.water_capacity), false);
     }
   } else if (in.cylinder_source == 1) {
     static constexpr const char* kSizes[] = {"D", "E", "M", "H"};
     choice_row(state, "cyl-letter-size", kSizes, 4, &in.letter_size);
-    auto size = static_cast<cylinder::LetterSize>(std::clamp(in.letter_size, 0, 3));
-    c.letter_size = size;
-    c.water_capacity = cylinder::letter_size_info(size).water_capacity;
-    c.assumption = cylinder::letter_size_assumption(size) + " (Water capacity, or the Team screen).";
-    c.label = std::string(cylinder::letter_size_info(size).name);
   } else {
     if (in.cylinder_source == 0) message_line(state, "The team profile lists no cylinders: type the water capacity.");
     edit_quantity(state, volume_field("Water capacity", "cyl-capacity", cylinder::min_water_capacity_l,
                                       cylinder::max_water_capacity_l), in.water_capacity);
-    c.water_capacity = in.water_capacity;
   }
+  CylinderInHand c = cylinder_in_hand(state);
   if (!c.assumption.empty()) {
     std::string text = c.assumption;
     text[0] = static_cast<char>(std::toupper(static_cast<unsigned char>(text[0])));
@@ -121,36 +102,36 @@ VolumeFlow cylinder_flow(const AppState& state) {
 }
 
 // The duration figures: the lower of the real-gas estimate and the field rule leads.
-void show_duration(AppState& state, const cylinder::DurationEstimate& d, const ChosenCylinder& c) {
-  OxygenInputs& in = state.oxygen;
+void show_duration(AppState& state, const LastsToReserve& lasts) {
+  const cylinder::DurationEstimate& d = lasts.real_gas;
   if (d.below_reserve) {
     verdict_line(state, Tone::Danger, std::string(cylinder::below_reserve_text));
     return;
   }
-  std::optional<Duration> rule;
-  if (c.letter_size) {
-    Result<Duration> r = cylinder::field_rule_duration(*c.letter_size, in.gauge, cylinder_flow(state));
-    if (r) rule = r.value();
-  }
-  cylinder::LeadingDuration lead = cylinder::leading_duration(d, rule);
-  result_value(state, "Lasts to reserve", duration_text(lead.duration));
-  if (rule) {
-    message_line(state, "Count on the lower figure: " + lead.why + ".");
+  result_value(state, "Lasts to reserve", duration_text(lasts.lead.duration));
+  if (lasts.field_rule) {
+    message_line(state, "Count on the lower figure: " + lasts.lead.why + ".");
     result_value(state, "Real-gas estimate", duration_text(cylinder::whole_minutes_down(d.to_reserve)), false);
-    result_value(state, "US field rule (to 200 psi)", duration_text(cylinder::whole_minutes_down(*rule)), false);
+    result_value(state, "US field rule (to 200 psi)", duration_text(cylinder::whole_minutes_down(*lasts.field_rule)), false);
   }
   result_value(state, "Contents (free gas, real gas)", volume_text(d.contents.free_gas), false);
   result_value(state, "Usable above reserve", volume_text(d.usable_free_gas), false);
-  for (const std::string& line : cylinder::temperature_cautions(d.contents, in.cylinder_temperature)) {
+  for (const std::string& line : cylinder::temperature_cautions(d.contents, state.oxygen.cylinder_temperature)) {
     message_line(state, line, true);
   }
 }
 
-ChosenCylinder draw_cylinder(AppState& state, Pressure ambient) {
+CylinderInHand draw_cylinder(AppState& state, Pressure ambient) {
   OxygenInputs& in = state.oxygen;
   heading("Cylinder");
-  ChosenCylinder chosen = choose_cylinder(state);
-  edit_quantity(state, cylinder_pressure_field(state, "Cylinder gauge", "cyl-gauge", cylinder::kGaugeRange.high), in.gauge);
+  CylinderInHand chosen = choose_cylinder(state);
+  QuantityField<PressureDimension> gauge =
+      cylinder_pressure_field(state, "Cylinder gauge", "cyl-gauge", cylinder::kGaugeRange.high);
+  gauge.entered_at = &in.gauge_read_at;  // the Record screen times the reserve from this reading
+  edit_quantity(state, gauge, in.gauge);
+  if (in.gauge_read_at > 0) {
+    dim_wrapped_text("Gauge " + entered_note(in.gauge_read_at) + ": the Record screen times the reserve from it");
+  }
   edit_quantity(state, temperature_field(state, "Cylinder temperature", "cyl-temperature",
                                          cylinder::kTemperatureRange),
                 in.cylinder_temperature);
@@ -165,13 +146,12 @@ ChosenCylinder draw_cylinder(AppState& state, Pressure ambient) {
     edit_quantity(state, flow_field("Flow", "cyl-flow", cylinder::max_flow_lpm), in.flow);
   }
 
-  cylinder::Reading reading{chosen.water_capacity, in.gauge, in.cylinder_temperature, ambient};
-  Result<cylinder::DurationEstimate> d = cylinder::duration(reading, in.reserve, cylinder_flow(state));
-  if (!d) {
-    result_error(state, "Lasts to reserve", d.error().message);
+  Result<LastsToReserve> lasts = lasts_to_reserve(state, chosen, ambient, cylinder_flow(state));
+  if (!lasts) {
+    result_error(state, "Lasts to reserve", lasts.error().message);
     return chosen;
   }
-  show_duration(state, d.value(), chosen);
+  show_duration(state, lasts.value());
   return chosen;
 }
 
@@ -185,7 +165,7 @@ Tone plan_tone(evacuation::Verdict v) {
   return Tone::Neutral;
 }
 
-void draw_plan(AppState& state, Pressure ambient, const ChosenCylinder& chosen) {
+void draw_plan(AppState& state, Pressure ambient, const CylinderInHand& chosen) {
   OxygenInputs& in = state.oxygen;
   heading("Evacuation plan (cylinders like this one, used in turn)");
   int_stepper(state, "Cylinders", "plan-count", &in.cylinder_count, 1, 20);
@@ -247,7 +227,7 @@ void draw_oxygen_panel(AppState& state, Platform&) {
   Result<Pressure> pb = situation_pressure(state);
   Pressure ambient = pb ? pb.value() : units::atmospheres(1.0);
   if (!pb) message_line(state, "Pressure here unknown (" + pb.error().message + "); gauges taken at 1 atm.", true);
-  ChosenCylinder chosen = draw_cylinder(state, ambient);
+  CylinderInHand chosen = draw_cylinder(state, ambient);
   draw_plan(state, ambient, chosen);
   caution_line(state);
 }

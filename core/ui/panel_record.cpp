@@ -12,6 +12,7 @@
 #include "model/atmosphere.hpp"
 #include "model/expected_spo2.hpp"
 #include "profile/handover.hpp"
+#include "ui/cylinder_in_hand.hpp"
 #include "ui/fields.hpp"
 #include "ui/file_exchange.hpp"
 #include "ui/plot.hpp"
@@ -32,6 +33,9 @@ constexpr const char* kBreathingLabels[] = {"Air", "Cannula", "Mask", "NRB"};
 constexpr const char* kAvpuLabels[] = {"A", "V", "P", "U"};
 // A bag session is commonly 1–2 h, then reassess (common practice, domain brief).
 constexpr double kBagSessionMinutes = 60.0;
+// The reserve timer turns to a caution this long before (time to get the next cylinder ready;
+// our choice, not a published figure).
+constexpr std::int64_t kReserveWarningMinutes = 15;
 
 record::Breathing drafted_breathing(const RecordInputs& in) {
   if (in.on <= 0) return {std::nullopt, litres_per_minute(0.0)};
@@ -58,6 +62,48 @@ void wake_in(AppState& state, double seconds) {
 }
 
 // [SECTION] Timers
+
+// The highest oxygen flow set at any time from `since` on: the cylinder is timed as if it had
+// given that flow all along (a lower flow earlier only leaves more gas: never a later reserve).
+VolumeFlow highest_flow_since(const handover::Summary& s, ClockTime since) {
+  VolumeFlow highest;
+  for (const handover::OxygenPeriod& p : s.oxygen) {
+    if (p.to && *p.to < since) continue;
+    highest = std::max(highest, p.setting.flow);
+  }
+  return highest;
+}
+
+// When the cylinder on the Oxygen screen reaches its reserve: from the gauge reading typed
+// there, at the highest flow the record has set since, by the lower of the real-gas estimate
+// and the field rule. No reading: it says where to give one, and times nothing.
+void reserve_timer(AppState& state, const handover::Summary& s, ClockTime now) {
+  const OxygenInputs& ox = state.oxygen;
+  if (ox.gauge_read_at <= 0) {
+    verdict_line(state, Tone::Neutral, "Cylinder reserve not timed: type the gauge on the Oxygen screen");
+    return;
+  }
+  ClockTime read = clock_at(ox.gauge_read_at);
+  VolumeFlow flow = highest_flow_since(s, read);
+  Result<Pressure> here = situation_pressure(state);
+  Result<LastsToReserve> lasts =
+      lasts_to_reserve(state, cylinder_in_hand(state), here ? here.value() : atmospheres(1.0), flow);
+  if (!lasts) {
+    verdict_line(state, Tone::Neutral, "Cylinder reserve not timed: " + lasts.error().message);
+    return;
+  }
+  ClockTime due{read.minutes + static_cast<std::int64_t>(lasts->lead.duration.in(minutes))};
+  std::int64_t left = record::minutes_between(now, due);
+  std::string basis = "(" + cylinder_pressure_text(ox.gauge, state.settings.units) + " read " + record::clock_hhmm(read) + ", at " + flow_text(flow) + ")";
+  if (lasts->real_gas.below_reserve || left <= 0) {
+    verdict_line(state, Tone::Danger, "Cylinder at its reserve: change it now " + basis);
+  } else {
+    verdict_line(state, left <= kReserveWarningMinutes ? Tone::Caution : Tone::Neutral,
+                 "Cylinder at its reserve in " + std::to_string(left) + " min, at " +
+                     record::clock_hhmm(due) + " " + basis);
+  }
+  wake_in(state, seconds_to_next_minute());
+}
 
 void timers(AppState& state, const handover::Summary& s, ClockTime now) {
   const RecordInputs& in = state.record;
@@ -86,6 +132,7 @@ void timers(AppState& state, const handover::Summary& s, ClockTime now) {
     }
     wake_in(state, seconds_to_next_minute());
   }
+  if (s.current_breathing && !s.current_breathing->on_air()) reserve_timer(state, s, now);
 }
 
 // [SECTION] New observation

@@ -122,10 +122,12 @@ bool incident_in_progress(const RecordStore& store, record::ClockTime now) {
   return since_last <= kInProgressHours * 60;
 }
 
-record::ClockTime clock_now() {
-  std::time_t now = std::time(nullptr);
+record::ClockTime clock_now() { return clock_at(static_cast<std::int64_t>(std::time(nullptr))); }
+
+record::ClockTime clock_at(std::int64_t seconds_since_1970) {
+  auto when = static_cast<std::time_t>(seconds_since_1970);
   std::tm local{};
-  if (localtime_r(&now, &local) == nullptr) return {};
+  if (localtime_r(&when, &local) == nullptr) return {};
   char buffer[24];
   std::strftime(buffer, sizeof buffer, "%Y-%m-%dT%H:%M", &local);
   Result<record::ClockTime> t = record::parse_clock_time(buffer);

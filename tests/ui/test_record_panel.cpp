@@ -4,6 +4,7 @@
 #include "ui_harness.hpp"
 
 #include "model/incident_record.hpp"
+#include "ui/format.hpp"
 #include "ui/panels.hpp"
 #include "ui/persistence.hpp"
 #include "ui/record_store.hpp"
@@ -209,4 +210,71 @@ TEST_CASE("Record: an earlier entry's time is corrected after picking it; the fi
   CHECK(entries[2].spo2->in(units::percent) == Approx(80));
   CHECK(entries[2].time.minutes == now.minutes - 5);
   CHECK(record::parse_record(ui.platform.stored[kRecordKey])->entries[2].time.minutes == now.minutes - 5);
+}
+
+namespace {
+
+// The text of the Record screen's verdict line that starts with `start` ("(absent)" if none).
+std::string verdict_starting(const nlohmann::json& items, const std::string& start) {
+  for (const auto& i : items) {
+    std::string text = i["text"];
+    // A second verdict line on a screen is "Verdict#2" (test hook labels are unique).
+    if (std::string(i["label"]).rfind("Verdict", 0) == 0 && text.find(start) != std::string::npos) return text;
+  }
+  return "(absent)";
+}
+
+}  // namespace
+
+TEST_CASE("Record: the cylinder's reserve is timed from the gauge read on the Oxygen screen, at the highest flow since") {
+  Headless ui;
+  ImGui::GetIO().DisplaySize = ImVec2(390, 4000);
+  ui.panel = draw_record_panel;
+  record::ClockTime now = clock_now();
+  record::Record r;
+  auto entry = [&](int ago, record::Kind kind) {
+    record::Entry e;
+    e.time = record::ClockTime{now.minutes - ago};
+    e.kind = kind;
+    return e;
+  };
+  record::Entry seen = entry(30, record::Kind::Observation);
+  seen.spo2 = units::percent(70.0);
+  seen.breathing = record::Breathing{};
+  record::Entry high = entry(25, record::Kind::Oxygen);
+  high.breathing = record::Breathing{supplemental_oxygen::Device::SimpleMask, units::litres_per_minute(8.0)};
+  record::Entry low = entry(10, record::Kind::Oxygen);  // turned down: still on oxygen
+  low.breathing = record::Breathing{supplemental_oxygen::Device::NasalCannula, units::litres_per_minute(2.0)};
+  r.entries = {seen, high, low};
+  ui.platform.stored[kRecordKey] = record::write_record(r);
+
+  AppState state;
+  OxygenInputs& ox = state.oxygen;
+  ox.cylinder_source = 2;  // a 2 L water capacity typed in
+  ox.water_capacity = units::litres(2.0);
+  ox.gauge = units::bar(100.0);
+  ox.reserve = units::bar(20.0);
+  ox.cylinder_temperature = units::celsius(15.0);
+  ui.frame(state);  // the record is read from storage on the screen's first frame
+  // A gauge nobody has read gives no time.
+  CHECK(verdict_starting(ui.frame(state), "Cylinder") ==
+        "NO VERDICT: Cylinder reserve not timed: type the gauge on the Oxygen screen");
+
+  // Read 12 min ago, while 8 L/min ran. By hand (ideal gas, Boyle): 2 L × (100 − 20) bar /
+  // 1.01325 bar = 157.9 L above the reserve, at 8 L/min 19.7 min; oxygen's compressibility at
+  // 100 bar and 15 °C (Z ≈ 0.97, from memory) adds ~3 %: 19–20 min after the reading, so 7–8
+  // min from now (one either way for the minutes the reading and now fall in).
+  ox.gauge_read_at = now_seconds() - 12 * 60;
+  std::string timed = verdict_starting(ui.frame(state), "Cylinder");
+  INFO(timed);
+  CHECK(timed.rfind("CHECK: Cylinder at its reserve in ", 0) == 0);  // within 15 min: get one ready
+  int left = std::stoi(timed.substr(std::string("CHECK: Cylinder at its reserve in ").size()));
+  CHECK(left >= 6);
+  CHECK(left <= 9);
+  CHECK(timed.find("(100 bar read ") != std::string::npos);
+  CHECK(timed.find("at " + flow_text(units::litres_per_minute(8.0)) + ")") != std::string::npos);  // not 2
+
+  // Read 40 min ago (8 L/min since the 25th minute before now counts from the reading): past.
+  ox.gauge_read_at = now_seconds() - 40 * 60;
+  CHECK(verdict_starting(ui.frame(state), "Cylinder").rfind("DANGER: Cylinder at its reserve: change it now", 0) == 0);
 }
