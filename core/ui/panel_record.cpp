@@ -84,6 +84,14 @@ void reserve_timer(AppState& state, const handover::Summary& s, ClockTime now) {
     return;
   }
   ClockTime read = clock_at(ox.gauge_read_at);
+  // A cylinder changed since: the reading is of the old one.
+  for (const record::Entry& e : state.record.store.record.entries) {
+    if (e.kind == record::Kind::CylinderSwap && e.time >= read) {
+      verdict_line(state, Tone::Neutral, "Cylinder reserve not timed: changed at " + record::clock_hhmm(e.time) +
+                                             ", type the new cylinder's gauge on the Oxygen screen");
+      return;
+    }
+  }
   VolumeFlow flow = highest_flow_since(s, read);
   Result<Pressure> here = situation_pressure(state);
   Result<LastsToReserve> lasts =

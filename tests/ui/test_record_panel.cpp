@@ -277,4 +277,9 @@ TEST_CASE("Record: the cylinder's reserve is timed from the gauge read on the Ox
   // Read 40 min ago (8 L/min since the 25th minute before now counts from the reading): past.
   ox.gauge_read_at = now_seconds() - 40 * 60;
   CHECK(verdict_starting(ui.frame(state), "Cylinder").rfind("DANGER: Cylinder at its reserve: change it now", 0) == 0);
+
+  // A cylinder changed after the reading: the old reading times nothing.
+  REQUIRE(add_entry(state.record.store, ui.platform, entry(5, record::Kind::CylinderSwap)));
+  CHECK(verdict_starting(ui.frame(state), "Cylinder").rfind(
+            "NO VERDICT: Cylinder reserve not timed: changed at " + record::clock_hhmm(record::ClockTime{now.minutes - 5}), 0) == 0);
 }
