@@ -157,7 +157,7 @@ ChosenCylinder draw_cylinder(AppState& state, Pressure ambient) {
   ImGui::PushTextWrapPos(0.0f);
   ImGui::TextDisabled("%s", std::string(cylinder::temperature_advice).c_str());
   ImGui::PopTextWrapPos();
-  edit_quantity(state, cylinder_pressure_field(state, "Reserve (swap at)", "cyl-reserve", bar(cylinder::max_reserve_bar)), in.reserve);
+  edit_quantity(state, cylinder_pressure_field(state, "Reserve (swap at)", "cyl-reserve", bar.gauge(cylinder::max_reserve_bar)), in.reserve);
   if (state.situation.on_oxygen) {
     edit_quantity(state, casualty_flow_field(state, "Flow (the casualty's, as on Casualty)", "cyl-flow"),
                   state.situation.oxygen_flow);
