@@ -249,7 +249,7 @@ void cylinder_calls(FuzzedDataProvider& d, int which) {
       cylinder::Reading r = any_reading(d);
       check(cylinder::contents(r), "contents", [&](const cylinder::Contents& c) {
         fuzz::check_contents(c);
-        Result<Pressure> back =
+        Result<GaugePressure> back =
             cylinder::gauge_pressure_for(r.water_capacity, r.temperature, r.ambient_pressure, c.free_gas);
         fuzz::require(back.ok() || c.free_gas.in(litres) < 1e-6, "gauge_pressure_for refuses contents()");
         if (back) {
