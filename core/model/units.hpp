@@ -212,7 +212,8 @@ constexpr GaugePressure gauge_from_absolute(Pressure absolute, Pressure ambient)
 template <class Dimension>
 bool within(Quantity<Dimension> q, double low, double high, const ReadingUnit<Dimension>& unit) {
   constexpr ReadingUnit<Dimension> si{1.0, 0.0, "", ""};
-  return in_range(q.in(si), unit(low).in(si), unit(high).in(si));
+  return in_range(q.in(si), from_reading<Dimension>(unit, low).in(si),
+                  from_reading<Dimension>(unit, high).in(si));
 }
 
 // A valid range, published once by the model that owns it and read by the fields, the saved
@@ -333,7 +334,7 @@ Result<Temperature> parse_temperature(std::string_view text,
 // "20MPa", "13790kPa". Only gauge_pressure_units; "psia" (absolute) and air-pressure units are
 // refused with a message naming the gauge units.
 Result<GaugePressure> parse_gauge_pressure(std::string_view text,
-                                      std::string_view what = "gauge pressure");
+                                           std::string_view what = "gauge pressure");
 // A gauge pressure in any pressure unit ("2psi", "138hPa", "140mbar"): a bag's gauge is marked
 // in air-pressure units as often as in psi. Cylinders use parse_gauge_pressure.
 Result<GaugePressure> parse_gauge_any_unit(std::string_view text,
