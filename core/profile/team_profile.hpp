@@ -40,7 +40,7 @@ struct CylinderType {
   std::string label;                        // "2 L alloy", "D"
   std::optional<LetterSize> letter_size;    // US size, and/or…
   std::optional<Volume> water_capacity;     // …water capacity (at least one is set)
-  GaugePressure fill_pressure_gauge;       // full-cylinder gauge pressure
+  GaugePressure fill_pressure_gauge;        // full-cylinder gauge pressure
   int count = 1;                            // how many the team has
 
   bool operator==(const CylinderType&) const = default;
@@ -87,7 +87,7 @@ struct CardLayout {
 struct BagSetup {
   GaugePressure gauge_pressure;  // inside minus ambient
   Volume pump_stroke_volume;
-  Fraction co2_limit;        // steady-state CO2 fraction not to exceed
+  Fraction co2_limit;            // steady-state CO2 fraction not to exceed
 
   bool operator==(const BagSetup&) const = default;
 };
