@@ -43,7 +43,7 @@ double free_litres_per_mole() {
 
 // Contents of an already-checked reading.
 Contents contents_checked(const Reading& r) {
-  Pressure absolute = r.gauge_pressure + r.ambient_pressure;
+  Pressure absolute = units::absolute_from_gauge(r.gauge_pressure, r.ambient_pressure);
   oxygen_eos::State s = oxygen_eos::state_at(r.temperature, absolute).value();
   double moles = s.molar_density_mol_per_m3 * r.water_capacity.in(litres) / 1000.0;
   double z_ref = reference_compressibility();
@@ -66,13 +66,13 @@ LetterSizeInfo letter_size_info(LetterSize size) {
   // Factors: common practice in EMS references. Water capacities and full pressures: FROM
   // MEMORY, typical US medical cylinders (aluminium D, E, M; steel H) — check the label.
   switch (size) {
-    case LetterSize::D: return {size, "D", 0.16, litres(2.8), psi(2015), litres(415)};
-    case LetterSize::E: return {size, "E", 0.28, litres(4.6), psi(2015), litres(680)};
-    case LetterSize::M: return {size, "M", 1.56, litres(23.0), psi(2015), litres(3450)};
-    case LetterSize::H: return {size, "H", 3.14, litres(42.6), psi(2200), litres(6900)};
+    case LetterSize::D: return {size, "D", 0.16, litres(2.8), psi.gauge(2015), litres(415)};
+    case LetterSize::E: return {size, "E", 0.28, litres(4.6), psi.gauge(2015), litres(680)};
+    case LetterSize::M: return {size, "M", 1.56, litres(23.0), psi.gauge(2015), litres(3450)};
+    case LetterSize::H: return {size, "H", 3.14, litres(42.6), psi.gauge(2200), litres(6900)};
   }
   FIRN_ASSERT(false, "unknown letter size");
-  return {size, "?", 0.0, litres(0), psi(0), litres(0)};
+  return {size, "?", 0.0, litres(0), psi.gauge(0), litres(0)};
 }
 
 std::string letter_size_assumption(LetterSize size) {
@@ -143,13 +143,13 @@ LeadingDuration leading_duration(const DurationEstimate& real_gas,
               format_number(rule.in(minutes), 0) + " min to 200 psi), so it leads"};
 }
 
-Result<Pressure> gauge_pressure_for(Volume water_capacity, Temperature temperature,
-                                    Pressure ambient_pressure, Volume free_gas) {
-  Reading r{water_capacity, bar(0), temperature, ambient_pressure};
+Result<GaugePressure> gauge_pressure_for(Volume water_capacity, Temperature temperature,
+                                         Pressure ambient_pressure, Volume free_gas) {
+  Reading r{water_capacity, bar.gauge(0), temperature, ambient_pressure};
   Result<double> ok = check_reading(r);
   if (!ok) return ok.error();
   double empty = contents_checked(r).free_gas.in(litres);
-  r.gauge_pressure = bar(max_gauge_bar);
+  r.gauge_pressure = bar.gauge(max_gauge_bar);
   double full = contents_checked(r).free_gas.in(litres);
   double want = free_gas.in(litres);
   // The solver is exact to a part in 10^12, so contents at 349.99999999999994 bar can exceed the
@@ -165,13 +165,13 @@ Result<Pressure> gauge_pressure_for(Volume water_capacity, Temperature temperatu
   double moles = want / free_litres_per_mole();
   double density = moles / (water_capacity.in(litres) / 1000.0);
   Pressure absolute = pascals(oxygen_eos::pressure_pa(density, temperature.in(kelvin)));
-  Pressure gauge = absolute - ambient_pressure;
-  if (gauge < bar(0.0)) return bar(0.0);  // rounding at the empty end
-  if (gauge > bar(max_gauge_bar)) return bar(max_gauge_bar);
+  GaugePressure gauge = units::gauge_from_absolute(absolute, ambient_pressure);
+  if (gauge < bar.gauge(0.0)) return bar.gauge(0.0);  // rounding at the empty end
+  if (gauge > bar.gauge(max_gauge_bar)) return bar.gauge(max_gauge_bar);
   return gauge;
 }
 
-Result<DurationEstimate> duration(const Reading& reading, Pressure reserve_gauge,
+Result<DurationEstimate> duration(const Reading& reading, GaugePressure reserve_gauge,
                                   VolumeFlow flow) {
   Result<Contents> now = contents(reading);
   if (!now) return now.error();
@@ -196,7 +196,7 @@ Result<DurationEstimate> duration(const Reading& reading, Pressure reserve_gauge
   return d;
 }
 
-Result<Duration> field_rule_duration(LetterSize size, Pressure gauge, VolumeFlow flow) {
+Result<Duration> field_rule_duration(LetterSize size, GaugePressure gauge, VolumeFlow flow) {
   double p = gauge.in(psi);
   if (!in_range(p, 200.0, 3000.0)) {
     Error e = range_error("cylinder pressure", 200, 3000, "psi", p);
@@ -241,7 +241,8 @@ Result<FlowCorrection> rotameter_at_altitude(VolumeFlow indicated, Pressure ambi
 }
 
 Result<FlowCorrection> fixed_orifice_at_altitude(VolumeFlow nominal, Pressure ambient,
-                                                 Pressure regulated_gauge, Pressure calibration) {
+                                                 GaugePressure regulated_gauge,
+                                                 Pressure calibration) {
   Result<double> f = check_flow(nominal, "set flow");
   if (!f) return f.error();
   if (!in_range(ambient.in(hectopascals), min_ambient_hpa, max_ambient_hpa)) {
@@ -256,7 +257,8 @@ Result<FlowCorrection> fixed_orifice_at_altitude(VolumeFlow nominal, Pressure am
                        calibration.in(hectopascals));
   }
   // Choked orifice: mass flow ∝ absolute upstream pressure (same gas temperature).
-  double ratio = (regulated_gauge + ambient) / (regulated_gauge + calibration);
+  double ratio = units::absolute_from_gauge(regulated_gauge, ambient) /
+                 units::absolute_from_gauge(regulated_gauge, calibration);
   FlowCorrection c;
   c.set_flow = nominal;
   c.actual_free_gas = nominal * ratio;

@@ -18,6 +18,7 @@
 namespace firn::cylinder {
 
 using units::Duration;
+using units::GaugePressure;
 using units::Pressure;
 using units::Temperature;
 using units::Volume;
@@ -39,8 +40,8 @@ inline constexpr double min_ambient_hpa = 150.0, max_ambient_hpa = 1100.0;
 inline constexpr units::Range<units::VolumeDimension> kWaterCapacityRange{
     units::litres(min_water_capacity_l), units::litres(max_water_capacity_l), &units::litres,
     "water capacity"};
-inline constexpr units::Range<units::PressureDimension> kGaugeRange{
-    units::bar(0.0), units::bar(max_gauge_bar), &units::bar, "cylinder pressure (gauge)"};
+inline constexpr units::Range<units::GaugePressureDimension> kGaugeRange{
+    units::bar.gauge(0.0), units::bar.gauge(max_gauge_bar), &units::bar, "cylinder pressure (gauge)"};
 inline constexpr units::Range<units::TemperatureDimension> kTemperatureRange{
     units::celsius(min_temperature_c), units::celsius(max_temperature_c), &units::celsius,
     "cylinder temperature"};
@@ -62,7 +63,7 @@ struct LetterSizeInfo {
   // Internal (water) volume, litres: FROM MEMORY (typical US cylinders; check the cylinder label).
   Volume water_capacity;
   // Typical full service pressure: 2015 psi for D/E/M aluminium, 2200 psi for steel H (from memory).
-  Pressure full_gauge;
+  GaugePressure full_gauge;
   // Nominal contents printed for the size, free-gas litres (from memory).
   Volume nominal_contents;
 };
@@ -71,15 +72,15 @@ LetterSizeInfo letter_size_info(LetterSize size);
 Result<LetterSize> parse_letter_size(std::string_view text);  // "D", "e", …
 
 // Residual pressure the US field rule assumes ("safe residual", common practice).
-inline constexpr Pressure field_rule_residual_gauge = units::psi(200.0);
+inline constexpr GaugePressure field_rule_residual_gauge = units::psi.gauge(200.0);
 
 // The one default reserve (swap-at) gauge pressure: the CLI, the app and a team profile without
 // its own use it. 20 bar (290 psi) is above the field rule's 200 psi, so it gives the shorter time,
 // and keeps a cylinder from being run empty (moist air gets in): common practice, our choice.
-inline constexpr Pressure default_reserve_gauge = units::bar(20.0);
+inline constexpr GaugePressure default_reserve_gauge = units::bar.gauge(20.0);
 inline constexpr double max_reserve_bar = 100.0;  // a reserve above this is a typing slip
-inline constexpr units::Range<units::PressureDimension> kReserveRange{
-    units::bar(0.0), units::bar(max_reserve_bar), &units::bar, "reserve pressure (gauge)"};
+inline constexpr units::Range<units::GaugePressureDimension> kReserveRange{
+    units::bar.gauge(0.0), units::bar.gauge(max_reserve_bar), &units::bar, "reserve pressure (gauge)"};
 
 // Letter-size water capacities are typical values FROM MEMORY; D and E in particular vary by
 // maker (steel or aluminium, 2.1…3.0 L and 4.1…4.8 L). The sentence shown wherever one is used.
@@ -99,7 +100,7 @@ inline constexpr std::string_view below_reserve_text = "Below the reserve: chang
 // A cylinder as read in the field.
 struct Reading {
   Volume water_capacity;
-  Pressure gauge_pressure;                      // above ambient, as the gauge shows it
+  GaugePressure gauge_pressure;                 // above ambient, as the gauge shows it
   Temperature temperature = units::celsius(15.0);  // of the cylinder (the gas in it)
   Pressure ambient_pressure = units::atmospheres(1.0);  // a gauge reads relative to this
 };
@@ -122,7 +123,7 @@ Result<Contents> contents(const Reading& reading);
 
 // The gauge pressure at which the cylinder holds `free_gas` (inverse of contents(), by
 // bisection). Used for reserve pressures and for pressure-vs-time curves.
-Result<Pressure> gauge_pressure_for(Volume water_capacity, Temperature temperature,
+Result<GaugePressure> gauge_pressure_for(Volume water_capacity, Temperature temperature,
                                     Pressure ambient_pressure, Volume free_gas);
 
 struct DurationEstimate {
@@ -137,7 +138,7 @@ struct DurationEstimate {
 // corrections below for altitude). Flow must be > 0 and ≤ 30 L/min; the reserve is a gauge
 // pressure 0…max_reserve_bar. A reading at or below the reserve is a result (below_reserve), not
 // an error: it is what the medic must be told.
-Result<DurationEstimate> duration(const Reading& reading, Pressure reserve_gauge, VolumeFlow flow);
+Result<DurationEstimate> duration(const Reading& reading, GaugePressure reserve_gauge, VolumeFlow flow);
 
 // "At −20 °C this reading means 24 % more oxygen than at 15 °C…", when cold_gain is above
 // cold_gain_caution_fraction; "extrapolated…" above 300 K. Empty when there is nothing to say.
@@ -161,7 +162,7 @@ LeadingDuration leading_duration(const DurationEstimate& real_gas,
                                  const std::optional<Duration>& field_rule);
 
 // US field rule: minutes = (psi − 200) × factor / flow. Gauge 200…3000 psi.
-Result<Duration> field_rule_duration(LetterSize size, Pressure gauge, VolumeFlow flow);
+Result<Duration> field_rule_duration(LetterSize size, GaugePressure gauge, VolumeFlow flow);
 
 // [SECTION] Flow devices at altitude. Returned as explained corrections: the number AND the reason.
 
@@ -186,7 +187,7 @@ Result<FlowCorrection> rotameter_at_altitude(VolumeFlow indicated, Pressure ambi
 // falls by (P_reg + P_ambient)/(P_reg + P_cal). Derived from choked-flow physics; no published
 // measurement known. The regulated pressure is typically ~50 psi gauge (from memory).
 Result<FlowCorrection> fixed_orifice_at_altitude(
-    VolumeFlow nominal, Pressure ambient, Pressure regulated_gauge = units::psi(50.0),
+    VolumeFlow nominal, Pressure ambient, GaugePressure regulated_gauge = units::psi.gauge(50.0),
     Pressure calibration = units::atmospheres(1.0));
 
 }  // namespace firn::cylinder

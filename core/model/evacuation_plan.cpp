@@ -144,7 +144,7 @@ struct Segment {
 
 double gauge_bar_at(const Stock& s, double remaining_l) {
   double free_l = s.reserve_free_l + std::max(0.0, remaining_l);
-  Result<Pressure> p = cylinder::gauge_pressure_for(s.reading.water_capacity,
+  Result<GaugePressure> p = cylinder::gauge_pressure_for(s.reading.water_capacity,
                                                     s.reading.temperature,
                                                     s.reading.ambient_pressure, litres(free_l));
   // Remaining gas lies between the reserve and the starting reading, both validated.
@@ -174,7 +174,7 @@ Result<Stock> counting_stock(const PlanInput& input, const std::vector<Stock>& s
   if (input.counting_cylinder) {
     CylinderSpec spec = *input.counting_cylinder;
     // A letter size with no pressure given means a full one at its service pressure.
-    if (spec.letter_size && spec.gauge_pressure == Pressure{}) {
+    if (spec.letter_size && spec.gauge_pressure == GaugePressure{}) {
       spec.gauge_pressure = cylinder::letter_size_info(*spec.letter_size).full_gauge;
     }
     counting = resolve(spec, input);
@@ -256,7 +256,7 @@ struct Walk {
 // Cylinder exhaustion and phase boundaries cut the evacuation into segments; fills the plan's
 // uses and events on the way.
 Walk walk_timeline(EvacuationPlan& plan, const std::vector<Stock>& stock, const Schedule& schedule,
-                   double evac, Pressure reserve_gauge, const std::string& reserve) {
+                   double evac, GaugePressure reserve_gauge, const std::string& reserve) {
   Walk w;
   for (const Stock& s : stock) w.remaining.push_back(s.usable_l);
   auto next_cylinder = [&](std::size_t from) {
@@ -313,7 +313,7 @@ Walk walk_timeline(EvacuationPlan& plan, const std::vector<Stock>& stock, const 
   if (!plan.uses.empty() && !plan.uses.back().reached_reserve) {
     CylinderUse& use = plan.uses.back();
     use.end = minutes(evac);
-    use.end_gauge = bar(gauge_bar_at(stock[current], w.remaining[current]));
+    use.end_gauge = bar.gauge(gauge_bar_at(stock[current], w.remaining[current]));
   }
   plan.events.push_back({minutes(evac), EventKind::Arrival,
                          plan.uses.empty() ? 0 : plan.uses.back().cylinder_index,
@@ -382,7 +382,7 @@ void add_samples(EvacuationPlan& plan, const Walk& w, const std::vector<Stock>& 
     plan.assumptions.push_back("Samples every " + minutes_text(interval) + " to keep the plot small.");
   }
   auto add_sample = [&](double time, std::size_t cyl, double remaining_l, double flow) {
-    PressureSample s{minutes(time), cyl, bar(gauge_bar_at(stock[cyl], remaining_l)),
+    PressureSample s{minutes(time), cyl, bar.gauge(gauge_bar_at(stock[cyl], remaining_l)),
                      litres_per_minute(flow)};
     if (!plan.samples.empty() && plan.samples.back().time == s.time &&
         plan.samples.back().cylinder_index == cyl) {

@@ -21,6 +21,7 @@
 namespace firn::evacuation {
 
 using units::Duration;
+using units::GaugePressure;
 using units::Pressure;
 using units::Temperature;
 using units::Volume;
@@ -33,7 +34,7 @@ struct CylinderSpec {
   std::string label;                                  // "Cyl 1", "E-07"
   std::optional<cylinder::LetterSize> letter_size;
   std::optional<Volume> water_capacity;
-  Pressure gauge_pressure;                            // as read on the gauge now
+  GaugePressure gauge_pressure;                       // as read on the gauge now
   Temperature temperature = units::celsius(15.0);     // of the cylinder
 };
 
@@ -58,7 +59,7 @@ struct PlanInput {
   std::vector<CylinderSpec> cylinders;  // used in this order; 1…50
   std::vector<FlowPhase> phases;        // 1…20
   Duration evacuation;                  // total time to deliver the casualty, 1 min…72 h
-  Pressure reserve_gauge = cylinder::default_reserve_gauge;  // swap when a cylinder reaches this
+  GaugePressure reserve_gauge = cylinder::default_reserve_gauge;  // swap when a cylinder reaches this
   Pressure ambient_pressure = units::atmospheres(1.0);  // gauges read relative to this
   // The cylinder the shortfall / spare is counted in ("you need 2 more E cylinders"); a full one
   // of this spec (a letter size with gauge_pressure left at 0 means full at its service pressure).
@@ -79,8 +80,8 @@ struct CylinderUse {
   std::string label;
   Duration start;
   Duration end;
-  Pressure start_gauge;
-  Pressure end_gauge;
+  GaugePressure start_gauge;
+  GaugePressure end_gauge;
   Volume delivered;           // free gas
   bool reached_reserve;       // false: the evacuation ended while it was in use
 };
@@ -103,7 +104,7 @@ struct PlanEvent {
 struct PressureSample {
   Duration time;
   std::size_t cylinder_index;
-  Pressure gauge;
+  GaugePressure gauge;
   VolumeFlow flow;
 };
 

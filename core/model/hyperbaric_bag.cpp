@@ -130,7 +130,7 @@ Result<BagResult> compute(Pressure ambient, Length ambient_altitude, atmosphere:
   r.model = model;
   r.ambient_pressure = ambient;
   r.ambient_altitude = ambient_altitude;
-  r.inside_pressure = ambient + s.gauge;
+  r.inside_pressure = units::absolute_from_gauge(s.gauge, ambient);
   Result<Length> equivalent = altitude_of(r.inside_pressure, model, s);
   if (equivalent) {
     r.pressure_equivalent_altitude = equivalent.value();

@@ -18,6 +18,7 @@ namespace firn::hyperbaric_bag {
 using units::Duration;
 using units::Fraction;
 using units::Length;
+using units::GaugePressure;
 using units::Pressure;
 using units::Temperature;
 using units::Volume;
@@ -26,8 +27,8 @@ using units::VolumeFlow;
 // Validity of the settings.
 inline constexpr double max_gauge_mbar = 250.0;  // devices run up to ~220 mbar (from memory)
 // The bag gauge pressure (inside minus ambient) the model, the Bag screen and the record take.
-inline constexpr units::Range<units::PressureDimension> kGaugeRange{
-    units::hectopascals(0.0), units::hectopascals(max_gauge_mbar), &units::hectopascals,
+inline constexpr units::Range<units::GaugePressureDimension> kGaugeRange{
+    units::hectopascals.gauge(0.0), units::hectopascals.gauge(max_gauge_mbar), &units::hectopascals,
     "bag gauge pressure"};
 inline constexpr double min_flush_lpm = 5.0, max_flush_lpm = 300.0;
 inline constexpr double max_oxygen_feed_lpm = 15.0;
@@ -56,7 +57,7 @@ struct Settings {
   // Latitude and month (NRLMSISE-00 table): when given, ambient pressure and every equivalent
   // altitude use it both ways, so a descent is in real metres for that place and season.
   std::optional<atmosphere::LatitudeMonth> where;
-  Pressure gauge = units::psi(2.0);  // typical working pressure ~2 psi = 137.9 hPa
+  GaugePressure gauge = units::psi.gauge(2.0);  // typical working pressure ~2 psi = 137.9 hPa
   // Fresh air pushed through the bag, litres per minute AT CHAMBER PRESSURE (the volume it
   // occupies inside). Absent: no gas balance, only pressures.
   std::optional<VolumeFlow> flush;

@@ -7,6 +7,7 @@
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
+#include <type_traits>
 
 namespace firn::record {
 
@@ -215,12 +216,15 @@ class EntryReader {
   }
 
   // "5200m", "2psi", "6L/min": parsed by the unit parser, then checked in `unit`.
-  template <class D, class Parse>
-  std::optional<Quantity<D>> quantity(std::string_view key, Parse parse, const Unit<D>& unit,
-                                      double low, double high, std::string_view example) {
+  // The quantity's type is what `parse` gives (a bag gauge is read in pressure units).
+  template <class Parse, class D,
+            class Q = typename std::invoke_result_t<Parse&, std::string_view,
+                                                    std::string_view>::value_type>
+  std::optional<Q> quantity(std::string_view key, Parse parse, const Unit<D>& unit, double low,
+                            double high, std::string_view example) {
     std::optional<std::string> t = text(key, 40);
     if (!t) return std::nullopt;
-    Result<Quantity<D>> q = parse(*t, key);
+    Result<Q> q = parse(*t, key);
     if (!q) {
       fail(key, q.error().message + " (example: \"" + std::string(example) + "\")");
       return std::nullopt;
@@ -328,7 +332,7 @@ std::optional<Entry> read_entry(const Json& value, const std::string& path,
       }
     }
   }
-  e.bag_gauge = r.quantity("bag_gauge", parse_pressure, millibar, 0.0, kMaxBagGaugeMbar, "2psi");
+  e.bag_gauge = r.quantity("bag_gauge", parse_gauge_any_unit, millibar, 0.0, kMaxBagGaugeMbar, "2psi");
   if (std::optional<std::string> n = r.text("note", kMaxNoteChars)) e.note = *n;
   if (e.kind == Kind::Observation && !e.spo2 && !e.heart_rate && !e.breathing_rate && !e.avpu &&
       !e.lake_louise && e.criteria.empty() && problems.size() == before) {

@@ -20,6 +20,7 @@ namespace firn::record {
 
 using units::Fraction;
 using units::Length;
+using units::GaugePressure;
 using units::Pressure;
 using units::VolumeFlow;
 
@@ -68,7 +69,7 @@ struct Entry {
   std::optional<Avpu> avpu;
   std::optional<int> lake_louise;     // 2018 Lake Louise AMS score, 0–12
   std::vector<Criterion> criteria;    // diagnoses the criteria were met for, at this time
-  std::optional<Pressure> bag_gauge;  // bag_start: the working gauge pressure
+  std::optional<GaugePressure> bag_gauge;  // bag_start: the working gauge pressure
   std::string note;
 };
 

@@ -30,6 +30,7 @@ struct Error {
 template <class T>
 class [[nodiscard]] Result {
  public:
+  using value_type = T;
   Result(T value) : state_(std::move(value)) {}        // NOLINT: implicit by design
   Result(Error error) : state_(std::move(error)) {}    // NOLINT: implicit by design
 

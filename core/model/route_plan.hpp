@@ -27,6 +27,7 @@ namespace firn::route {
 using units::Duration;
 using units::Fraction;
 using units::Length;
+using units::GaugePressure;
 using units::Pressure;
 using units::Temperature;
 using units::Volume;
@@ -83,13 +84,13 @@ struct StockCylinder {
   std::string label;        // "#1 2 L alloy"
   std::string type_label;   // "2 L alloy"
   Volume water_capacity;
-  Pressure gauge;           // as read now, at the route's start altitude
+  GaugePressure gauge;      // as read now, at the route's start altitude
   Temperature temperature = units::celsius(15.0);
 };
 
 struct Stock {
   std::vector<StockCylinder> cylinders;      // used in this order
-  Pressure reserve_gauge = units::bar(20.0);
+  GaugePressure reserve_gauge = units::bar.gauge(20.0);
   Duration margin = units::minutes(30.0);     // oxygen to hold beyond arrival
   // A second casualty or a crew member drawing from the same stock for the whole route.
   VolumeFlow second_flow = units::litres_per_minute(0.0);
@@ -97,7 +98,7 @@ struct Stock {
   // Shortfalls and spares are counted in full cylinders of this type.
   std::string count_in_label;
   Volume count_in_water_capacity;
-  Pressure count_in_fill_gauge;
+  GaugePressure count_in_fill_gauge;
 };
 
 struct RouteInput {
@@ -112,7 +113,7 @@ struct RouteInput {
   std::vector<VolumeFlow> flow_steps;
   std::optional<int> start_clock_min;  // minutes after midnight: swap times as clock times
   // Hyperbaric bag settings for bag legs (the team profile's bag gauge pressure).
-  Pressure bag_gauge = units::psi(2.0);
+  GaugePressure bag_gauge = units::psi.gauge(2.0);
 };
 
 // [SECTION] The casualty's need at one pressure: the one place an individual estimate plugs in.
@@ -159,7 +160,7 @@ struct Swap {
 struct CylinderSpan {
   std::size_t cylinder;
   Duration start, end;
-  Pressure start_gauge, end_gauge;
+  GaugePressure start_gauge, end_gauge;
   bool reached_reserve;
 };
 

@@ -184,7 +184,7 @@ Result<Pressure> parse_pressure(std::string_view text, std::string_view what) {
   return parse_quantity(text, what, pressure_units, nullptr);
 }
 
-Result<Pressure> parse_gauge_pressure(std::string_view text, std::string_view what) {
+Result<GaugePressure> parse_gauge_pressure(std::string_view text, std::string_view what) {
   std::string_view trimmed = trim(text);
   std::string unit = normalise_unit(trimmed.substr(number_prefix_length(trimmed)));
   const std::string units_named = "bar, psi (gauge), kPa or MPa";
@@ -195,7 +195,7 @@ Result<Pressure> parse_gauge_pressure(std::string_view text, std::string_view wh
   std::string text_used(trimmed);
   if (unit == "psig") text_used.erase(text_used.size() - 1);
   Result<Pressure> p = parse_quantity(text_used, what, gauge_pressure_units, nullptr);
-  if (p) return p;
+  if (p) return pascals.gauge(p->in(pascals));
   std::string message = p.error().message;
   // Name the gauge units in the user's words, whatever the generic parser listed.
   if (size_t use = message.find(": use "); use != std::string::npos) {
@@ -205,6 +205,12 @@ Result<Pressure> parse_gauge_pressure(std::string_view text, std::string_view wh
               message.substr(message.find(" (example"));
   }
   return Error{message};
+}
+
+Result<GaugePressure> parse_gauge_any_unit(std::string_view text, std::string_view what) {
+  Result<Pressure> p = parse_pressure(text, what);
+  if (!p) return p.error();
+  return pascals.gauge(p->in(pascals));
 }
 
 Result<Temperature> parse_temperature(std::string_view text, std::string_view what) {

@@ -4,6 +4,7 @@
 #pragma once
 
 #include <array>
+#include <concepts>
 #include <optional>
 #include <span>
 #include <string>
@@ -16,7 +17,26 @@ namespace firn::units {
 template <class Dimension>
 struct Unit;
 
+struct PressureDimension;
+struct GaugePressureDimension;
 struct TemperatureDimension;
+// The dimension of the units a quantity is made and read in: its own, except a gauge pressure,
+// which is read in the pressure units (bar, psi) yet is a type of its own, so that a gauge
+// reading never adds to, compares with or passes for an absolute pressure.
+template <class Dimension>
+struct ReadingDimensionOf {
+  using type = Dimension;
+};
+template <>
+struct ReadingDimensionOf<GaugePressureDimension> {
+  using type = PressureDimension;
+};
+template <class Dimension>
+using ReadingDimension = typename ReadingDimensionOf<Dimension>::type;
+// The units that make and read a Quantity<Dimension>.
+template <class Dimension>
+using ReadingUnit = Unit<ReadingDimension<Dimension>>;
+
 // A point on a scale with an offset (a temperature: 10 °C + 10 °C is not 20 °C, and twice 10 °C
 // is not 20 °C). Points are not added, scaled or divided; the difference of two points is a
 // quantity of its own dimension (PointDifference), which a point can be moved by.
@@ -34,8 +54,7 @@ class Quantity {
   using dimension = Dimension;
   constexpr Quantity() = default;  // zero of the dimension (absolute zero for temperature)
 
-  template <class D = Dimension>
-  constexpr double in(const Unit<D>& unit) const {
+  constexpr double in(const ReadingUnit<Dimension>& unit) const {
     return (si_ - unit.offset) / unit.scale;
   }
 
@@ -79,7 +98,7 @@ class Quantity {
   }
 
  private:
-  friend struct Unit<Dimension>;
+  friend struct Unit<ReadingDimension<Dimension>>;
   template <class> friend class Quantity;  // a point and its difference
   constexpr explicit Quantity(double si) : si_(si) {}
   double si_ = 0.0;
@@ -96,10 +115,16 @@ struct Unit {
   constexpr Quantity<Dimension> operator()(double amount) const {
     return Quantity<Dimension>(amount * scale + offset);
   }
+  // A gauge reading (above ambient) in this unit: bar.gauge(200) is a cylinder at 200 bar gauge.
+  constexpr Quantity<GaugePressureDimension> gauge(double amount) const
+      requires std::same_as<Dimension, PressureDimension> {
+    return Quantity<GaugePressureDimension>(amount * scale + offset);
+  }
 };
 
 struct LengthDimension {};
 struct PressureDimension {};
+struct GaugePressureDimension {};
 struct TemperatureDimension {};
 struct VolumeDimension {};
 struct VolumeFlowDimension {};
@@ -107,7 +132,11 @@ struct DurationDimension {};
 struct FractionDimension {};
 
 using Length = Quantity<LengthDimension>;
-using Pressure = Quantity<PressureDimension>;        // absolute unless a name says "gauge"
+// Absolute pressure (air, alveolar, inside a bag). What a cylinder, regulator or bag gauge shows
+// is a GaugePressure (above ambient): made and read in the same units (bar.gauge(200),
+// g.in(psi)), it becomes absolute only with the ambient pressure given (absolute_from_gauge).
+using Pressure = Quantity<PressureDimension>;
+using GaugePressure = Quantity<GaugePressureDimension>;
 using Temperature = Quantity<TemperatureDimension>;
 using Volume = Quantity<VolumeDimension>;
 using VolumeFlow = Quantity<VolumeFlowDimension>;
@@ -157,13 +186,34 @@ constexpr Duration operator/(Volume volume, VolumeFlow flow) {
   return minutes(volume.in(litres) / flow.in(litres_per_minute));
 }
 
+// `amount` in `unit` for code generic over the dimension: unit(amount), or unit.gauge(amount)
+// for a gauge pressure.
+template <class Dimension>
+constexpr Quantity<Dimension> from_reading(const ReadingUnit<Dimension>& unit, double amount) {
+  if constexpr (std::same_as<Dimension, GaugePressureDimension>) {
+    return unit.gauge(amount);
+  } else {
+    return unit(amount);
+  }
+}
+
+// A gauge shows the pressure above the air around it, so the absolute pressure is the gauge
+// reading plus the ambient pressure, and the other way round; there is no conversion without it.
+constexpr Pressure absolute_from_gauge(GaugePressure gauge, Pressure ambient) {
+  return pascals(gauge.in(pascals) + ambient.in(pascals));
+}
+constexpr GaugePressure gauge_from_absolute(Pressure absolute, Pressure ambient) {
+  return pascals.gauge(absolute.in(pascals) - ambient.in(pascals));
+}
+
 // True when `q` is finite and within [low, high] of `unit`, compared in SI. Reading a value back
 // in its unit can be a rounding off ("1000mmHg" reads back as 1000.0000000000001 mmHg, and was
 // refused as outside 0…1000 mmHg: sweep finding); the bound converted the same way is not.
 template <class Dimension>
-bool within(Quantity<Dimension> q, double low, double high, const Unit<Dimension>& unit) {
-  constexpr Unit<Dimension> si{1.0, 0.0, "", ""};
-  return in_range(q.in(si), unit(low).in(si), unit(high).in(si));
+bool within(Quantity<Dimension> q, double low, double high, const ReadingUnit<Dimension>& unit) {
+  constexpr ReadingUnit<Dimension> si{1.0, 0.0, "", ""};
+  return in_range(q.in(si), from_reading<Dimension>(unit, low).in(si),
+                  from_reading<Dimension>(unit, high).in(si));
 }
 
 // A valid range, published once by the model that owns it and read by the fields, the saved
@@ -172,7 +222,7 @@ bool within(Quantity<Dimension> q, double low, double high, const Unit<Dimension
 template <class Dimension>
 struct Range {
   Quantity<Dimension> low, high;
-  const Unit<Dimension>* unit;
+  const ReadingUnit<Dimension>* unit;
   std::string_view what{};
   std::string_view note{};
 
@@ -283,8 +333,12 @@ Result<Temperature> parse_temperature(std::string_view text,
 // A gauge pressure (above ambient) of a cylinder or regulator: "200bar", "2015psi", "2015psig",
 // "20MPa", "13790kPa". Only gauge_pressure_units; "psia" (absolute) and air-pressure units are
 // refused with a message naming the gauge units.
-Result<Pressure> parse_gauge_pressure(std::string_view text,
-                                      std::string_view what = "gauge pressure");
+Result<GaugePressure> parse_gauge_pressure(std::string_view text,
+                                           std::string_view what = "gauge pressure");
+// A gauge pressure in any pressure unit ("2psi", "138hPa", "140mbar"): a bag's gauge is marked
+// in air-pressure units as often as in psi. Cylinders use parse_gauge_pressure.
+Result<GaugePressure> parse_gauge_any_unit(std::string_view text,
+                                           std::string_view what = "gauge pressure");
 // A volume: "10L", "680ml"; a bare number is taken as litres.
 Result<Volume> parse_volume(std::string_view text, std::string_view what = "volume");
 // A flow: "15L/min"; a bare number is taken as L/min (flows are L/min across Firn).

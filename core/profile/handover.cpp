@@ -121,7 +121,7 @@ std::string altitude_text(Length h, Units u) {
   return u == Units::Us ? grouped(h.in(feet)) + " ft" : grouped(h.in(metres)) + " m";
 }
 
-std::string gauge_text(Pressure g, Units u) {
+std::string gauge_text(GaugePressure g, Units u) {
   return u == Units::Us ? format_number(g.in(psi), 1) + " psi gauge"
                         : format_number(g.in(hectopascals), 0) + " hPa gauge";
 }

@@ -36,7 +36,7 @@ struct OxygenPeriod {
 struct BagSession {
   ClockTime start;
   std::optional<ClockTime> end;  // absent: still in the bag at the last entry
-  std::optional<units::Pressure> gauge;
+  std::optional<units::GaugePressure> gauge;
 };
 
 struct Summary {

@@ -41,7 +41,7 @@ const Unit<PressureDimension>& cylinder_gauge_unit(UnitSystem s) {
 const Unit<PressureDimension>& bag_gauge_unit(UnitSystem s) {
   return s == UnitSystem::Us ? psi : hectopascals;
 }
-std::string gauge_text(Pressure p, const Unit<PressureDimension>& unit) {
+std::string gauge_text(GaugePressure p, const Unit<PressureDimension>& unit) {
   return whole(p.in(unit)) + " " + std::string(unit.symbol);
 }
 
@@ -111,7 +111,7 @@ DurationRow duration_row(const TeamProfile& p, const team_profile::CylinderType&
   for (VolumeFlow flow : p.flows) {
     DurationCell cell;
     for (bool half : {false, true}) {
-      Pressure gauge = half ? c.fill_pressure_gauge / 2.0 : c.fill_pressure_gauge;
+      GaugePressure gauge = half ? c.fill_pressure_gauge / 2.0 : c.fill_pressure_gauge;
       std::optional<Duration>& slot = half ? cell.half : cell.full;
       std::string& note = half ? cell.half_note : cell.full_note;
       if (!(gauge > p.reserve_pressure_gauge)) {

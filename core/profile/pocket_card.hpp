@@ -21,6 +21,7 @@ namespace firn::pocket_card {
 
 using units::Duration;
 using units::Length;
+using units::GaugePressure;
 using units::Pressure;
 using units::VolumeFlow;
 
@@ -58,7 +59,7 @@ struct DurationCell {
 struct DurationRow {
   std::string label;
   units::Volume water_capacity;
-  Pressure fill_gauge;
+  GaugePressure fill_gauge;
   int count = 0;
   std::vector<DurationCell> by_flow;  // one per profile flow
 };

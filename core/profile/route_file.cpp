@@ -29,8 +29,9 @@ using Parser = std::function<Result<Quantity<D>>(std::string_view, std::string_v
 const Parser<LengthDimension> length_parser = [](std::string_view t, std::string_view w) {
   return parse_length(t, w);
 };
-const Parser<PressureDimension> pressure_parser = [](std::string_view t, std::string_view w) {
-  return parse_pressure(t, w);
+// The route's gauge readings, in any pressure unit as the file has always taken them.
+const Parser<GaugePressureDimension> gauge_parser = [](std::string_view t, std::string_view w) {
+  return parse_gauge_any_unit(t, w);
 };
 const Parser<TemperatureDimension> temperature_parser = [](std::string_view t,
                                                            std::string_view w) {
@@ -121,7 +122,7 @@ class Reader {
   template <class D>
   std::optional<Quantity<D>> quantity(const Json& obj, const std::string& path,
                                       std::string_view key, bool required, const Parser<D>& parse,
-                                      const Unit<D>& unit, double low, double high,
+                                      const ReadingUnit<D>& unit, double low, double high,
                                       std::string_view example) {
     const Json* v = find(obj, path, key, required, example);
     if (!v) return std::nullopt;
@@ -295,8 +296,8 @@ Volume water_of(const team_profile::CylinderType& t) {
   return t.water_capacity ? *t.water_capacity : cylinder::letter_size_info(*t.letter_size).water_capacity;
 }
 
-StockCylinder stock_cylinder(const team_profile::CylinderType& t, std::size_t index, Pressure gauge,
-                             Temperature temperature) {
+StockCylinder stock_cylinder(const team_profile::CylinderType& t, std::size_t index,
+                             GaugePressure gauge, Temperature temperature) {
   return {"#" + std::to_string(index + 1) + " " + t.label, t.label, water_of(t), gauge, temperature};
 }
 
@@ -327,7 +328,7 @@ std::optional<StockCylinder> read_cylinder(Reader& r, const Json& v, const std::
                                     profile.team_name + "\" (" + known + ")");
   }
   double high_bar = t ? t->fill_pressure_gauge.in(bar) * kGaugeHighShareOfFill : tpl::Limits::fill_pressure_high_bar;
-  auto pressure = r.quantity(v, path, "pressure", true, pressure_parser, bar, 0.0, high_bar,
+  auto pressure = r.quantity(v, path, "pressure", true, gauge_parser, bar, 0.0, high_bar,
                              "190bar");
   std::optional<Temperature> temperature = celsius(15.0);
   if (v.contains("temperature")) {
@@ -361,7 +362,7 @@ std::optional<Stock> read_stock(Reader& r, const Json& v, const team_profile::Te
   }
   s.reserve_gauge = profile.reserve_pressure_gauge;
   if (v.contains("reserve")) {
-    auto reserve = r.quantity(v, path, "reserve", false, pressure_parser, bar,
+    auto reserve = r.quantity(v, path, "reserve", false, gauge_parser, bar,
                               team_profile::Limits::reserve_low_bar,
                               team_profile::Limits::reserve_high_bar, "20bar");
     if (reserve) s.reserve_gauge = *reserve;

@@ -33,7 +33,7 @@ std::string plain_number(double v) {
 }
 
 template <class D>
-std::string written(Quantity<D> q, const Unit<D>& unit, std::string_view written_unit) {
+std::string written(Quantity<D> q, const ReadingUnit<D>& unit, std::string_view written_unit) {
   return plain_number(q.in(unit)) + std::string(written_unit);
 }
 

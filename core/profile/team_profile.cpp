@@ -36,7 +36,7 @@ std::string exact_digits(double value, const ReadsBack& reads_back) {
 // and "200bar" stays "200bar". `spellings` are what we write (ASCII, parseable).
 template <class D>
 std::string quantity_text(Quantity<D> q,
-                          std::initializer_list<std::pair<const Unit<D>*, const char*>> candidates,
+                          std::initializer_list<std::pair<const ReadingUnit<D>*, const char*>> candidates,
                           const std::function<Result<Quantity<D>>(std::string_view)>& parse) {
   std::string best;
   int best_decimals = 99;
@@ -52,7 +52,7 @@ std::string quantity_text(Quantity<D> q,
     }
   }
   if (!best.empty()) return best;
-  const Unit<D>* unit = candidates.begin()->first;  // plain names: clang 14 cannot capture
+  const ReadingUnit<D>* unit = candidates.begin()->first;  // plain names: clang 14 cannot capture
   const std::string spelling = candidates.begin()->second;  // structured bindings
   return exact_digits(q.in(*unit), [&](const std::string& digits) {
            Result<Quantity<D>> back = parse(digits + spelling);
@@ -66,25 +66,26 @@ std::string length_text(Length l, UnitSystem system) {
   return quantity_text<LengthDimension>(l, {{&metres, "m"}, {&feet, "ft"}}, parse);
 }
 
-std::string pressure_text(Pressure p, bool prefer_psi) {
-  auto parse = [](std::string_view t) { return parse_pressure(t); };
+// A bag gauge pressure: in any pressure unit a bag gauge is marked in, read back the same way.
+std::string bag_gauge_text(GaugePressure p, bool prefer_psi) {
+  auto parse = [](std::string_view t) { return parse_gauge_any_unit(t); };
   if (prefer_psi) {
-    return quantity_text<PressureDimension>(
+    return quantity_text<GaugePressureDimension>(
         p, {{&psi, "psi"}, {&bar, "bar"}, {&millibar, "mbar"}, {&kilopascals, "kPa"}}, parse);
   }
-  return quantity_text<PressureDimension>(
+  return quantity_text<GaugePressureDimension>(
       p, {{&bar, "bar"}, {&psi, "psi"}, {&millibar, "mbar"}, {&kilopascals, "kPa"}}, parse);
 }
 
 // A cylinder gauge pressure: in the gauge units only (bar, psi, kPa, MPa), read back by the
 // gauge parser.
-std::string gauge_pressure_text(Pressure p, bool prefer_psi) {
+std::string gauge_pressure_text(GaugePressure p, bool prefer_psi) {
   auto parse = [](std::string_view t) { return parse_gauge_pressure(t); };
   if (prefer_psi) {
-    return quantity_text<PressureDimension>(
+    return quantity_text<GaugePressureDimension>(
         p, {{&psi, "psi"}, {&bar, "bar"}, {&kilopascals, "kPa"}, {&megapascals, "MPa"}}, parse);
   }
-  return quantity_text<PressureDimension>(
+  return quantity_text<GaugePressureDimension>(
       p, {{&bar, "bar"}, {&psi, "psi"}, {&kilopascals, "kPa"}, {&megapascals, "MPa"}}, parse);
 }
 
@@ -223,7 +224,7 @@ std::string serialize_profile(const TeamProfile& p) {
   for (VolumeFlow f : p.flows) flows.push_back(flow_text(f));
   root["flows"] = flows;
   Json bag = Json::object();
-  bag["gauge_pressure"] = pressure_text(p.bag.gauge_pressure, true);
+  bag["gauge_pressure"] = bag_gauge_text(p.bag.gauge_pressure, true);
   bag["pump_stroke_volume"] = volume_text(p.bag.pump_stroke_volume);
   bag["co2_limit"] = percent_text(p.bag.co2_limit);
   root["bag"] = bag;
@@ -261,8 +262,8 @@ TeamProfile demo_profile() {
 }
 
 namespace {
-evacuation::CylinderSpec spec_for(const CylinderType& type, std::string label, Pressure gauge,
-                                  Temperature temperature) {
+evacuation::CylinderSpec spec_for(const CylinderType& type, std::string label,
+                                  GaugePressure gauge, Temperature temperature) {
   return {std::move(label), type.letter_size, type.water_capacity, gauge, temperature};
 }
 }  // namespace

@@ -21,6 +21,7 @@ namespace firn::team_profile {
 using units::Duration;
 using units::Fraction;
 using units::Length;
+using units::GaugePressure;
 using units::Pressure;
 using units::Temperature;
 using units::Volume;
@@ -39,7 +40,7 @@ struct CylinderType {
   std::string label;                        // "2 L alloy", "D"
   std::optional<LetterSize> letter_size;    // US size, and/or…
   std::optional<Volume> water_capacity;     // …water capacity (at least one is set)
-  Pressure fill_pressure_gauge;             // full-cylinder gauge pressure
+  GaugePressure fill_pressure_gauge;        // full-cylinder gauge pressure
   int count = 1;                            // how many the team has
 
   bool operator==(const CylinderType&) const = default;
@@ -56,7 +57,7 @@ struct FlowPhase {
 // A cylinder actually on hand at an incident, as read from its gauge.
 struct CylinderOnHand {
   std::string type_label;        // refers to CylinderType::label
-  Pressure pressure_gauge;
+  GaugePressure pressure_gauge;
   Temperature temperature;
 
   bool operator==(const CylinderOnHand&) const = default;
@@ -84,9 +85,9 @@ struct CardLayout {
 };
 
 struct BagSetup {
-  Pressure gauge_pressure;   // inside minus ambient
+  GaugePressure gauge_pressure;  // inside minus ambient
   Volume pump_stroke_volume;
-  Fraction co2_limit;        // steady-state CO2 fraction not to exceed
+  Fraction co2_limit;            // steady-state CO2 fraction not to exceed
 
   bool operator==(const BagSetup&) const = default;
 };
@@ -108,7 +109,7 @@ struct TeamProfile {
   CardLayout card;
   std::vector<CylinderType> cylinders;
   // Optional in the file: cylinder::default_reserve_gauge, the one default of the CLI and the app.
-  Pressure reserve_pressure_gauge = cylinder::default_reserve_gauge;
+  GaugePressure reserve_pressure_gauge = cylinder::default_reserve_gauge;
   SafetyMargin safety_margin;  // optional in the file
   std::vector<VolumeFlow> flows;
   BagSetup bag;

@@ -168,7 +168,7 @@ class Reader {
   std::optional<Quantity<D>> quantity(
       const Json& object, const std::string& path, std::string_view key, bool required,
       const std::function<Result<Quantity<D>>(std::string_view, std::string_view)>& parse,
-      const Unit<D>& unit, double low, double high, std::string_view example) {
+      const ReadingUnit<D>& unit, double low, double high, std::string_view example) {
     const Json* value = field(object, path, key, required, example);
     if (!value) return std::nullopt;
     return quantity_value(*value, child(path, key), parse, unit, low, high, example);
@@ -178,7 +178,7 @@ class Reader {
   std::optional<Quantity<D>> quantity_value(
       const Json& value, const std::string& path,
       const std::function<Result<Quantity<D>>(std::string_view, std::string_view)>& parse,
-      const Unit<D>& unit, double low, double high, std::string_view example) {
+      const ReadingUnit<D>& unit, double low, double high, std::string_view example) {
     if (!value.is_string()) {
       fail(path, json_shown(value) + " needs its unit, written as text like \"" +
                      std::string(example) + "\"");
@@ -225,10 +225,10 @@ using Limits = team_profile::Limits;
 
 const std::function<Result<Length>(std::string_view, std::string_view)> length_parser =
     [](std::string_view t, std::string_view w) { return parse_length(t, w); };
-const std::function<Result<Pressure>(std::string_view, std::string_view)> pressure_parser =
-    [](std::string_view t, std::string_view w) { return parse_pressure(t, w); };
-// Cylinder pressures are gauge readings: bar, psi, kPa or MPa only.
-const std::function<Result<Pressure>(std::string_view, std::string_view)> gauge_parser =
+// A bag gauge is marked in any pressure unit; cylinder gauges in bar, psi, kPa or MPa only.
+const std::function<Result<GaugePressure>(std::string_view, std::string_view)> bag_gauge_parser =
+    [](std::string_view t, std::string_view w) { return parse_gauge_any_unit(t, w); };
+const std::function<Result<GaugePressure>(std::string_view, std::string_view)> gauge_parser =
     [](std::string_view t, std::string_view w) { return parse_gauge_pressure(t, w); };
 const std::function<Result<Temperature>(std::string_view, std::string_view)> temperature_parser =
     [](std::string_view t, std::string_view w) { return parse_temperature(t, w); };
@@ -356,7 +356,7 @@ std::optional<CardLayout> read_card(Reader& r, const Json& value, const std::str
 std::optional<BagSetup> read_bag(Reader& r, const Json& value, const std::string& path) {
   if (!r.object(value, path)) return std::nullopt;
   r.reject_unknown(value, path, {"gauge_pressure", "pump_stroke_volume", "co2_limit"});
-  auto gauge = r.quantity(value, path, "gauge_pressure", true, pressure_parser, hectopascals,
+  auto gauge = r.quantity(value, path, "gauge_pressure", true, bag_gauge_parser, hectopascals,
                           Limits::bag_gauge_low_hpa, Limits::bag_gauge_high_hpa, "2psi");
   auto stroke = r.quantity(value, path, "pump_stroke_volume", true, volume_parser, litres,
                            Limits::stroke_low_l, Limits::stroke_high_l, "3L");
@@ -528,7 +528,7 @@ std::optional<TeamProfile> read_current(const Json& root, Problems& problems) {
   }
   ok = ok && cylinders_ok;
   // Optional: without it the one default reserve of the CLI and the app.
-  std::optional<Pressure> reserve = cylinder::default_reserve_gauge;
+  std::optional<GaugePressure> reserve = cylinder::default_reserve_gauge;
   if (root.contains("reserve_pressure")) {
     reserve = r.quantity(root, top, "reserve_pressure", false, gauge_parser, bar,
                          Limits::reserve_low_bar, Limits::reserve_high_bar, "20bar");

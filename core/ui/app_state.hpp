@@ -139,7 +139,7 @@ struct Situation {
 
 // Inputs of the screens beyond the situation.
 struct BagInputs {
-  units::Pressure gauge = units::psi(2.0);  // bag pressure above ambient
+  units::GaugePressure gauge = units::psi.gauge(2.0);  // bag pressure above ambient
   units::VolumeFlow flush = units::litres_per_minute(40.0);
   units::Duration time_in_bag = units::minutes(60.0);
   // The casualty's gas exchange (STPD) and the gas temperature inside: the bag model's defaults.
@@ -153,10 +153,10 @@ struct OxygenInputs {
   int team_type = 0;        // index into the team profile's cylinders
   int letter_size = 1;      // D, E, M, H
   units::Volume water_capacity = units::litres(2.0);
-  units::Pressure gauge = units::bar(200.0);
+  units::GaugePressure gauge = units::bar.gauge(200.0);
   std::int64_t gauge_read_at = 0;  // when the gauge was typed (s since 1970 UTC); 0: never
   units::Temperature cylinder_temperature = units::celsius(0.0);
-  units::Pressure reserve = cylinder::default_reserve_gauge;  // the one default (model)
+  units::GaugePressure reserve = cylinder::default_reserve_gauge;  // the one default (model)
   units::VolumeFlow flow = units::litres_per_minute(4.0);
   int cylinder_count = 3;
   units::Duration evacuation = units::hours(4.0);

@@ -85,10 +85,11 @@ QuantityField<PressureDimension> air_pressure_field(const AppState& state, const
           static_cast<int>(index), low, high, {1.0, 1.0, 0.1, 0.05}, kPressureDecimals[index]};
 }
 
-QuantityField<PressureDimension> cylinder_pressure_field(const AppState& state, const char* label,
-                                                         const char* id, Pressure high) {
+QuantityField<GaugePressureDimension> cylinder_pressure_field(const AppState& state,
+                                                              const char* label, const char* id,
+                                                              GaugePressure high) {
   return {label, id, "gauge pressure", {kCylinderUnits.begin(), kCylinderUnits.end()},
-          static_cast<int>(state.settings.units.cylinder), bar(0), high, {10.0, 100.0}, 0};
+          static_cast<int>(state.settings.units.cylinder), bar.gauge(0), high, {10.0, 100.0}, 0};
 }
 
 QuantityField<TemperatureDimension> temperature_field(const AppState& state, const char* label,

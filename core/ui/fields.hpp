@@ -25,7 +25,7 @@ struct QuantityField {
   const char* label;
   const char* id;
   const char* what;  // "altitude": names the field in error messages
-  std::vector<const units::Unit<D>*> units;  // keypad unit toggles
+  std::vector<const units::ReadingUnit<D>*> units;  // keypad unit toggles
   int unit_index;                            // the user's display unit among them
   units::Quantity<D> low, high;              // valid range
   std::vector<double> steps;                 // ± step per unit (same order as `units`)
@@ -54,7 +54,7 @@ std::string out_of_range_message(const char* what, double low, double high, doub
 
 template <class D>
 FieldSpec quantity_spec(const QuantityField<D>& f, const units::Quantity<D>& value) {
-  const units::Unit<D>& unit = *f.units[f.unit_index];
+  const units::ReadingUnit<D>& unit = *f.units[f.unit_index];
   std::string symbol(unit.symbol);
   std::string suffix = symbol.empty() ? "" : " " + symbol;
   bool empty = f.entered != nullptr && !*f.entered;
@@ -66,10 +66,10 @@ FieldSpec quantity_spec(const QuantityField<D>& f, const units::Quantity<D>& val
   spec.edit_text = empty ? std::string() : shown_number(value.in(unit), f.decimals);
   spec.unit_index = f.unit_index;
   spec.hint = range_text(f.low.in(unit), f.high.in(unit), symbol, f.decimals);
-  for (const units::Unit<D>* u : f.units) spec.unit_symbols.emplace_back(u->symbol);
+  for (const units::ReadingUnit<D>* u : f.units) spec.unit_symbols.emplace_back(u->symbol);
   // − where the range goes below zero in any of the keypad's units (−4 °F is above −40 °C).
   spec.allow_negative = false;
-  for (const units::Unit<D>* u : f.units) spec.allow_negative = spec.allow_negative || f.low.in(*u) < 0.0;
+  for (const units::ReadingUnit<D>* u : f.units) spec.allow_negative = spec.allow_negative || f.low.in(*u) < 0.0;
   spec.allow_decimal = f.decimals > 0;
   for (double step : f.steps) spec.allow_decimal = spec.allow_decimal || step != std::floor(step);
   spec.empty = empty;
@@ -80,13 +80,13 @@ FieldSpec quantity_spec(const QuantityField<D>& f, const units::Quantity<D>& val
 // Returns true when the value changed.
 template <class D>
 bool edit_quantity(AppState& state, const QuantityField<D>& f, units::Quantity<D>& value) {
-  const units::Unit<D>& unit = *f.units[f.unit_index];
+  const units::ReadingUnit<D>& unit = *f.units[f.unit_index];
   FieldSpec spec = quantity_spec(f, value);
   FieldEvent event = keypad_field(state, spec);
   if (event.kind == FieldEvent::Kind::None) return false;
 
   units::Quantity<D> candidate = value;
-  const units::Unit<D>& typed_unit = *f.units[event.unit_index];
+  const units::ReadingUnit<D>& typed_unit = *f.units[event.unit_index];
   if (event.kind == FieldEvent::Kind::Commit) {
     Result<double> number = units::parse_number(event.text, f.what);
     if (!number) {
@@ -97,7 +97,7 @@ bool edit_quantity(AppState& state, const QuantityField<D>& f, units::Quantity<D
       state.field_errors[f.id] = ambiguous->message;
       return false;
     }
-    candidate = typed_unit(number.value());
+    candidate = units::from_reading<D>(typed_unit, number.value());
     // A little slack so a bound typed in another unit is not rejected by rounding.
     double slack = 1e-9 * (std::fabs(f.high.in(typed_unit)) + 1.0);
     if (!(candidate.in(typed_unit) >= f.low.in(typed_unit) - slack &&
@@ -121,7 +121,7 @@ bool edit_quantity(AppState& state, const QuantityField<D>& f, units::Quantity<D
     double shown = value.in(unit) / step;
     double snapped = event.kind == FieldEvent::Kind::Plus ? std::floor(shown + 1e-6) + 1
                                                           : std::ceil(shown - 1e-6) - 1;
-    candidate = unit(snapped * step);
+    candidate = units::from_reading<D>(unit, snapped * step);
     if (candidate < f.low) candidate = f.low;
     if (candidate > f.high) candidate = f.high;
   }
@@ -141,9 +141,10 @@ QuantityField<units::LengthDimension> situation_altitude_field(AppState& state, 
 QuantityField<units::PressureDimension> air_pressure_field(const AppState& state, const char* label,
                                                            const char* id, units::Pressure low,
                                                            units::Pressure high);
-QuantityField<units::PressureDimension> cylinder_pressure_field(const AppState& state,
-                                                                const char* label, const char* id,
-                                                                units::Pressure high);
+QuantityField<units::GaugePressureDimension> cylinder_pressure_field(const AppState& state,
+                                                                     const char* label,
+                                                                     const char* id,
+                                                                     units::GaugePressure high);
 // A temperature within a model's published range, in the user's temperature unit.
 QuantityField<units::TemperatureDimension> temperature_field(
     const AppState& state, const char* label, const char* id,

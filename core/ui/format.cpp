@@ -14,9 +14,19 @@ std::string altitude_with_unit(Length altitude, const UnitChoice& u) {
   return quantity_text(altitude, chosen_unit(kAltitudeUnits, u.altitude), 0);
 }
 
-std::string pressure_text(Pressure pressure, const UnitChoice& u) {
-  return quantity_text(pressure, chosen_unit(kPressureUnits, u.pressure),
+namespace {
+template <class D>
+std::string in_pressure_unit(Quantity<D> p, const UnitChoice& u) {
+  return quantity_text(p, chosen_unit(kPressureUnits, u.pressure),
                        kPressureDecimals[static_cast<std::size_t>(u.pressure)]);
+}
+}  // namespace
+
+std::string pressure_text(Pressure pressure, const UnitChoice& u) {
+  return in_pressure_unit(pressure, u);
+}
+std::string pressure_text(GaugePressure gauge, const UnitChoice& u) {
+  return in_pressure_unit(gauge, u);
 }
 
 std::string grouped_number(double value, int decimals) {
@@ -65,7 +75,7 @@ namespace firn::ui {
 
 using namespace units;
 
-std::string cylinder_pressure_text(Pressure gauge, const UnitChoice& u) {
+std::string cylinder_pressure_text(GaugePressure gauge, const UnitChoice& u) {
   return quantity_text(gauge, chosen_unit(kCylinderUnits, u.cylinder), 0);
 }
 

@@ -23,7 +23,7 @@ namespace bag = hyperbaric_bag;
 
 // In the Settings' pressure unit (one name per unit on every screen); psi on the keypad too,
 // since many bags are marked in psi.
-QuantityField<PressureDimension> bag_gauge_field(const AppState& state) {
+QuantityField<GaugePressureDimension> bag_gauge_field(const AppState& state) {
   int index = static_cast<int>(state.settings.units.pressure);
   constexpr int decimals[] = {0, 0, 1, 2};  // a gauge of a few hundred hPa: coarser than air
   std::vector<const Unit<PressureDimension>*> units(kPressureUnits.begin(), kPressureUnits.end());
@@ -38,7 +38,7 @@ QuantityField<VolumeFlowDimension> gas_exchange_field(const char* label, const c
           litres_per_minute(high), {0.05}, 2};
 }
 
-std::string gauge_text(Pressure gauge, const UnitChoice& u) {
+std::string gauge_text(GaugePressure gauge, const UnitChoice& u) {
   return pressure_text(gauge, u) + " (" + shown_number(gauge.in(psi), 2) + " psi)";
 }
 

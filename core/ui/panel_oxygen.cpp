@@ -125,7 +125,7 @@ CylinderInHand draw_cylinder(AppState& state, Pressure ambient) {
   OxygenInputs& in = state.oxygen;
   heading("Cylinder");
   CylinderInHand chosen = choose_cylinder(state);
-  QuantityField<PressureDimension> gauge =
+  QuantityField<GaugePressureDimension> gauge =
       cylinder_pressure_field(state, "Cylinder gauge", "cyl-gauge", cylinder::kGaugeRange.high);
   gauge.entered_at = &in.gauge_read_at;  // the Record screen times the reserve from this reading
   edit_quantity(state, gauge, in.gauge);
@@ -138,7 +138,7 @@ CylinderInHand draw_cylinder(AppState& state, Pressure ambient) {
   ImGui::PushTextWrapPos(0.0f);
   ImGui::TextDisabled("%s", std::string(cylinder::temperature_advice).c_str());
   ImGui::PopTextWrapPos();
-  edit_quantity(state, cylinder_pressure_field(state, "Reserve (swap at)", "cyl-reserve", bar(cylinder::max_reserve_bar)), in.reserve);
+  edit_quantity(state, cylinder_pressure_field(state, "Reserve (swap at)", "cyl-reserve", bar.gauge(cylinder::max_reserve_bar)), in.reserve);
   if (state.situation.on_oxygen) {
     edit_quantity(state, casualty_flow_field(state, "Flow (the casualty's, as on Casualty)", "cyl-flow"),
                   state.situation.oxygen_flow);

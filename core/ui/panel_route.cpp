@@ -125,8 +125,8 @@ void draw_stock(AppState& state) {
     std::string id = "route-gauge-" + std::to_string(i + 1);
     // The route file's range for this type, so whatever is entered here is saved and read back.
     const team_profile::CylinderType* t = state.team.profile.find_cylinder(c.type_label);
-    Pressure high = t ? t->fill_pressure_gauge * route::kGaugeHighShareOfFill
-                      : bar(team_profile::Limits::fill_pressure_high_bar);
+    GaugePressure high = t ? t->fill_pressure_gauge * route::kGaugeHighShareOfFill
+                           : bar.gauge(team_profile::Limits::fill_pressure_high_bar);
     edit_quantity(state, cylinder_pressure_field(state, c.label.c_str(), id.c_str(), high), c.gauge);
   }
   for (const team_profile::CylinderType& t : state.team.profile.cylinders) {

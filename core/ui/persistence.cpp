@@ -74,19 +74,19 @@ void read(const Json& j, const char* key, const std::array<std::string_view, N>&
   }
 }
 template <class D>
-void read(const Json& j, const char* key, const Unit<D>& unit, double low, double high,
+void read(const Json& j, const char* key, const ReadingUnit<D>& unit, double low, double high,
           Quantity<D>& out) {
   double v = out.in(unit);
   read(j, key, low, high, v);
-  out = unit(v);
+  out = from_reading<D>(unit, v);
 }
 // A saved quantity (a number in `unit`), kept only inside the model's published range.
 template <class D>
-void read(const Json& j, const char* key, const Unit<D>& unit, const Range<D>& range,
+void read(const Json& j, const char* key, const ReadingUnit<D>& unit, const Range<D>& range,
           Quantity<D>& out) {
   auto it = j.find(key);
   if (it == j.end() || !it->is_number()) return;
-  Quantity<D> v = unit(it->get<double>());
+  Quantity<D> v = from_reading<D>(unit, it->get<double>());
   if (range.contains(v)) out = v;  // contains() refuses NaN and infinities too
 }
 Json child(const Json& j, const char* key) {

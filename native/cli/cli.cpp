@@ -87,6 +87,13 @@ Result<units::Pressure> required_pressure(const std::optional<std::string>& text
                            range);
 }
 
+Result<units::GaugePressure> required_gauge_pressure(
+    const std::optional<std::string>& text, const std::string& option, const std::string& what,
+    const OptionalRange<units::GaugePressureDimension>& range) {
+  return required_quantity(text, option, what, "616hPa, 462mmHg or 2psi",
+                           units::parse_gauge_any_unit, range);
+}
+
 Result<units::Pressure> measured_ambient_pressure(const std::optional<std::string>& text) {
   Result<units::Pressure> p = required_pressure(text, "--ambient-pressure", "measured air pressure",
                                                 cylinder::kAmbientRange);

@@ -70,6 +70,10 @@ Result<units::Length> required_length(const std::optional<std::string>& text,
 Result<units::Pressure> required_pressure(const std::optional<std::string>& text,
                                           const std::string& option, const std::string& what,
                                           const OptionalRange<units::PressureDimension>& range = {});
+// A bag's gauge pressure (above ambient) in any pressure unit, as --pressure is read.
+Result<units::GaugePressure> required_gauge_pressure(
+    const std::optional<std::string>& text, const std::string& option, const std::string& what,
+    const OptionalRange<units::GaugePressureDimension>& range = {});
 Result<units::Temperature> required_temperature(const std::optional<std::string>& text,
                                                 const std::string& option, const std::string& what,
                                                 const OptionalRange<units::TemperatureDimension>& range = {});

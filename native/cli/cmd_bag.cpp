@@ -65,7 +65,8 @@ Result<hb::Settings> settings_option(const BagOptions& o) {
   if (!where) return where.error();
   s.where = where.value();
   if (o.gauge) {
-    Result<Pressure> g = required_pressure(o.gauge, "--gauge", "bag gauge pressure", hb::kGaugeRange);
+    Result<GaugePressure> g =
+        required_gauge_pressure(o.gauge, "--gauge", "bag gauge pressure", hb::kGaugeRange);
     if (!g) return g.error();
     s.gauge = g.value();
   }

@@ -81,7 +81,7 @@ struct CylinderInput {
   std::optional<cyl::LetterSize> size;
   Volume water;
   bool capacity_assumed = false;  // from --size alone
-  Pressure gauge, reserve = cyl::default_reserve_gauge;
+  GaugePressure gauge, reserve = cyl::default_reserve_gauge;
   VolumeFlow flow;
   Temperature temperature = celsius(15);
   Ambient ambient;
@@ -111,9 +111,9 @@ Result<CylinderInput> cylinder_input(const CylinderOptions& o) {
     in.water = v.value();
   }
   in.capacity_assumed = in.size && !o.water_capacity;
-  Result<Pressure> gauge = option_value(o.pressure, "--pressure", "cylinder gauge pressure",
-                                        "200bar or 2900psi", units::parse_gauge_pressure,
-                                        cyl::kGaugeRange);
+  Result<GaugePressure> gauge = option_value(o.pressure, "--pressure", "cylinder gauge pressure",
+                                             "200bar or 2900psi", units::parse_gauge_pressure,
+                                             cyl::kGaugeRange);
   if (!gauge) return gauge.error();
   in.gauge = gauge.value();
   Result<VolumeFlow> flow = option_value(o.flow, "--flow", "flow", "2 or 2L/min",
@@ -124,9 +124,9 @@ Result<CylinderInput> cylinder_input(const CylinderOptions& o) {
   }
   in.flow = flow.value();
   if (o.reserve) {
-    Result<Pressure> r = option_value(o.reserve, "--reserve", "reserve pressure (gauge)",
-                                      "20bar or 290psi", units::parse_gauge_pressure,
-                                      cyl::kReserveRange);
+    Result<GaugePressure> r = option_value(o.reserve, "--reserve", "reserve pressure (gauge)",
+                                           "20bar or 290psi", units::parse_gauge_pressure,
+                                           cyl::kReserveRange);
     if (!r) return r.error();
     in.reserve = r.value();
   }

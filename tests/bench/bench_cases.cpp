@@ -28,8 +28,8 @@ std::vector<Case> model_cases() {
        [](int i) { return oxygen_eos::compressibility(celsius(-20 + i % 60), bar(1 + i % 300)).value(); }},
       {"cylinder::duration", 100000,
        [](int i) {
-         cylinder::Reading r{litres(10), bar(50 + i % 150)};
-         return cylinder::duration(r, bar(10), litres_per_minute(6))->to_reserve.in(minutes);
+         cylinder::Reading r{litres(10), bar.gauge(50 + i % 150)};
+         return cylinder::duration(r, bar.gauge(10), litres_per_minute(6))->to_reserve.in(minutes);
        }},
       {"hyperbaric_bag::bag_at_altitude", 100000,
        [](int i) {
@@ -40,7 +40,7 @@ std::vector<Case> model_cases() {
        [](int i) {
          evacuation::PlanInput input;
          for (int c = 0; c < 4; ++c) {
-           input.cylinders.push_back({"cyl", std::nullopt, litres(10), bar(180 + i % 20)});
+           input.cylinders.push_back({"cyl", std::nullopt, litres(10), bar.gauge(180 + i % 20)});
          }
          input.phases = {{litres_per_minute(15), hours(1)}, {litres_per_minute(6), hours(1)}};
          input.evacuation = hours(6);

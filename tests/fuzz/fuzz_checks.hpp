@@ -33,7 +33,7 @@ inline void require_finite(double value, const std::string& what) {
 template <class Dimension>
 void require_finite(units::Quantity<Dimension> q, const std::string& what) {
   // Read in the SI unit of the dimension (scale 1, offset 0).
-  require_finite(q.in(units::Unit<Dimension>{1.0, 0.0, "", ""}), what);
+  require_finite(q.in(units::ReadingUnit<Dimension>{1.0, 0.0, "", ""}), what);
 }
 
 // "nan", "inf", "-nan" as whole words: what printf makes of a non-finite double.

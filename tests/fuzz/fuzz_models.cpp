@@ -219,7 +219,7 @@ void dissociation_calls(FuzzedDataProvider& d, int which) {
 
 void bag_calls(FuzzedDataProvider& d) {
   hyperbaric_bag::Settings s;
-  s.gauge = millibar(awkward_double(d, 0, 250));
+  s.gauge = millibar.gauge(awkward_double(d, 0, 250));
   if (d.ConsumeBool()) s.flush = litres_per_minute(awkward_double(d, 5, 300));
   s.oxygen_feed = litres_per_minute(awkward_double(d, 0, 15));
   s.bag_volume = litres(awkward_double(d, 100, 2000));
@@ -239,7 +239,7 @@ void bag_calls(FuzzedDataProvider& d) {
 }
 
 cylinder::Reading any_reading(FuzzedDataProvider& d) {
-  return {litres(awkward_double(d, 0.1, 100)), bar(awkward_double(d, 0, 350)),
+  return {litres(awkward_double(d, 0.1, 100)), bar.gauge(awkward_double(d, 0, 350)),
           celsius(awkward_double(d, -40, 60)), hectopascals(awkward_double(d, 150, 1100))};
 }
 
@@ -249,7 +249,7 @@ void cylinder_calls(FuzzedDataProvider& d, int which) {
       cylinder::Reading r = any_reading(d);
       check(cylinder::contents(r), "contents", [&](const cylinder::Contents& c) {
         fuzz::check_contents(c);
-        Result<Pressure> back =
+        Result<GaugePressure> back =
             cylinder::gauge_pressure_for(r.water_capacity, r.temperature, r.ambient_pressure, c.free_gas);
         fuzz::require(back.ok() || c.free_gas.in(litres) < 1e-6, "gauge_pressure_for refuses contents()");
         if (back) {
@@ -263,20 +263,20 @@ void cylinder_calls(FuzzedDataProvider& d, int which) {
       cylinder::Reading r = any_reading(d);
       check(cylinder::gauge_pressure_for(r.water_capacity, r.temperature, r.ambient_pressure,
                                          litres(awkward_double(d, 0, 40000))),
-            "gauge_pressure_for", [](Pressure p) {
+            "gauge_pressure_for", [](GaugePressure p) {
               fuzz::require_non_negative(p.in(bar), "gauge_pressure_for");
             });
       break;
     }
     case 2: {
       cylinder::Reading r = any_reading(d);
-      check(cylinder::duration(r, bar(awkward_double(d, 0, 350)),
+      check(cylinder::duration(r, bar.gauge(awkward_double(d, 0, 350)),
                                litres_per_minute(awkward_double(d, 0.1, 30))),
             "duration", fuzz::check_duration);
       break;
     }
     case 3:
-      check(cylinder::field_rule_duration(any_size(d), psi(awkward_double(d, 200, 3000)),
+      check(cylinder::field_rule_duration(any_size(d), psi.gauge(awkward_double(d, 200, 3000)),
                                           litres_per_minute(awkward_double(d, 0.1, 30))),
             "field_rule_duration",
             [](Duration t) { fuzz::require_non_negative(t.in(minutes), "field_rule_duration"); });
@@ -289,7 +289,7 @@ void cylinder_calls(FuzzedDataProvider& d, int which) {
       Pressure calibration = hectopascals(awkward_double(d, 500, 1100));
       check(cylinder::rotameter_at_altitude(flow, ambient, calibration), "rotameter_at_altitude",
             fuzz::check_flow_correction);
-      check(cylinder::fixed_orifice_at_altitude(flow, ambient, psi(awkward_double(d, 10, 100)),
+      check(cylinder::fixed_orifice_at_altitude(flow, ambient, psi.gauge(awkward_double(d, 10, 100)),
                                                 calibration),
             "fixed_orifice_at_altitude", fuzz::check_flow_correction);
     }
@@ -309,7 +309,7 @@ evacuation::CylinderSpec any_spec(FuzzedDataProvider& d) {
   s.label = d.ConsumeRandomLengthString(12);
   if (d.ConsumeBool()) s.letter_size = any_size(d);
   if (d.ConsumeBool() || !s.letter_size) s.water_capacity = litres(awkward_double(d, 0.1, 100));
-  s.gauge_pressure = bar(awkward_double(d, 0, 350));
+  s.gauge_pressure = bar.gauge(awkward_double(d, 0, 350));
   s.temperature = celsius(awkward_double(d, -40, 60));
   return s;
 }
@@ -324,7 +324,7 @@ void plan_calls(FuzzedDataProvider& d) {
                          minutes(awkward_double(d, 1, 4320))});
   }
   in.evacuation = minutes(awkward_double(d, 1, 4320));
-  in.reserve_gauge = bar(awkward_double(d, 0, 350));
+  in.reserve_gauge = bar.gauge(awkward_double(d, 0, 350));
   in.ambient_pressure = hectopascals(awkward_double(d, 150, 1100));
   if (d.ConsumeBool()) in.counting_cylinder = any_spec(d);
   if (d.ConsumeBool()) in.sample_interval = minutes(awkward_double(d, 1, 60));
@@ -355,10 +355,10 @@ void card_calls(FuzzedDataProvider& d) {
   p.card.altitude_from = metres(awkward_double(d, 0, 9000));
   p.card.altitude_to = metres(awkward_double(d, 0, 9000));
   p.card.altitude_step = metres(awkward_double(d, 50, 1000));
-  p.reserve_pressure_gauge = bar(awkward_double(d, 0, 100));
-  for (auto& c : p.cylinders) c.fill_pressure_gauge = bar(awkward_double(d, 50, 300));
+  p.reserve_pressure_gauge = bar.gauge(awkward_double(d, 0, 100));
+  for (auto& c : p.cylinders) c.fill_pressure_gauge = bar.gauge(awkward_double(d, 50, 300));
   for (auto& f : p.flows) f = litres_per_minute(awkward_double(d, 0.25, 25));
-  p.bag.gauge_pressure = hectopascals(awkward_double(d, 50, 250));
+  p.bag.gauge_pressure = hectopascals.gauge(awkward_double(d, 50, 250));
   p.bag.pump_stroke_volume = litres(awkward_double(d, 0.1, 10));
   p.bag.co2_limit = percent(awkward_double(d, 0.2, 3));
   Result<team_profile::TeamProfile> valid = team_profile::parse_profile(team_profile::serialize_profile(p));

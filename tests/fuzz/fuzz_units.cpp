@@ -36,7 +36,7 @@ void check_quantity(const Result<Quantity<Dimension>>& parsed, const char* what)
       parsed, what,
       [&](Quantity<Dimension> q) {
         fuzz::require_finite(q, what);
-        check_formatting(q.in(Unit<Dimension>{1.0, 0.0, "", ""}));
+        check_formatting(q.in(ReadingUnit<Dimension>{1.0, 0.0, "", ""}));
       },
       echoes_non_finite);
 }
@@ -55,6 +55,8 @@ extern "C" int LLVMFuzzerTestOneInput(const uint8_t* bytes, size_t size) {
       echoes_non_finite);
   check_quantity(parse_length(text), "parse_length");
   check_quantity(parse_pressure(text), "parse_pressure");
+  check_quantity(parse_gauge_pressure(text), "parse_gauge_pressure");
+  check_quantity(parse_gauge_any_unit(text), "parse_gauge_any_unit");
   check_quantity(parse_temperature(text), "parse_temperature");
   check_quantity(parse_volume(text), "parse_volume");
   check_quantity(parse_volume_flow(text), "parse_volume_flow");

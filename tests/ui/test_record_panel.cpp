@@ -252,8 +252,8 @@ TEST_CASE("Record: the cylinder's reserve is timed from the gauge read on the Ox
   OxygenInputs& ox = state.oxygen;
   ox.cylinder_source = 2;  // a 2 L water capacity typed in
   ox.water_capacity = units::litres(2.0);
-  ox.gauge = units::bar(100.0);
-  ox.reserve = units::bar(20.0);
+  ox.gauge = units::bar.gauge(100.0);
+  ox.reserve = units::bar.gauge(20.0);
   ox.cylinder_temperature = units::celsius(15.0);
   ui.frame(state);  // the record is read from storage on the screen's first frame
   // A gauge nobody has read gives no time.

@@ -67,7 +67,7 @@ TEST_CASE("route screen: opens on the saved route, and every cylinder label is c
       route::read_route_file(route::demo_route_json(), state.team.profile).value();
   saved.legs.resize(3);
   saved.legs[2].duration = units::minutes(200);  // a long bag session: more changes
-  saved.stock.cylinders[0].gauge = units::bar(90);
+  saved.stock.cylinders[0].gauge = units::bar.gauge(90);
   saved.name = "Saved on this phone";
   ui.platform.stored[kRouteKey] = route::write_route_file(saved);
   nlohmann::json items = ui.frame(state);

@@ -31,7 +31,7 @@ TEST_CASE("route store: the edited route survives a restart, as a route file", "
   CHECK(route.input.name == route::read_route_file(route::demo_route_json(), demo())->name);
   // The medic's edits: a leg's time, a gauge, the device, the start time.
   route.input.legs[1].duration = units::minutes(150);
-  route.input.stock.cylinders[0].gauge = units::bar(120);
+  route.input.stock.cylinders[0].gauge = units::bar.gauge(120);
   route.input.casualty.device = supplemental_oxygen::Device::SimpleMask;
   route.input.start_clock_min = 6 * 60 + 5;
   save_route_if_changed(route, storage);

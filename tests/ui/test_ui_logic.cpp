@@ -127,7 +127,7 @@ TEST_CASE("saved state: round trip keeps values at full precision") {
   state.situation.altitude = units::feet(14000.0);
   state.situation.spo2_measured = true;
   state.situation.spo2 = units::percent(72.0);
-  state.oxygen.gauge = units::psi(2175.0);
+  state.oxygen.gauge = units::psi.gauge(2175.0);
   state.screen = Screen::Teaching;
   AppState back;
   REQUIRE(state_from_json(back, state_to_json(state)));

@@ -14,11 +14,11 @@ using namespace firn::evacuation;
 namespace {
 
 CylinderSpec ten_litre(const std::string& label, double gauge_bar) {
-  return {label, std::nullopt, litres(10), bar(gauge_bar), celsius(15)};
+  return {label, std::nullopt, litres(10), bar.gauge(gauge_bar), celsius(15)};
 }
 
 // Usable free gas above the reserve by the cylinder model on its own (the plan must agree).
-double usable_l(double water_l, Pressure gauge, Pressure reserve) {
+double usable_l(double water_l, GaugePressure gauge, GaugePressure reserve) {
   Result<cylinder::DurationEstimate> d =
       cylinder::duration({litres(water_l), gauge, celsius(15)}, reserve, litres_per_minute(1));
   REQUIRE(d.ok());
@@ -30,7 +30,7 @@ PlanInput two_cylinders_six_hours() {
   in.cylinders = {ten_litre("Cyl A", 200), ten_litre("Cyl B", 200)};
   in.phases = {{litres_per_minute(15), hours(1)}, {litres_per_minute(6), hours(0)}};
   in.evacuation = hours(6);
-  in.reserve_gauge = bar(20);
+  in.reserve_gauge = bar.gauge(20);
   return in;
 }
 
@@ -59,7 +59,7 @@ TEST_CASE("two cylinders, 15 L/min for 1 h then 6 L/min, 6 h evacuation", "[evac
   const EvacuationPlan& plan = r.value();
   // Hand arithmetic: demand 15·60 + 6·300 = 2700 L; usable per cylinder U from the cylinder
   // model; cylinder A lasts 60 min + (U − 900)/6 min.
-  double u = usable_l(10, bar(200), bar(20));
+  double u = usable_l(10, bar.gauge(200), bar.gauge(20));
   CHECK(plan.oxygen_needed.in(litres) == Approx(2700).epsilon(1e-12));
   CHECK(plan.oxygen_usable.in(litres) == Approx(2 * u).epsilon(1e-12));
   REQUIRE(plan.enough);
@@ -89,17 +89,17 @@ TEST_CASE("two cylinders, 15 L/min for 1 h then 6 L/min, 6 h evacuation", "[evac
 
 TEST_CASE("one E cylinder is short for 2 h at 15 L/min", "[evacuation]") {
   PlanInput in;
-  in.cylinders = {{"E1", cylinder::LetterSize::E, std::nullopt, psi(2000), celsius(15)}};
+  in.cylinders = {{"E1", cylinder::LetterSize::E, std::nullopt, psi.gauge(2000), celsius(15)}};
   in.phases = {{litres_per_minute(15), hours(2)}};
   in.evacuation = hours(2);
-  in.reserve_gauge = psi(200);
-  in.counting_cylinder = CylinderSpec{"full E", cylinder::LetterSize::E, std::nullopt, psi(2015),
+  in.reserve_gauge = psi.gauge(200);
+  in.counting_cylinder = CylinderSpec{"full E", cylinder::LetterSize::E, std::nullopt, psi.gauge(2015),
                                       celsius(15)};
   Result<EvacuationPlan> r = plan_evacuation(in);
   REQUIRE(r.ok());
   double wc = cylinder::letter_size_info(cylinder::LetterSize::E).water_capacity.in(litres);
-  double have = usable_l(wc, psi(2000), psi(200));
-  double full = usable_l(wc, psi(2015), psi(200));
+  double have = usable_l(wc, psi.gauge(2000), psi.gauge(200));
+  double full = usable_l(wc, psi.gauge(2015), psi.gauge(200));
   CHECK_FALSE(r->enough);
   CHECK(r->supply_lasts->in(minutes) == Approx(have / 15).epsilon(1e-9));
   CHECK(r->shortfall.in(minutes) == Approx(120 - have / 15).epsilon(1e-9));
@@ -167,7 +167,7 @@ TEST_CASE("bad plan input names range and unit", "[evacuation][errors]") {
   in.cylinders[1].water_capacity.reset();
   CHECK(plan_evacuation(in).error().message.find("Cyl B: give a water capacity") == 0);
   in = two_cylinders_six_hours();
-  in.cylinders[0].gauge_pressure = bar(500);
+  in.cylinders[0].gauge_pressure = bar.gauge(500);
   CHECK(plan_evacuation(in).error().message.find("Cyl A: cylinder pressure") == 0);
   in = two_cylinders_six_hours();
   in.cylinders.clear();
@@ -189,7 +189,7 @@ TEST_CASE("sweep: plans over evacuation time, flow, cylinders and reserve", "[ev
           for (int i = 0; i < count; ++i) in.cylinders.push_back(ten_litre("C" + std::to_string(i), 200));
           in.phases = {{litres_per_minute(flow), minutes(1)}};
           in.evacuation = minutes(evac_min);
-          in.reserve_gauge = bar(reserve);
+          in.reserve_gauge = bar.gauge(reserve);
           in.sample_interval = minutes(60);
           INFO(evac_min << " min at " << flow << " L/min, " << count << " cylinders, reserve " << reserve);
           Result<EvacuationPlan> plan = plan_evacuation(in);
@@ -261,14 +261,14 @@ TEST_CASE("sweep: just outside every plan range the message names it", "[evacuat
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.phases[0].duration = minutes(4320.01); }), "between 1 and 4320 min");
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.evacuation = minutes(0.99); }), "between 1 and 4320 min");
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.evacuation = minutes(4320.01); }), "between 1 and 4320 min");
-  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.reserve_gauge = bar(-0.01); }), "between 0 and 100 bar");
-  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.reserve_gauge = bar(100.01); }), "between 0 and 100 bar");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.reserve_gauge = bar.gauge(-0.01); }), "between 0 and 100 bar");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.reserve_gauge = bar.gauge(100.01); }), "between 0 and 100 bar");
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.margin_minimum = minutes(-0.01); }), "between 0 and 720 min");
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.margin_minimum = minutes(720.01); }), "between 0 and 720 min");
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.margin_fraction = 1.0001; }), "between 0 and 100 %");
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.sample_interval = minutes(0.99); }), "between 1 and 60 min");
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.sample_interval = minutes(60.01); }), "between 1 and 60 min");
-  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.cylinders[0].gauge_pressure = bar(350.01); }), "between 0 and 350 bar");
+  CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.cylinders[0].gauge_pressure = bar.gauge(350.01); }), "between 0 and 350 bar");
   CHECK_REFUSED_NAMING(with([](PlanInput& in) { in.ambient_pressure = hectopascals(149.99); }), "between 150 and 1100 hPa");
 }
 
@@ -277,11 +277,11 @@ TEST_CASE("Fuzz finding: a cylinder read a rounding below 350 bar is planned, no
   // fuzz_models: its contents came out above those at 350 bar (solver precision), the gauge
   // lookup for the first sample refused them, and FIRN_ASSERT fired (see test_cylinder.cpp).
   PlanInput in;
-  in.cylinders = {{"Full", std::nullopt, litres(99.999999999999986), bar(349.99999999999994),
+  in.cylinders = {{"Full", std::nullopt, litres(99.999999999999986), bar.gauge(349.99999999999994),
                    celsius(52.492121407890522)}};
   in.phases = {{litres_per_minute(19.882352941176471), minutes(2859.2276724920962)}};
   in.evacuation = minutes(3894.1111936097168);
-  in.reserve_gauge = bar(89.89888029780158);  // found at 189.9 bar; reserves are 0…100 bar now
+  in.reserve_gauge = bar.gauge(89.89888029780158);  // found at 189.9 bar; reserves are 0…100 bar now
   in.ambient_pressure = hectopascals(687.78152465823348);
   Result<EvacuationPlan> plan = plan_evacuation(in);
   REQUIRE(plan.ok());
@@ -292,7 +292,7 @@ TEST_CASE("enough only with the margin; the steady flow that lasts", "[evacuatio
   // Two 10 L cylinders at 200 bar, 20 bar reserve (usable U each, by the cylinder model), one
   // steady flow. Margin by default: the larger of 30 min and 20 % of the evacuation (our choice,
   // evacuation_plan.hpp). Hand arithmetic: the supply lasts 2U/flow minutes.
-  double u = usable_l(10, bar(200), bar(20));
+  double u = usable_l(10, bar.gauge(200), bar.gauge(20));
   PlanInput in = two_cylinders_six_hours();
   in.phases = {{litres_per_minute(6), hours(0)}};
   // Supply lasts 2U/6 ≈ 610 min. A 6 h (360 min) carry: margin max(30, 72) = 72 min: enough.
@@ -347,11 +347,11 @@ TEST_CASE("a warm cylinder's plan is extrapolated: no enough verdict", "[evacuat
 
 TEST_CASE("plan texts in the team's pressure unit; letter-size capacities named", "[evacuation]") {
   PlanInput in;
-  in.cylinders = {{"E1", cylinder::LetterSize::E, std::nullopt, psi(2000), celsius(15)},
-                  {"E2", cylinder::LetterSize::E, std::nullopt, psi(2000), celsius(15)}};
+  in.cylinders = {{"E1", cylinder::LetterSize::E, std::nullopt, psi.gauge(2000), celsius(15)},
+                  {"E2", cylinder::LetterSize::E, std::nullopt, psi.gauge(2000), celsius(15)}};
   in.phases = {{litres_per_minute(10), hours(0)}};
   in.evacuation = hours(3);
-  in.reserve_gauge = psi(200);
+  in.reserve_gauge = psi.gauge(200);
   in.pressure_unit = &psi;
   Result<EvacuationPlan> p = plan_evacuation(in);
   REQUIRE(p.ok());

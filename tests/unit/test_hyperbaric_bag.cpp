@@ -60,7 +60,7 @@ TEST_CASE("equivalent altitude is the same model inverted", "[bag][property]") {
   }
   // Zero gauge: no descent.
   Settings none;
-  none.gauge = psi(0);
+  none.gauge = psi.gauge(0);
   BagResult flat = bag(4000, Model::West1996, none);
   CHECK(flat.pressure_equivalent_altitude->in(metres) == Approx(4000).margin(0.1));
   CHECK_FALSE(flat.descent_equivalent);
@@ -259,7 +259,7 @@ TEST_CASE("the flush needed gives ok; a little less does not", "[bag][verdict][p
       for (double vo2 : {0.25, 1.0}) {  // resting; shivering (~4x, from memory)
         INFO(z << " m, " << mbar << " mbar, VO2 " << vo2);
         Settings s;
-        s.gauge = millibar(mbar);
+        s.gauge = millibar.gauge(mbar);
         s.vo2_stpd = litres_per_minute(vo2);
         s.vco2_stpd = litres_per_minute(vo2 * 0.8);
         BagResult open = bag(z, Model::West1996, s);
@@ -277,7 +277,7 @@ TEST_CASE("the flush needed gives ok; a little less does not", "[bag][verdict][p
   }
   // At 10 mbar the oxygen sets the flush: PiO2 inside just reaches outside, so no descent.
   Settings slight;
-  slight.gauge = millibar(10);
+  slight.gauge = millibar.gauge(10);
   BagResult open = bag(4000, Model::West1996, slight);
   slight.flush = *open.required_flush;
   BagResult at = bag(4000, Model::West1996, slight);
@@ -285,7 +285,7 @@ TEST_CASE("the flush needed gives ok; a little less does not", "[bag][verdict][p
   CHECK(at.gas->co2.in(percent) < 1.0);
   // No bag pressure: no flush brings the oxygen inside up to outside air.
   Settings none;
-  none.gauge = millibar(0);
+  none.gauge = millibar.gauge(0);
   BagResult flat = bag(4000, Model::West1996, none);
   CHECK_FALSE(flat.required_flush);
   CHECK_THAT(verdict_text(flat, metres), Catch::Contains("no flush is enough"));
@@ -375,7 +375,7 @@ TEST_CASE("oxygen feed raises O2 by mass balance; pump strokes", "[bag][gas]") {
 
 TEST_CASE("bad bag input names range and unit", "[bag][errors]") {
   Settings s;
-  s.gauge = millibar(300);
+  s.gauge = millibar.gauge(300);
   Result<BagResult> r = bag_at_altitude(metres(4000), Model::West1996, s);
   REQUIRE_FALSE(r.ok());
   CHECK(r.error().message == "bag gauge pressure must be between 0 and 250 hPa (got 300 hPa)");
@@ -437,7 +437,7 @@ TEST_CASE("sweep: the bag over altitude, gauge and every setting", "[bag][sweep]
       double previous = INFINITY;
       for (double mbar : sweep::grid(0, max_gauge_mbar, 10)) {
         Settings s;
-        s.gauge = millibar(mbar);
+        s.gauge = millibar.gauge(mbar);
         BagResult r = bag(z, model, s);
         check_plausible(r);
         if (r.equivalent_altitude) {
@@ -513,8 +513,8 @@ TEST_CASE("sweep: just outside every bag range the message names it", "[bag][swe
     change(s);
     return bag_at_altitude(metres(4000), Model::West1996, s);
   };
-  CHECK_REFUSED_NAMING(with([](Settings& s) { s.gauge = millibar(-0.01); }), "between 0 and 250 hPa");
-  CHECK_REFUSED_NAMING(with([](Settings& s) { s.gauge = millibar(250.01); }), "between 0 and 250 hPa");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.gauge = millibar.gauge(-0.01); }), "between 0 and 250 hPa");
+  CHECK_REFUSED_NAMING(with([](Settings& s) { s.gauge = millibar.gauge(250.01); }), "between 0 and 250 hPa");
   CHECK_REFUSED_NAMING(with([](Settings& s) { s.flush = litres_per_minute(4.99); }), "between 5 and 300 L/min");
   CHECK_REFUSED_NAMING(with([](Settings& s) { s.flush = litres_per_minute(300.01); }), "between 5 and 300 L/min");
   CHECK_REFUSED_NAMING(with([](Settings& s) { s.oxygen_feed = litres_per_minute(-0.01); }), "between 0 and 15 L/min");

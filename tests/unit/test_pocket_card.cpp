@@ -55,7 +55,7 @@ team_profile::TeamProfile largest_profile() {
   p.cylinders.clear();
   for (int i = 0; i < 8; ++i) {
     p.cylinders.push_back({std::string(23, 'C') + std::to_string(i), std::nullopt,
-                           litres(2.0 + i), bar(300), 99});
+                           litres(2.0 + i), bar.gauge(300), 99});
   }
   p.flows.clear();
   for (double f : {0.25, 1.5, 2.5, 4.0, 6.0, 12.5, 15.0, 25.0}) p.flows.push_back(litres_per_minute(f));
@@ -177,7 +177,7 @@ TEST_CASE("Card duration table is the cylinder model at full and half pressure, 
                           : cylinder::letter_size_info(*type.letter_size).water_capacity;
     for (size_t f = 0; f < profile.flows.size(); ++f) {
       for (int half = 0; half < 2; ++half) {
-        Pressure gauge = half ? type.fill_pressure_gauge / 2.0 : type.fill_pressure_gauge;
+        GaugePressure gauge = half ? type.fill_pressure_gauge / 2.0 : type.fill_pressure_gauge;
         cylinder::Reading reading{capacity, gauge, celsius(15), atmospheres(1)};
         auto d = cylinder::duration(reading, profile.reserve_pressure_gauge, profile.flows[f]);
         REQUIRE(d.ok());
@@ -244,8 +244,8 @@ TEST_CASE("Cells outside a model's range say so instead of a number", "[card]") 
   profile.card.altitude_from = metres(0);  // 2 psi at sea level: inside above 1 atm
   profile.card.altitude_to = metres(9000);
   profile.card.altitude_step = metres(1000);
-  profile.reserve_pressure_gauge = bar(99);  // above half of the 2 L's fill: "at reserve"
-  profile.cylinders[0].fill_pressure_gauge = bar(190);
+  profile.reserve_pressure_gauge = bar.gauge(99);  // above half of the 2 L's fill: "at reserve"
+  profile.cylinders[0].fill_pressure_gauge = bar.gauge(190);
   Card card = build_card(profile, "2025-01-31");
   CHECK(table(card, "bag").rows[0][2] == "below sea level");
   CHECK(table(card, "cylinders").rows[1][2] == "at reserve");
@@ -420,8 +420,8 @@ TEST_CASE("sweep: cards over the whole altitude range, both unit systems and mod
   for (double fill : sweep::grid(50, 300, 5)) {
     for (double reserve : sweep::grid(0, 100, 4)) {
       team_profile::TeamProfile p = team_profile::demo_profile();
-      for (auto& c : p.cylinders) c.fill_pressure_gauge = bar(fill);
-      p.reserve_pressure_gauge = bar(reserve);
+      for (auto& c : p.cylinders) c.fill_pressure_gauge = bar.gauge(fill);
+      p.reserve_pressure_gauge = bar.gauge(reserve);
       p.flows = {litres_per_minute(0.25), litres_per_minute(6), litres_per_minute(25)};
       Card card = build_card(p, "2025-01-31");
       for (const DurationRow& row : card.durations) {

@@ -17,7 +17,7 @@ namespace {
 
 // Equal to 1 part in 10^12: a gauge typed in psi is written in bar and read back as pascals.
 template <class D>
-void same(Quantity<D> a, Quantity<D> b, const Unit<D>& unit) {
+void same(Quantity<D> a, Quantity<D> b, const ReadingUnit<D>& unit) {
   CHECK(a.in(unit) == Approx(b.in(unit)).epsilon(1e-12).margin(1e-12));
 }
 
@@ -103,9 +103,9 @@ TEST_CASE("route file: values typed in other units and every optional part survi
   in.legs[0].fixed_flow = litres_per_minute(6.5);
   in.legs[2].bag_oxygen_feed = litres_per_minute(0);
   in.legs[2].bag_flush.reset();
-  in.stock.cylinders[1].gauge = psi(2015.5);
+  in.stock.cylinders[1].gauge = psi.gauge(2015.5);
   in.stock.cylinders[2].temperature = fahrenheit(17.3);
-  in.stock.reserve_gauge = bar(25);
+  in.stock.reserve_gauge = bar.gauge(25);
   in.stock.margin = minutes(45);
   in.stock.second_who = "crew member";
   in.stock.second_flow = litres_per_minute(1.5);

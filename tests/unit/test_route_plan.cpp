@@ -21,7 +21,7 @@ using namespace firn::route;
 namespace {
 
 StockCylinder cyl(const std::string& label, double water_l, double gauge_bar) {
-  return {label, label, litres(water_l), bar(gauge_bar), celsius(15)};
+  return {label, label, litres(water_l), bar.gauge(gauge_bar), celsius(15)};
 }
 
 Leg wait_at(double metres_high, double min, std::optional<double> fixed_lpm = std::nullopt) {
@@ -47,18 +47,18 @@ RouteInput flat_route(double min, double flow_lpm) {
   RouteInput in;
   in.legs = {wait_at(0, min, flow_lpm)};
   in.stock.cylinders = {cyl("2 L", 2, 200)};
-  in.stock.reserve_gauge = bar(20);
+  in.stock.reserve_gauge = bar.gauge(20);
   in.stock.margin = minutes(0);
   in.stock.count_in_label = "2 L";
   in.stock.count_in_water_capacity = litres(2);
-  in.stock.count_in_fill_gauge = bar(200);
+  in.stock.count_in_fill_gauge = bar.gauge(200);
   return in;
 }
 
 // Usable free gas above the reserve by the cylinder model alone, gauges read at `ambient`.
 double usable_l(double water_l, double gauge_bar, double reserve_bar, Pressure ambient) {
   Result<cylinder::DurationEstimate> d = cylinder::duration(
-      {litres(water_l), bar(gauge_bar), celsius(15), ambient}, bar(reserve_bar),
+      {litres(water_l), bar.gauge(gauge_bar), celsius(15), ambient}, bar.gauge(reserve_bar),
       litres_per_minute(1));
   REQUIRE(d.ok());
   return d->usable_free_gas.in(litres);
@@ -76,7 +76,7 @@ TEST_CASE("a flat route equals the single-cylinder and the evacuation-plan resul
   // gas would give 2 L × 180 bar / 1.01325 bar = 355.3 L; oxygen at 200 bar and 15 °C has Z < 1
   // (about 0.93, NIST Webbook, from memory), so the real figure is a few per cent more.
   Result<cylinder::DurationEstimate> single = cylinder::duration(
-      {litres(2), bar(200), celsius(15), west(0)}, bar(20), litres_per_minute(2));
+      {litres(2), bar.gauge(200), celsius(15), west(0)}, bar.gauge(20), litres_per_minute(2));
   REQUIRE(single.ok());
   double u = single->usable_free_gas.in(litres);
   CHECK(u > 355.3 * 1.03);
@@ -89,10 +89,10 @@ TEST_CASE("a flat route equals the single-cylinder and the evacuation-plan resul
   CHECK(r->legs[0].oxygen_used.in(litres) == Approx(120.0));
   // The existing evacuation plan with the same cylinder and flow says the same.
   evacuation::PlanInput p;
-  p.cylinders = {{"2 L", std::nullopt, litres(2), bar(200), celsius(15)}};
+  p.cylinders = {{"2 L", std::nullopt, litres(2), bar.gauge(200), celsius(15)}};
   p.phases = {{litres_per_minute(2), minutes(60)}};
   p.evacuation = minutes(60);
-  p.reserve_gauge = bar(20);
+  p.reserve_gauge = bar.gauge(20);
   p.ambient_pressure = west(0);
   Result<evacuation::EvacuationPlan> plan = evacuation::plan_evacuation(p);
   REQUIRE(plan.ok());

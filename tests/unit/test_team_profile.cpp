@@ -53,8 +53,8 @@ TEST_CASE("The demo profile is marked, valid and in the writer's own form", "[pr
   CHECK(demo.team_name.find("DEMO") != std::string::npos);
   CHECK(demo.cylinders.size() == 3);
   CHECK(demo.cylinders[2].letter_size == cylinder::LetterSize::E);
-  CHECK(demo.cylinders[0].fill_pressure_gauge == bar(200));
-  CHECK(demo.bag.gauge_pressure == psi(2));
+  CHECK(demo.cylinders[0].fill_pressure_gauge == bar.gauge(200));
+  CHECK(demo.bag.gauge_pressure == psi.gauge(2));
   CHECK(demo.evacuation.has_value());
   CHECK_FALSE(demo.evacuation->phases.back().duration.has_value());
   // The shipped file (embedded from assets/) is exactly what the writer produces from it.
@@ -93,7 +93,7 @@ TEST_CASE("A profile survives write → read unchanged", "[profile]") {
 
 TEST_CASE("A value with no short exact form still reads back to the same number", "[profile]") {
   TeamProfile p = demo_profile();
-  p.reserve_pressure_gauge = psi(217.3456789);
+  p.reserve_pressure_gauge = psi.gauge(217.3456789);
   p.flows[0] = litres_per_minute(1.0 / 3.0);
   Result<TeamProfile> back = parse_profile(serialize_profile(p));
   REQUIRE(back.ok());
@@ -217,11 +217,11 @@ TEST_CASE("Schema 1 files are migrated to schema 2", "[profile][migration]") {
   REQUIRE(migrated->cylinders.size() == 2);
   CHECK(migrated->cylinders[0].water_capacity == litres(2));
   CHECK(migrated->cylinders[1].letter_size == cylinder::LetterSize::D);
-  CHECK(migrated->cylinders[1].fill_pressure_gauge == bar(139));
-  CHECK(migrated->reserve_pressure_gauge == bar(20));
+  CHECK(migrated->cylinders[1].fill_pressure_gauge == bar.gauge(139));
+  CHECK(migrated->reserve_pressure_gauge == bar.gauge(20));
   CHECK(migrated->flows == std::vector<VolumeFlow>{litres_per_minute(2), litres_per_minute(6),
                                                    litres_per_minute(15)});
-  CHECK(migrated->bag.gauge_pressure == psi(2));
+  CHECK(migrated->bag.gauge_pressure == psi.gauge(2));
   CHECK(migrated->bag.pump_stroke_volume == litres(3));
   CHECK(migrated->bag.co2_limit == percent(1));
   CHECK_FALSE(migrated->evacuation.has_value());
@@ -382,7 +382,7 @@ TEST_CASE("Cylinder pressures are gauge pressures: bar, psi, kPa or MPa", "[prof
   CHECK(mpa->cylinders[0].fill_pressure_gauge.in(bar) == Approx(200).epsilon(1e-12));
   Result<TeamProfile> psig = parse_profile(demo_with("\"fill_pressure\": \"2015psi\"", "\"fill_pressure\": \"2015psig\""));
   REQUIRE(psig.ok());
-  CHECK(psig->cylinders[2].fill_pressure_gauge == psi(2015));
+  CHECK(psig->cylinders[2].fill_pressure_gauge == psi.gauge(2015));
   CHECK_THAT(problems_of(demo_with("\"pressure\": \"190bar\"", "\"pressure\": \"190000hPa\"")),
              Catch::Contains("a gauge reads in bar, psi (gauge), kPa or MPa"));
   CHECK_THAT(problems_of(demo_with("\"fill_pressure\": \"2015psi\"", "\"fill_pressure\": \"2015psia\"")),

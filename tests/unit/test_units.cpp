@@ -14,6 +14,8 @@ template <class A, class B>
 concept Addable = requires(A a, B b) { a + b; };
 template <class A>
 concept Scalable = requires(A a) { a * 2.0; a / 2.0; };
+template <class A, class B>
+concept Comparable = requires(A a, B b) { a == b; a < b; };
 }  // namespace
 
 TEST_CASE("a temperature is a point on its scale: not added or scaled; a difference moves it",
@@ -29,6 +31,37 @@ TEST_CASE("a temperature is a point on its scale: not added or scaled; a differe
   CHECK((celsius(10) + step).in(celsius) == Approx(25.0));
   // A 15 K step is 27 °F (NIST SP 811 B.8: 1 K = 1.8 °F as an interval): 50 °F − 27 °F = 23 °F.
   CHECK((fahrenheit(50) - step).in(fahrenheit) == Approx(23.0));
+}
+
+TEST_CASE("a gauge reading is not an absolute pressure; the ambient pressure joins the two",
+          "[units]") {
+  // psi means absolute in `firn oxygenation --pressure` and gauge in `firn cylinder`: the types
+  // keep them apart, so a gauge reading passed as an air pressure does not compile.
+  static_assert(!std::is_convertible_v<GaugePressure, Pressure>);
+  static_assert(!std::is_convertible_v<Pressure, GaugePressure>);
+  static_assert(!Addable<Pressure, GaugePressure> && !Addable<GaugePressure, Pressure>);
+  static_assert(!Comparable<Pressure, GaugePressure>);
+  static_assert(Addable<GaugePressure, GaugePressure> && Scalable<GaugePressure>);
+  static_assert(std::is_same_v<decltype(parse_gauge_pressure("200bar")), Result<GaugePressure>>);
+  // Made and read through the pressure units. 1 psi = 6894.757 Pa (NIST SP 811 (2008),
+  // Appendix B.8): a bag at 2 psi gauge is 137.895 hPa above the air around it.
+  GaugePressure bag = psi.gauge(2);
+  CHECK(bag.in(hectopascals) == Approx(137.89514).epsilon(1e-7));
+  // At an ambient 616 hPa the inside is 616 + 137.895 hPa absolute, and back again.
+  Pressure inside = absolute_from_gauge(bag, hectopascals(616));
+  CHECK(inside.in(hectopascals) == Approx(616.0 + 137.89514).epsilon(1e-7));
+  CHECK(gauge_from_absolute(inside, hectopascals(616)).in(psi) == Approx(2.0).epsilon(1e-12));
+  // 200 bar gauge at sea level: 1 atm = 101 325 Pa (NIST SP 811 (2008), Appendix B.8) more.
+  CHECK(absolute_from_gauge(bar.gauge(200), atmospheres(1)).in(bar) == Approx(201.01325));
+  CHECK(gauge_from_absolute(bar(200), atmospheres(1)).in(bar) == Approx(198.98675));
+  CHECK(parse_gauge_pressure("2015psig")->in(psi) == Approx(2015.0));
+  // A gauge range speaks in its unit: 1500 psi = 103.42 bar (NIST SP 811 factor above).
+  constexpr Range<GaugePressureDimension> reserve{bar.gauge(0), bar.gauge(100), &bar,
+                                                  "reserve pressure (gauge)"};
+  CHECK(check(psi.gauge(1450), reserve).ok());  // 99.97 bar
+  Result<GaugePressure> over = check(psi.gauge(1500), reserve);
+  REQUIRE_FALSE(over.ok());
+  CHECK(over.error().message.find("reserve pressure (gauge) must be between 0 and 100 bar (got 103.4") == 0);
 }
 
 TEST_CASE("a published range checks a quantity in any unit and speaks in its own", "[units]") {
