@@ -13,6 +13,24 @@ using namespace firn;
 using namespace firn::ui;
 using namespace firn::ui::testing;
 
+namespace {
+
+// The Record screen in the headless harness, tall enough for every widget without scrolling.
+struct RecordScreen : Headless {
+  RecordScreen() {
+    ImGui::GetIO().DisplaySize = ImVec2(390, 4000);
+    panel = draw_record_panel;
+  }
+};
+
+// A clock time as the medic types it on the keypad: 14:05 → "1405".
+std::string typed_digits(record::ClockTime t) {
+  std::string hhmm = record::clock_hhmm(t);
+  return hhmm.substr(0, 2) + hhmm.substr(3);
+}
+
+}  // namespace
+
 // Issue 16: a value restored from an earlier session shows when it was entered and, from an
 // hour on, how long ago; a value entered now shows only its time (the age would go stale).
 TEST_CASE("restored values show when they were entered and how long ago") {
@@ -94,9 +112,7 @@ TEST_CASE("record timers only for an incident in progress") {
 // Issue 16: the Record screen exports the file the CLI reads and imports one through the
 // platform's file exchange (the Team screen's path); a missing file is said, nothing changes.
 TEST_CASE("record screen: export and import of the record file") {
-  Headless ui;
-  ImGui::GetIO().DisplaySize = ImVec2(390, 4000);  // the whole screen without scrolling
-  ui.panel = draw_record_panel;
+  RecordScreen ui;
   record::Record r;
   r.incident = "DEMO";
   record::Entry e;
@@ -128,9 +144,7 @@ TEST_CASE("record screen: export and import of the record file") {
 // Issue 16: the latest entry's time, corrected on the keypad; a time before the incident's
 // start is refused with the valid range and changes nothing.
 TEST_CASE("record screen: the latest entry's time corrected on the keypad") {
-  Headless ui;
-  ImGui::GetIO().DisplaySize = ImVec2(390, 4000);
-  ui.panel = draw_record_panel;
+  RecordScreen ui;
   record::ClockTime now = clock_now();
   record::Record r;
   for (int ago : {10, 5}) {
@@ -141,20 +155,16 @@ TEST_CASE("record screen: the latest entry's time corrected on the keypad") {
     r.entries.push_back(e);
   }
   ui.platform.stored[kRecordKey] = record::write_record(r);
-  auto digits = [](record::ClockTime t) {
-    std::string hhmm = record::clock_hhmm(t);
-    return hhmm.substr(0, 2) + hhmm.substr(3);
-  };
   AppState state;
   CHECK(ui.text(state, "Time of the latest entry") == record::clock_hhmm(r.entries[1].time) + " (bag start)");
   ui.click(state, "Time of the latest entry");
-  type_on_keypad(ui, state, digits(record::ClockTime{now.minutes - 20}));  // the first key replaces
+  type_on_keypad(ui, state, typed_digits(record::ClockTime{now.minutes - 20}));  // the first key replaces
   ui.click(state, "Key OK");
   CHECK(ui.text(state, "Warning").find("between " + record::clock_hhmm(r.entries[0].time) + " and ") !=
         std::string::npos);
   CHECK(state.record.store.record.entries.back().kind == record::Kind::BagStart);
   ui.click(state, "Time of the latest entry");
-  type_on_keypad(ui, state, digits(r.entries[0].time));
+  type_on_keypad(ui, state, typed_digits(r.entries[0].time));
   ui.click(state, "Key OK");
   CHECK(ui.text(state, "Warning") == "(absent)");
   // Moved to the incident's start: equal times keep the moved one after (time order kept).
@@ -165,9 +175,7 @@ TEST_CASE("record screen: the latest entry's time corrected on the keypad") {
 }
 
 TEST_CASE("Record: an earlier entry's time is corrected after picking it; the first may move earlier") {
-  Headless ui;
-  ImGui::GetIO().DisplaySize = ImVec2(390, 4000);
-  ui.panel = draw_record_panel;
+  RecordScreen ui;
   record::ClockTime now = clock_now();
   record::Record r;
   for (int ago : {30, 20, 10}) {
@@ -178,10 +186,6 @@ TEST_CASE("Record: an earlier entry's time is corrected after picking it; the fi
     r.entries.push_back(e);
   }
   ui.platform.stored[kRecordKey] = record::write_record(r);
-  auto digits = [](record::ClockTime t) {
-    std::string hhmm = record::clock_hhmm(t);
-    return hhmm.substr(0, 2) + hhmm.substr(3);
-  };
   AppState state;
   CHECK(ui.text(state, "Correct a later entry") == "(absent)");  // the latest is picked first
   ui.click(state, "Correct an earlier entry");
@@ -190,7 +194,7 @@ TEST_CASE("Record: an earlier entry's time is corrected after picking it; the fi
   CHECK(ui.text(state, "Correct an earlier entry") == "(absent)");
   // The incident's first entry may move earlier (written up late): the last 24 h are open to it.
   ui.click(state, "Time of entry 1 of 3");
-  type_on_keypad(ui, state, digits(record::ClockTime{now.minutes - 45}));
+  type_on_keypad(ui, state, typed_digits(record::ClockTime{now.minutes - 45}));
   ui.click(state, "Key OK");
   CHECK(ui.text(state, "Warning") == "(absent)");
   const auto& entries = state.record.store.record.entries;
@@ -203,7 +207,7 @@ TEST_CASE("Record: an earlier entry's time is corrected after picking it; the fi
   ui.click(state, "Correct an earlier entry");
   CHECK(ui.text(state, "Time of entry 2 of 3") == record::clock_hhmm(r.entries[1].time) + " (observation)");
   ui.click(state, "Time of entry 2 of 3");
-  type_on_keypad(ui, state, digits(record::ClockTime{now.minutes - 5}));
+  type_on_keypad(ui, state, typed_digits(record::ClockTime{now.minutes - 5}));
   ui.click(state, "Key OK");
   REQUIRE(entries.size() == 3);
   CHECK(entries[1].spo2->in(units::percent) == Approx(70));
@@ -227,9 +231,7 @@ std::string verdict_starting(const nlohmann::json& items, const std::string& sta
 }  // namespace
 
 TEST_CASE("Record: the cylinder's reserve is timed from the gauge read on the Oxygen screen, at the highest flow since") {
-  Headless ui;
-  ImGui::GetIO().DisplaySize = ImVec2(390, 4000);
-  ui.panel = draw_record_panel;
+  RecordScreen ui;
   record::ClockTime now = clock_now();
   record::Record r;
   auto entry = [&](int ago, record::Kind kind) {
