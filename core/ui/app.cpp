@@ -9,6 +9,7 @@
 #include "assets.hpp"
 #include "model/cautions.hpp"
 #include "ui/panels.hpp"
+#include "ui/fields.hpp"
 #include "ui/keypad.hpp"
 #include "ui/persistence.hpp"
 #include "ui/route_store.hpp"

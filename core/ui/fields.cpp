@@ -33,6 +33,18 @@ std::string empty_prompt(const char* what) {
 
 std::int64_t now_seconds() { return static_cast<std::int64_t>(std::time(nullptr)); }
 
+record::ClockTime clock_now() { return clock_at(now_seconds()); }
+
+record::ClockTime clock_at(std::int64_t seconds_since_1970) {
+  auto when = static_cast<std::time_t>(seconds_since_1970);
+  std::tm local{};
+  if (localtime_r(&when, &local) == nullptr) return {};
+  char buffer[24];
+  std::strftime(buffer, sizeof buffer, "%Y-%m-%dT%H:%M", &local);
+  Result<record::ClockTime> t = record::parse_clock_time(buffer);
+  return t ? t.value() : record::ClockTime{};
+}
+
 std::string entered_note(std::int64_t entered_at) {
   if (entered_at <= 0) return {};
   std::time_t when = static_cast<std::time_t>(entered_at);

@@ -9,6 +9,7 @@
 #include <string>
 #include <vector>
 
+#include "model/incident_record.hpp"
 #include "model/result.hpp"
 #include "model/units.hpp"
 #include "ui/format.hpp"
@@ -43,6 +44,10 @@ std::string entered_note(std::int64_t entered_at);
 // "just now", "12 min ago", "3 h ago", "5 d ago": whole units, rounded down.
 std::string ago_text(std::int64_t minutes);
 std::int64_t now_seconds();
+// The device's clock now, as the record and the route write it (local time).
+record::ClockTime clock_now();
+// A moment stamped in seconds since 1970 (UTC), on the device's clock.
+record::ClockTime clock_at(std::int64_t seconds_since_1970);
 // Whether `next` differs from `last` by a factor of ten or more (values under `floor` count as
 // `floor`): 5,200 m → 52 m or 520 m asks, 5,200 → 3,000 does not.
 bool tenfold_change(double last, double next, double floor);

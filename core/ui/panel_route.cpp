@@ -15,7 +15,6 @@
 #include "ui/file_exchange.hpp"
 #include "ui/format.hpp"
 #include "ui/plot.hpp"
-#include "ui/record_store.hpp"
 #include "ui/route_store.hpp"
 #include "ui/test_hook.hpp"
 #include "ui/widgets.hpp"

@@ -1,7 +1,6 @@
 #include "ui/record_store.hpp"
 
 #include <algorithm>
-#include <ctime>
 
 #include "model/clock.hpp"
 
@@ -120,18 +119,6 @@ bool incident_in_progress(const RecordStore& store, record::ClockTime now) {
   if (store.record.entries.empty()) return false;
   std::int64_t since_last = record::minutes_between(store.record.entries.back().time, now);
   return since_last <= kInProgressHours * 60;
-}
-
-record::ClockTime clock_now() { return clock_at(static_cast<std::int64_t>(std::time(nullptr))); }
-
-record::ClockTime clock_at(std::int64_t seconds_since_1970) {
-  auto when = static_cast<std::time_t>(seconds_since_1970);
-  std::tm local{};
-  if (localtime_r(&when, &local) == nullptr) return {};
-  char buffer[24];
-  std::strftime(buffer, sizeof buffer, "%Y-%m-%dT%H:%M", &local);
-  Result<record::ClockTime> t = record::parse_clock_time(buffer);
-  return t ? t.value() : record::ClockTime{};
 }
 
 }  // namespace firn::ui

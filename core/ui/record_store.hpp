@@ -50,10 +50,6 @@ bool retime_entry(RecordStore& store, Platform& platform, record::ClockTime time
 // How many archived incidents are stored.
 int archived_count(Platform& platform);
 
-// The device's clock now, as the record writes it (local time).
-record::ClockTime clock_now();
-// A moment stamped in seconds since 1970 (UTC), on the device's clock as the record writes it.
-record::ClockTime clock_at(std::int64_t seconds_since_1970);
 
 // An incident is in progress while its record has entries and the last is at most this old:
 // the app then opens on the Record screen (an older record stays, and is not pushed forward).
