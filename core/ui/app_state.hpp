@@ -153,7 +153,9 @@ struct OxygenInputs {
   int team_type = 0;        // index into the team profile's cylinders
   int letter_size = 1;      // D, E, M, H
   units::Volume water_capacity = units::litres(2.0);
-  units::GaugePressure gauge = units::bar.gauge(200.0);
+  // The gauge of the cylinder in hand: empty, and no duration, until someone reads it.
+  bool gauge_entered = false;
+  units::GaugePressure gauge = units::bar.gauge(200.0);  // meaningful only when gauge_entered
   std::int64_t gauge_read_at = 0;  // when the gauge was typed (s since 1970 UTC); 0: never
   units::Temperature cylinder_temperature = units::celsius(0.0);
   units::GaugePressure reserve = cylinder::default_reserve_gauge;  // the one default (model)

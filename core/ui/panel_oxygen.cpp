@@ -24,6 +24,8 @@ namespace {
 
 using namespace units;
 
+constexpr std::string_view kGaugeFirst = "Read the cylinder gauge and enter it: no duration without it";
+
 void draw_timeline(const AppState& state, const evacuation::PlanInput& input,
                    const evacuation::EvacuationPlan& plan) {
   const UnitChoice& u = state.settings.units;
@@ -127,6 +129,7 @@ CylinderInHand draw_cylinder(AppState& state, Pressure ambient) {
   CylinderInHand chosen = choose_cylinder(state);
   QuantityField<GaugePressureDimension> gauge =
       cylinder_pressure_field(state, "Cylinder gauge", "cyl-gauge", cylinder::kGaugeRange.high);
+  gauge.entered = &in.gauge_entered;
   gauge.entered_at = &in.gauge_read_at;  // the Record screen times the reserve from this reading
   edit_quantity(state, gauge, in.gauge);
   if (in.gauge_read_at > 0) {
@@ -146,6 +149,10 @@ CylinderInHand draw_cylinder(AppState& state, Pressure ambient) {
     edit_quantity(state, flow_field("Flow", "cyl-flow", cylinder::max_flow_lpm), in.flow);
   }
 
+  if (!in.gauge_entered) {
+    verdict_line(state, Tone::Neutral, std::string(kGaugeFirst));
+    return chosen;
+  }
   Result<LastsToReserve> lasts = lasts_to_reserve(state, chosen, ambient, cylinder_flow(state));
   if (!lasts) {
     result_error(state, "Lasts to reserve", lasts.error().message);
@@ -174,6 +181,10 @@ void draw_plan(AppState& state, Pressure ambient, const CylinderInHand& chosen) 
   edit_quantity(state, duration_field("Evacuation time", "plan-time", 1, 4320), in.evacuation);
   ImGui::TextDisabled("Then the flow above until arrival.");
 
+  if (!in.gauge_entered) {
+    verdict_line(state, Tone::Neutral, std::string(kGaugeFirst));
+    return;
+  }
   evacuation::PlanInput input;
   for (int i = 0; i < in.cylinder_count; ++i) {
     evacuation::CylinderSpec spec;

@@ -162,6 +162,8 @@ void draw_use_in_calculators(AppState& state) {
   const tp::CylinderType& c = p.cylinders.front();
   state.oxygen.water_capacity = capacity_of(c);
   state.oxygen.gauge = c.fill_pressure_gauge;
+  state.oxygen.gauge_entered = true;  // chosen by the user ("full"), though not a reading:
+  state.oxygen.gauge_read_at = 0;     // the Record screen times no reserve from it
   state.oxygen.reserve = p.reserve_pressure_gauge;
   state.oxygen.flow = p.flows.front();
   state.bag.gauge = p.bag.gauge_pressure;

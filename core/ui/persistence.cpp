@@ -143,6 +143,7 @@ std::string state_to_json(const AppState& state) {
               {"chamber_temperature_c", b.chamber_temperature.in(celsius)}};
   const OxygenInputs& o = state.oxygen;
   j["oxygen"] = {{"water_capacity_l", o.water_capacity.in(litres)},
+                 {"gauge_entered", o.gauge_entered},
                  {"gauge_pa", o.gauge.in(pascals)},
                  {"gauge_read_at", o.gauge_read_at},
                  {"cylinder_temperature_k", o.cylinder_temperature.in(kelvin)},
@@ -223,6 +224,9 @@ bool state_from_json(AppState& state, const std::string& text) {
   read(o, "water_capacity_l", litres, 0.1, 100, ox.water_capacity);
   read(o, "gauge_pa", pascals, 0, 35e6, ox.gauge);
   ox.gauge_read_at = read_entered_at(o, "gauge_read_at", ox.gauge_read_at);
+  // Saves from before the flag: only a gauge with its reading time was surely typed.
+  ox.gauge_entered = ox.gauge_read_at > 0;
+  read(o, "gauge_entered", ox.gauge_entered);
   read(o, "cylinder_temperature_k", kelvin, cylinder::kTemperatureRange, ox.cylinder_temperature);
   read(o, "reserve_pa", pascals, 0, 35e6, ox.reserve);
   read(o, "flow_lpm", litres_per_minute, 0, 30, ox.flow);

@@ -219,7 +219,8 @@ export class Phone extends LabelledPage {
   // area, away from its edges; stops when a drag no longer moves it (the end of the page).
   async centre(label) {
     let target = await this.item(label);
-    for (let attempt = 0; attempt < 6; ++attempt) {
+    // The Oxygen screen with its plan runs to ~7 screen heights at 390×844: 12 drags reach its end.
+    for (let attempt = 0; attempt < 12; ++attempt) {
       const bottom = await this.navBottom();
       const middle = target.y + target.h / 2;
       if (middle > bottom * 0.2 && middle < bottom * 0.8) return target;

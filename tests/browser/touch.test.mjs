@@ -86,6 +86,9 @@ describe(`phone 390×844 dpr ${DPR}, touch`, () => {
 
   test('a thumb drag starting on any control scrolls the page and changes nothing', async () => {
     await phone.screen('Oxygen');
+    // An unread gauge is empty and has no steppers: read one first, as a medic would.
+    await phone.enter('Cylinder gauge', '200');
+    await phone.waitText('Cylinder gauge', (t) => t === '200 bar');
     for (const [label, valueLabel, kind, variants] of CONTROLS) {
       for (const flick of variants) {
         let target = await phone.centre(label);

@@ -127,6 +127,7 @@ TEST_CASE("saved state: round trip keeps values at full precision") {
   state.situation.altitude = units::feet(14000.0);
   state.situation.spo2_measured = true;
   state.situation.spo2 = units::percent(72.0);
+  state.oxygen.gauge_entered = true;
   state.oxygen.gauge = units::psi.gauge(2175.0);
   state.screen = Screen::Teaching;
   AppState back;
@@ -137,6 +138,7 @@ TEST_CASE("saved state: round trip keeps values at full precision") {
   CHECK(back.situation.altitude.in(units::feet) == Approx(14000.0).epsilon(1e-12));
   CHECK(back.situation.spo2_measured);
   CHECK(back.situation.spo2.in(units::percent) == Approx(72.0));
+  CHECK(back.oxygen.gauge_entered);
   CHECK(back.oxygen.gauge.in(units::psi) == Approx(2175.0).epsilon(1e-12));
   CHECK(back.screen == Screen::Teaching);
 }
@@ -209,6 +211,36 @@ TEST_CASE("Oxygen: on oxygen, the cylinder runs at the casualty's flow, one valu
   state.situation.on_oxygen = false;
   CHECK(ui.text(state, "Flow") == "4.0 L/min");
   CHECK(ui.text(state, linked) == "(absent)");
+}
+
+TEST_CASE("Oxygen: the cylinder gauge starts empty; no duration and no plan until it is read") {
+  // Brief: a value nobody entered is visibly empty and produces no verdict. A default gauge
+  // (the old 200 bar) gave "Lasts to reserve" for a cylinder nobody had looked at.
+  Headless ui;
+  ui.panel = draw_oxygen_panel;
+  AppState state;
+  enter_altitude(state, 4000);
+  CHECK(ui.text(state, "Cylinder gauge").find("enter the gauge pressure") != std::string::npos);
+  CHECK(ui.text(state, "Cylinder gauge +") == "(absent)");  // nothing to step from
+  CHECK(ui.text(state, "Lasts to reserve") == "(absent)");
+  CHECK(ui.text(state, "Verdict").rfind("NO VERDICT: Read the cylinder gauge", 0) == 0);
+  CHECK(ui.text(state, "Verdict#2").rfind("NO VERDICT: Read the cylinder gauge", 0) == 0);
+  ui.click(state, "Cylinder gauge");
+  for (const char* k : {"Key 1", "Key 5", "Key 0", "Key OK"}) ui.click(state, k);
+  REQUIRE(state.oxygen.gauge_entered);
+  CHECK(state.oxygen.gauge_read_at > 0);
+  CHECK(ui.text(state, "Cylinder gauge") == "150 bar");
+  CHECK(ui.text(state, "Lasts to reserve") != "(absent)");
+  CHECK(ui.text(state, "Verdict").rfind("NO VERDICT", 0) != 0);
+}
+
+TEST_CASE("saved state from before the gauge flag: only a gauge with its reading time was entered") {
+  AppState old_default;
+  REQUIRE(state_from_json(old_default, R"({"version":1,"oxygen":{"gauge_pa":20000000}})"));
+  CHECK_FALSE(old_default.oxygen.gauge_entered);
+  AppState read;
+  REQUIRE(state_from_json(read, R"({"version":1,"oxygen":{"gauge_pa":15000000,"gauge_read_at":1790000000}})"));
+  CHECK(read.oxygen.gauge_entered);
 }
 
 TEST_CASE("Teaching: landmarks to the highest summit, arrow keys step 50 m, extrapolation said") {
