@@ -70,7 +70,7 @@ int run_app(const cli::AppOptions& options) {
   ui::AppState state;
   float x_scale = 1.0f, y_scale = 1.0f;
   glfwGetWindowContentScale(window, &x_scale, &y_scale);
-  state.pixel_ratio = options.pixel_ratio > 0.0f ? options.pixel_ratio : x_scale;
+  state.display.pixel_ratio = options.pixel_ratio > 0.0f ? options.pixel_ratio : x_scale;
   ui::init_app(state, platform);
   if (Result<bool> applied = ui::apply_launch_options(state, options.screen, options.theme); !applied) {
     std::fprintf(stderr, "firn: %s\n", applied.error().message.c_str());

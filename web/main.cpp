@@ -60,7 +60,7 @@ void follow_canvas_size(WebRunner& runner) {
   if (wanted.width != width || wanted.height != height) {
     glfwSetWindowSize(runner.window, wanted.width, wanted.height);
   }
-  runner.state.pixel_ratio = wanted.pixel_ratio;
+  runner.state.display.pixel_ratio = wanted.pixel_ratio;
 }
 
 // [SECTION] Frame
@@ -75,7 +75,7 @@ void draw_one_frame(void* argument) {
     publish_page_colour(colour);
   }
 
-  publish_frame_info(runner.state.frames_drawn, ImGui::GetIO().WantTextInput, runner.state.pixel_ratio);
+  publish_frame_info(runner.state.frames_drawn, ImGui::GetIO().WantTextInput, runner.state.display.pixel_ratio);
   if (--runner.settle_frames <= 0) {
     runner.paused = true;
     emscripten_pause_main_loop();  // idle: no frames until firn_wake()
@@ -147,7 +147,7 @@ int main() {
   // Lives as long as the page; never freed on purpose.
   auto* runner = new web::WebRunner();
   runner->window = window;
-  runner->state.pixel_ratio = size.pixel_ratio;
+  runner->state.display.pixel_ratio = size.pixel_ratio;
   ui::init_app(runner->state, runner->platform);
   web::hand_runner_to_page(runner);
   emscripten_set_main_loop_arg(web::draw_one_frame, runner, 0, 1);

@@ -57,17 +57,17 @@ ImFont* add_font(std::span<const unsigned char> bytes, float size_px, const ImWc
 }  // namespace
 
 bool update_fonts(AppState& state) {
-  float scale = state.pixel_ratio * theme_text_scale(state.settings.theme);
+  float scale = state.display.pixel_ratio * theme_text_scale(state.settings.theme);
   if (std::fabs(scale - state.built_font_scale) < 0.01f) return false;
   ImGuiIO& io = ImGui::GetIO();
   io.Fonts->Clear();
   add_font(assets::ui_font_regular(), std::round(kBaseFontPx * scale), glyph_ranges(),
-           state.pixel_ratio);
-  state.font_large = add_font(assets::ui_font_bold(), std::round(kBaseFontPx * kLargeFontEm * scale),
-                              large_glyph_ranges(), state.pixel_ratio);
+           state.display.pixel_ratio);
+  state.display.font_large = add_font(assets::ui_font_bold(), std::round(kBaseFontPx * kLargeFontEm * scale),
+                                      large_glyph_ranges(), state.display.pixel_ratio);
   io.Fonts->Build();
   state.built_font_scale = scale;
-  apply_theme(state.settings.theme, state.pixel_ratio, state.settings.night_dim);
+  apply_theme(state.settings.theme, state.display.pixel_ratio, state.settings.night_dim);
   return true;
 }
 
@@ -82,7 +82,7 @@ void init_app(AppState& state, Platform& platform) {
   // The incident in progress first, not the last screen of the session before (issue 16).
   if (incident_in_progress(state.record.store, clock_now())) state.screen = Screen::Record;
   state.built_font_scale = 0.0f;
-  apply_theme(state.settings.theme, state.pixel_ratio, state.settings.night_dim);
+  apply_theme(state.settings.theme, state.display.pixel_ratio, state.settings.night_dim);
 }
 
 // [SECTION] Frame layout and navigation
@@ -133,7 +133,7 @@ float nav_rows(float width) {
 }
 
 float nav_height(const AppState& state, float width) {
-  float row = std::max(touch_target(state) * 1.1f, ImGui::GetFrameHeight() * 1.2f);
+  float row = std::max(touch_target(state.display) * 1.1f, ImGui::GetFrameHeight() * 1.2f);
   return nav_rows(width) * (row + ImGui::GetStyle().ItemSpacing.y);
 }
 
@@ -142,7 +142,7 @@ void draw_nav_bar(AppState& state, float width) {
   int per_row = nav_rows(width) == 1 ? kScreenCount : (kScreenCount + 1) / 2;
   float spacing = ImGui::GetStyle().ItemSpacing.x;
   float button_width = (ImGui::GetContentRegionAvail().x - spacing * (per_row - 1)) / per_row;
-  float row = std::max(touch_target(state) * 1.1f, ImGui::GetFrameHeight() * 1.2f);
+  float row = std::max(touch_target(state.display) * 1.1f, ImGui::GetFrameHeight() * 1.2f);
   ImGui::PushID("nav");
   // Five to a row on a phone: the labels need the button's whole width, not its padding.
   ImGui::PushStyleVar(ImGuiStyleVar_FramePadding,
@@ -160,7 +160,7 @@ void draw_nav_bar(AppState& state, float width) {
     bool current = state.screen == kScreens[i].screen;
     if (active) ImGui::PushStyleColor(ImGuiCol_Button, ImGui::GetStyleColorVec4(ImGuiCol_Header));
     if (current) ImGui::PushStyleColor(ImGuiCol_Border, ImGui::GetStyleColorVec4(ImGuiCol_CheckMark));
-    if (current) ImGui::PushStyleVar(ImGuiStyleVar_FrameBorderSize, 2.0f * state.pixel_ratio);
+    if (current) ImGui::PushStyleVar(ImGuiStyleVar_FrameBorderSize, 2.0f * state.display.pixel_ratio);
     if (tap_button(kScreens[i].nav_label(), ImVec2(button_width, row))) {
       state.screen = kScreens[i].screen;
       ImGui::SetScrollY(0.0f);
@@ -201,8 +201,8 @@ void draw_column(AppState& state, Platform& platform, Screen screen, const char*
 
 void draw_status(AppState& state) {
   if (state.status_message.empty()) return;
-  message_line(state, state.status_message, true);
-  if (big_button(state, "Dismiss")) state.status_message.clear();
+  message_line(state.status_message, true);
+  if (big_button(state.display, "Dismiss")) state.status_message.clear();
 }
 
 }  // namespace
@@ -210,6 +210,7 @@ void draw_status(AppState& state) {
 void draw_frame(AppState& state, Platform& platform, float width, float height) {
   ++state.frames_drawn;
   state.wake_after_seconds = 0.0;  // a screen with a running timer sets it again this frame
+  state.display.colours = &palette(state.settings.theme, state.settings.night_dim);
   test_hook::begin_frame();
   // The keypad is drawn first (it stays on top: it takes the focus) so that the value OK
   // commits reaches its field in the same frame.

@@ -19,14 +19,9 @@
 #include "model/units.hpp"
 #include "ui/file_exchange.hpp"
 #include "ui/record_store.hpp"
-
-struct ImFont;
+#include "ui/theme.hpp"
 
 namespace firn::ui {
-
-enum class Theme { Day, Night, Projection };
-// Each theme's key in saved state and --theme, in the enum's order (labels: ui/theme.hpp).
-inline constexpr std::array<std::string_view, 3> kThemeKeys{"day", "night", "projector"};
 
 // Order = order in the navigation bar.
 enum class Screen { Here, Casualty, Curve, Bag, Oxygen, Route, Ams, Record, Teaching, Team, Settings };
@@ -160,6 +155,7 @@ struct OxygenInputs {
   units::Temperature cylinder_temperature = units::celsius(0.0);
   units::GaugePressure reserve = cylinder::default_reserve_gauge;  // the one default (model)
   units::VolumeFlow flow = units::litres_per_minute(4.0);
+  static constexpr int kMaxCylinders = 20;  // the plan's stepper and saved-state limit
   int cylinder_count = 3;
   units::Duration evacuation = units::hours(4.0);
   units::VolumeFlow first_flow = units::litres_per_minute(8.0);  // first phase of the plan
@@ -260,10 +256,8 @@ struct AppState {
   // Persistence: the JSON last written, so we only write when something changed.
   std::string saved_json;
 
-  // Display: framebuffer pixels per CSS/logical pixel, and the scale the fonts were built for.
-  float pixel_ratio = 1.0f;
-  float built_font_scale = 0.0f;
-  ImFont* font_large = nullptr;  // results; owned by ImGui's font atlas
+  DisplayMetrics display;          // what the widgets read (ui/theme.hpp)
+  float built_font_scale = 0.0f;  // the scale the fonts were built for
   bool wide_layout = false;      // two columns this frame
 
   // Set by a screen that shows a running timer: wake the idle app after this many seconds

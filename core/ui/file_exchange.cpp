@@ -22,7 +22,7 @@ std::optional<ImportedFile> import_control(AppState& state, Platform& platform, 
     ImGui::PopID();
     test_hook::item_text(kind.path_label, exchange.import_path);
   }
-  if (big_button(state, kind.import_label)) {
+  if (big_button(state.display, kind.import_label)) {
     exchange.import_requested = platform.request_file_import(exchange.import_path, kind.import_name);
     if (!exchange.import_requested) {
       exchange.tell(std::string("This device cannot pick a file here; ") + kind.cli_hint, true);
@@ -42,7 +42,7 @@ std::optional<ImportedFile> import_control(AppState& state, Platform& platform, 
 
 void export_control(AppState& state, Platform& platform, FileExchange& exchange, const FileKind& kind,
                     const char* what, const std::function<std::string()>& text) {
-  if (!big_button(state, kind.export_label)) return;
+  if (!big_button(state.display, kind.export_label)) return;
   std::string where = platform.offer_download(kind.export_name, text());
   std::string noun = what;
   if (!noun.empty()) noun[0] = static_cast<char>(std::toupper(static_cast<unsigned char>(noun[0])));

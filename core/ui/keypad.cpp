@@ -116,7 +116,7 @@ FieldEvent keypad_field(AppState& state, const FieldSpec& spec) {
 
   ImGui::TextDisabled("%s", spec.label);
   ImGui::PushID(spec.id);
-  float height = std::max(touch_target(state), ImGui::GetFrameHeight());
+  float height = std::max(touch_target(state.display), ImGui::GetFrameHeight());
   float spacing = ImGui::GetStyle().ItemSpacing.x;
   // An empty field has nothing to step from: the whole row is the prompt to enter it.
   bool steppers = spec.steppers && !spec.empty;
@@ -127,8 +127,8 @@ FieldEvent keypad_field(AppState& state, const FieldSpec& spec) {
     test_hook::item(std::string(spec.label) + " -");
     ImGui::SameLine();
   }
-  bool large = state.font_large && !spec.empty;
-  if (large) ImGui::PushFont(state.font_large);
+  bool large = state.display.font_large && !spec.empty;
+  if (large) ImGui::PushFont(state.display.font_large);
   // The large font makes the value readable at arm's length; the button keeps one touch target.
   bool editing = k.open && k.field_id == spec.id;
   if (editing) ImGui::PushStyleColor(ImGuiCol_Border, ImGui::GetStyleColorVec4(ImGuiCol_CheckMark));
@@ -151,7 +151,7 @@ FieldEvent keypad_field(AppState& state, const FieldSpec& spec) {
     test_hook::item_text(std::string(spec.label) + " note", spec.note);
   }
   auto error = state.field_errors.find(spec.id);
-  if (error != state.field_errors.end()) message_line(state, error->second, true);
+  if (error != state.field_errors.end()) message_line(error->second, true);
   return event;
 }
 
@@ -175,7 +175,7 @@ void draw_keypad(AppState& state, float width, float height) {
   if (!k.open || k.committed) return;
 
   const ImGuiStyle& style = ImGui::GetStyle();
-  float key_height = std::max(touch_target(state) * 1.15f, ImGui::GetFrameHeight() * 1.3f);
+  float key_height = std::max(touch_target(state.display) * 1.15f, ImGui::GetFrameHeight() * 1.3f);
   // Never wider than a hand: on a laptop the keypad stays phone-sized, centred.
   float pad_width = std::min(width, 26.0f * em());
   int unit_rows = k.unit_symbols.size() > 1 ? 1 : 0;
@@ -189,7 +189,7 @@ void draw_keypad(AppState& state, float width, float height) {
   ImGui::SetNextWindowPos(ImVec2((width - pad_width) * 0.5f, height - pad_height));
   ImGui::SetNextWindowSize(ImVec2(pad_width, pad_height));
   ImGui::SetNextWindowFocus();
-  ImGui::PushStyleVar(ImGuiStyleVar_WindowBorderSize, 2.0f * state.pixel_ratio);
+  ImGui::PushStyleVar(ImGuiStyleVar_WindowBorderSize, 2.0f * state.display.pixel_ratio);
   ImGui::Begin("Keypad", nullptr,
                ImGuiWindowFlags_NoDecoration | ImGuiWindowFlags_NoMove |
                    ImGuiWindowFlags_NoSavedSettings | ImGuiWindowFlags_NoScrollWithMouse);
@@ -199,9 +199,9 @@ void draw_keypad(AppState& state, float width, float height) {
   // The typed number, large, with its unit.
   std::string shown = (k.text.empty() ? std::string("\xE2\x80\x94") : k.text);
   if (!k.unit_symbols.empty()) shown += " " + k.unit_symbols[k.unit_index];
-  if (state.font_large) ImGui::PushFont(state.font_large);
+  if (state.display.font_large) ImGui::PushFont(state.display.font_large);
   ImGui::TextUnformatted(shown.c_str());
-  if (state.font_large) ImGui::PopFont();
+  if (state.display.font_large) ImGui::PopFont();
   test_hook::item_text("Keypad value", shown);
   if (!k.question.empty()) {
     ImGui::PushStyleColor(ImGuiCol_Text, ImGui::GetStyleColorVec4(ImGuiCol_PlotHistogram));
@@ -227,7 +227,7 @@ void draw_keypad(AppState& state, float width, float height) {
   }
   float w = (avail - spacing * 3) / 4;
   // Digits in the large font: readable through a misted visor, and the key still one target.
-  if (state.font_large) ImGui::PushFont(state.font_large);
+  if (state.display.font_large) ImGui::PushFont(state.display.font_large);
   const char* rows[3][3] = {{"7", "8", "9"}, {"4", "5", "6"}, {"1", "2", "3"}};
   for (int r = 0; r < 3; ++r) {
     for (int c = 0; c < 3; ++c) {
@@ -249,7 +249,7 @@ void draw_keypad(AppState& state, float width, float height) {
   ImGui::SameLine();
   const char* ok = k.question.empty() ? "OK" : "Yes, use it";
   if (key(state, ok, "Key OK", w * 2 + spacing, key_height, true)) close_keypad(state, true);
-  if (state.font_large) ImGui::PopFont();
+  if (state.display.font_large) ImGui::PopFont();
   ImGui::End();
   ImGui::PopStyleVar();
 }

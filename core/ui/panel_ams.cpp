@@ -25,7 +25,7 @@ void score_row(AppState& state, const char* item, const char* hint, int* value) 
   const char* words[] = {"0", "1", "2", "3"};
   float spacing = ImGui::GetStyle().ItemSpacing.x;
   float width = (ImGui::GetContentRegionAvail().x - 3 * spacing) / 4;
-  float height = std::max(touch_target(state), ImGui::GetFrameHeight());
+  float height = std::max(touch_target(state.display), ImGui::GetFrameHeight());
   ImGui::PushID(item);
   for (int i = 0; i < 4; ++i) {
     if (i > 0) ImGui::SameLine();
@@ -59,27 +59,27 @@ void draw_ams_panel(AppState& state, Platform&) {
   score_row(state, "Gastrointestinal", "appetite, nausea, vomiting", &in.gastrointestinal);
   score_row(state, "Fatigue", "and/or weakness", &in.fatigue);
   score_row(state, "Dizziness", "light-headedness", &in.dizziness);
-  toggle_row(state, "ascent", "No recent ascent", "Recent ascent", &in.recent_ascent);
+  toggle_row(state.display, "ascent", "No recent ascent", "Recent ascent", &in.recent_ascent);
 
   const int items[] = {in.headache, in.gastrointestinal, in.fatigue, in.dizziness};
   int answered = static_cast<int>(std::count_if(std::begin(items), std::end(items),
                                                 [](int v) { return v != AmsInputs::kUnanswered; }));
   if (answered < 4) {
-    verdict_line(state, Tone::Neutral,
+    verdict_line(state.display, Tone::Neutral,
                  "no score yet: " + std::to_string(answered) + " of 4 items answered");
   } else {
     lake_louise::Answers answers{in.headache, in.gastrointestinal, in.fatigue, in.dizziness,
                                  in.recent_ascent};
     Result<lake_louise::Score> score = lake_louise::score(answers);
     if (!score) {
-      result_error(state, "Lake Louise score", score.error().message);
+      result_error(state.display, "Lake Louise score", score.error().message);
     } else {
-      verdict_line(state, tone_of(score.value()), std::string(lake_louise::category_name(score->category)));
-      result_value(state, "Lake Louise score", std::to_string(score->total) + " of 12");
-      if (score->consider_other_causes) message_line(state, std::string(lake_louise::kOtherCauses), true);
+      verdict_line(state.display, tone_of(score.value()), std::string(lake_louise::category_name(score->category)));
+      result_value(state.display, "Lake Louise score", std::to_string(score->total) + " of 12");
+      if (score->consider_other_causes) message_line(std::string(lake_louise::kOtherCauses), true);
     }
   }
-  if (answered > 0 && big_button(state, "Clear the answers")) {
+  if (answered > 0 && big_button(state.display, "Clear the answers")) {
     in.headache = in.gastrointestinal = in.fatigue = in.dizziness = AmsInputs::kUnanswered;
   }
   for (std::string_view caveat : lake_louise::caveats) bullet_line(caveat);

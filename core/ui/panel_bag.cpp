@@ -51,11 +51,11 @@ void draw_ladder(const AppState& state, const bag::BagResult& r) {
   double top = std::max(1000.0, std::ceil((highest + (feet ? 2000 : 600)) / (feet ? 2000 : 500)) * (feet ? 2000 : 500));
   std::string summary = "ambient " + altitude_with_unit(r.ambient_altitude, u) + " to equivalent " +
                         (r.equivalent_altitude ? altitude_with_unit(*r.equivalent_altitude, u) : "below sea level");
-  Plot plot = begin_plot(state, "Altitude ladder", summary, 14.0f,
+  Plot plot = begin_plot(state.display, "Altitude ladder", summary, 14.0f,
                          {0, 1, 0, top, 0, feet ? 2000.0 : 1000.0, "", std::string("altitude, ") + std::string(unit.symbol)});
-  ImU32 here = plot_colour(state, PlotColour::Danger);
-  ImU32 inside = plot_colour(state, PlotColour::Accent);
-  ImU32 dim = plot_colour(state, PlotColour::Dim);
+  ImU32 here = plot_colour(state.display, PlotColour::Danger);
+  ImU32 inside = plot_colour(state.display, PlotColour::Accent);
+  ImU32 dim = plot_colour(state.display, PlotColour::Dim);
   plot_hline(plot, ambient, here, "outside " + altitude_with_unit(r.ambient_altitude, u));
   // The figure that does not limit, thin and labelled, so both are visible.
   const std::optional<Length>& other = r.limited_by == bag::Limit::Oxygen ? r.pressure_equivalent_altitude
@@ -80,16 +80,16 @@ void draw_verdict(AppState& state, const bag::BagResult& r) {
   const UnitChoice& u = state.settings.units;
   const Unit<LengthDimension>& unit = chosen_unit(kAltitudeUnits, u.altitude);
   bool ok = r.verdict == bag::Verdict::Ok;
-  verdict_line(state, ok ? Tone::Good : Tone::Danger, bag::verdict_text(r, unit));
-  if (!ok) message_line(state, bag::flush_more_reason(r), true);
-  result_value(state, "Pressure-equivalent altitude",
+  verdict_line(state.display, ok ? Tone::Good : Tone::Danger, bag::verdict_text(r, unit));
+  if (!ok) message_line(bag::flush_more_reason(r), true);
+  result_value(state.display, "Pressure-equivalent altitude",
                r.pressure_equivalent_altitude ? altitude_with_unit(*r.pressure_equivalent_altitude, u)
                                               : "below sea level", false);
   std::string by_oxygen = r.oxygen_equivalent_altitude ? altitude_with_unit(*r.oxygen_equivalent_altitude, u)
                           : r.gas                      ? "outside the model"
                                                        : "enter a flush";
-  result_value(state, "Oxygen-equivalent altitude", by_oxygen, false);
-  if (r.fire_risk) verdict_line(state, Tone::Caution, bag::fire_caution_text(r));
+  result_value(state.display, "Oxygen-equivalent altitude", by_oxygen, false);
+  if (r.fire_risk) verdict_line(state.display, Tone::Caution, bag::fire_caution_text(r));
 }
 
 // Gas inside, the flush the verdict needs, and the team's pump.
@@ -97,11 +97,11 @@ void draw_gas(AppState& state, const bag::BagResult& r, const bag::Settings& s) 
   heading("Gas in the bag");
   if (r.gas) {
     // Not emphasised: the verdict above is the headline.
-    result_value(state, "CO2 inside (steady state)", percent_text(r.gas->co2, 1), false);
-    result_value(state, "O2 inside (steady state)", percent_text(r.gas->o2, 1), false);
-    result_value(state, "Bag time constant", duration_text(r.gas->time_constant), false);
+    result_value(state.display, "CO2 inside (steady state)", percent_text(r.gas->co2, 1), false);
+    result_value(state.display, "O2 inside (steady state)", percent_text(r.gas->o2, 1), false);
+    result_value(state.display, "Bag time constant", duration_text(r.gas->time_constant), false);
   } else {
-    message_line(state, "Enter a flush flow to see CO2 and O2 inside.");
+    message_line("Enter a flush flow to see CO2 and O2 inside.");
   }
   std::string needed = "\xE2\x80\x94";
   if (r.required_flush) {
@@ -111,12 +111,12 @@ void draw_gas(AppState& state, const bag::BagResult& r, const bag::Settings& s) 
     }
   }
   // The smallest flush for OK: CO2 within the limit and the oxygen inside at least outside air.
-  result_value(state, "Flush needed", needed, false);
+  result_value(state.display, "Flush needed", needed, false);
   if (r.gas && r.gas->strokes_per_minute) {
-    result_value(state, "Pump strokes at this flush",
+    result_value(state.display, "Pump strokes at this flush",
                  shown_number(std::ceil(*r.gas->strokes_per_minute), 0) + " strokes/min", false);
   }
-  message_line(state, "Team pump " + shown_number(s.stroke_volume->in(litres), 2) +
+  message_line("Team pump " + shown_number(s.stroke_volume->in(litres), 2) +
                           " L a stroke, CO2 limit " + percent_text(s.co2_limit, 1) +
                           " (team profile, Team screen).");
 }
@@ -128,7 +128,7 @@ void draw_casualty_fields(AppState& state) {
                                           bag::min_vco2_lpm, bag::max_vco2_lpm), in.vco2);
   edit_quantity(state, gas_exchange_field("Casualty O2 uptake (VO2)", "bag-vo2", "VO2",
                                           bag::min_vo2_lpm, bag::max_vo2_lpm), in.vo2);
-  message_line(state, "At rest about " + shown_number(bag::rest_vco2_lpm, 2) + " and " +
+  message_line("At rest about " + shown_number(bag::rest_vco2_lpm, 2) + " and " +
                           shown_number(bag::rest_vo2_lpm, 2) +
                           " L/min (typical resting figures); shivering or distress several times more.");
   edit_quantity(state, temperature_field(state, "Gas temperature in the bag", "bag-chamber",
@@ -143,7 +143,7 @@ void draw_time_in_bag(AppState& state, const bag::BagResult& r) {
   std::string session = in_bag_min < 60.0   ? "Reassess at 60 min (" + duration_text(minutes(60.0 - in_bag_min)) + " to go)."
                         : in_bag_min <= 120.0 ? "Within the common 1\xE2\x80\x93" "2 h session: reassess now."
                                               : "Longer than the common 2 h session: reassess, plan descent.";
-  message_line(state, session, in_bag_min > 120.0);
+  message_line(session, in_bag_min > 120.0);
   for (const std::string& note : r.notes) {
     ImGui::PushTextWrapPos(0.0f);
     ImGui::TextDisabled("%s", note.c_str());
@@ -182,15 +182,15 @@ void draw_bag_panel(AppState& state, Platform&) {
     result = pb ? bag::bag_at_pressure(pb.value(), state.settings.model, settings) : Result<bag::BagResult>(pb.error());
   }
   if (!result) {
-    result_error(state, "Equivalent altitude", result.error().message);
+    result_error(state.display, "Equivalent altitude", result.error().message);
     draw_casualty_fields(state);
     caution_line(state);
     return;
   }
   const bag::BagResult& r = result.value();
   draw_verdict(state, r);
-  result_value(state, "Pressure inside", pressure_text(r.inside_pressure, u) + ", gauge " + gauge_text(in.gauge, u), false);
-  result_value(state, "PiO2 outside \xE2\x86\x92 inside",
+  result_value(state.display, "Pressure inside", pressure_text(r.inside_pressure, u) + ", gauge " + gauge_text(in.gauge, u), false);
+  result_value(state.display, "PiO2 outside \xE2\x86\x92 inside",
                gas_pressure_text(r.pio2_ambient, u) + " \xE2\x86\x92 " + gas_pressure_text(r.pio2_inside, u), false);
   draw_ladder(state, r);
   draw_gas(state, r, settings);

@@ -71,7 +71,7 @@ void spo2_field(AppState& state) {
     s.spo2 = percent(std::clamp(std::round(s.spo2.in(percent)) + step, kSpo2.low, kSpo2.high));
     s.spo2_entered_at = now_seconds();
   }
-  if (s.spo2_measured && big_button(state, "Clear SpO2")) {
+  if (s.spo2_measured && big_button(state.display, "Clear SpO2")) {
     s.spo2_measured = false;
     state.field_errors.erase(spec.id);
   }
@@ -87,11 +87,11 @@ void time_field(AppState& state) {
                                      days_shown ? 1 : 0};
   edit_quantity(state, f, s.time_at_altitude);
   float half = (ImGui::GetContentRegionAvail().x - ImGui::GetStyle().ItemSpacing.x) / 2;
-  if (big_button(state, "On arrival (acute)", half)) {
+  if (big_button(state.display, "On arrival (acute)", half)) {
     s.time_at_altitude = cascade::preset_time_at_altitude(cascade::Exposure::Acute);
   }
   ImGui::SameLine();
-  if (big_button(state, "3 weeks (acclimatised)", half)) {
+  if (big_button(state.display, "3 weeks (acclimatised)", half)) {
     s.time_at_altitude = cascade::preset_time_at_altitude(cascade::Exposure::Acclimatised);
   }
 }
@@ -101,10 +101,10 @@ void draw_who(AppState& state) {
   heading("Casualty");
   spo2_field(state);
   time_field(state);
-  toggle_row(state, "ventilation", "Breathing at rest", "Breathless (distress)", &s.distress);
-  toggle_row(state, "breathing", "Room air", "On oxygen", &s.on_oxygen);
+  toggle_row(state.display, "ventilation", "Breathing at rest", "Breathless (distress)", &s.distress);
+  toggle_row(state.display, "breathing", "Room air", "On oxygen", &s.on_oxygen);
   if (s.on_oxygen) {
-    if (choice_row(state, "device", kDeviceLabels, 3, &s.oxygen_device)) {
+    if (choice_row(state.display, "device", kDeviceLabels, 3, &s.oxygen_device)) {
       // Keep the flow inside the new device's range rather than showing an error at once.
       o2::FlowRange range = o2::valid_flows(situation_device(state));
       s.oxygen_flow = std::clamp(s.oxygen_flow, range.low, range.high);
@@ -137,7 +137,7 @@ Result<casualty_spo2::Verdict> situation_verdict(const AppState& state) {
 
 // The reasons (each with its source) and the cautions, folded under one full-width button.
 void why_section(AppState& state, const casualty_spo2::Verdict& v) {
-  if (big_button(state, state.casualty_why_open ? "Hide why" : "Why, and cautions")) {
+  if (big_button(state.display, state.casualty_why_open ? "Hide why" : "Why, and cautions")) {
     state.casualty_why_open = !state.casualty_why_open;
   }
   if (!state.casualty_why_open) return;
@@ -169,7 +169,7 @@ void start_flow_line(AppState& state) {
   for (o2::Device d : order) {
     Result<casualty_oxygen::CasualtyFlow> f = casualty_oxygen::lowest_flow(situation_casualty(state, pb.value()), d);
     if (f && f->reachable) {
-      result_value(state, "Start oxygen at (estimate)",
+      result_value(state.display, "Start oxygen at (estimate)",
                    std::string(o2::device_name(d)) + " " + flow_text(f->flow) + ", then titrate to the oximeter",
                    false);
       return;
@@ -179,7 +179,7 @@ void start_flow_line(AppState& state) {
   std::string most = best ? "non-rebreather mask " + flow_text(best->flow) + " (predicted " +
                                 percent_text(best->predicted) + ")"
                           : std::string("the most oxygen you have");
-  result_value(state, "Start oxygen at (estimate)",
+  result_value(state.display, "Start oxygen at (estimate)",
                most + ": no device is predicted to reach 90 %; descend", false);
 }
 
@@ -189,31 +189,31 @@ bool draw_verdict(AppState& state) {
   const Situation& s = state.situation;
   heading("Verdict");
   if (!s.spo2_measured) {
-    verdict_line(state, Tone::Neutral, "enter the measured SpO2 to compare it with the band");
+    verdict_line(state.display, Tone::Neutral, "enter the measured SpO2 to compare it with the band");
     caution_line(state);
     return false;
   }
   Result<casualty_spo2::Verdict> v = situation_verdict(state);
   if (!v) {
-    verdict_line(state, Tone::Neutral, v.error().message);
+    verdict_line(state.display, Tone::Neutral, v.error().message);
     caution_line(state);
     return false;
   }
-  verdict_line(state, tone_of(v.value()),
+  verdict_line(state.display, tone_of(v.value()),
                v->headline + " (" + percent_text(s.spo2) + " vs " + band_text(v->band) + ")");
-  result_value(state, "What to do", v->action);
+  result_value(state.display, "What to do", v->action);
   if (!s.on_oxygen && v->assessment.hape_suspected) start_flow_line(state);
   if (v->assessment.oximeter_unreliable) {
-    message_line(state, std::string(expected_spo2::kOximeterUnreliable), true);
+    message_line(std::string(expected_spo2::kOximeterUnreliable), true);
   }
-  message_line(state, std::string(expected_spo2::kCarbonMonoxide), true);
+  message_line(std::string(expected_spo2::kCarbonMonoxide), true);
   caution_line(state);
   why_section(state, v.value());
   const expected_spo2::Assessment& a = v->assessment;
   std::string gap = a.gap_points == 0.0 ? "0 points"
                                          : (a.gap_points > 0 ? "+" : "\xE2\x88\x92") +
                                                shown_number(std::abs(a.gap_points), 0) + " points";
-  result_value(state, "Gap to the band", gap, false);
+  result_value(state.display, "Gap to the band", gap, false);
   return a.hape_suspected;
 }
 
@@ -234,19 +234,19 @@ void draw_band_plot(const AppState& state, const expected_spo2::Band& here_band)
   }
   Result<Length> altitude = situation_altitude(state);
   std::string summary = "expected band " + band_text(here_band);
-  Plot plot = begin_plot(state, "Expected SpO2 plot", summary, 13.0f,
+  Plot plot = begin_plot(state.display, "Expected SpO2 plot", summary, 13.0f,
                          {0, metres(7000).in(unit), 50, 100, feet ? 5000.0 : 1000.0, 10,
                           "altitude, " + std::string(unit.symbol), "SpO2, %"});
-  plot_band(plot, low, high, plot_colour(state, PlotColour::Accent, 0.35f));
-  plot_line(plot, low, plot_colour(state, PlotColour::Accent), 0.08f);
-  plot_line(plot, high, plot_colour(state, PlotColour::Accent), 0.08f);
-  plot_hline(plot, 80, plot_colour(state, PlotColour::Dim), "unreliable below 80 %",
+  plot_band(plot, low, high, plot_colour(state.display, PlotColour::Accent, 0.35f));
+  plot_line(plot, low, plot_colour(state.display, PlotColour::Accent), 0.08f);
+  plot_line(plot, high, plot_colour(state.display, PlotColour::Accent), 0.08f);
+  plot_hline(plot, 80, plot_colour(state.display, PlotColour::Dim), "unreliable below 80 %",
              LineLabel::BelowLeft);
   if (altitude) {
     double x = altitude->in(unit);
-    plot_vline(plot, x, plot_colour(state, PlotColour::Dim));
+    plot_vline(plot, x, plot_colour(state.display, PlotColour::Dim));
     if (state.situation.spo2_measured) {
-      plot_point(plot, {x, state.situation.spo2.in(percent)}, plot_colour(state, PlotColour::Danger),
+      plot_point(plot, {x, state.situation.spo2.in(percent)}, plot_colour(state.display, PlotColour::Danger),
                  "measured " + percent_text(state.situation.spo2));
     }
   }
@@ -254,7 +254,7 @@ void draw_band_plot(const AppState& state, const expected_spo2::Band& here_band)
 
 // A tick box a gloved thumb can hit, recorded as its label with "checked" or "".
 void check_item(AppState& state, const char* label, bool* value) {
-  float pad = std::max(0.0f, (touch_target(state) - ImGui::GetFontSize()) / 2);
+  float pad = std::max(0.0f, (touch_target(state.display) - ImGui::GetFontSize()) / 2);
   ImGui::PushStyleVar(ImGuiStyleVar_FramePadding, ImVec2(pad, pad));
   ImGui::Checkbox(label, value);
   ImGui::PopStyleVar();
@@ -273,7 +273,7 @@ void draw_criteria(AppState& state, bool spo2_out_of_proportion) {
     f.has_ams = score && score->meets_ams_definition;
   }
   heading("HAPE and HACE criteria");
-  if (big_button(state, state.casualty_criteria_open ? "Hide the checklist" : "HAPE / HACE checklist")) {
+  if (big_button(state.display, state.casualty_criteria_open ? "Hide the checklist" : "HAPE / HACE checklist")) {
     state.casualty_criteria_open = !state.casualty_criteria_open;
   }
   if (state.casualty_criteria_open) {
@@ -296,7 +296,7 @@ void draw_criteria(AppState& state, bool spo2_out_of_proportion) {
   illness_criteria::Outcome o = illness_criteria::evaluate(f);
   for (const std::string& line : o.lines) {
     bool met = line.rfind("Meets", 0) == 0;
-    verdict_line(state, met || o.spo2_supports_hape ? Tone::Danger : Tone::Caution, line);
+    verdict_line(state.display, met || o.spo2_supports_hape ? Tone::Danger : Tone::Caution, line);
   }
   if (!o.lines.empty()) {
     ImGui::PushTextWrapPos(0.0f);
@@ -318,7 +318,7 @@ void draw_casualty_flows(AppState& state) {
                        : f->reachable      ? flow_text(f->flow) + " (predicted " + percent_text(f->predicted) + ")"
                                            : "not reached (max " + flow_text(f->flow) + ", predicted " +
                                                  percent_text(f->predicted) + ")";
-    result_value(state, label.c_str(), text, false);
+    result_value(state.display, label.c_str(), text, false);
   }
   ImGui::PushTextWrapPos(0.0f);
   ImGui::TextDisabled("%s", std::string(casualty_oxygen::kEstimateNote).c_str());
@@ -336,7 +336,7 @@ void draw_flow_for_target(AppState& state) {
                      : flow->reached_on_air ? std::string("reached on air")
                      : flow->reachable      ? flow_text(flow->flow)
                                             : "not reached (max " + flow_text(flow->flow) + ")";
-  result_value(state, label.c_str(), text, false);
+  result_value(state.display, label.c_str(), text, false);
 }
 
 }  // namespace
@@ -350,21 +350,21 @@ void draw_casualty_panel(AppState& state, Platform&) {
                       : "Expected for a healthy lowlander here, on air");
   Result<expected_spo2::Expectation> expectation = situation_expectation(state);
   if (!expectation) {
-    result_error(state, "Expected SpO2", expectation.error().message);
+    result_error(state.display, "Expected SpO2", expectation.error().message);
     return;
   }
   const expected_spo2::Band& band = expectation->band;
-  result_value(state, "Expected SpO2", band_text(band) + (expectation->extrapolated ? " (extrapolated)" : ""));
-  result_value(state, "Middle of the band", percent_text(band.mid), false);
+  result_value(state.display, "Expected SpO2", band_text(band) + (expectation->extrapolated ? " (extrapolated)" : ""));
+  result_value(state.display, "Middle of the band", percent_text(band.mid), false);
   if (expectation->extrapolated) {
-    message_line(state, std::string(expected_spo2::kWhyExtrapolated), true);
+    message_line(std::string(expected_spo2::kWhyExtrapolated), true);
   }
   if (s.on_oxygen) {
     Result<Fraction> fio2 = situation_fio2(state);
     Result<Fraction> rule = o2::delivered_fio2(situation_device(state), s.oxygen_flow);
-    result_value(state, s.distress ? "FiO2 here (estimate, breathless)" : "FiO2 here (estimate, at rest)",
+    result_value(state.display, s.distress ? "FiO2 here (estimate, breathless)" : "FiO2 here (estimate, at rest)",
                  fio2 ? percent_text(fio2.value()) : "\xE2\x80\x94", false);
-    result_value(state, "FiO2 at sea level (rule of thumb)", rule ? percent_text(rule.value()) : "\xE2\x80\x94", false);
+    result_value(state.display, "FiO2 at sea level (rule of thumb)", rule ? percent_text(rule.value()) : "\xE2\x80\x94", false);
     ImGui::PushTextWrapPos(0.0f);
     ImGui::TextDisabled("%s", std::string(o2::kRuleOfThumbNote).c_str());
     ImGui::PopTextWrapPos();

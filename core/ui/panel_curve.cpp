@@ -31,7 +31,7 @@ void draw_curve_panel(AppState& state, Platform&) {
   heading("Oxygen\xE2\x80\x93haemoglobin dissociation (Severinghaus 1979)");
   Result<expected_spo2::Expectation> e = situation_expectation(state);
   if (!e) {
-    result_error(state, "Casualty's curve", e.error().message);
+    result_error(state.display, "Casualty's curve", e.error().message);
     caution_line(state);
     return;
   }
@@ -48,27 +48,27 @@ void draw_curve_panel(AppState& state, Platform&) {
   std::string summary = shifted ? "P50 " + gas_pressure_text(shifted->p50(), u) + " shifted, standard " +
                                       gas_pressure_text(standard.p50(), u)
                                 : "standard curve only";
-  Plot plot = begin_plot(state, "Dissociation curve", summary, 16.0f,
+  Plot plot = begin_plot(state.display, "Dissociation curve", summary, 16.0f,
                          {0, 120, 0, 100, 20, 20, "PO2, mmHg", "saturation, %"});
-  plot_line(plot, sample(standard), plot_colour(state, PlotColour::Dim), 0.1f);
-  if (shifted) plot_line(plot, sample(shifted.value()), plot_colour(state, PlotColour::Accent), 0.18f);
+  plot_line(plot, sample(standard), plot_colour(state.display, PlotColour::Dim), 0.1f);
+  if (shifted) plot_line(plot, sample(shifted.value()), plot_colour(state.display, PlotColour::Accent), 0.18f);
   if (shifted) {
     double po2 = shifted->po2_for(spo2).in(mmhg);
-    plot_point(plot, {po2, spo2.in(percent)}, plot_colour(state, PlotColour::Danger),
+    plot_point(plot, {po2, spo2.in(percent)}, plot_colour(state.display, PlotColour::Danger),
                (measured ? "measured " : "expected ") + percent_text(spo2));
   }
-  plot_legend(state, {{plot_colour(state, PlotColour::Accent), "casualty's curve (altitude shift)"},
-                      {plot_colour(state, PlotColour::Dim), "standard curve (37 \xC2\xB0" "C, pH 7.40)"}});
+  plot_legend({{plot_colour(state.display, PlotColour::Accent), "casualty's curve (altitude shift)"},
+                      {plot_colour(state.display, PlotColour::Dim), "standard curve (37 \xC2\xB0" "C, pH 7.40)"}});
 
   if (!shifted) {
-    message_line(state, shifted.error().message, true);
+    message_line(shifted.error().message, true);
   } else {
     std::string label = measured ? "PaO2 implied by the measured SpO2" : "PaO2 at the expected SpO2";
-    result_value(state, label.c_str(), gas_pressure_text(shifted->po2_for(spo2), u));
-    result_value(state, "Same SpO2 on the standard curve", gas_pressure_text(standard.po2_for(spo2), u), false);
-    result_value(state, "P50 shifted / standard",
+    result_value(state.display, label.c_str(), gas_pressure_text(shifted->po2_for(spo2), u));
+    result_value(state.display, "Same SpO2 on the standard curve", gas_pressure_text(standard.po2_for(spo2), u), false);
+    result_value(state.display, "P50 shifted / standard",
                  gas_pressure_text(shifted->p50(), u) + " / " + gas_pressure_text(standard.p50(), u), false);
-    result_value(state, "pH (expected, compensated)", shown_number(mid.acid_base.ph, 2), false);
+    result_value(state.display, "pH (expected, compensated)", shown_number(mid.acid_base.ph, 2), false);
   }
   ImGui::PushTextWrapPos(0.0f);
   ImGui::TextDisabled("%s", "On the steep part of the curve a small fall in PaO2 costs a lot of "

@@ -78,7 +78,7 @@ void edit_month(AppState& state, int& month) {
 
 void draw_latitude_month(AppState& state) {
   Situation& s = state.situation;
-  toggle_row(state, "latitude-month", "Model only", "Latitude + month", &s.latitude_month_known);
+  toggle_row(state.display, "latitude-month", "Model only", "Latitude + month", &s.latitude_month_known);
   if (!s.latitude_month_known) return;
   edit_latitude(state, s.latitude_deg);
   edit_month(state, s.month);
@@ -90,7 +90,7 @@ void draw_where(AppState& state) {
   heading("How we know the pressure");
   const char* sources[] = {"Map altitude", "Barometer", "Sea-level report"};
   int source = static_cast<int>(s.source);
-  if (choice_row(state, "source", sources, 3, &source)) s.source = static_cast<PressureSource>(source);
+  if (choice_row(state.display, "source", sources, 3, &source)) s.source = static_cast<PressureSource>(source);
 
   if (s.source != PressureSource::Station) {
     edit_quantity(state, situation_altitude_field(state, "Altitude"), s.altitude);
@@ -102,7 +102,7 @@ void draw_where(AppState& state) {
                                      atmosphere::kStationReadingRange.low,
                                      atmosphere::kStationReadingRange.high),
                   s.station_reading);
-    toggle_row(state, "station-altitude", "Altitude unknown", "Altitude known",
+    toggle_row(state.display, "station-altitude", "Altitude unknown", "Altitude known",
                &s.station_altitude_known);
     if (s.station_altitude_known) {
       edit_quantity(state, altitude_field(state, "Altitude (to check the reading)", "altitude"),
@@ -113,7 +113,7 @@ void draw_where(AppState& state) {
     edit_quantity(state, air_pressure_field(state, "Sea-level pressure reported (QNH)", "qnh",
                                             atmosphere::kQnhRange.low, atmosphere::kQnhRange.high),
                   s.qnh);
-    toggle_row(state, "qnh-temperature", "Temperature unknown", "Temperature known",
+    toggle_row(state.display, "qnh-temperature", "Temperature unknown", "Temperature known",
                &s.qnh_temperature_known);
     if (s.qnh_temperature_known) {
       edit_quantity(state, temperature_field(state, "Air temperature here", "air-temperature",
@@ -125,7 +125,7 @@ void draw_where(AppState& state) {
   heading("Atmosphere model");
   const char* models[] = {"West 1996", "ISA"};
   int model_index = state.settings.model == atmosphere::Model::West1996 ? 0 : 1;
-  if (choice_row(state, "model", models, 2, &model_index)) {
+  if (choice_row(state.display, "model", models, 2, &model_index)) {
     state.settings.model = model_index == 0 ? atmosphere::Model::West1996 : atmosphere::Model::Isa;
   }
   ImGui::PushTextWrapPos(0.0f);
@@ -141,13 +141,13 @@ void draw_station_check(AppState& state) {
   Result<atmosphere::StationCheck> check =
       atmosphere::check_station_reading(s.station_reading, s.altitude, state.settings.model);
   if (!check) {
-    verdict_line(state, Tone::Neutral, "Reading not checked: " + check.error().message);
+    verdict_line(state.display, Tone::Neutral, "Reading not checked: " + check.error().message);
     return;
   }
   Tone tone = Tone::Good;
   if (check->verdict == atmosphere::ReadingCheck::LooksLikeSeaLevel) tone = Tone::Danger;
   if (check->verdict == atmosphere::ReadingCheck::Mismatch) tone = Tone::Caution;
-  verdict_line(state, tone, check->message);
+  verdict_line(state.display, tone, check->message);
 }
 
 void draw_pressure(AppState& state) {
@@ -165,8 +165,8 @@ void draw_pressure(AppState& state) {
   } else {
     label += s.source == PressureSource::Station ? " (barometer)" : " (sea-level report)";
   }
-  if (pb) result_value(state, label.c_str(), pressure_text(pb.value(), u));
-  else result_error(state, label.c_str(), pb.error().message);
+  if (pb) result_value(state.display, label.c_str(), pressure_text(pb.value(), u));
+  else result_error(state.display, label.c_str(), pb.error().message);
 
   if (s.source == PressureSource::Altitude) {
     atmosphere::Model other = state.settings.model == atmosphere::Model::Isa
@@ -177,21 +177,21 @@ void draw_pressure(AppState& state) {
     std::string other_label = std::string(atmosphere::model_name(other)) + " for comparison";
     // No altitude entered: no comparison either (a made-up place gives no number at all).
     std::string other_text = !pb ? "\xE2\x80\x94" : other_pb ? pressure_text(other_pb.value(), u) : "outside model range";
-    result_value(state, other_label.c_str(), other_text, false);
+    result_value(state.display, other_label.c_str(), other_text, false);
   } else {
     // The altitude this pressure corresponds to, so a medic can sanity-check the reading.
     Result<Length> altitude = atmosphere::altitude_at(pb ? pb.value() : Pressure{}, state.settings.model);
     std::string text = pb && altitude ? altitude_with_unit(altitude.value(), u) : "\xE2\x80\x94";
     std::string alt_label = "Matching altitude (" + std::string(atmosphere::model_name(state.settings.model)) + ")";
-    result_value(state, alt_label.c_str(), text, false);
+    result_value(state.display, alt_label.c_str(), text, false);
   }
   if (s.source == PressureSource::Station && s.station_altitude_known) draw_station_check(state);
   if (s.source == PressureSource::Qnh && s.qnh_temperature_known) {
     Result<atmosphere::QnhWithTemperature> q = atmosphere::qnh_with_temperature(
         s.altitude, s.qnh, s.air_temperature, atmosphere::TemperatureAt::Station);
     if (q) {
-      result_value(state, "Without the temperature", pressure_text(q->standard_lapse, u), false);
-      message_line(state, q->note, true);
+      result_value(state.display, "Without the temperature", pressure_text(q->standard_lapse, u), false);
+      message_line(q->note, true);
     }
   }
 }
@@ -203,16 +203,16 @@ void draw_oxygen_here(AppState& state) {
   heading(state.situation.on_oxygen ? "Oxygen here (on oxygen, see Casualty)" : "Oxygen here (breathing air)");
   Result<expected_spo2::Expectation> e = situation_expectation(state);
   if (!e) {
-    result_error(state, "Inspired PO2 (PiO2)", e.error().message);
+    result_error(state.display, "Inspired PO2 (PiO2)", e.error().message);
     return;
   }
   const cascade::Cascade& k = e->cascade;
-  result_value(state, "Inspired PO2 (PiO2)", gas_pressure_text(k.inspired, u));
-  result_value(state, "Alveolar PO2 (PAO2), expected",
+  result_value(state.display, "Inspired PO2 (PiO2)", gas_pressure_text(k.inspired, u));
+  result_value(state.display, "Alveolar PO2 (PAO2), expected",
                gas_pressure_range_text(k.lowest.alveolar, k.highest.alveolar, u), false);
-  result_value(state, "Arterial PO2 (PaO2), expected",
+  result_value(state.display, "Arterial PO2 (PaO2), expected",
                gas_pressure_range_text(k.lowest.arterial, k.highest.arterial, u), false);
-  result_value(state, "PaCO2, expected", gas_pressure_text(k.middle.paco2, u), false);
+  result_value(state.display, "PaCO2, expected", gas_pressure_text(k.middle.paco2, u), false);
 }
 
 }  // namespace

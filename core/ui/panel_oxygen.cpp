@@ -41,15 +41,15 @@ void draw_timeline(const AppState& state, const evacuation::PlanInput& input,
   std::string summary = std::to_string(plan.uses.size()) + " cylinders used; " +
                         std::string(evacuation::verdict_key(plan.verdict)) + " for " +
                         duration_text(input.evacuation);
-  Plot plot = begin_plot(state, "Evacuation timeline", summary, 15.0f,
+  Plot plot = begin_plot(state.display, "Evacuation timeline", summary, 15.0f,
                          {0, end_h, 0, top, x_tick, y_tick, "hours from now",
                           "gauge, " + std::string(unit.symbol)});
-  plot_hline(plot, input.reserve_gauge.in(unit), plot_colour(state, PlotColour::Warning), "reserve");
-  plot_vline(plot, input.evacuation.in(hours), plot_colour(state, PlotColour::Text), "arrival");
+  plot_hline(plot, input.reserve_gauge.in(unit), plot_colour(state.display, PlotColour::Warning), "reserve");
+  plot_vline(plot, input.evacuation.in(hours), plot_colour(state.display, PlotColour::Text), "arrival");
   // One line per cylinder: the saw-tooth of swaps reads at a glance.
   std::vector<PlotPoint> line;
   size_t current = plan.samples.empty() ? 0 : plan.samples.front().cylinder_index;
-  ImU32 colours[2] = {plot_colour(state, PlotColour::Accent), plot_colour(state, PlotColour::Danger)};
+  ImU32 colours[2] = {plot_colour(state.display, PlotColour::Accent), plot_colour(state.display, PlotColour::Danger)};
   for (const auto& s : plan.samples) {
     if (s.cylinder_index != current) {
       plot_line(plot, line, colours[current % 2]);
@@ -60,8 +60,8 @@ void draw_timeline(const AppState& state, const evacuation::PlanInput& input,
   }
   plot_line(plot, line, colours[current % 2]);
   for (const auto& e : plan.events) {
-    if (e.kind == evacuation::EventKind::Swap) plot_vline(plot, e.time.in(hours), plot_colour(state, PlotColour::Dim), "swap");
-    if (e.kind == evacuation::EventKind::Reserve) plot_vline(plot, e.time.in(hours), plot_colour(state, PlotColour::Danger), "empty");
+    if (e.kind == evacuation::EventKind::Swap) plot_vline(plot, e.time.in(hours), plot_colour(state.display, PlotColour::Dim), "swap");
+    if (e.kind == evacuation::EventKind::Reserve) plot_vline(plot, e.time.in(hours), plot_colour(state.display, PlotColour::Danger), "empty");
   }
 }
 
@@ -70,21 +70,21 @@ CylinderInHand choose_cylinder(AppState& state) {
   OxygenInputs& in = state.oxygen;
   const team_profile::TeamProfile& team = state.team.profile;
   static constexpr const char* kSources[] = {"Team's cylinders", "Letter size", "Water capacity"};
-  choice_row(state, "cyl-source", kSources, 3, &in.cylinder_source);
+  choice_row(state.display, "cyl-source", kSources, 3, &in.cylinder_source);
   if (in.cylinder_source == 0 && !team.cylinders.empty()) {
     std::vector<const char*> labels;
     for (const auto& t : team.cylinders) labels.push_back(t.label.c_str());
     in.team_type = std::clamp(in.team_type, 0, static_cast<int>(labels.size()) - 1);
-    choice_row(state, "cyl-team-type", labels.data(), static_cast<int>(labels.size()), &in.team_type);
+    choice_row(state.display, "cyl-team-type", labels.data(), static_cast<int>(labels.size()), &in.team_type);
     const team_profile::CylinderType& t = team.cylinders[static_cast<size_t>(in.team_type)];
     if (t.water_capacity) {
-      result_value(state, "Water capacity (team profile)", volume_text(*t.water_capacity), false);
+      result_value(state.display, "Water capacity (team profile)", volume_text(*t.water_capacity), false);
     }
   } else if (in.cylinder_source == 1) {
     static constexpr const char* kSizes[] = {"D", "E", "M", "H"};
-    choice_row(state, "cyl-letter-size", kSizes, 4, &in.letter_size);
+    choice_row(state.display, "cyl-letter-size", kSizes, 4, &in.letter_size);
   } else {
-    if (in.cylinder_source == 0) message_line(state, "The team profile lists no cylinders: type the water capacity.");
+    if (in.cylinder_source == 0) message_line("The team profile lists no cylinders: type the water capacity.");
     edit_quantity(state, volume_field("Water capacity", "cyl-capacity", cylinder::min_water_capacity_l,
                                       cylinder::max_water_capacity_l), in.water_capacity);
   }
@@ -92,7 +92,7 @@ CylinderInHand choose_cylinder(AppState& state) {
   if (!c.assumption.empty()) {
     std::string text = c.assumption;
     text[0] = static_cast<char>(std::toupper(static_cast<unsigned char>(text[0])));
-    message_line(state, text, true);
+    message_line(text, true);
   }
   return c;
 }
@@ -107,19 +107,19 @@ VolumeFlow cylinder_flow(const AppState& state) {
 void show_duration(AppState& state, const LastsToReserve& lasts) {
   const cylinder::DurationEstimate& d = lasts.real_gas;
   if (d.below_reserve) {
-    verdict_line(state, Tone::Danger, std::string(cylinder::below_reserve_text));
+    verdict_line(state.display, Tone::Danger, std::string(cylinder::below_reserve_text));
     return;
   }
-  result_value(state, "Lasts to reserve", duration_text(lasts.lead.duration));
+  result_value(state.display, "Lasts to reserve", duration_text(lasts.lead.duration));
   if (lasts.field_rule) {
-    message_line(state, "Count on the lower figure: " + lasts.lead.why + ".");
-    result_value(state, "Real-gas estimate", duration_text(cylinder::whole_minutes_down(d.to_reserve)), false);
-    result_value(state, "US field rule (to 200 psi)", duration_text(cylinder::whole_minutes_down(*lasts.field_rule)), false);
+    message_line("Count on the lower figure: " + lasts.lead.why + ".");
+    result_value(state.display, "Real-gas estimate", duration_text(cylinder::whole_minutes_down(d.to_reserve)), false);
+    result_value(state.display, "US field rule (to 200 psi)", duration_text(cylinder::whole_minutes_down(*lasts.field_rule)), false);
   }
-  result_value(state, "Contents (free gas, real gas)", volume_text(d.contents.free_gas), false);
-  result_value(state, "Usable above reserve", volume_text(d.usable_free_gas), false);
+  result_value(state.display, "Contents (free gas, real gas)", volume_text(d.contents.free_gas), false);
+  result_value(state.display, "Usable above reserve", volume_text(d.usable_free_gas), false);
   for (const std::string& line : cylinder::temperature_cautions(d.contents, state.oxygen.cylinder_temperature)) {
-    message_line(state, line, true);
+    message_line(line, true);
   }
 }
 
@@ -150,12 +150,12 @@ CylinderInHand draw_cylinder(AppState& state, Pressure ambient) {
   }
 
   if (!in.gauge_entered) {
-    verdict_line(state, Tone::Neutral, std::string(kGaugeFirst));
+    verdict_line(state.display, Tone::Neutral, std::string(kGaugeFirst));
     return chosen;
   }
   Result<LastsToReserve> lasts = lasts_to_reserve(state, chosen, ambient, cylinder_flow(state));
   if (!lasts) {
-    result_error(state, "Lasts to reserve", lasts.error().message);
+    result_error(state.display, "Lasts to reserve", lasts.error().message);
     return chosen;
   }
   show_duration(state, lasts.value());
@@ -175,14 +175,14 @@ Tone plan_tone(evacuation::Verdict v) {
 void draw_plan(AppState& state, Pressure ambient, const CylinderInHand& chosen) {
   OxygenInputs& in = state.oxygen;
   heading("Evacuation plan (cylinders like this one, used in turn)");
-  int_stepper(state, "Cylinders", "plan-count", &in.cylinder_count, 1, 20);
+  int_stepper(state.display, "Cylinders", "plan-count", &in.cylinder_count, 1, OxygenInputs::kMaxCylinders);
   edit_quantity(state, flow_field("Starting flow", "plan-first-flow", cylinder::max_flow_lpm), in.first_flow);
   edit_quantity(state, duration_field("Starting flow lasts", "plan-first-time", 0, 4320), in.first_phase);
   edit_quantity(state, duration_field("Evacuation time", "plan-time", 1, 4320), in.evacuation);
   ImGui::TextDisabled("Then the flow above until arrival.");
 
   if (!in.gauge_entered) {
-    verdict_line(state, Tone::Neutral, std::string(kGaugeFirst));
+    verdict_line(state.display, Tone::Neutral, std::string(kGaugeFirst));
     return;
   }
   evacuation::PlanInput input;
@@ -204,22 +204,22 @@ void draw_plan(AppState& state, Pressure ambient, const CylinderInHand& chosen) 
   input.pressure_unit = &chosen_unit(kCylinderUnits, state.settings.units.cylinder);
   Result<evacuation::EvacuationPlan> plan = evacuation::plan_evacuation(input);
   if (!plan) {
-    result_error(state, "Oxygen for the evacuation", plan.error().message);
+    result_error(state.display, "Oxygen for the evacuation", plan.error().message);
     return;
   }
   const evacuation::EvacuationPlan& p = plan.value();
-  verdict_line(state, plan_tone(p.verdict), evacuation::verdict_text(p));
+  verdict_line(state.display, plan_tone(p.verdict), evacuation::verdict_text(p));
   if (p.verdict == evacuation::Verdict::Short) {
-    result_value(state, "Extra cylinders needed", std::to_string(p.extra_cylinders_needed), false);
+    result_value(state.display, "Extra cylinders needed", std::to_string(p.extra_cylinders_needed), false);
   }
-  result_value(state, "Steady flow that lasts (margin kept)",
+  result_value(state.display, "Steady flow that lasts (margin kept)",
                p.max_sustainable_flow
                    ? format_number(p.max_sustainable_flow->in(litres_per_minute), 1) + " L/min"
                    : "below 0.1 L/min",
                false);
-  result_value(state, "Supply lasts",
+  result_value(state.display, "Supply lasts",
                p.supply_lasts ? duration_text(cylinder::whole_minutes_down(*p.supply_lasts)) : "\xE2\x80\x94", false);
-  result_value(state, "Safety margin (team profile)", duration_text(cylinder::whole_minutes_up(p.margin)), false);
+  result_value(state.display, "Safety margin (team profile)", duration_text(cylinder::whole_minutes_up(p.margin)), false);
   draw_timeline(state, input, p);
   for (const auto& e : p.events) {
     bullet_line(duration_text(cylinder::whole_minutes_down(e.time)) + "  " + e.text);
@@ -237,7 +237,7 @@ void draw_oxygen_panel(AppState& state, Platform&) {
   // Gauges read relative to the air around them: the situation's pressure.
   Result<Pressure> pb = situation_pressure(state);
   Pressure ambient = pb ? pb.value() : units::atmospheres(1.0);
-  if (!pb) message_line(state, "Pressure here unknown (" + pb.error().message + "); gauges taken at 1 atm.", true);
+  if (!pb) message_line("Pressure here unknown (" + pb.error().message + "); gauges taken at 1 atm.", true);
   CylinderInHand chosen = draw_cylinder(state, ambient);
   draw_plan(state, ambient, chosen);
   caution_line(state);

@@ -80,15 +80,15 @@ VolumeFlow highest_flow_since(const handover::Summary& s, ClockTime since) {
 void reserve_timer(AppState& state, const handover::Summary& s, ClockTime now) {
   const OxygenInputs& ox = state.oxygen;
   if (ox.gauge_read_at <= 0) {
-    verdict_line(state, Tone::Neutral, "Cylinder reserve not timed: type the gauge on the Oxygen screen");
+    verdict_line(state.display, Tone::Neutral, "Cylinder reserve not timed: type the gauge on the Oxygen screen");
     return;
   }
   ClockTime read = clock_at(ox.gauge_read_at);
   // A cylinder changed since: the reading is of the old one.
   for (const record::Entry& e : state.record.store.record.entries) {
     if (e.kind == record::Kind::CylinderSwap && e.time >= read) {
-      verdict_line(state, Tone::Neutral, "Cylinder reserve not timed: changed at " + record::clock_hhmm(e.time) +
-                                             ", type the new cylinder's gauge on the Oxygen screen");
+      verdict_line(state.display, Tone::Neutral, "Cylinder reserve not timed: changed at " + record::clock_hhmm(e.time) +
+                                                     ", type the new cylinder's gauge on the Oxygen screen");
       return;
     }
   }
@@ -97,16 +97,16 @@ void reserve_timer(AppState& state, const handover::Summary& s, ClockTime now) {
   Result<LastsToReserve> lasts =
       lasts_to_reserve(state, cylinder_in_hand(state), here ? here.value() : atmospheres(1.0), flow);
   if (!lasts) {
-    verdict_line(state, Tone::Neutral, "Cylinder reserve not timed: " + lasts.error().message);
+    verdict_line(state.display, Tone::Neutral, "Cylinder reserve not timed: " + lasts.error().message);
     return;
   }
   ClockTime due{read.minutes + static_cast<std::int64_t>(lasts->lead.duration.in(minutes))};
   std::int64_t left = record::minutes_between(now, due);
   std::string basis = "(" + cylinder_pressure_text(ox.gauge, state.settings.units) + " read " + record::clock_hhmm(read) + ", at " + flow_text(flow) + ")";
   if (lasts->real_gas.below_reserve || left <= 0) {
-    verdict_line(state, Tone::Danger, "Cylinder at its reserve: change it now " + basis);
+    verdict_line(state.display, Tone::Danger, "Cylinder at its reserve: change it now " + basis);
   } else {
-    verdict_line(state, left <= kReserveWarningMinutes ? Tone::Caution : Tone::Neutral,
+    verdict_line(state.display, left <= kReserveWarningMinutes ? Tone::Caution : Tone::Neutral,
                  "Cylinder at its reserve in " + std::to_string(left) + " min, at " +
                      record::clock_hhmm(due) + " " + basis);
   }
@@ -120,23 +120,23 @@ void timers(AppState& state, const handover::Summary& s, ClockTime now) {
     ClockTime due{last_check->minutes + static_cast<std::int64_t>(in.check_interval.in(minutes))};
     std::int64_t left = record::minutes_between(now, due);
     if (left <= 0) {
-      verdict_line(state, Tone::Danger, "SpO2 check due now (" + std::to_string(-left) +
-                                            " min overdue; every " +
-                                            format_number(in.check_interval.in(minutes), 0) + " min)");
+      verdict_line(state.display, Tone::Danger, "SpO2 check due now (" + std::to_string(-left) +
+                                                    " min overdue; every " +
+                                                            format_number(in.check_interval.in(minutes), 0) + " min)");
     } else {
-      verdict_line(state, Tone::Neutral, "Next SpO2 check in " + std::to_string(left) + " min, at " +
-                                             record::clock_hhmm(due));
+      verdict_line(state.display, Tone::Neutral, "Next SpO2 check in " + std::to_string(left) + " min, at " +
+                                                     record::clock_hhmm(due));
     }
     wake_in(state, seconds_to_next_minute());
   }
   if (!s.bag_sessions.empty() && !s.bag_sessions.back().end) {
     std::int64_t in_bag = record::minutes_between(s.bag_sessions.back().start, now);
     if (in_bag >= kBagSessionMinutes) {
-      verdict_line(state, Tone::Caution, "In the bag " + std::to_string(in_bag) +
-                                             " min: reassess now (then continue, or descend)");
+      verdict_line(state.display, Tone::Caution, "In the bag " + std::to_string(in_bag) +
+                                                     " min: reassess now (then continue, or descend)");
     } else {
-      verdict_line(state, Tone::Neutral, "In the bag " + std::to_string(in_bag) + " of " +
-                                             format_number(kBagSessionMinutes, 0) + " min");
+      verdict_line(state.display, Tone::Neutral, "In the bag " + std::to_string(in_bag) + " of " +
+                                                     format_number(kBagSessionMinutes, 0) + " min");
     }
     wake_in(state, seconds_to_next_minute());
   }
@@ -172,7 +172,7 @@ void optional_field(AppState& state, const char* label, const char* id, const ch
   if (last && !value) {
     std::string same = std::string("Same as last: ") + std::to_string(*last) + " " + unit +
                        "##" + id;
-    if (big_button(state, same.c_str())) value = *last;
+    if (big_button(state.display, same.c_str())) value = *last;
   }
 }
 
@@ -190,7 +190,7 @@ void observation_form(AppState& state, Platform& platform, const handover::Summa
   optional_field(state, "SpO2", "record-spo2", "SpO2", in.spo2_pct, record::kMinSpo2Pct,
                  record::kMaxSpo2Pct, "%", last_spo2);
   ImGui::TextDisabled("Breathing");
-  choice_row(state, "record-on", kBreathingLabels, 4, &in.on);
+  choice_row(state.display, "record-on", kBreathingLabels, 4, &in.on);
   if (in.on > 0) {
     so::FlowRange range = so::valid_flows(static_cast<so::Device>(in.on - 1));
     in.flow = std::clamp(in.flow, range.low, range.high);
@@ -203,15 +203,15 @@ void observation_form(AppState& state, Platform& platform, const handover::Summa
   optional_field(state, "Breathing rate", "record-rr", "breathing rate", in.breathing_rate,
                  record::kMinBreathingRate, record::kMaxBreathingRate, "/min", s.latest_breathing_rate);
   ImGui::TextDisabled("AVPU (alert / voice / pain / unresponsive)");
-  choice_row(state, "record-avpu", kAvpuLabels, 4, &in.avpu);
-  int_stepper(state, "Written up late: minutes ago", "record-ago", &in.minutes_ago, 0, 180);
+  choice_row(state.display, "record-avpu", kAvpuLabels, 4, &in.avpu);
+  int_stepper(state.display, "Written up late: minutes ago", "record-ago", &in.minutes_ago, 0, 180);
 
   bool any = in.spo2_pct || in.heart_rate || in.breathing_rate || in.avpu >= 0;
   if (!any) {
     ImGui::TextDisabled("Enter at least one finding to save an observation.");
     return;
   }
-  if (big_button(state, "Save observation")) {
+  if (big_button(state.display, "Save observation")) {
     record::Entry e;
     e.time = ClockTime{now.minutes - in.minutes_ago};
     e.kind = record::Kind::Observation;
@@ -248,19 +248,19 @@ void event_buttons(AppState& state, Platform& platform, const handover::Summary&
   std::string oxygen_label = drafted.on_air() ? "Oxygen stopped (air)" : "Oxygen set: " + record::breathing_words(drafted);
   bool changed = !s.current_breathing || breathing_index(*s.current_breathing) != in.on ||
                  (!drafted.on_air() && !(s.current_breathing->flow == drafted.flow));
-  if (changed && big_button(state, oxygen_label.c_str())) {
+  if (changed && big_button(state.display, oxygen_label.c_str())) {
     add(record::Kind::Oxygen, [&](record::Entry& e) { e.breathing = drafted; });
   }
   bool in_bag = !s.bag_sessions.empty() && !s.bag_sessions.back().end;
-  if (!in_bag && big_button(state, "Bag session start")) {
+  if (!in_bag && big_button(state.display, "Bag session start")) {
     add(record::Kind::BagStart, [&](record::Entry& e) { e.bag_gauge = state.bag.gauge; });
   }
-  if (in_bag && big_button(state, "Bag session end")) add(record::Kind::BagEnd, [](record::Entry&) {});
-  if (big_button(state, "Cylinder swapped")) add(record::Kind::CylinderSwap, [](record::Entry&) {});
+  if (in_bag && big_button(state.display, "Bag session end")) add(record::Kind::BagEnd, [](record::Entry&) {});
+  if (big_button(state.display, "Cylinder swapped")) add(record::Kind::CylinderSwap, [](record::Entry&) {});
   Result<Length> here = situation_altitude(state);
   if (here) {
     std::string arrived = "Arrived at " + format_number(std::round(here->in(metres)), 0) + " m";
-    if (big_button(state, arrived.c_str())) {
+    if (big_button(state.display, arrived.c_str())) {
       add(record::Kind::Arrival, [&](record::Entry& e) { e.altitude = here.value(); });
     }
   }
@@ -302,8 +302,8 @@ void entry_time(AppState& state, Platform& platform, ClockTime now) {
       in.correcting.reset();  // it may have moved: back to the latest
     }
   }
-  if (index > 0 && big_button(state, "Correct an earlier entry")) in.correcting = index - 1;
-  if (index < last && big_button(state, "Correct a later entry")) {
+  if (index > 0 && big_button(state.display, "Correct an earlier entry")) in.correcting = index - 1;
+  if (index < last && big_button(state.display, "Correct a later entry")) {
     in.correcting = index + 1 == last ? std::nullopt : std::optional<size_t>(index + 1);
   }
 }
@@ -370,12 +370,12 @@ void draw_band(AppState& state, const Plot& plot, const std::vector<BandStep>& s
     double low = b.band.low.in(percent), high = b.band.high.in(percent);
     if (!b.extrapolated) {
       plot_band(plot, {{b.from, low}, {b.to, low}}, {{b.from, high}, {b.to, high}},
-                plot_colour(state, PlotColour::Accent, 0.2f));
+                plot_colour(state.display, PlotColour::Accent, 0.2f));
       continue;
     }
     for (double x = b.from; x < b.to; x += 2 * dash) {
       double end = std::min(x + dash, b.to);
-      for (double y : {low, high}) plot_line(plot, {{x, y}, {end, y}}, plot_colour(state, PlotColour::Warning), 0.1f);
+      for (double y : {low, high}) plot_line(plot, {{x, y}, {end, y}}, plot_colour(state.display, PlotColour::Warning), 0.1f);
     }
   }
 }
@@ -398,32 +398,32 @@ void spo2_chart(AppState& state, const record::Record& rec, const handover::Summ
   double y0 = std::min(50.0, std::floor(lowest / 10.0) * 10.0);
   std::string summary = std::to_string(line.size()) + " SpO2 points: " + points + "; band on air: " +
                         std::to_string(band.size()) + " stretches, " + std::to_string(extrapolated) + " extrapolated";
-  Plot plot = begin_plot(state, "SpO2 trend", summary, 12.0f, axis.axes(y0, 100.0, 10.0, "SpO2 %"));
+  Plot plot = begin_plot(state.display, "SpO2 trend", summary, 12.0f, axis.axes(y0, 100.0, 10.0, "SpO2 %"));
   draw_band(state, plot, band, axis.span);
   for (const handover::BagSession& b : s.bag_sessions) {
-    plot_vline(plot, axis.x_of(b.start), plot_colour(state, PlotColour::Dim), "bag");
-    if (b.end) plot_vline(plot, axis.x_of(*b.end), plot_colour(state, PlotColour::Dim));
+    plot_vline(plot, axis.x_of(b.start), plot_colour(state.display, PlotColour::Dim), "bag");
+    if (b.end) plot_vline(plot, axis.x_of(*b.end), plot_colour(state.display, PlotColour::Dim));
   }
   // The flow bar along the bottom, its label a line of text above it.
   double per_em = (100.0 - y0) / (plot.max.y - plot.min.y) * em();
   for (const handover::OxygenPeriod& p : s.oxygen) {
     double to = p.to ? axis.x_of(*p.to) : axis.span;
     double bar = y0 + 0.4 * per_em;
-    plot_line(plot, {{axis.x_of(p.from), bar}, {to, bar}}, plot_colour(state, PlotColour::Accent), 0.35f);
-    plot_text(plot, {axis.x_of(p.from), bar + 1.4 * per_em}, plot_colour(state, PlotColour::Accent),
+    plot_line(plot, {{axis.x_of(p.from), bar}, {to, bar}}, plot_colour(state.display, PlotColour::Accent), 0.35f);
+    plot_text(plot, {axis.x_of(p.from), bar + 1.4 * per_em}, plot_colour(state.display, PlotColour::Accent),
               format_number(p.setting.flow.in(litres_per_minute), 1) + " L/min");
   }
-  plot_line(plot, line, plot_colour(state, PlotColour::Text));
+  plot_line(plot, line, plot_colour(state.display, PlotColour::Text));
   for (size_t i = 0; i < line.size(); ++i) {
-    plot_point(plot, line[i], plot_colour(state, on_air[i] ? PlotColour::Danger : PlotColour::Text), on_air[i] ? "air" : "O2");
+    plot_point(plot, line[i], plot_colour(state.display, on_air[i] ? PlotColour::Danger : PlotColour::Text), on_air[i] ? "air" : "O2");
   }
   std::vector<std::pair<ImU32, std::string>> legend{
-      {plot_colour(state, PlotColour::Text), "SpO2 (point: air or O2)"},
-      {plot_colour(state, PlotColour::Accent, 0.4f), "expected on air (healthy newcomers)"},
-      {plot_colour(state, PlotColour::Accent), "oxygen given (L/min)"},
-      {plot_colour(state, PlotColour::Dim), "bag session"}};
-  if (extrapolated > 0) legend.push_back({plot_colour(state, PlotColour::Warning), "band extrapolated (dashed): no reassurance"});
-  plot_legend(state, legend);
+      {plot_colour(state.display, PlotColour::Text), "SpO2 (point: air or O2)"},
+      {plot_colour(state.display, PlotColour::Accent, 0.4f), "expected on air (healthy newcomers)"},
+      {plot_colour(state.display, PlotColour::Accent), "oxygen given (L/min)"},
+      {plot_colour(state.display, PlotColour::Dim), "bag session"}};
+  if (extrapolated > 0) legend.push_back({plot_colour(state.display, PlotColour::Warning), "band extrapolated (dashed): no reassurance"});
+  plot_legend(legend);
   ImGui::PushTextWrapPos(0.0f);
   ImGui::TextDisabled("Band at each entry's altitude and time there (the Casualty screen's time at "
                       "altitude, counted back); for comparison only, never a verdict.");
@@ -454,13 +454,13 @@ void rates_chart(AppState& state, const record::Record& rec, const TrendAxis& ax
   double top = std::max(160.0, std::ceil(highest / 40.0) * 40.0);
   std::string summary = "heart rate: " + (heart_words.empty() ? std::string("none") : heart_words) +
                         "; breathing rate: " + (breathing_words.empty() ? std::string("none") : breathing_words);
-  Plot plot = begin_plot(state, "Rates trend", summary, 8.0f, axis.axes(0.0, top, 40.0, "per min"));
-  ImU32 heart_colour = plot_colour(state, PlotColour::Text), breathing_colour = plot_colour(state, PlotColour::Warning);
+  Plot plot = begin_plot(state.display, "Rates trend", summary, 8.0f, axis.axes(0.0, top, 40.0, "per min"));
+  ImU32 heart_colour = plot_colour(state.display, PlotColour::Text), breathing_colour = plot_colour(state.display, PlotColour::Warning);
   plot_line(plot, heart, heart_colour);
   plot_line(plot, breathing, breathing_colour);
   for (const PlotPoint& p : heart) plot_point(plot, p, heart_colour, {}, 0.3f);
   for (const PlotPoint& p : breathing) plot_point(plot, p, breathing_colour, {}, 0.3f);
-  plot_legend(state, {{heart_colour, "heart rate /min"}, {breathing_colour, "breathing rate /min"}});
+  plot_legend({{heart_colour, "heart rate /min"}, {breathing_colour, "breathing rate /min"}});
 }
 
 void trend_charts(AppState& state, const record::Record& rec, const handover::Summary& s, ClockTime now) {
@@ -478,9 +478,9 @@ void handover_section(AppState& state, Platform& platform, const record::Record&
   handover::Units units = state.settings.units.altitude == UnitChoice::Altitude::Feet
                               ? handover::Units::Us : handover::Units::Metric;
   std::string text = handover::summary_text(rec, s, units);
-  message_line(state, text);
-  if (big_button(state, "Copy handover text")) ImGui::SetClipboardText(text.c_str());
-  if (big_button(state, "Print handover (A4)")) {
+  message_line(text);
+  if (big_button(state.display, "Copy handover text")) ImGui::SetClipboardText(text.c_str());
+  if (big_button(state.display, "Print handover (A4)")) {
     platform.open_html_document("Firn handover", handover::render_html(rec, s, units, handover::Page::A4));
   }
 }
@@ -500,30 +500,30 @@ void record_file(AppState& state, Platform& platform) {
   if (!in.store.record.entries.empty()) {
     export_control(state, platform, in.file, kRecordFile, "record", [&] { return record::write_record(in.store.record); });
   }
-  if (!in.file.message.empty()) message_line(state, in.file.message, in.file.message_is_problem);
+  if (!in.file.message.empty()) message_line(in.file.message, in.file.message_is_problem);
 }
 
 void incident_buttons(AppState& state, Platform& platform) {
   RecordInputs& in = state.record;
   heading("Incident");
   ImGui::TextDisabled("Kept on this device only. Archived incidents: %d of %d.", archived_count(platform), kArchiveSlots);
-  if (!in.confirm_new && big_button(state, "New incident")) in.confirm_new = true;
+  if (!in.confirm_new && big_button(state.display, "New incident")) in.confirm_new = true;
   if (in.confirm_new) {
-    verdict_line(state, Tone::Caution, "Archive this record and start a new, empty one?");
-    if (big_button(state, "Yes, new incident")) {
+    verdict_line(state.display, Tone::Caution, "Archive this record and start a new, empty one?");
+    if (big_button(state.display, "Yes, new incident")) {
       new_incident(in.store, platform);
       in.confirm_new = false;
     }
-    if (big_button(state, "Keep this incident")) in.confirm_new = false;
+    if (big_button(state.display, "Keep this incident")) in.confirm_new = false;
   }
-  if (!in.confirm_delete && big_button(state, "Delete all records")) in.confirm_delete = true;
+  if (!in.confirm_delete && big_button(state.display, "Delete all records")) in.confirm_delete = true;
   if (in.confirm_delete) {
-    verdict_line(state, Tone::Danger, "Delete this record and every archived one from this device?");
-    if (big_button(state, "Yes, delete everything")) {
+    verdict_line(state.display, Tone::Danger, "Delete this record and every archived one from this device?");
+    if (big_button(state.display, "Yes, delete everything")) {
       delete_all_records(in.store, platform);
       in.confirm_delete = false;
     }
-    if (big_button(state, "Cancel delete")) in.confirm_delete = false;
+    if (big_button(state.display, "Cancel delete")) in.confirm_delete = false;
   }
 }
 
@@ -541,18 +541,18 @@ void draw_record_panel(AppState& state, Platform& platform) {
   heading(rec.entries.empty() ? "Casualty record: no entries yet"
                               : ("Casualty record: " + std::to_string(rec.entries.size()) + " entries, since " +
                                  record::clock_hhmm(*s.first_time)).c_str());
-  if (!in.store.problem.empty()) verdict_line(state, Tone::Danger, in.store.problem);
+  if (!in.store.problem.empty()) verdict_line(state.display, Tone::Danger, in.store.problem);
   // A record left from an earlier incident keeps no timers running (and wakes nothing).
   if (incident_in_progress(in.store, now)) {
     timers(state, s, now);
   } else if (s.last_time) {
     std::string last = record::clock_text(*s.last_time);
     std::replace(last.begin(), last.end(), 'T', ' ');
-    message_line(state, "Last entry " + last + ", " + ago_text(record::minutes_between(*s.last_time, now)) +
+    message_line("Last entry " + last + ", " + ago_text(record::minutes_between(*s.last_time, now)) +
                             ": no timers. \"New incident\" below starts the record of a new casualty.");
   }
   if (s.latest_spo2) {
-    message_line(state, "Latest SpO2 " + format_number(s.latest_spo2->spo2.in(percent), 0) + " % on " +
+    message_line("Latest SpO2 " + format_number(s.latest_spo2->spo2.in(percent), 0) + " % on " +
                             (s.latest_spo2->on ? record::breathing_words(*s.latest_spo2->on) : "?") +
                             " at " + record::clock_hhmm(s.latest_spo2->time) + ", " +
                             ago_text(record::minutes_between(s.latest_spo2->time, now)));

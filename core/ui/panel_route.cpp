@@ -30,7 +30,7 @@ using route::Limits;
 void draw_route_message(const AppState& state) {
   const FileExchange& file = state.route.file;
   if (file.message.empty()) return;
-  message_line(state, file.message, file.message_is_problem);
+  message_line(file.message, file.message_is_problem);
   test_hook::item_text("Route message", file.message);
 }
 
@@ -57,18 +57,18 @@ void draw_presets(AppState& state) {
   double here = end_altitude_m(in);
   bool room = in.legs.size() < Limits::legs_max;
   heading("Add a leg");
-  if (room && big_button(state, "Carry down 600 m in 2 h")) {
+  if (room && big_button(state.display, "Carry down 600 m in 2 h")) {
     in.legs.push_back(preset_leg(LegKind::Carry, here, here - 600, 120, "carry down"));
   }
-  if (room && big_button(state, "Carry up 300 m in 1 h")) {
+  if (room && big_button(state.display, "Carry up 300 m in 1 h")) {
     in.legs.push_back(preset_leg(LegKind::Carry, here, here + 300, 60, "carry up"));
   }
-  if (room && big_button(state, "Wait 1 h")) in.legs.push_back(preset_leg(LegKind::Wait, here, here, 60, "wait"));
-  if (room && big_button(state, "Bag 1 h (2 L/min fed)")) in.legs.push_back(preset_leg(LegKind::Bag, here, here, 60, "bag"));
-  if (room && big_button(state, "Flight 30 min at +500 m")) {
+  if (room && big_button(state.display, "Wait 1 h")) in.legs.push_back(preset_leg(LegKind::Wait, here, here, 60, "wait"));
+  if (room && big_button(state.display, "Bag 1 h (2 L/min fed)")) in.legs.push_back(preset_leg(LegKind::Bag, here, here, 60, "bag"));
+  if (room && big_button(state.display, "Flight 30 min at +500 m")) {
     in.legs.push_back(preset_leg(LegKind::Flight, here + 500, here + 500, 30, "flight"));
   }
-  if (in.legs.size() > 1 && big_button(state, "Remove the last leg")) in.legs.pop_back();
+  if (in.legs.size() > 1 && big_button(state.display, "Remove the last leg")) in.legs.pop_back();
 }
 
 constexpr FileKind kRouteFile{"Load a route file", "Save as a route file", "Route file to load",
@@ -79,8 +79,8 @@ void draw_route_loading(AppState& state, Platform& platform) {
   RouteState& route = state.route;
   const team_profile::TeamProfile& profile = state.team.profile;
   heading("Load or keep a route");
-  if (big_button(state, "Back to the usual carry-out")) use_usual_route(route, profile);
-  if (profile.evacuation && big_button(state, "Cylinders from the team profile")) {
+  if (big_button(state.display, "Back to the usual carry-out")) use_usual_route(route, profile);
+  if (profile.evacuation && big_button(state.display, "Cylinders from the team profile")) {
     use_profile_stock(route, profile);
   }
   if (std::optional<ImportedFile> file = import_control(state, platform, route.file, kRouteFile)) {
@@ -130,14 +130,14 @@ void draw_stock(AppState& state) {
   }
   for (const team_profile::CylinderType& t : state.team.profile.cylinders) {
     std::string add = "+ full " + t.label;
-    if (stock.cylinders.size() < Limits::cylinders_max && big_button(state, add.c_str())) {
+    if (stock.cylinders.size() < Limits::cylinders_max && big_button(state.display, add.c_str())) {
       Volume water = t.water_capacity ? *t.water_capacity
                                       : cylinder::letter_size_info(*t.letter_size).water_capacity;
       stock.cylinders.push_back({"#" + std::to_string(stock.cylinders.size() + 1) + " " + t.label,
                                  t.label, water, t.fill_pressure_gauge, celsius(15)});
     }
   }
-  if (stock.cylinders.size() > 1 && big_button(state, "Remove the last cylinder")) stock.cylinders.pop_back();
+  if (stock.cylinders.size() > 1 && big_button(state.display, "Remove the last cylinder")) stock.cylinders.pop_back();
   edit_quantity(state, duration_field("Safety margin", "route-margin", 0, Limits::margin_high_h * 60),
                 stock.margin);
 }
@@ -149,7 +149,7 @@ void draw_profile_chart(const AppState& state, const route::RoutePlan& plan) {
   double low = top;
   for (const auto& l : plan.legs) low = std::min({low, l.leg.start_altitude.in(metres), l.leg.end_altitude.in(metres)});
   low = std::max(0.0, std::floor(low / 500.0 - 1) * 500.0);
-  Plot plot = begin_plot(state, "Route profile",
+  Plot plot = begin_plot(state.display, "Route profile",
                          "highest " + format_number(plan.highest_altitude.in(metres), 0) + " m",
                          10.0f, {0, end_h, low, top, end_h > 6 ? 2.0 : 1.0, 500, "hours", "altitude, m"});
   std::vector<PlotPoint> line;
@@ -158,29 +158,29 @@ void draw_profile_chart(const AppState& state, const route::RoutePlan& plan) {
     line.push_back({t0, l.leg.start_altitude.in(metres)});
     line.push_back({t1, l.leg.end_altitude.in(metres)});
   }
-  plot_line(plot, line, plot_colour(state, PlotColour::Accent));
+  plot_line(plot, line, plot_colour(state.display, PlotColour::Accent));
   const auto& hi = plan.legs[plan.highest_leg];
   plot_point(plot, {hi.start.in(hours) + (hi.leg.end_altitude >= hi.leg.start_altitude ? hi.leg.duration.in(hours) : 0),
                     plan.highest_altitude.in(metres)},
-             plot_colour(state, PlotColour::Warning), "highest point");
+             plot_colour(state.display, PlotColour::Warning), "highest point");
 }
 
 // Predicted SpO2 (band low edge) per leg at the planned flow, against the target.
 void draw_spo2_chart(const AppState& state, const route::RoutePlan& plan, Fraction target) {
   double end_h = std::max(plan.route_time.in(hours), 0.5);
-  Plot plot = begin_plot(state, "Predicted SpO2 along the route", "low edge at the planned flow",
+  Plot plot = begin_plot(state.display, "Predicted SpO2 along the route", "low edge at the planned flow",
                          7.0f, {0, end_h, 60, 100, end_h > 6 ? 2.0 : 1.0, 10, "hours", "SpO2, %"});
-  plot_hline(plot, target.in(percent), plot_colour(state, PlotColour::Warning), "target");
+  plot_hline(plot, target.in(percent), plot_colour(state.display, PlotColour::Warning), "target");
   for (const auto& l : plan.legs) {
     double t0 = l.start.in(hours), t1 = (l.start + l.leg.duration).in(hours);
     double on_flow = std::max(60.0, l.spo2_at_flow.low.in(percent));
     double on_air = std::max(60.0, l.spo2_on_air.low.in(percent));
-    plot_line(plot, {{t0, on_flow}, {t1, on_flow}}, plot_colour(state, PlotColour::Accent));
-    plot_line(plot, {{t0, on_air}, {t1, on_air}}, plot_colour(state, PlotColour::Dim), 0.08f);
+    plot_line(plot, {{t0, on_flow}, {t1, on_flow}}, plot_colour(state.display, PlotColour::Accent));
+    plot_line(plot, {{t0, on_air}, {t1, on_air}}, plot_colour(state.display, PlotColour::Dim), 0.08f);
   }
-  plot_legend(state, {{plot_colour(state, PlotColour::Accent), "at the planned flow"},
-                      {plot_colour(state, PlotColour::Dim), "on air"},
-                      {plot_colour(state, PlotColour::Warning), "target"}});
+  plot_legend({{plot_colour(state.display, PlotColour::Accent), "at the planned flow"},
+                      {plot_colour(state.display, PlotColour::Dim), "on air"},
+                      {plot_colour(state.display, PlotColour::Warning), "target"}});
 }
 
 // One bar per cylinder over time: when it is on the casualty, gauge at each end. Each row holds
@@ -193,7 +193,7 @@ void draw_cylinder_bars(const AppState& state, const route::RouteInput& in, cons
   constexpr double kMarkLow = 0.06, kMarkHigh = 0.56;  // a change mark: just beyond the bar
   double end_h = std::max(plan.route_time.in(hours), 0.5);
   double n = static_cast<double>(in.stock.cylinders.size());
-  Plot plot = begin_plot(state, "Cylinders on the casualty",
+  Plot plot = begin_plot(state.display, "Cylinders on the casualty",
                          std::to_string(plan.swaps.size()) + " changes before arrival",
                          static_cast<float>(4.0 + kRowEm * n), {0, end_h, 0, n, end_h > 6 ? 2.0 : 1.0, 0, "hours", ""});  // rows: no y numbers
   auto row_of = [&](std::size_t cylinder) { return n - 1 - static_cast<double>(cylinder); };
@@ -201,9 +201,9 @@ void draw_cylinder_bars(const AppState& state, const route::RouteInput& in, cons
     double row = row_of(s.cylinder);
     ImVec2 a = plot.at(s.start.in(hours), row + kBarLow), b = plot.at(s.end.in(hours), row + kBarHigh);
     plot.draw->AddRectFilled(ImVec2(a.x, b.y), ImVec2(b.x, a.y),
-                             plot_colour(state, s.reached_reserve ? PlotColour::Warning : PlotColour::Accent, 0.6f));
+                             plot_colour(state.display, s.reached_reserve ? PlotColour::Warning : PlotColour::Accent, 0.6f));
   }
-  ImU32 mark = plot_colour(state, PlotColour::Text);
+  ImU32 mark = plot_colour(state.display, PlotColour::Text);
   for (std::size_t i = 0; i < plan.swaps.size(); ++i) {
     const route::Swap& s = plan.swaps[i];
     for (std::size_t cylinder : {s.from, s.to}) {
@@ -228,11 +228,11 @@ void draw_cylinder_bars(const AppState& state, const route::RouteInput& in, cons
     float x = std::max(std::max(left, plot.min.x - 3.0f * em()), std::min(top.x + pad, plot.max.x - size.x - pad));
     ImVec2 low(x - pad, top.y + 0.05f * em()), high(x + size.x + pad, top.y + 0.05f * em() + size.y);
     plot.draw->AddRectFilled(low, high, ImGui::GetColorU32(ImGuiCol_WindowBg));
-    plot.draw->AddText(ImVec2(x, low.y), plot_colour(state, PlotColour::Text), label.c_str());
+    plot.draw->AddText(ImVec2(x, low.y), plot_colour(state.display, PlotColour::Text), label.c_str());
     test_hook::drawn("Cylinder label " + std::to_string(s.cylinder + 1), label, low.x, low.y, high.x, high.y);
   }
-  plot_legend(state, {{plot_colour(state, PlotColour::Accent, 0.6f), "on the casualty at arrival"},
-                      {plot_colour(state, PlotColour::Warning, 0.6f), "down to the reserve"},
+  plot_legend({{plot_colour(state.display, PlotColour::Accent, 0.6f), "on the casualty at arrival"},
+                      {plot_colour(state.display, PlotColour::Warning, 0.6f), "down to the reserve"},
                       {mark, "a change of cylinder"}});
 }
 
@@ -240,16 +240,16 @@ void draw_result(AppState& state) {
   const route::RouteInput& in = state.route.input;
   Result<route::RoutePlan> plan = route::plan_route(in);
   if (!plan) {
-    result_error(state, "Oxygen to arrival", plan.error().message);
+    result_error(state.display, "Oxygen to arrival", plan.error().message);
     return;
   }
   const route::RoutePlan& p = plan.value();
   Tone tone = p.enough ? Tone::Good : p.verdict.rfind("short", 0) == 0 ? Tone::Danger : Tone::Neutral;
   // The tone's own word leads ("NO VERDICT"), so the model's same words are not repeated.
   const std::string prefix = "no verdict: ";
-  verdict_line(state, tone, p.verdict.rfind(prefix, 0) == 0 ? p.verdict.substr(prefix.size()) : p.verdict);
-  result_value(state, "Highest point", altitude_with_unit(p.highest_altitude, state.settings.units), false);
-  result_value(state, "Steady flow the stock holds to arrival + margin", flow_text(p.max_steady_flow), false);
+  verdict_line(state.display, tone, p.verdict.rfind(prefix, 0) == 0 ? p.verdict.substr(prefix.size()) : p.verdict);
+  result_value(state.display, "Highest point", altitude_with_unit(p.highest_altitude, state.settings.units), false);
+  result_value(state.display, "Steady flow the stock holds to arrival + margin", flow_text(p.max_steady_flow), false);
   draw_profile_chart(state, p);
   draw_spo2_chart(state, p, in.casualty.target);
   draw_cylinder_bars(state, in, p);
@@ -267,7 +267,7 @@ void draw_result(AppState& state) {
     bullet_line(line);
     test_hook::item_text("Leg " + std::to_string(i + 1) + " plan", line);
   }
-  for (const std::string& c : p.cautions) message_line(state, c, true);
+  for (const std::string& c : p.cautions) message_line(c, true);
 }
 
 // When the carry-out starts: then the changes read as clock times, else as time from the start.
@@ -294,11 +294,11 @@ void draw_start_time(AppState& state) {
       state.field_errors[spec.id] = "Type the start as hours and minutes, e.g. 0730 for 07:30 (00:00 to 23:59).";
     }
   }
-  if (big_button(state, "Start now")) {
+  if (big_button(state.display, "Start now")) {
     constexpr int kDay = 24 * 60;
     start = static_cast<int>((clock_now().minutes % kDay + kDay) % kDay);
   }
-  if (start && big_button(state, "No start time")) start.reset();
+  if (start && big_button(state.display, "No start time")) start.reset();
 }
 
 }  // namespace
@@ -308,11 +308,11 @@ void draw_route_panel(AppState& state, Platform& platform) {
   route::RouteInput& in = state.route.input;
   // A saved route that could not be read is said first; other outcomes under the load buttons.
   if (state.route.file.message_is_problem) draw_route_message(state);
-  if (in.demo) message_line(state, "DEMO route: fictional team and range.");
+  if (in.demo) message_line("DEMO route: fictional team and range.");
   draw_result(state);
   heading("Casualty");
   int device = static_cast<int>(in.casualty.device);
-  if (choice_row(state, "route-device", kDeviceLabels, 3, &device)) {
+  if (choice_row(state.display, "route-device", kDeviceLabels, 3, &device)) {
     in.casualty.device = static_cast<supplemental_oxygen::Device>(device);
     for (Leg& leg : in.legs) leg.fixed_flow.reset();  // a fixed flow belonged to the old device
   }

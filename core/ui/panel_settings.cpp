@@ -16,7 +16,7 @@ void unit_row(const AppState& state, const char* title, const char* id,
   ImGui::TextDisabled("%s", title);
   auto labels = unit_labels(list);
   int index = static_cast<int>(choice);
-  if (choice_row(state, id, labels.data(), static_cast<int>(N), &index)) {
+  if (choice_row(state.display, id, labels.data(), static_cast<int>(N), &index)) {
     choice = static_cast<Choice>(index);
   }
 }
@@ -34,12 +34,12 @@ void draw_settings_panel(AppState& state, Platform& platform) {
   const char* themes[] = {theme_label(Theme::Day), theme_label(Theme::Night),
                           theme_label(Theme::Projection)};
   int theme_index = static_cast<int>(state.settings.theme);
-  if (choice_row(state, "theme", themes, 3, &theme_index)) {
+  if (choice_row(state.display, "theme", themes, 3, &theme_index)) {
     state.settings.theme = static_cast<Theme>(theme_index);
     state.built_font_scale = 0.0f;  // fonts and style are rebuilt before the next frame
   }
   if (state.settings.theme == Theme::Night &&
-      toggle_row(state, "night-brightness", "Night: normal", "Night: dim", &state.settings.night_dim)) {
+      toggle_row(state.display, "night-brightness", "Night: normal", "Night: dim", &state.settings.night_dim)) {
     state.built_font_scale = 0.0f;
   }
 

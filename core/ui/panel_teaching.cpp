@@ -69,7 +69,7 @@ void landmark_ticks(const AppState& state, float grab) {
   ImDrawList* draw = ImGui::GetWindowDrawList();
   for (const Landmark& l : kLandmarks) {
     float x = x0 + (x1 - x0) * static_cast<float>(l.metres / TeachingInputs::kTopM);
-    draw->AddLine(ImVec2(x, hi.y - 0.5f * em()), ImVec2(x, hi.y), plot_colour(state, PlotColour::Text), 2.0f);
+    draw->AddLine(ImVec2(x, hi.y - 0.5f * em()), ImVec2(x, hi.y), plot_colour(state.display, PlotColour::Text), 2.0f);
   }
 }
 
@@ -96,7 +96,7 @@ void landmark_buttons(AppState& state) {
     if (label_fit_scale(l.name, (available - spacing * (count - 1)) / count) < 0.9f) per_row = 2;
   }
   float width = (available - spacing * (per_row - 1)) / per_row;
-  float height = std::max(touch_target(state), ImGui::GetFrameHeight());
+  float height = std::max(touch_target(state.display), ImGui::GetFrameHeight());
   ImGui::PushID("landmarks");
   for (int i = 0; i < count; ++i) {
     if (i % per_row != 0) ImGui::SameLine();
@@ -116,13 +116,13 @@ void altitude_slider(AppState& state) {
   float grab = 2.5f * em();
   ImGui::PushStyleVar(ImGuiStyleVar_FramePadding,
                       ImVec2(ImGui::GetStyle().FramePadding.x, std::max(ImGui::GetStyle().FramePadding.y,
-                                                                       (touch_target(state) - em()) * 0.5f)));
+                                                                       (touch_target(state.display) - em()) * 0.5f)));
   ImGui::PushStyleVar(ImGuiStyleVar_GrabMinSize, grab);
   // The altitude is written above the slider: on the track the thumb-wide grab would hide it.
   std::string shown = altitude_with_unit(state.teaching.altitude, state.settings.units);
-  if (state.font_large) ImGui::PushFont(state.font_large);
+  if (state.display.font_large) ImGui::PushFont(state.display.font_large);
   ImGui::TextUnformatted(shown.c_str());
-  if (state.font_large) ImGui::PopFont();
+  if (state.display.font_large) ImGui::PopFont();
   if (extrapolated_at(state)) {  // beside the number the class is looking at, or under it
     float end = ImGui::GetItemRectMax().x + ImGui::GetStyle().ItemSpacing.x +
                 ImGui::CalcTextSize("extrapolated").x;
@@ -176,7 +176,7 @@ void draw_bar_pair(const AppState& state, const Plot& plot, int stage, const dou
     std::string t = shown_number(values[c], 0);
     ImVec2 top = plot.at((x0 + x1) * 0.5, values[c]);
     float tw = ImGui::CalcTextSize(t.c_str()).x;
-    plot.draw->AddText(ImVec2(top.x - tw * 0.5f, top.y - 1.2f * em()), plot_colour(state, PlotColour::Text), t.c_str());
+    plot.draw->AddText(ImVec2(top.x - tw * 0.5f, top.y - 1.2f * em()), plot_colour(state.display, PlotColour::Text), t.c_str());
   }
 }
 
@@ -185,7 +185,7 @@ void stage_labels(const AppState& state, const Plot& plot, const char* const* na
     ImVec2 label_at = plot.at(stage + 0.5, 0);
     float tw = ImGui::CalcTextSize(names[stage]).x;
     plot.draw->AddText(ImVec2(label_at.x - tw * 0.5f, label_at.y + 0.3f * em()),
-                       plot_colour(state, PlotColour::Text), names[stage]);
+                       plot_colour(state.display, PlotColour::Text), names[stage]);
   }
 }
 
@@ -194,7 +194,7 @@ void stage_labels(const AppState& state, const Plot& plot, const char* const* na
 void draw_cascade_chart(const AppState& state, const Column (&columns)[2], Pressure pb,
                         const ChartHeights& heights) {
   const UnitChoice& u = state.settings.units;
-  ImU32 colours[2] = {plot_colour(state, PlotColour::Danger), plot_colour(state, PlotColour::Accent)};
+  ImU32 colours[2] = {plot_colour(state.display, PlotColour::Danger), plot_colour(state.display, PlotColour::Accent)};
   double pressures[3][2] = {};
   double saturation[2] = {};
   for (int c = 0; c < 2; ++c) {
@@ -205,7 +205,7 @@ void draw_cascade_chart(const AppState& state, const Column (&columns)[2], Press
     pressures[2][c] = k.middle.arterial.in(mmhg);
     saturation[c] = columns[c].expectation->band.mid.in(percent);
   }
-  Plot plot = begin_plot(state, "Cascade chart", "PB " + gas_pressure_text(pb, u), heights.cascade,
+  Plot plot = begin_plot(state.display, "Cascade chart", "PB " + gas_pressure_text(pb, u), heights.cascade,
                          {0, 3, 0, 160, 0, 20, "", "PO2, mmHg"});
   const char* stages[] = {"PiO2", "PAO2", "PaO2"};
   stage_labels(state, plot, stages, 3);
@@ -213,21 +213,21 @@ void draw_cascade_chart(const AppState& state, const Column (&columns)[2], Press
 
   std::string summary = "SaO2 acute " + shown_number(saturation[0], 0) + " %, acclimatised " +
                         shown_number(saturation[1], 0) + " %";
-  Plot sat = begin_plot(state, "Saturation chart", summary, heights.saturation, {0, 1, 0, 100, 0, 25, "", "SaO2, %"});
+  Plot sat = begin_plot(state.display, "Saturation chart", summary, heights.saturation, {0, 1, 0, 100, 0, 25, "", "SaO2, %"});
   const char* sat_stage[] = {"SaO2"};
   stage_labels(state, sat, sat_stage, 1);
   draw_bar_pair(state, sat, 0, saturation, colours);
-  plot_legend(state, {{colours[0], "acute (first hours\xE2\x80\x93" "2 days)"}, {colours[1], "acclimatised"}});
+  plot_legend({{colours[0], "acute (first hours\xE2\x80\x93" "2 days)"}, {colours[1], "acclimatised"}});
 }
 
 void draw_curve(const AppState& state, const Column (&columns)[2], float height_em) {
-  Plot plot = begin_plot(state, "Teaching curve", "points on the dissociation curve", height_em,
+  Plot plot = begin_plot(state.display, "Teaching curve", "points on the dissociation curve", height_em,
                          {0, 120, 0, 100, 20, 20, "PO2, mmHg", "saturation, %"});
   dissociation::Curve standard = dissociation::Curve::standard();
   std::vector<PlotPoint> line;
   for (double po2 = 0; po2 <= 120; po2 += 2) line.push_back({po2, standard.saturation(mmhg(po2)).in(percent)});
-  plot_line(plot, line, plot_colour(state, PlotColour::Dim), 0.12f);
-  ImU32 colours[2] = {plot_colour(state, PlotColour::Danger), plot_colour(state, PlotColour::Accent)};
+  plot_line(plot, line, plot_colour(state.display, PlotColour::Dim), 0.12f);
+  ImU32 colours[2] = {plot_colour(state.display, PlotColour::Danger), plot_colour(state.display, PlotColour::Accent)};
   for (int c = 0; c < 2; ++c) {
     if (!columns[c].expectation) continue;
     const cascade::CascadePath& mid = columns[c].expectation->cascade.middle;
@@ -241,13 +241,13 @@ void draw_curve(const AppState& state, const Column (&columns)[2], float height_
 void draw_column_notes(AppState& state, const Column (&columns)[2]) {
   const UnitChoice& u = state.settings.units;
   for (const Column& c : columns) {
-    if (!c.expectation) message_line(state, std::string(c.name) + ": " + c.expectation.error().message, true);
+    if (!c.expectation) message_line(std::string(c.name) + ": " + c.expectation.error().message, true);
   }
   bool extrapolated = std::any_of(std::begin(columns), std::end(columns), [](const Column& c) {
     return c.expectation && c.expectation->extrapolated;
   });
   if (extrapolated) {
-    message_line(state, "Extrapolated: the field data behind these bands stop at " +
+    message_line("Extrapolated: the field data behind these bands stop at " +
                             altitude_with_unit(metres(expected_spo2::kFieldDataTopM), u) + ".", true);
   }
 }
@@ -259,7 +259,7 @@ void draw_cascade_lines(AppState& state, const Column (&columns)[2]) {
     if (!c.expectation) continue;
     const cascade::CascadePath& mid = c.expectation->cascade.middle;
     std::string label = std::string("Cascade, ") + c.name;
-    result_value(state, label.c_str(),
+    result_value(state.display, label.c_str(),
                  "PiO2 " + gas_pressure_text(c.expectation->cascade.inspired, u) + " \xE2\x86\x92 PAO2 " +
                      gas_pressure_text(mid.alveolar, u) + " \xE2\x86\x92 PaO2 " + gas_pressure_text(mid.arterial, u) +
                      " \xE2\x86\x92 SaO2 " + percent_text(c.expectation->band.mid),
@@ -292,12 +292,12 @@ void draw_teaching_panel(AppState& state, Platform&) {
   atmosphere::Model model = state.settings.model;
   Result<Pressure> pb = atmosphere::pressure_at(state.teaching.altitude, model);
   if (!pb) {
-    result_error(state, "PB (teaching)", pb.error().message);
+    result_error(state.display, "PB (teaching)", pb.error().message);
     if (wide) ImGui::EndTable();
     return;
   }
   std::string pb_label = "PB (" + std::string(atmosphere::model_name(model)) + ")";
-  result_value(state, pb_label.c_str(), gas_pressure_text(pb.value(), u) + " = " + pressure_text(pb.value(), u));
+  result_value(state.display, pb_label.c_str(), gas_pressure_text(pb.value(), u) + " = " + pressure_text(pb.value(), u));
   Column columns[2] = {
       {"acute", expected_spo2::expected(pb.value(), cascade::Exposure::Acute)},
       {"acclimatised", expected_spo2::expected(pb.value(), cascade::Exposure::Acclimatised)}};

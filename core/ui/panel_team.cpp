@@ -5,9 +5,11 @@
 
 #include <imgui.h>
 
+#include <algorithm>
 #include <string>
 
 #include "model/cylinder.hpp"
+#include "model/evacuation_plan.hpp"
 #include "profile/pocket_card.hpp"
 #include "ui/format.hpp"
 #include "ui/team_store.hpp"
@@ -59,7 +61,7 @@ void profile_line(const char* label, const std::string& value) {
 void draw_profile_summary(AppState& state, Platform& platform) {
   const tp::TeamProfile& p = state.team.profile;
   if (p.demo) {
-    message_line(state, "DEMO DATA: a fictional team in a fictional range. Import your team's "
+    message_line("DEMO DATA: a fictional team in a fictional range. Import your team's "
                         "profile before relying on these figures.", true);
     test_hook::item_text("Demo", "DEMO DATA");
   }
@@ -113,7 +115,7 @@ constexpr FileKind kProfileFile{"Import profile", "Export profile", "Profile fil
 
 void draw_file_actions(AppState& state, Platform& platform) {
   heading("Profile file");
-  if (big_button(state, "Load demo profile")) use_demo_profile(state, platform);
+  if (big_button(state.display, "Load demo profile")) use_demo_profile(state, platform);
   if (std::optional<ImportedFile> file = import_control(state, platform, state.team.file, kProfileFile)) {
     import_team_profile(state, platform, file->text, file->name.empty() ? "the file" : file->name);
   }
@@ -141,34 +143,60 @@ void open_printout(AppState& state, Platform& platform, pocket_card::Size size, 
 void draw_card_actions(AppState& state, Platform& platform) {
   TeamState& team = state.team;
   const char* sizes[] = {"A6", "Wallet"};
-  choice_row(state, "card-size", sizes, 2, &team.card_size);
-  if (big_button(state, "Print pocket card")) {
+  choice_row(state.display, "card-size", sizes, 2, &team.card_size);
+  if (big_button(state.display, "Print pocket card")) {
     bool wallet = team.card_size == 1;
     open_printout(state, platform, wallet ? pocket_card::Size::Wallet : pocket_card::Size::A6,
                   "pocket-card",
                   wallet ? "wallet card (2 cards, both sides)" : "A6 card (one sheet, both sides)");
   }
-  if (big_button(state, "Print team reference sheet (A4)")) {
+  if (big_button(state.display, "Print team reference sheet (A4)")) {
     open_printout(state, platform, pocket_card::Size::Reference, "team-reference-sheet",
                   "team reference sheet");
   }
 }
 
-// The first cylinder kind, the reserve, the first flow and the bag gauge become the inputs of
-// the Oxygen and Bag screens; the user can still change them there.
+// The profile's usual carry-out, read by plan_input as `firn plan` reads it, becomes the Oxygen
+// screen's plan: its time, a first timed flow, the flow until arrival and how many cylinders.
+// The screen plans cylinders like the one in hand, so the profile's own gauges are not taken
+// (they were read when the file was written). Returns what was taken, for the message.
+std::string use_evacuation_section(const tp::TeamProfile& p, OxygenInputs& in) {
+  Result<evacuation::PlanInput> made = tp::plan_input(p);
+  if (!made || made->phases.empty() || made->cylinders.empty()) return "";
+  const evacuation::PlanInput& plan = made.value();
+  in.evacuation = plan.evacuation;
+  in.cylinder_count = std::clamp(static_cast<int>(plan.cylinders.size()), 1, OxygenInputs::kMaxCylinders);
+  const evacuation::FlowPhase& first = plan.phases.front();
+  bool timed_start = plan.phases.size() > 1 && first.duration.has_value();
+  in.first_flow = first.flow;
+  in.first_phase = timed_start ? *first.duration : minutes(0.0);
+  in.flow = plan.phases.back().flow;
+  std::string taken = "plan " + duration_text(in.evacuation) + ", " + std::to_string(in.cylinder_count) +
+                      " cylinders, " + (timed_start ? flow_text(in.first_flow) + " for " +
+                                                          duration_text(in.first_phase) + " then "
+                                                    : std::string()) +
+                      flow_text(in.flow);
+  if (plan.phases.size() > 2) taken += " (the middle flows are planned on the Route screen)";
+  return taken;
+}
+
+// The first cylinder kind, the reserve, the first flow, the usual carry-out and the bag gauge
+// become the inputs of the Oxygen and Bag screens; the user can still change them there.
 void draw_use_in_calculators(AppState& state) {
   const tp::TeamProfile& p = state.team.profile;
-  if (!big_button(state, "Use on Oxygen and Bag screens")) return;
+  if (!big_button(state.display, "Use on Oxygen and Bag screens")) return;
   const tp::CylinderType& c = p.cylinders.front();
-  state.oxygen.water_capacity = capacity_of(c);
-  state.oxygen.gauge = c.fill_pressure_gauge;
-  state.oxygen.gauge_entered = true;  // chosen by the user ("full"), though not a reading:
-  state.oxygen.gauge_read_at = 0;     // the Record screen times no reserve from it
-  state.oxygen.reserve = p.reserve_pressure_gauge;
-  state.oxygen.flow = p.flows.front();
+  OxygenInputs& in = state.oxygen;
+  in.water_capacity = capacity_of(c);
+  in.gauge = c.fill_pressure_gauge;
+  in.gauge_entered = true;  // chosen by the user ("full"), though not a reading:
+  in.gauge_read_at = 0;     // the Record screen times no reserve from it
+  in.reserve = p.reserve_pressure_gauge;
+  in.flow = p.flows.front();
+  std::string plan = use_evacuation_section(p, in);
   state.bag.gauge = p.bag.gauge_pressure;
-  state.team.file.message = "Oxygen screen: " + c.label + " full, reserve and flow from the profile; "
-                       "Bag screen: the profile's gauge pressure.";
+  state.team.file.message = "Oxygen screen: " + c.label + " full, reserve and flow from the profile" +
+                            (plan.empty() ? "" : "; " + plan) + "; Bag screen: the profile's gauge pressure.";
   state.team.file.message_is_problem = false;
 }
 
@@ -181,7 +209,7 @@ void draw_team_panel(AppState& state, Platform& platform) {
   draw_card_actions(state, platform);
   draw_file_actions(state, platform);
   if (!state.team.file.message.empty()) {
-    message_line(state, state.team.file.message, state.team.file.message_is_problem);
+    message_line(state.team.file.message, state.team.file.message_is_problem);
     test_hook::item_text("Team message", state.team.file.message);
   }
   draw_profile_details(state);

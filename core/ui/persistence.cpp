@@ -230,7 +230,7 @@ bool state_from_json(AppState& state, const std::string& text) {
   read(o, "cylinder_temperature_k", kelvin, cylinder::kTemperatureRange, ox.cylinder_temperature);
   read(o, "reserve_pa", pascals, 0, 35e6, ox.reserve);
   read(o, "flow_lpm", litres_per_minute, 0, 30, ox.flow);
-  read(o, "cylinders", 1, 20, ox.cylinder_count);
+  read(o, "cylinders", 1, OxygenInputs::kMaxCylinders, ox.cylinder_count);
   read(o, "evacuation_min", minutes, 1, 4320, ox.evacuation);
   read(o, "first_flow_lpm", litres_per_minute, 0, 30, ox.first_flow);
   read(o, "first_phase_min", minutes, 0, 4320, ox.first_phase);

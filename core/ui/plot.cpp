@@ -18,8 +18,8 @@ ImVec2 Plot::at(double x, double y) const {
                 max.y - static_cast<float>(fy) * (max.y - min.y));
 }
 
-ImU32 plot_colour(const AppState& state, PlotColour colour, float alpha) {
-  const Palette& p = palette(state.settings.theme, state.settings.night_dim);
+ImU32 plot_colour(const DisplayMetrics& display, PlotColour colour, float alpha) {
+  const Palette& p = *display.colours;
   ImVec4 c = p.text;
   switch (colour) {
     case PlotColour::Text: c = p.text; break;
@@ -40,7 +40,7 @@ std::string tick_text(double value, double step) {
 }
 }  // namespace
 
-Plot begin_plot(const AppState& state, const char* label, const std::string& summary,
+Plot begin_plot(const DisplayMetrics& display, const char* label, const std::string& summary,
                 float height_em, const PlotAxes& axes) {
   Plot plot;
   plot.axes = axes;
@@ -54,10 +54,10 @@ Plot begin_plot(const AppState& state, const char* label, const std::string& sum
   float left = 3.2f * em(), bottom = 2.6f * em(), top = 1.4f * em(), right = 0.8f * em();
   plot.min = ImVec2(origin.x + left, origin.y + top);
   plot.max = ImVec2(origin.x + width - right, origin.y + height - bottom);
-  ImU32 grid = plot_colour(state, PlotColour::Grid, 0.6f);
-  ImU32 text = plot_colour(state, PlotColour::Dim);
+  ImU32 grid = plot_colour(display, PlotColour::Grid, 0.6f);
+  ImU32 text = plot_colour(display, PlotColour::Dim);
   ImDrawList* d = plot.draw;
-  d->AddRect(plot.min, plot.max, plot_colour(state, PlotColour::Grid), 0.0f, 0, 1.0f * state.pixel_ratio);
+  d->AddRect(plot.min, plot.max, plot_colour(display, PlotColour::Grid), 0.0f, 0, 1.0f * display.pixel_ratio);
   // Grid lines on multiples of the tick: round numbers a medic can read off.
   if (axes.x_tick > 0) {
     // On a narrow phone every grid line stays, but only every n-th gets a number, so that
@@ -172,7 +172,7 @@ void plot_text(const Plot& plot, PlotPoint p, ImU32 colour, const std::string& t
   plot.draw->AddText(at, colour, text.c_str());
 }
 
-void plot_legend(const AppState&, const std::vector<std::pair<ImU32, std::string>>& entries) {
+void plot_legend(const std::vector<std::pair<ImU32, std::string>>& entries) {
   for (size_t i = 0; i < entries.size(); ++i) {
     ImVec2 pos = ImGui::GetCursorScreenPos();
     float s = 0.8f * em();

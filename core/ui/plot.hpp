@@ -7,7 +7,7 @@
 #include <string>
 #include <vector>
 
-#include "ui/app_state.hpp"
+#include "ui/theme.hpp"
 
 namespace firn::ui {
 
@@ -30,11 +30,11 @@ struct Plot {
 };
 
 enum class PlotColour { Text, Dim, Accent, Warning, Danger, Grid };
-ImU32 plot_colour(const AppState& state, PlotColour colour, float alpha = 1.0f);
+ImU32 plot_colour(const DisplayMetrics& display, PlotColour colour, float alpha = 1.0f);
 
 // Reserves `height_em` of the current column and draws frame, grid and tick labels. `label` is
 // the test-hook name; `summary` the text recorded with it (what the plot shows, in words).
-Plot begin_plot(const AppState& state, const char* label, const std::string& summary,
+Plot begin_plot(const DisplayMetrics& display, const char* label, const std::string& summary,
                 float height_em, const PlotAxes& axes);
 
 void plot_line(const Plot& plot, const std::vector<PlotPoint>& points, ImU32 colour,
@@ -52,6 +52,6 @@ void plot_hline(const Plot& plot, double y, ImU32 colour, const std::string& lab
 void plot_vline(const Plot& plot, double x, ImU32 colour, const std::string& label = {});
 void plot_text(const Plot& plot, PlotPoint p, ImU32 colour, const std::string& text);
 // A legend row: coloured swatch + text, one per entry, under the plot.
-void plot_legend(const AppState& state, const std::vector<std::pair<ImU32, std::string>>& entries);
+void plot_legend(const std::vector<std::pair<ImU32, std::string>>& entries);
 
 }  // namespace firn::ui

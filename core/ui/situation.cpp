@@ -95,7 +95,7 @@ std::string situation_summary(const AppState& state) {
 
 void draw_situation_strip(AppState& state) {
   std::string text = situation_summary(state);
-  float height = std::max(touch_target(state), ImGui::GetFrameHeight());
+  float height = std::max(touch_target(state.display), ImGui::GetFrameHeight());
   ImGui::PushStyleVar(ImGuiStyleVar_ButtonTextAlign, ImVec2(0.0f, 0.5f));
   // Wraps on a narrow phone: a clipped summary would hide the altitude a medic must check.
   float width = ImGui::GetContentRegionAvail().x;

@@ -4,9 +4,14 @@
 
 #include <imgui.h>
 
-#include "ui/app_state.hpp"
+#include <array>
+#include <string_view>
 
 namespace firn::ui {
+
+enum class Theme { Day, Night, Projection };
+// Each theme's key in saved state and --theme, in the enum's order (labels: theme_label).
+inline constexpr std::array<std::string_view, 3> kThemeKeys{"day", "night", "projector"};
 
 struct Palette {
   ImVec4 background, text, text_dim, accent, warning, danger, surface, surface_active, border;
@@ -22,5 +27,14 @@ const Palette& palette(Theme theme, bool night_dim = false);
 float theme_text_scale(Theme theme);  // 1.0 day/night, 1.6 projection
 void apply_theme(Theme theme, float pixel_ratio, bool night_dim = false);
 const char* theme_label(Theme theme);
+
+// What a widget reads of the display, never the whole app state: the device pixel ratio (touch
+// targets, line widths), the large face (results, typed values) and the theme's colours.
+// draw_frame refreshes the colours every frame; update_fonts sets the face.
+struct DisplayMetrics {
+  float pixel_ratio = 1.0f;  // framebuffer pixels per CSS/logical pixel
+  ImFont* font_large = nullptr;  // owned by ImGui's font atlas; nullptr: the body face
+  const Palette* colours = &palette(Theme::Day);
+};
 
 }  // namespace firn::ui

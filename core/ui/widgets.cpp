@@ -41,7 +41,7 @@ void dim_wrapped_text(std::string_view text) {
 
 float em() { return ImGui::GetFontSize(); }
 
-float touch_target(const AppState& state) { return 48.0f * state.pixel_ratio; }
+float touch_target(const DisplayMetrics& display) { return 48.0f * display.pixel_ratio; }
 
 std::string shown_number(double value, int decimals) {
   if (!std::isfinite(value)) return "\xE2\x80\x94";  // em dash
@@ -119,14 +119,14 @@ bool fitted_button(const char* label, const ImVec2& size) {
   return pressed;
 }
 
-bool big_button(const AppState& state, const char* label, float width) {
-  float height = std::max(touch_target(state), ImGui::GetFrameHeight());
+bool big_button(const DisplayMetrics& display, const char* label, float width) {
+  float height = std::max(touch_target(display), ImGui::GetFrameHeight());
   bool pressed = fitted_button(label, ImVec2(width, height));
   test_hook::item(label);
   return pressed;
 }
 
-bool choice_row(const AppState& state, const char* id, const char* const* labels, int count,
+bool choice_row(const DisplayMetrics& display, const char* id, const char* const* labels, int count,
                 int* selected) {
   bool changed = false;
   ImGui::PushID(id);
@@ -137,7 +137,7 @@ bool choice_row(const AppState& state, const char* id, const char* const* labels
     bool active = *selected == i;
     if (active) ImGui::PushStyleColor(ImGuiCol_Button, ImGui::GetStyleColorVec4(ImGuiCol_Header));
     if (active) ImGui::PushStyleColor(ImGuiCol_Border, ImGui::GetStyleColorVec4(ImGuiCol_CheckMark));
-    float height = std::max(touch_target(state), ImGui::GetFrameHeight());
+    float height = std::max(touch_target(display), ImGui::GetFrameHeight());
     if (fitted_button(labels[i], ImVec2(width, height)) && !active) {
       *selected = i;
       changed = true;
@@ -149,7 +149,7 @@ bool choice_row(const AppState& state, const char* id, const char* const* labels
   return changed;
 }
 
-void result_value(AppState& state, const char* label, const std::string& shown,
+void result_value(const DisplayMetrics& display, const char* label, const std::string& shown,
                   bool emphasised) {
   if (!emphasised) {
     // Secondary results on one line: the large ones stay above the fold on a phone.
@@ -165,38 +165,38 @@ void result_value(AppState& state, const char* label, const std::string& shown,
     return;
   }
   dim_wrapped_text(label);  // a long label wraps on a 360 px phone, never clipped
-  bool large = state.font_large != nullptr;
-  if (large) ImGui::PushFont(state.font_large);
+  bool large = display.font_large != nullptr;
+  if (large) ImGui::PushFont(display.font_large);
   // Wrapped: a long verdict in large type must not run off the right edge of a phone.
   wrapped_text(shown);
   if (large) ImGui::PopFont();
   test_hook::item_text(label, shown);
 }
 
-bool toggle_row(const AppState& state, const char* id, const char* off_label, const char* on_label,
+bool toggle_row(const DisplayMetrics& display, const char* id, const char* off_label, const char* on_label,
                 bool* value) {
   const char* labels[] = {off_label, on_label};
   int selected = *value ? 1 : 0;
-  if (!choice_row(state, id, labels, 2, &selected)) return false;
+  if (!choice_row(display, id, labels, 2, &selected)) return false;
   *value = selected == 1;
   return true;
 }
 
-bool int_stepper(const AppState& state, const char* label, const char* id, int* value, int low,
+bool int_stepper(const DisplayMetrics& display, const char* label, const char* id, int* value, int low,
                  int high) {
   ImGui::TextDisabled("%s", label);
   ImGui::PushID(id);
-  float height = std::max(touch_target(state), ImGui::GetFrameHeight());
+  float height = std::max(touch_target(display), ImGui::GetFrameHeight());
   float width = std::max(height, 2.5f * em());
   int before = *value;
   if (tap_button("\xE2\x88\x92", ImVec2(width, height)) && *value > low) --*value;
   test_hook::item(std::string(label) + " -");
   ImGui::SameLine();
   std::string shown = std::to_string(*value);
-  if (state.font_large) ImGui::PushFont(state.font_large);
+  if (display.font_large) ImGui::PushFont(display.font_large);
   ImGui::AlignTextToFramePadding();
   ImGui::TextUnformatted(shown.c_str());
-  if (state.font_large) ImGui::PopFont();
+  if (display.font_large) ImGui::PopFont();
   test_hook::item_text(label, shown);
   ImGui::SameLine();
   if (tap_button("+", ImVec2(width, height)) && *value < high) ++*value;
@@ -205,7 +205,7 @@ bool int_stepper(const AppState& state, const char* label, const char* id, int* 
   return *value != before;
 }
 
-void message_line(const AppState&, const std::string& text, bool warning) {
+void message_line(const std::string& text, bool warning) {
   if (warning) ImGui::PushStyleColor(ImGuiCol_Text, ImGui::GetStyleColorVec4(ImGuiCol_PlotHistogram));
   wrapped_text(text);
   if (warning) ImGui::PopStyleColor();
@@ -280,8 +280,8 @@ void tone_word_badge(Tone tone, ImU32 colour, ImU32 background) {
 }
 }  // namespace
 
-void verdict_line(const AppState& state, Tone tone, const std::string& text) {
-  const Palette& p = palette(state.settings.theme, state.settings.night_dim);
+void verdict_line(const DisplayMetrics& display, Tone tone, const std::string& text) {
+  const Palette& p = *display.colours;
   const ImVec4 colour = tone_colour(p, tone);
   const ImU32 colour32 = ImGui::GetColorU32(colour);
   const ImU32 background32 = ImGui::GetColorU32(p.background);
@@ -307,9 +307,9 @@ void heading(const char* text) {
   dim_wrapped_text(text);
 }
 
-void result_error(AppState& state, const char* label, const std::string& message) {
-  result_value(state, label, "\xE2\x80\x94");
-  message_line(state, message, true);
+void result_error(const DisplayMetrics& display, const char* label, const std::string& message) {
+  result_value(display, label, "\xE2\x80\x94");
+  message_line(message, true);
 }
 
 void caution_line(AppState& state) {
@@ -319,7 +319,7 @@ void caution_line(AppState& state) {
   ImGui::PopTextWrapPos();
   test_hook::item_text("Cautions", std::string(cautions::short_line));
   // A full-height button, not a tree arrow: a gloved thumb must be able to hit it.
-  if (big_button(state, state.caution_open ? "Read less" : "Read more")) {
+  if (big_button(state.display, state.caution_open ? "Read less" : "Read more")) {
     state.caution_open = !state.caution_open;
   }
   if (state.caution_open) {

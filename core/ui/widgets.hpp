@@ -10,13 +10,14 @@
 
 #include "model/result.hpp"
 #include "ui/app_state.hpp"
+#include "ui/theme.hpp"
 
 namespace firn::ui {
 
 // Current font size in framebuffer pixels: the em of our layout.
 float em();
 // The minimum touch target: 48 CSS px at any device pixel ratio (≥ 9 mm on phones).
-float touch_target(const AppState& state);
+float touch_target(const DisplayMetrics& display);
 
 // [Taps and scrolls] A press is a tap while it stays within tap_slop() of where it began; beyond
 // that it is a scroll, and nothing fires when the finger lifts (a thumb dragging the page over
@@ -41,23 +42,23 @@ float label_fit_scale(const char* label, float width);
 bool fitted_button(const char* label, const ImVec2& size);
 
 // A large button, at least one touch target high. Recorded by its label.
-bool big_button(const AppState& state, const char* label, float width = 0.0f);
+bool big_button(const DisplayMetrics& display, const char* label, float width = 0.0f);
 
 // A row of mutually exclusive options; returns true when the choice changed.
-bool choice_row(const AppState& state, const char* id, const char* const* labels, int count,
+bool choice_row(const DisplayMetrics& display, const char* id, const char* const* labels, int count,
                 int* selected);
 
 // A labelled result: name in small type, value large, unit after it. `shown` is what the test
 // hook reads back ("701.2 hPa").
-void result_value(AppState& state, const char* label, const std::string& shown,
+void result_value(const DisplayMetrics& display, const char* label, const std::string& shown,
                   bool emphasised = true);
 
 // Two-option toggle shown as a choice row ("Acute" | "Acclimatised"). Returns true on change.
-bool toggle_row(const AppState& state, const char* id, const char* off_label, const char* on_label,
+bool toggle_row(const DisplayMetrics& display, const char* id, const char* off_label, const char* on_label,
                 bool* value);
 
 // An integer with − / + ("Cylinders": 3). Recorded as label, "<label> -", "<label> +".
-bool int_stepper(const AppState& state, const char* label, const char* id, int* value, int low,
+bool int_stepper(const DisplayMetrics& display, const char* label, const char* id, int* value, int low,
                  int high);
 
 // How a verdict reads at a glance. Each tone has its own word, shape and colour so that "short"
@@ -72,10 +73,10 @@ enum class Tone {
 const char* tone_word(Tone tone);
 // A verdict line in large type: shape, word, then `text` wrapped. Recorded as "Verdict" with
 // "<word>: <text>" so tests read the tone back.
-void verdict_line(const AppState& state, Tone tone, const std::string& text);
+void verdict_line(const DisplayMetrics& display, Tone tone, const std::string& text);
 
 // Wrapped text; `warning` colours it as a caution.
-void message_line(const AppState& state, const std::string& text, bool warning = false);
+void message_line(const std::string& text, bool warning = false);
 // A bullet with wrapped text (ImGui::BulletText runs off a phone's edge). Not recorded.
 void bullet_line(std::string_view text);
 // Text wrapped at the content edge, a number kept on the line of its unit.
@@ -87,7 +88,7 @@ void heading(const char* text);
 // The one-line caution every result screen carries, with a "Read more" that expands it.
 void caution_line(AppState& state);
 // A model's error as a dash result plus the message (never a silent number).
-void result_error(AppState& state, const char* label, const std::string& message);
+void result_error(const DisplayMetrics& display, const char* label, const std::string& message);
 
 // Formats a finite value with `decimals`; non-finite values become "—" (never NaN on screen).
 std::string shown_number(double value, int decimals);

@@ -15,6 +15,8 @@
 
 #include "model/atmosphere.hpp"
 #include "model/casualty_spo2.hpp"
+#include "model/evacuation_plan.hpp"
+#include "profile/team_profile.hpp"
 #include "ui/app_state.hpp"
 #include "ui/fields.hpp"
 #include "ui/keypad.hpp"
@@ -234,6 +236,27 @@ TEST_CASE("Oxygen: the cylinder gauge starts empty; no duration and no plan unti
   CHECK(ui.text(state, "Verdict").rfind("NO VERDICT", 0) != 0);
 }
 
+TEST_CASE("Team: 'Use on Oxygen' takes the profile's usual carry-out through plan_input, as firn plan does") {
+  // Issue 14: the app reads the profile's evacuation section with the CLI's own conversion.
+  Headless ui;
+  ui.panel = draw_team_panel;
+  AppState state;
+  state.team.profile = team_profile::demo_profile();
+  evacuation::PlanInput plan = team_profile::plan_input(state.team.profile).value();
+  REQUIRE(plan.phases.size() == 2);  // the demo: a first flow for a while, then a steady flow
+  REQUIRE(plan.phases.front().duration);
+  ui.click(state, "Use on Oxygen and Bag screens");
+  const OxygenInputs& in = state.oxygen;
+  CHECK(in.evacuation == plan.evacuation);
+  CHECK(in.cylinder_count == static_cast<int>(plan.cylinders.size()));
+  CHECK(in.first_flow == plan.phases.front().flow);
+  CHECK(in.first_phase == *plan.phases.front().duration);
+  CHECK(in.flow == plan.phases.back().flow);
+  CHECK(in.gauge_entered);
+  CHECK(in.gauge_read_at == 0);  // a full cylinder by choice, not a reading the Record screen times
+  CHECK(ui.text(state, "Team message").find("plan 6 h") != std::string::npos);
+}
+
 TEST_CASE("saved state from before the gauge flag: only a gauge with its reading time was entered") {
   AppState old_default;
   REQUIRE(state_from_json(old_default, R"({"version":1,"oxygen":{"gauge_pa":20000000}})"));
@@ -421,10 +444,10 @@ TEST_CASE("drag vs tap: stepper, choice row and big button ignore a drag, take a
   int choice = 0;
   int pressed = 0;
   ui.draw = [&](AppState& s) {
-    int_stepper(s, "Cylinders", "count", &count, 1, 9);
+    int_stepper(s.display, "Cylinders", "count", &count, 1, 9);
     const char* labels[] = {"One", "Two"};
-    choice_row(s, "pick", labels, 2, &choice);
-    if (big_button(s, "Go")) ++pressed;
+    choice_row(s.display, "pick", labels, 2, &choice);
+    if (big_button(s.display, "Go")) ++pressed;
   };
   const float far = 4.0f * tap_slop();
   for (const char* label : {"Cylinders +", "Cylinders -", "Two", "Go"}) drag_from(ui, state, label, 0, far);
@@ -583,10 +606,10 @@ TEST_CASE("verdict_line: each tone records its own word") {
   for (Theme theme : {Theme::Day, Theme::Night, Theme::Projection}) {
     state.settings.theme = theme;
     ui.draw = [](AppState& s) {
-      verdict_line(s, Tone::Good, "Enough: 57 min spare");
-      verdict_line(s, Tone::Caution, "Extrapolated");
-      verdict_line(s, Tone::Danger, "Short by 1 h 15 min");
-      verdict_line(s, Tone::Neutral, "Nothing entered");
+      verdict_line(s.display, Tone::Good, "Enough: 57 min spare");
+      verdict_line(s.display, Tone::Caution, "Extrapolated");
+      verdict_line(s.display, Tone::Danger, "Short by 1 h 15 min");
+      verdict_line(s.display, Tone::Neutral, "Nothing entered");
     };
     nlohmann::json items = ui.frame(state);
     CHECK(find_item(items, "Verdict")["text"] == "OK: Enough: 57 min spare");

@@ -53,6 +53,7 @@ struct Headless {
     ImGui::NewFrame();
     test_hook::begin_frame();
     ++state.frames_drawn;
+    state.display.colours = &palette(state.settings.theme, state.settings.night_dim);  // as draw_frame
     press_scrolls(state);  // as draw_frame does, before any widget
     draw_keypad(state, io.DisplaySize.x, io.DisplaySize.y);  // first, as draw_frame does
     ImGui::SetNextWindowPos(ImVec2(0, 0));
