@@ -122,7 +122,7 @@ void timers(AppState& state, const handover::Summary& s, ClockTime now) {
     if (left <= 0) {
       verdict_line(state.display, Tone::Danger, "SpO2 check due now (" + std::to_string(-left) +
                                                     " min overdue; every " +
-                                                            format_number(in.check_interval.in(minutes), 0) + " min)");
+                                                    format_number(in.check_interval.in(minutes), 0) + " min)");
     } else {
       verdict_line(state.display, Tone::Neutral, "Next SpO2 check in " + std::to_string(left) + " min, at " +
                                                      record::clock_hhmm(due));
