@@ -311,12 +311,13 @@ std::string clock_text(int start_clock_min, Duration offset) {
   return text;
 }
 
-Result<RoutePlan> plan_route(const RouteInput& in) {
-  Result<double> ok = check_input(in);
-  if (!ok) return ok.error();
-  RoutePlan plan;
+namespace {
+
+// The legs in order, each from the time the one before ended; the highest point and the
+// highest flow the stock must carry. Sets `unsure` when a leg's flow is extrapolated or the
+// target is unreachable (and nobody fixed the flow by hand).
+Result<VolumeFlow> walk_legs(const RouteInput& in, RoutePlan& plan, bool& unsure) {
   Duration t = minutes(0);
-  bool unsure = false;
   VolumeFlow highest_flow = litres_per_minute(0);
   for (std::size_t i = 0; i < in.legs.size(); ++i) {
     Result<LegResult> r = leg_result(in, i, t);
@@ -331,39 +332,38 @@ Result<RoutePlan> plan_route(const RouteInput& in) {
     plan.legs.push_back(r.value());
   }
   plan.route_time = t;
-  Result<Pressure> ambient = atmosphere::pressure_at(in.legs.front().start_altitude, in.model);
-  if (!ambient) return ambient.error();
+  return highest_flow;
+}
 
-  // Two plans: to arrival (the timeline the team follows) and to arrival + margin (the verdict).
-  Result<evacuation::EvacuationPlan> timeline = evacuation::plan_evacuation(
-      plan_input(in, plan.legs, ambient.value(), highest_flow, plan.route_time));
-  if (!timeline) return timeline.error();
-  Result<evacuation::EvacuationPlan> verdict = evacuation::plan_evacuation(
-      plan_input(in, plan.legs, ambient.value(), highest_flow, plan.route_time + in.stock.margin));
-  if (!verdict) return verdict.error();
-
-  for (std::size_t k = 0; k < timeline->uses.size(); ++k) {
-    const evacuation::CylinderUse& u = timeline->uses[k];
+// The cylinders' timeline (to arrival: what the team follows) and the verdict's figures (to
+// arrival + margin), rounded the conservative way: times down, a shortfall up.
+void take_cylinder_plans(const evacuation::EvacuationPlan& timeline,
+                         const evacuation::EvacuationPlan& verdict, RoutePlan& plan) {
+  for (std::size_t k = 0; k < timeline.uses.size(); ++k) {
+    const evacuation::CylinderUse& u = timeline.uses[k];
     plan.spans.push_back({u.cylinder_index, u.start, u.end, u.start_gauge, u.end_gauge,
                           u.reached_reserve});
     if (k > 0) {
       plan.swaps.push_back({minutes(std::floor(u.start.in(minutes) + 1e-9)),
-                            timeline->uses[k - 1].cylinder_index, u.cylinder_index});
+                            timeline.uses[k - 1].cylinder_index, u.cylinder_index});
     }
   }
-  if (verdict->supply_lasts) {
-    plan.reserve_reached = minutes(std::floor(verdict->supply_lasts->in(minutes) + 1e-9));
+  if (verdict.supply_lasts) {
+    plan.reserve_reached = minutes(std::floor(verdict.supply_lasts->in(minutes) + 1e-9));
   }
-  plan.enough = verdict->enough;
-  plan.spare = minutes(std::floor(verdict->spare.in(minutes) + 1e-9));
-  plan.shortfall = minutes(std::ceil(verdict->shortfall.in(minutes) - 1e-9));
-  plan.extra_cylinders = verdict->extra_cylinders_needed;
-  plan.oxygen_needed = verdict->oxygen_needed;
-  plan.oxygen_usable = verdict->oxygen_usable;
+  plan.enough = verdict.enough;
+  plan.spare = minutes(std::floor(verdict.spare.in(minutes) + 1e-9));
+  plan.shortfall = minutes(std::ceil(verdict.shortfall.in(minutes) - 1e-9));
+  plan.extra_cylinders = verdict.extra_cylinders_needed;
+  plan.oxygen_needed = verdict.oxygen_needed;
+  plan.oxygen_usable = verdict.oxygen_usable;
+}
 
-  // The reverse question: one steady casualty flow on every mask leg and over the margin, with
-  // the bag feeds and the second consumer as planned.
-  double fixed_l = in.stock.second_flow.in(litres_per_minute) * (t + in.stock.margin).in(minutes);
+// The reverse question: one steady casualty flow on every mask leg and over the margin, with
+// the bag feeds and the second consumer as planned.
+void set_max_steady_flow(const RouteInput& in, RoutePlan& plan) {
+  double fixed_l = in.stock.second_flow.in(litres_per_minute) *
+                   (plan.route_time + in.stock.margin).in(minutes);
   double mask_min = in.stock.margin.in(minutes);
   for (const LegResult& l : plan.legs) {
     if (l.leg.kind == LegKind::Bag) {
@@ -376,7 +376,11 @@ Result<RoutePlan> plan_route(const RouteInput& in) {
   plan.max_steady_flow = round_down_to_step(litres_per_minute(steady), in.flow_steps);
   plan.max_steady_flow_in_device_range =
       plan.max_steady_flow >= so::valid_flows(in.casualty.device).low;
+}
 
+// The cautions, then the verdict: the reason a verdict cannot be "enough" comes first.
+void set_cautions_and_verdict(const RouteInput& in, bool unsure, bool contents_extrapolated,
+                              RoutePlan& plan) {
   std::size_t hi = plan.highest_leg;
   plan.cautions.push_back("Highest point of the route: " + metres_text(plan.highest_altitude) +
                           " on " + leg_name(hi, plan.legs[hi].leg) + ", " +
@@ -393,11 +397,13 @@ Result<RoutePlan> plan_route(const RouteInput& in) {
   set_verdict(in,
               needs_more ? "this casualty needs more than the healthy-lowlander flows"
               : unsure   ? "the flows are uncertain (extrapolated or the target unreachable)"
-              : verdict->extrapolated ? "a cylinder's contents are extrapolated (above 300 K)"
-                         : "",
+              : contents_extrapolated ? "a cylinder's contents are extrapolated (above 300 K)"
+                                      : "",
               plan);
+}
 
-  plan.assumptions = {
+std::vector<std::string> route_assumptions(const RouteInput& in, VolumeFlow highest_flow) {
+  std::vector<std::string> a = {
       "Each leg is counted at its highest point (the lowest pressure): altitude changes linearly "
       "along a leg; a flight is counted at its cruising altitude, unpressurised.",
       "Cylinders are used in the order listed, each down to the reserve of " +
@@ -408,10 +414,36 @@ Result<RoutePlan> plan_route(const RouteInput& in) {
       "The casualty's oxygen need is held constant unless SpO2 is measured again.",
       "Gauges are read at the route's start altitude; flows are free-gas litres per minute."};
   if (in.stock.second_flow > litres_per_minute(0)) {
-    plan.assumptions.push_back(
-        (in.stock.second_who.empty() ? std::string("A second consumer") : in.stock.second_who) +
-        " draws " + flow_text(in.stock.second_flow) + " from the same stock for the whole route.");
+    a.push_back((in.stock.second_who.empty() ? std::string("A second consumer") : in.stock.second_who) +
+                " draws " + flow_text(in.stock.second_flow) + " from the same stock for the whole route.");
   }
+  return a;
+}
+
+}  // namespace
+
+Result<RoutePlan> plan_route(const RouteInput& in) {
+  Result<double> ok = check_input(in);
+  if (!ok) return ok.error();
+  RoutePlan plan;
+  bool unsure = false;
+  Result<VolumeFlow> highest_flow = walk_legs(in, plan, unsure);
+  if (!highest_flow) return highest_flow.error();
+  Result<Pressure> ambient = atmosphere::pressure_at(in.legs.front().start_altitude, in.model);
+  if (!ambient) return ambient.error();
+
+  // Two plans: to arrival (the timeline the team follows) and to arrival + margin (the verdict).
+  Result<evacuation::EvacuationPlan> timeline = evacuation::plan_evacuation(
+      plan_input(in, plan.legs, ambient.value(), highest_flow.value(), plan.route_time));
+  if (!timeline) return timeline.error();
+  Result<evacuation::EvacuationPlan> verdict = evacuation::plan_evacuation(plan_input(
+      in, plan.legs, ambient.value(), highest_flow.value(), plan.route_time + in.stock.margin));
+  if (!verdict) return verdict.error();
+
+  take_cylinder_plans(timeline.value(), verdict.value(), plan);
+  set_max_steady_flow(in, plan);
+  set_cautions_and_verdict(in, unsure, verdict->extrapolated, plan);
+  plan.assumptions = route_assumptions(in, highest_flow.value());
   return plan;
 }
 
