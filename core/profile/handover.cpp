@@ -113,8 +113,12 @@ namespace {
 std::string grouped(double value) {
   long long n = std::llround(value);
   std::string digits = std::to_string(n < 0 ? -n : n);
-  for (int i = static_cast<int>(digits.size()) - 3; i > 0; i -= 3) digits.insert(i, ",");
-  return (n < 0 ? "-" : "") + digits;
+  std::string text = n < 0 ? "-" : "";
+  for (size_t i = 0; i < digits.size(); ++i) {
+    if (i > 0 && (digits.size() - i) % 3 == 0) text += ',';
+    text += digits[i];
+  }
+  return text;
 }
 
 std::string altitude_text(Length h, Units u) {

@@ -463,14 +463,9 @@ std::optional<EvacuationSection> read_evacuation(Reader& r, const Json& value,
 }  // namespace
 
 // Reads a current-schema document. Returns a profile only when nothing is wrong.
-std::optional<TeamProfile> read_current(const Json& root, Problems& problems) {
-  Reader r(problems);
+// demo, team_name, units and atmosphere_model into `p`; false when one is wrong (said in the problems).
+bool read_settings(Reader& r, const Json& root, TeamProfile& p) {
   const std::string top;
-  r.reject_unknown(root, top,
-                   {"schema_version", "demo", "team_name", "units", "atmosphere_model", "card",
-                    "cylinders", "reserve_pressure", "safety_margin", "flows", "bag",
-                    "evacuation"});
-  TeamProfile p;
   bool ok = true;
   if (const Json* demo = r.field(root, top, "demo", false, "")) {
     if (demo->is_boolean()) {
@@ -480,9 +475,12 @@ std::optional<TeamProfile> read_current(const Json& root, Problems& problems) {
       ok = false;
     }
   }
-  auto name = r.text(root, top, "team_name", true, 1, Limits::team_name_max_chars,
-                     "\"Valley Rescue\"");
-  ok = ok && name;
+  if (auto name = r.text(root, top, "team_name", true, 1, Limits::team_name_max_chars,
+                         "\"Valley Rescue\"")) {
+    p.team_name = *name;
+  } else {
+    ok = false;
+  }
   if (auto system = r.text(root, top, "units", true, 1, 20, "\"metric\"")) {
     if (*system == "metric") {
       p.units = UnitSystem::Metric;
@@ -506,67 +504,89 @@ std::optional<TeamProfile> read_current(const Json& root, Problems& problems) {
   } else {
     ok = false;
   }
+  return ok;
+}
+
+// The cylinder types into `p`, each label once; false when the list or one type is wrong.
+bool read_cylinders(Reader& r, const Json& root, TeamProfile& p) {
+  const Json* list = r.field(root, std::string(), "cylinders", true, "[{\"label\": …}]");
+  if (list == nullptr || !r.array(*list, "cylinders", 1, Limits::cylinder_types_max)) return false;
+  bool ok = true;
+  for (size_t i = 0; i < list->size(); ++i) {
+    auto c = read_cylinder(r, (*list)[i], item("cylinders", i));
+    if (c && p.find_cylinder(c->label)) {
+      r.fail(item("cylinders", i) + ".label", "\"" + c->label + "\" is used twice");
+      c.reset();
+    }
+    if (c) p.cylinders.push_back(*c);
+    ok = ok && c;
+  }
+  return ok;
+}
+
+// Optional: without it the one default reserve of the CLI and the app. Below every type's fill.
+std::optional<GaugePressure> read_reserve(Reader& r, const Json& root, const TeamProfile& p,
+                                          bool cylinders_ok) {
+  std::optional<GaugePressure> reserve = cylinder::default_reserve_gauge;
+  if (root.contains("reserve_pressure")) {
+    reserve = r.quantity(root, std::string(), "reserve_pressure", false, gauge_parser, bar,
+                         Limits::reserve_low_bar, Limits::reserve_high_bar, "20bar");
+  }
+  if (!reserve || !cylinders_ok) return reserve;
+  for (size_t i = 0; i < p.cylinders.size(); ++i) {
+    if (!(*reserve < p.cylinders[i].fill_pressure_gauge)) {
+      r.fail("reserve_pressure", "must be below cylinders[" + std::to_string(i) +
+                                     "].fill_pressure (" +
+                                     format_number(p.cylinders[i].fill_pressure_gauge.in(bar), 1) +
+                                     " bar)");
+      return std::nullopt;
+    }
+  }
+  return reserve;
+}
+
+// The team's usual flows into `p`; false when the list or one flow is wrong.
+bool read_flows(Reader& r, const Json& root, TeamProfile& p) {
+  const Json* list = r.field(root, std::string(), "flows", true, "[\"2L/min\", \"15L/min\"]");
+  if (list == nullptr || !r.array(*list, "flows", 1, Limits::flows_max)) return false;
+  bool ok = true;
+  for (size_t i = 0; i < list->size(); ++i) {
+    const Json& v = (*list)[i];
+    // Flows are L/min across Firn: a bare number is accepted as L/min.
+    Json text = v.is_number() ? Json(v.dump() + "L/min") : v;
+    auto flow = r.quantity_value(text, item("flows", i), flow_parser, litres_per_minute,
+                                 Limits::flow_low_lpm, Limits::flow_high_lpm, "6L/min");
+    if (flow) p.flows.push_back(*flow);
+    ok = ok && flow;
+  }
+  return ok;
+}
+
+std::optional<TeamProfile> read_current(const Json& root, Problems& problems) {
+  Reader r(problems);
+  const std::string top;
+  r.reject_unknown(root, top,
+                   {"schema_version", "demo", "team_name", "units", "atmosphere_model", "card",
+                    "cylinders", "reserve_pressure", "safety_margin", "flows", "bag",
+                    "evacuation"});
+  TeamProfile p;
+  // Every section is read (and its problems listed) even after one has failed.
+  bool ok = read_settings(r, root, p);
   std::optional<CardLayout> card;
   if (const Json* v = r.field(root, top, "card", true, "{\"altitude_from\": \"1500m\", …}")) {
     card = read_card(r, *v, "card");
   }
   ok = ok && card;
-  bool cylinders_ok = false;
-  if (const Json* list = r.field(root, top, "cylinders", true, "[{\"label\": …}]")) {
-    if (r.array(*list, "cylinders", 1, Limits::cylinder_types_max)) {
-      cylinders_ok = true;
-      for (size_t i = 0; i < list->size(); ++i) {
-        auto c = read_cylinder(r, (*list)[i], item("cylinders", i));
-        if (c && p.find_cylinder(c->label)) {
-          r.fail(item("cylinders", i) + ".label", "\"" + c->label + "\" is used twice");
-          c.reset();
-        }
-        if (c) p.cylinders.push_back(*c);
-        cylinders_ok = cylinders_ok && c;
-      }
-    }
-  }
+  bool cylinders_ok = read_cylinders(r, root, p);
   ok = ok && cylinders_ok;
-  // Optional: without it the one default reserve of the CLI and the app.
-  std::optional<GaugePressure> reserve = cylinder::default_reserve_gauge;
-  if (root.contains("reserve_pressure")) {
-    reserve = r.quantity(root, top, "reserve_pressure", false, gauge_parser, bar,
-                         Limits::reserve_low_bar, Limits::reserve_high_bar, "20bar");
-  }
+  std::optional<GaugePressure> reserve = read_reserve(r, root, p, cylinders_ok);
   ok = ok && reserve;
   if (const Json* v = r.field(root, top, "safety_margin", false, "")) {
     std::optional<SafetyMargin> margin = read_margin(r, *v, "safety_margin");
     if (margin) p.safety_margin = *margin;
     ok = ok && margin;
   }
-  if (reserve && cylinders_ok) {
-    for (size_t i = 0; i < p.cylinders.size(); ++i) {
-      if (!(*reserve < p.cylinders[i].fill_pressure_gauge)) {
-        r.fail("reserve_pressure", "must be below cylinders[" + std::to_string(i) +
-                                       "].fill_pressure (" +
-                                       format_number(p.cylinders[i].fill_pressure_gauge.in(bar), 1) +
-                                       " bar)");
-        ok = false;
-      }
-    }
-  }
-  if (const Json* list = r.field(root, top, "flows", true, "[\"2L/min\", \"15L/min\"]")) {
-    if (r.array(*list, "flows", 1, Limits::flows_max)) {
-      for (size_t i = 0; i < list->size(); ++i) {
-        const Json& v = (*list)[i];
-        // Flows are L/min across Firn: a bare number is accepted as L/min.
-        Json text = v.is_number() ? Json(v.dump() + "L/min") : v;
-        auto flow = r.quantity_value(text, item("flows", i), flow_parser, litres_per_minute,
-                                     Limits::flow_low_lpm, Limits::flow_high_lpm, "6L/min");
-        if (flow) p.flows.push_back(*flow);
-        ok = ok && flow;
-      }
-    } else {
-      ok = false;
-    }
-  } else {
-    ok = false;
-  }
+  ok = read_flows(r, root, p) && ok;
   std::optional<BagSetup> bag;
   if (const Json* v = r.field(root, top, "bag", true, "{\"gauge_pressure\": \"2psi\", …}")) {
     bag = read_bag(r, *v, "bag");
@@ -577,7 +597,6 @@ std::optional<TeamProfile> read_current(const Json& root, Problems& problems) {
     ok = ok && p.evacuation;
   }
   if (!ok || !problems.empty()) return std::nullopt;
-  p.team_name = *name;
   p.card = *card;
   p.reserve_pressure_gauge = *reserve;
   p.bag = *bag;
