@@ -135,8 +135,13 @@ struct Situation {
 // Inputs of the screens beyond the situation.
 struct BagInputs {
   units::GaugePressure gauge = units::psi.gauge(2.0);  // bag pressure above ambient
-  units::VolumeFlow flush = units::litres_per_minute(40.0);
-  units::Duration time_in_bag = units::minutes(60.0);
+  // How fast the team pumps and how long the casualty has been in: empty until entered (no
+  // oxygen verdict without a flush, no session reminder without a time).
+  bool flush_entered = false;
+  units::VolumeFlow flush = units::litres_per_minute(40.0);  // meaningful only when entered
+  bool time_entered = false;
+  units::Duration time_in_bag = units::minutes(60.0);  // meaningful only when entered
+  static constexpr double kMaxTimeMin = 600.0;  // the field's and the saved state's limit
   // The casualty's gas exchange (STPD) and the gas temperature inside: the bag model's defaults.
   units::VolumeFlow vco2 = units::litres_per_minute(hyperbaric_bag::rest_vco2_lpm);
   units::VolumeFlow vo2 = units::litres_per_minute(hyperbaric_bag::rest_vo2_lpm);

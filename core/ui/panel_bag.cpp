@@ -49,7 +49,8 @@ void draw_ladder(const AppState& state, const bag::BagResult& r) {
   double ambient = r.ambient_altitude.in(unit);
   double highest = std::max(ambient, r.equivalent_altitude ? r.equivalent_altitude->in(unit) : 0.0);
   double top = std::max(1000.0, std::ceil((highest + (feet ? 2000 : 600)) / (feet ? 2000 : 500)) * (feet ? 2000 : 500));
-  std::string summary = "ambient " + altitude_with_unit(r.ambient_altitude, u) + " to equivalent " +
+  std::string summary = "ambient " + altitude_with_unit(r.ambient_altitude, u) +
+                        (state.bag.flush_entered ? " to equivalent " : " to, by pressure alone, ") +
                         (r.equivalent_altitude ? altitude_with_unit(*r.equivalent_altitude, u) : "below sea level");
   Plot plot = begin_plot(state.display, "Altitude ladder", summary, 14.0f,
                          {0, 1, 0, top, 0, feet ? 2000.0 : 1000.0, "", std::string("altitude, ") + std::string(unit.symbol)});
@@ -66,7 +67,9 @@ void draw_ladder(const AppState& state, const bag::BagResult& r) {
   }
   if (!r.equivalent_altitude) return;
   double equivalent = r.equivalent_altitude->in(unit);
-  plot_hline(plot, equivalent, inside, "in the bag " + altitude_with_unit(*r.equivalent_altitude, u));
+  // Without a flush only the pressure is known: never labelled as what the casualty gets.
+  const char* what = state.bag.flush_entered ? "in the bag " : "pressure alone ";
+  plot_hline(plot, equivalent, inside, what + altitude_with_unit(*r.equivalent_altitude, u));
   // The arrow only for the descent the verdict stands behind.
   if (r.verdict != bag::Verdict::Ok || !r.descent_equivalent) return;
   ImVec2 from = plot.at(0.3, ambient), to = plot.at(0.3, equivalent);
@@ -80,8 +83,14 @@ void draw_verdict(AppState& state, const bag::BagResult& r) {
   const UnitChoice& u = state.settings.units;
   const Unit<LengthDimension>& unit = chosen_unit(kAltitudeUnits, u.altitude);
   bool ok = r.verdict == bag::Verdict::Ok;
-  verdict_line(state.display, ok ? Tone::Good : Tone::Danger, bag::verdict_text(r, unit));
-  if (!ok) message_line(bag::flush_more_reason(r), true);
+  if (!state.bag.flush_entered) {
+    // The model says "flush more" without a flush; nobody has said how fast the team pumps yet.
+    verdict_line(state.display, Tone::Neutral,
+                 "Enter the fresh-air flush (how fast the team pumps): the oxygen and CO2 inside depend on it");
+  } else {
+    verdict_line(state.display, ok ? Tone::Good : Tone::Danger, bag::verdict_text(r, unit));
+    if (!ok) message_line(bag::flush_more_reason(r), true);
+  }
   result_value(state.display, "Pressure-equivalent altitude",
                r.pressure_equivalent_altitude ? altitude_with_unit(*r.pressure_equivalent_altitude, u)
                                               : "below sea level", false);
@@ -136,14 +145,22 @@ void draw_casualty_fields(AppState& state) {
                 in.chamber_temperature);
 }
 
-void draw_time_in_bag(AppState& state, const bag::BagResult& r) {
-  heading("Time in the bag");
-  double in_bag_min = state.bag.time_in_bag.in(minutes);
-  // Common practice (domain brief): sessions of 1–2 h, then reassess; descent stays the goal.
+// Common practice (domain brief): sessions of 1–2 h, then reassess; descent stays the goal.
+void session_reminder(Duration time_in_bag) {
+  double in_bag_min = time_in_bag.in(minutes);
   std::string session = in_bag_min < 60.0   ? "Reassess at 60 min (" + duration_text(minutes(60.0 - in_bag_min)) + " to go)."
                         : in_bag_min <= 120.0 ? "Within the common 1\xE2\x80\x93" "2 h session: reassess now."
                                               : "Longer than the common 2 h session: reassess, plan descent.";
   message_line(session, in_bag_min > 120.0);
+}
+
+void draw_time_in_bag(AppState& state, const bag::BagResult& r) {
+  heading("Time in the bag");
+  if (!state.bag.time_entered) {
+    message_line("Enter the time in the bag for the session reminder.");
+  } else {
+    session_reminder(state.bag.time_in_bag);
+  }
   for (const std::string& note : r.notes) {
     ImGui::PushTextWrapPos(0.0f);
     ImGui::TextDisabled("%s", note.c_str());
@@ -158,13 +175,17 @@ void draw_bag_panel(AppState& state, Platform&) {
   BagInputs& in = state.bag;
   heading("Hyperbaric bag");
   edit_quantity(state, bag_gauge_field(state), in.gauge);
-  edit_quantity(state, flow_field("Fresh-air flush (inside)", "bag-flush", bag::max_flush_lpm), in.flush);
-  edit_quantity(state, duration_field("Time in the bag so far", "bag-time", 0, 600), in.time_in_bag);
+  QuantityField<VolumeFlowDimension> flush = flow_field("Fresh-air flush (inside)", "bag-flush", bag::max_flush_lpm);
+  flush.entered = &in.flush_entered;
+  edit_quantity(state, flush, in.flush);
+  QuantityField<DurationDimension> time = duration_field("Time in the bag so far", "bag-time", 0, BagInputs::kMaxTimeMin);
+  time.entered = &in.time_entered;
+  edit_quantity(state, time, in.time_in_bag);
 
   const team_profile::BagSetup& team = state.team.profile.bag;
   bag::Settings settings;
   settings.gauge = in.gauge;
-  if (in.flush.in(litres_per_minute) > 0.0) settings.flush = in.flush;
+  if (in.flush_entered && in.flush.in(litres_per_minute) > 0.0) settings.flush = in.flush;
   settings.vco2_stpd = in.vco2;
   settings.vo2_stpd = in.vo2;
   settings.chamber_temperature = in.chamber_temperature;
@@ -191,7 +212,9 @@ void draw_bag_panel(AppState& state, Platform&) {
   draw_verdict(state, r);
   result_value(state.display, "Pressure inside", pressure_text(r.inside_pressure, u) + ", gauge " + gauge_text(in.gauge, u), false);
   result_value(state.display, "PiO2 outside \xE2\x86\x92 inside",
-               gas_pressure_text(r.pio2_ambient, u) + " \xE2\x86\x92 " + gas_pressure_text(r.pio2_inside, u), false);
+               gas_pressure_text(r.pio2_ambient, u) + " \xE2\x86\x92 " +
+                   (in.flush_entered ? gas_pressure_text(r.pio2_inside, u) : std::string("enter a flush")),
+               false);
   draw_ladder(state, r);
   draw_gas(state, r, settings);
   draw_casualty_fields(state);

@@ -136,7 +136,9 @@ std::string state_to_json(const AppState& state) {
                     {"oxygen_flow_lpm", s.oxygen_flow.in(litres_per_minute)}};
   const BagInputs& b = state.bag;
   j["bag"] = {{"gauge_pa", b.gauge.in(pascals)},
+              {"flush_entered", b.flush_entered},
               {"flush_lpm", b.flush.in(litres_per_minute)},
+              {"time_entered", b.time_entered},
               {"time_min", b.time_in_bag.in(minutes)},
               {"vco2_lpm", b.vco2.in(litres_per_minute)},
               {"vo2_lpm", b.vo2.in(litres_per_minute)},
@@ -212,9 +214,12 @@ bool state_from_json(AppState& state, const std::string& text) {
 
   const Json b = child(j, "bag");
   read(b, "gauge_pa", pascals, 0, 30000, state.bag.gauge);
-  read(b, "flush_lpm", litres_per_minute, 0, 200, state.bag.flush);
-  read(b, "time_min", minutes, 0, 1440, state.bag.time_in_bag);
   namespace hb = hyperbaric_bag;
+  // Saves from before the flags held the old defaults nobody entered: they stay empty.
+  read(b, "flush_entered", state.bag.flush_entered);
+  read(b, "flush_lpm", litres_per_minute, 0, hb::max_flush_lpm, state.bag.flush);
+  read(b, "time_entered", state.bag.time_entered);
+  read(b, "time_min", minutes, 0, BagInputs::kMaxTimeMin, state.bag.time_in_bag);
   read(b, "vco2_lpm", litres_per_minute, hb::min_vco2_lpm, hb::max_vco2_lpm, state.bag.vco2);
   read(b, "vo2_lpm", litres_per_minute, hb::min_vo2_lpm, hb::max_vo2_lpm, state.bag.vo2);
   read(b, "chamber_temperature_c", celsius, hb::kChamberTemperatureRange, state.bag.chamber_temperature);

@@ -176,6 +176,10 @@ for (const device of DEVICES) {
       await d.enter('Bag pressure (gauge)', '2', {unit: 'psi'});
       // Shown in the Settings' pressure unit (hPa by default).
       await d.waitText('Bag pressure (gauge)', (t) => t === '138 hPa');
+      // No verdict until someone says how fast the team pumps (a value nobody entered).
+      assert.match(await d.text('Verdict'), /^NO VERDICT: Enter the fresh-air flush/);
+      await d.enter('Fresh-air flush (inside)', '40');
+      await d.waitText('Fresh-air flush (inside)', (t) => t === '40.0 L/min');
       const b = firn('bag', '--altitude', alt, '--gauge', '2psi', '--flush', '40', '--stroke-volume',
                      '3', '--co2-limit', '1');  // the demo team profile's pump and limit
       // One verdict function: the screen shows the CLI's verdict text after the tone word.

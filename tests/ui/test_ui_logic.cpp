@@ -257,6 +257,29 @@ TEST_CASE("Team: 'Use on Oxygen' takes the profile's usual carry-out through pla
   CHECK(ui.text(state, "Team message").find("plan 6 h") != std::string::npos);
 }
 
+TEST_CASE("Bag: no verdict until the flush is entered; no session reminder until the time is") {
+  // Brief: a value nobody entered produces no verdict. The old defaults (40 L/min, 60 min) gave
+  // "OK" and "reassess now" for a bag nobody had pumped.
+  Headless ui;
+  ui.panel = draw_bag_panel;
+  AppState state;
+  enter_altitude(state, 4500);
+  CHECK(ui.text(state, "Fresh-air flush (inside)").find("enter") != std::string::npos);
+  CHECK(ui.text(state, "Verdict").rfind("NO VERDICT: Enter the fresh-air flush", 0) == 0);
+  CHECK(ui.text(state, "Pressure-equivalent altitude") != "(absent)");  // the gauge alone gives it
+  CHECK(ui.text(state, "Oxygen-equivalent altitude") == "enter a flush");
+  CHECK(ui.text(state, "PiO2 outside \xE2\x86\x92 inside").find("enter a flush") != std::string::npos);
+  CHECK(ui.text(state, "Altitude ladder").find("by pressure alone") != std::string::npos);
+  CHECK(ui.text(state, "Flush needed") != "\xE2\x80\x94");  // what to pump, before anyone pumps
+  ui.click(state, "Fresh-air flush (inside)");
+  type_on_keypad(ui, state, "40");
+  ui.click(state, "Key OK");
+  REQUIRE(state.bag.flush_entered);
+  std::string verdict = ui.text(state, "Verdict");
+  CHECK((verdict.rfind("OK: ", 0) == 0 || verdict.rfind("DANGER: ", 0) == 0));
+  CHECK_FALSE(state.bag.time_entered);
+}
+
 TEST_CASE("saved state from before the gauge flag: only a gauge with its reading time was entered") {
   AppState old_default;
   REQUIRE(state_from_json(old_default, R"({"version":1,"oxygen":{"gauge_pa":20000000}})"));
