@@ -38,6 +38,13 @@ QuantityField<VolumeFlowDimension> gas_exchange_field(const char* label, const c
           litres_per_minute(high), {0.05}, 2};
 }
 
+// An equivalent altitude rounded up, as the verdict rounds it: less descent claimed, and the
+// figure reads the same in the verdict, the results and the ladder.
+std::string equivalent_text(Length altitude, const UnitChoice& u) {
+  const Unit<LengthDimension>& unit = chosen_unit(kAltitudeUnits, u.altitude);
+  return altitude_with_unit(from_reading<LengthDimension>(unit, std::ceil(altitude.in(unit) - 1e-9)), u);
+}
+
 std::string gauge_text(GaugePressure gauge, const UnitChoice& u) {
   return pressure_text(gauge, u) + " (" + shown_number(gauge.in(psi), 2) + " psi)";
 }
@@ -51,7 +58,7 @@ void draw_ladder(const AppState& state, const bag::BagResult& r) {
   double top = std::max(1000.0, std::ceil((highest + (feet ? 2000 : 600)) / (feet ? 2000 : 500)) * (feet ? 2000 : 500));
   std::string summary = "ambient " + altitude_with_unit(r.ambient_altitude, u) +
                         (state.bag.flush_entered ? " to equivalent " : " to, by pressure alone, ") +
-                        (r.equivalent_altitude ? altitude_with_unit(*r.equivalent_altitude, u) : "below sea level");
+                        (r.equivalent_altitude ? equivalent_text(*r.equivalent_altitude, u) : "below sea level");
   Plot plot = begin_plot(state.display, "Altitude ladder", summary, 14.0f,
                          {0, 1, 0, top, 0, feet ? 2000.0 : 1000.0, "", std::string("altitude, ") + std::string(unit.symbol)});
   ImU32 here = plot_colour(state.display, PlotColour::Danger);
@@ -63,13 +70,13 @@ void draw_ladder(const AppState& state, const bag::BagResult& r) {
                                                                           : r.oxygen_equivalent_altitude;
   if (other && r.equivalent_altitude && std::fabs(other->in(unit) - r.equivalent_altitude->in(unit)) > 1.0) {
     std::string what = r.limited_by == bag::Limit::Oxygen ? "pressure alone " : "oxygen alone ";
-    plot_hline(plot, other->in(unit), dim, what + altitude_with_unit(*other, u), LineLabel::BelowLeft);
+    plot_hline(plot, other->in(unit), dim, what + equivalent_text(*other, u), LineLabel::BelowLeft);
   }
   if (!r.equivalent_altitude) return;
   double equivalent = r.equivalent_altitude->in(unit);
   // Without a flush only the pressure is known: never labelled as what the casualty gets.
   const char* what = state.bag.flush_entered ? "in the bag " : "pressure alone ";
-  plot_hline(plot, equivalent, inside, what + altitude_with_unit(*r.equivalent_altitude, u));
+  plot_hline(plot, equivalent, inside, what + equivalent_text(*r.equivalent_altitude, u));
   // The arrow only for the descent the verdict stands behind.
   if (r.verdict != bag::Verdict::Ok || !r.descent_equivalent) return;
   ImVec2 from = plot.at(0.3, ambient), to = plot.at(0.3, equivalent);
@@ -92,9 +99,9 @@ void draw_verdict(AppState& state, const bag::BagResult& r) {
     if (!ok) message_line(bag::flush_more_reason(r), true);
   }
   result_value(state.display, "Pressure-equivalent altitude",
-               r.pressure_equivalent_altitude ? altitude_with_unit(*r.pressure_equivalent_altitude, u)
+               r.pressure_equivalent_altitude ? equivalent_text(*r.pressure_equivalent_altitude, u)
                                               : "below sea level", false);
-  std::string by_oxygen = r.oxygen_equivalent_altitude ? altitude_with_unit(*r.oxygen_equivalent_altitude, u)
+  std::string by_oxygen = r.oxygen_equivalent_altitude ? equivalent_text(*r.oxygen_equivalent_altitude, u)
                           : r.gas                      ? "outside the model"
                                                        : "enter a flush";
   result_value(state.display, "Oxygen-equivalent altitude", by_oxygen, false);
