@@ -86,6 +86,12 @@ inline constexpr units::Range<units::GaugePressureDimension> kReserveRange{
 // maker (steel or aluminium, 2.1…3.0 L and 4.1…4.8 L). The sentence shown wherever one is used.
 std::string letter_size_assumption(LetterSize size);
 
+// A cylinder whose temperature nobody gave is counted at 15 °C, the reference temperature fill
+// pressures are quoted at (from memory): a cylinder carried outside at altitude is colder and
+// holds more at the same gauge, so the figures err short there. The CLI, the team profile and
+// the app use this one value, and say so beside the result.
+inline constexpr units::Temperature assumed_temperature = units::celsius(15.0);
+
 // The temperature correction is right only once the gas has reached that temperature.
 inline constexpr std::string_view temperature_advice =
     "The temperature correction holds only once the cylinder has reached that temperature "

@@ -404,7 +404,7 @@ std::optional<EvacuationSection> read_evacuation(Reader& r, const Json& value,
         auto pressure = r.quantity(entry, p, "pressure", true, gauge_parser, bar,
                                    Limits::on_hand_pressure_low_bar,
                                    Limits::on_hand_pressure_high_bar, "180bar");
-        std::optional<Temperature> temperature = celsius(15.0);
+        std::optional<Temperature> temperature = cylinder::assumed_temperature;
         if (entry.contains("temperature")) {
           temperature = r.quantity(entry, p, "temperature", false, temperature_parser, celsius,
                                    Limits::temperature_low_c, Limits::temperature_high_c, "-10C");

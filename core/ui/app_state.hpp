@@ -157,7 +157,9 @@ struct OxygenInputs {
   bool gauge_entered = false;
   units::GaugePressure gauge = units::bar.gauge(200.0);  // meaningful only when gauge_entered
   std::int64_t gauge_read_at = 0;  // when the gauge was typed (s since 1970 UTC); 0: never
-  units::Temperature cylinder_temperature = units::celsius(0.0);
+  // Empty until entered; counted at cylinder::assumed_temperature meanwhile (said on screen).
+  bool temperature_entered = false;
+  units::Temperature cylinder_temperature = cylinder::assumed_temperature;
   units::GaugePressure reserve = cylinder::default_reserve_gauge;  // the one default (model)
   units::VolumeFlow flow = units::litres_per_minute(4.0);
   static constexpr int kMaxCylinders = 20;  // the plan's stepper and saved-state limit

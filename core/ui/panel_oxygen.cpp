@@ -16,6 +16,7 @@
 #include "ui/format.hpp"
 #include "ui/plot.hpp"
 #include "ui/situation.hpp"
+#include "ui/test_hook.hpp"
 #include "ui/widgets.hpp"
 
 namespace firn::ui {
@@ -135,9 +136,17 @@ CylinderInHand draw_cylinder(AppState& state, Pressure ambient) {
   if (in.gauge_read_at > 0) {
     dim_wrapped_text("Gauge " + entered_note(in.gauge_read_at) + ": the Record screen times the reserve from it");
   }
-  edit_quantity(state, temperature_field(state, "Cylinder temperature", "cyl-temperature",
-                                         cylinder::kTemperatureRange),
-                in.cylinder_temperature);
+  QuantityField<TemperatureDimension> temperature =
+      temperature_field(state, "Cylinder temperature", "cyl-temperature", cylinder::kTemperatureRange);
+  temperature.entered = &in.temperature_entered;
+  edit_quantity(state, temperature, in.cylinder_temperature);
+  if (!in.temperature_entered) {
+    std::string assumed = "Not entered: counted at " +
+                          temperature_text(cylinder::assumed_temperature, state.settings.units) +
+                          "; a colder cylinder holds more at the same gauge";
+    dim_wrapped_text(assumed);
+    test_hook::item_text("Cylinder temperature assumed", assumed);
+  }
   ImGui::PushTextWrapPos(0.0f);
   ImGui::TextDisabled("%s", std::string(cylinder::temperature_advice).c_str());
   ImGui::PopTextWrapPos();

@@ -148,6 +148,7 @@ std::string state_to_json(const AppState& state) {
                  {"gauge_entered", o.gauge_entered},
                  {"gauge_pa", o.gauge.in(pascals)},
                  {"gauge_read_at", o.gauge_read_at},
+                 {"temperature_entered", o.temperature_entered},
                  {"cylinder_temperature_k", o.cylinder_temperature.in(kelvin)},
                  {"reserve_pa", o.reserve.in(pascals)},
                  {"flow_lpm", o.flow.in(litres_per_minute)},
@@ -232,7 +233,10 @@ bool state_from_json(AppState& state, const std::string& text) {
   // Saves from before the flag: only a gauge with its reading time was surely typed.
   ox.gauge_entered = ox.gauge_read_at > 0;
   read(o, "gauge_entered", ox.gauge_entered);
+  read(o, "temperature_entered", ox.temperature_entered);
   read(o, "cylinder_temperature_k", kelvin, cylinder::kTemperatureRange, ox.cylinder_temperature);
+  // Saves from before the flag held the old 0 °C default nobody entered (it claimed more gas).
+  if (!ox.temperature_entered) ox.cylinder_temperature = cylinder::assumed_temperature;
   read(o, "reserve_pa", pascals, 0, 35e6, ox.reserve);
   read(o, "flow_lpm", litres_per_minute, 0, 30, ox.flow);
   read(o, "cylinders", 1, OxygenInputs::kMaxCylinders, ox.cylinder_count);

@@ -83,7 +83,7 @@ struct CylinderInput {
   bool capacity_assumed = false;  // from --size alone
   GaugePressure gauge, reserve = cyl::default_reserve_gauge;
   VolumeFlow flow;
-  Temperature temperature = celsius(15);
+  Temperature temperature = cyl::assumed_temperature;
   Ambient ambient;
 };
 

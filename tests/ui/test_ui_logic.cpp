@@ -15,6 +15,7 @@
 
 #include "model/atmosphere.hpp"
 #include "model/casualty_spo2.hpp"
+#include "model/cylinder.hpp"
 #include "model/evacuation_plan.hpp"
 #include "profile/team_profile.hpp"
 #include "ui/app_state.hpp"
@@ -233,6 +234,10 @@ TEST_CASE("Oxygen: the cylinder gauge starts empty; no duration and no plan unti
   CHECK(state.oxygen.gauge_read_at > 0);
   CHECK(ui.text(state, "Cylinder gauge") == "150 bar");
   CHECK(ui.text(state, "Lasts to reserve") != "(absent)");
+  // The temperature nobody entered: shown empty, counted at the one assumed value, said so.
+  CHECK(ui.text(state, "Cylinder temperature").find("enter") != std::string::npos);
+  CHECK(state.oxygen.cylinder_temperature == cylinder::assumed_temperature);
+  CHECK(ui.text(state, "Cylinder temperature assumed").find("counted at 15 \xC2\xB0" "C") != std::string::npos);
   CHECK(ui.text(state, "Verdict").rfind("NO VERDICT", 0) != 0);
 }
 
@@ -282,8 +287,10 @@ TEST_CASE("Bag: no verdict until the flush is entered; no session reminder until
 
 TEST_CASE("saved state from before the gauge flag: only a gauge with its reading time was entered") {
   AppState old_default;
-  REQUIRE(state_from_json(old_default, R"({"version":1,"oxygen":{"gauge_pa":20000000}})"));
+  REQUIRE(state_from_json(old_default, R"({"version":1,"oxygen":{"gauge_pa":20000000,"cylinder_temperature_k":273.15}})"));
   CHECK_FALSE(old_default.oxygen.gauge_entered);
+  CHECK_FALSE(old_default.oxygen.temperature_entered);  // the old 0 °C default claimed more gas
+  CHECK(old_default.oxygen.cylinder_temperature == cylinder::assumed_temperature);
   AppState read;
   REQUIRE(state_from_json(read, R"({"version":1,"oxygen":{"gauge_pa":15000000,"gauge_read_at":1790000000}})"));
   CHECK(read.oxygen.gauge_entered);
