@@ -35,7 +35,7 @@ struct CylinderSpec {
   std::optional<cylinder::LetterSize> letter_size;
   std::optional<Volume> water_capacity;
   GaugePressure gauge_pressure;                       // as read on the gauge now
-  Temperature temperature = units::celsius(15.0);     // of the cylinder
+  Temperature temperature = cylinder::assumed_temperature;     // of the cylinder
 };
 
 // A flow held for a while. The LAST phase's flow continues until the end of the evacuation (and

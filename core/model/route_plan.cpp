@@ -190,7 +190,7 @@ evacuation::PlanInput plan_input(const RouteInput& in, const std::vector<LegResu
   p.ambient_pressure = ambient;
   p.counting_cylinder = evacuation::CylinderSpec{"full " + in.stock.count_in_label, std::nullopt,
                                                  in.stock.count_in_water_capacity,
-                                                 in.stock.count_in_fill_gauge, celsius(15.0)};
+                                                 in.stock.count_in_fill_gauge, cylinder::assumed_temperature};
   return p;
 }
 

@@ -85,7 +85,7 @@ struct StockCylinder {
   std::string type_label;   // "2 L alloy"
   Volume water_capacity;
   GaugePressure gauge;      // as read now, at the route's start altitude
-  Temperature temperature = units::celsius(15.0);
+  Temperature temperature = cylinder::assumed_temperature;
 };
 
 struct Stock {

@@ -118,7 +118,7 @@ DurationRow duration_row(const TeamProfile& p, const team_profile::CylinderType&
         note = "at reserve";
         continue;
       }
-      cylinder::Reading reading{row.water_capacity, gauge, celsius(15.0), atmospheres(1.0)};
+      cylinder::Reading reading{row.water_capacity, gauge, cylinder::assumed_temperature, atmospheres(1.0)};
       Result<cylinder::DurationEstimate> d = cylinder::duration(reading, p.reserve_pressure_gauge, flow);
       if (d) {
         // A letter size also has the US field rule: the lower of the two leads, as on screen and

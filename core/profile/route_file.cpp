@@ -330,7 +330,7 @@ std::optional<StockCylinder> read_cylinder(Reader& r, const Json& v, const std::
   double high_bar = t ? t->fill_pressure_gauge.in(bar) * kGaugeHighShareOfFill : tpl::Limits::fill_pressure_high_bar;
   auto pressure = r.quantity(v, path, "pressure", true, gauge_parser, bar, 0.0, high_bar,
                              "190bar");
-  std::optional<Temperature> temperature = celsius(15.0);
+  std::optional<Temperature> temperature = cylinder::assumed_temperature;
   if (v.contains("temperature")) {
     temperature = r.quantity(v, path, "temperature", false, temperature_parser, celsius,
                              tpl::Limits::temperature_low_c, tpl::Limits::temperature_high_c,

@@ -299,7 +299,7 @@ Result<evacuation::PlanInput> plan_input(const TeamProfile& p, std::optional<Pre
     const CylinderType* type = p.find_cylinder(e.shortfall_type_label);
     FIRN_ASSERT(type != nullptr, "validated profile lost its shortfall cylinder type");
     input.counting_cylinder =
-        spec_for(*type, "full " + type->label, type->fill_pressure_gauge, units::celsius(15.0));
+        spec_for(*type, "full " + type->label, type->fill_pressure_gauge, cylinder::assumed_temperature);
   }
   return input;
 }

@@ -134,7 +134,7 @@ void draw_stock(AppState& state) {
       Volume water = t.water_capacity ? *t.water_capacity
                                       : cylinder::letter_size_info(*t.letter_size).water_capacity;
       stock.cylinders.push_back({"#" + std::to_string(stock.cylinders.size() + 1) + " " + t.label,
-                                 t.label, water, t.fill_pressure_gauge, celsius(15)});
+                                 t.label, water, t.fill_pressure_gauge, cylinder::assumed_temperature});
     }
   }
   if (stock.cylinders.size() > 1 && big_button(state.display, "Remove the last cylinder")) stock.cylinders.pop_back();
