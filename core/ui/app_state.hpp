@@ -177,6 +177,9 @@ struct RouteState {
   std::string saved_text;    // the route file last written (or found): written again only on change
   std::string refused_text;  // last not saved (storage refused, or no plan): not retried each frame
   FileExchange file;  // route file in and out; its message also says why a saved route was not read
+  // Per stock cylinder: when its gauge was entered on this screen (s since 1970 UTC); 0 while it
+  // is as a file or the profile gave it. The verdict waits until every gauge is read here.
+  std::vector<std::int64_t> gauge_read_at;
 };
 
 // Each Lake Louise item 0–3, or kUnanswered until the casualty has answered it.

@@ -118,7 +118,12 @@ void draw_leg_fields(AppState& state, std::size_t i, Leg& leg) {
 
 void draw_stock(AppState& state) {
   route::Stock& stock = state.route.input.stock;
+  std::vector<std::int64_t>& read_at = state.route.gauge_read_at;
   heading("Cylinders, used in this order");
+  if (std::count(read_at.begin(), read_at.end(), 0) > 0) {
+    message_line("Gauges marked \"as saved\" came with the route or the profile: read each cylinder's "
+                 "gauge and enter it (the verdict waits for every one).", true);
+  }
   for (std::size_t i = 0; i < stock.cylinders.size(); ++i) {
     route::StockCylinder& c = stock.cylinders[i];
     std::string id = "route-gauge-" + std::to_string(i + 1);
@@ -126,7 +131,12 @@ void draw_stock(AppState& state) {
     const team_profile::CylinderType* t = state.team.profile.find_cylinder(c.type_label);
     GaugePressure high = t ? t->fill_pressure_gauge * route::kGaugeHighShareOfFill
                            : bar.gauge(team_profile::Limits::fill_pressure_high_bar);
-    edit_quantity(state, cylinder_pressure_field(state, c.label.c_str(), id.c_str(), high), c.gauge);
+    QuantityField<GaugePressureDimension> field = cylinder_pressure_field(state, c.label.c_str(), id.c_str(), high);
+    field.entered_at = &read_at[i];  // stamped by every entry, the same value or not
+    edit_quantity(state, field, c.gauge);
+    std::string read = read_at[i] > 0 ? "read " + entered_note(read_at[i]) : std::string("as saved, not read here");
+    dim_wrapped_text(read);
+    test_hook::item_text(c.label + " gauge", read);
   }
   for (const team_profile::CylinderType& t : state.team.profile.cylinders) {
     std::string add = "+ full " + t.label;
@@ -135,9 +145,14 @@ void draw_stock(AppState& state) {
                                       : cylinder::letter_size_info(*t.letter_size).water_capacity;
       stock.cylinders.push_back({"#" + std::to_string(stock.cylinders.size() + 1) + " " + t.label,
                                  t.label, water, t.fill_pressure_gauge, cylinder::assumed_temperature});
+      read_at.push_back(now_seconds());  // "full" is the user's own word for it, as typed
+
     }
   }
-  if (stock.cylinders.size() > 1 && big_button(state.display, "Remove the last cylinder")) stock.cylinders.pop_back();
+  if (stock.cylinders.size() > 1 && big_button(state.display, "Remove the last cylinder")) {
+    stock.cylinders.pop_back();
+    read_at.pop_back();
+  }
   edit_quantity(state, duration_field("Safety margin", "route-margin", 0, Limits::margin_high_h * 60),
                 stock.margin);
 }
@@ -244,10 +259,19 @@ void draw_result(AppState& state) {
     return;
   }
   const route::RoutePlan& p = plan.value();
-  Tone tone = p.enough ? Tone::Good : p.verdict.rfind("short", 0) == 0 ? Tone::Danger : Tone::Neutral;
-  // The tone's own word leads ("NO VERDICT"), so the model's same words are not repeated.
-  const std::string prefix = "no verdict: ";
-  verdict_line(state.display, tone, p.verdict.rfind(prefix, 0) == 0 ? p.verdict.substr(prefix.size()) : p.verdict);
+  const std::vector<std::int64_t>& read_at = state.route.gauge_read_at;
+  if (auto unread = std::count(read_at.begin(), read_at.end(), 0); unread > 0) {
+    // The figures below are the plan for the saved gauges; a verdict needs the gauges as they are.
+    verdict_line(state.display, Tone::Neutral,
+                 std::to_string(unread) + " of " + std::to_string(read_at.size()) +
+                     " cylinder gauges as saved, not read here: read them below; until then the "
+                     "figures are for the saved gauges");
+  } else {
+    Tone tone = p.enough ? Tone::Good : p.verdict.rfind("short", 0) == 0 ? Tone::Danger : Tone::Neutral;
+    // The tone's own word leads ("NO VERDICT"), so the model's same words are not repeated.
+    const std::string prefix = "no verdict: ";
+    verdict_line(state.display, tone, p.verdict.rfind(prefix, 0) == 0 ? p.verdict.substr(prefix.size()) : p.verdict);
+  }
   result_value(state.display, "Highest point", altitude_with_unit(p.highest_altitude, state.settings.units), false);
   result_value(state.display, "Steady flow the stock holds to arrival + margin", flow_text(p.max_steady_flow), false);
   draw_profile_chart(state, p);
@@ -305,6 +329,8 @@ void draw_start_time(AppState& state) {
 
 void draw_route_panel(AppState& state, Platform& platform) {
   if (!state.route.loaded) load_route(state.route, state.team.profile, platform);
+  // One reading time per cylinder: a new cylinder starts unread.
+  state.route.gauge_read_at.resize(state.route.input.stock.cylinders.size(), 0);
   route::RouteInput& in = state.route.input;
   // A saved route that could not be read is said first; other outcomes under the load buttons.
   if (state.route.file.message_is_problem) draw_route_message(state);

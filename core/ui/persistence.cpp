@@ -161,6 +161,7 @@ std::string state_to_json(const AppState& state) {
               {"fatigue", a.fatigue}, {"dizziness", a.dizziness},
               {"recent_ascent", a.recent_ascent}};
   j["teaching"] = {{"altitude_m", state.teaching.altitude.in(metres)}};
+  j["route_gauges_read_at"] = state.route.gauge_read_at;
   return j.dump(1);
 }
 
@@ -252,6 +253,12 @@ bool state_from_json(AppState& state, const std::string& text) {
   read(a, "recent_ascent", state.ams.recent_ascent);
 
   read(child(j, "teaching"), "altitude_m", metres, 0, TeachingInputs::kTopM, state.teaching.altitude);
+  // The route screen's gauge readings (the route itself is its own file): one time each.
+  if (auto it = j.find("route_gauges_read_at"); it != j.end() && it->is_array()) {
+    std::vector<std::int64_t>& read_at = state.route.gauge_read_at;
+    read_at.clear();
+    for (const Json& at : *it) read_at.push_back(read_entered_at(Json{{"at", at}}, "at", 0));
+  }
 
   return true;
 }

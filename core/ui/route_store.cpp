@@ -15,6 +15,7 @@ void tell(RouteState& route, std::string text, bool problem) {
 
 void use_usual_route(RouteState& route, const team_profile::TeamProfile& profile) {
   route.loaded = true;
+  route.gauge_read_at.clear();  // gauges from a file: none read here
   Result<route::RouteInput> in = route::read_route_file(route::demo_route_json(), profile);
   if (in) {
     route.input = in.value();
@@ -82,6 +83,7 @@ bool import_route(RouteState& route, const team_profile::TeamProfile& profile,
   }
   route.loaded = true;
   route.input = in.value();
+  route.gauge_read_at.clear();
   tell(route, "Loaded " + std::string(source) + ": " + route.input.name + ".", false);
   return true;
 }
@@ -93,6 +95,7 @@ bool use_profile_stock(RouteState& route, const team_profile::TeamProfile& profi
     return false;
   }
   route.input.stock = stock.value();
+  route.gauge_read_at.clear();
   tell(route, "Cylinders, gauges and reserve from the team profile's evacuation section (" +
                   profile.team_name + "); legs and margin kept.", false);
   return true;

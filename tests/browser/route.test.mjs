@@ -29,6 +29,8 @@ const LEGS = [{kind: 'carry', from: 4500, to: 4800, min: 75},
               {kind: 'wait', at: 4800, min: 40},
               {kind: 'carry', from: 4800, to: 4100, min: 150}];
 const GAUGES = {'#1 2 L alloy': 60, '#2 2 L alloy': 90, '#3 3 L composite': 100};  // bar
+// The verdict while the stock's gauges are as a file gave them (the demo route: three cylinders).
+const UNREAD = /^NO VERDICT: 3 of 3 cylinder gauges as saved, not read here/;
 
 const work = mkdtempSync(join(tmpdir(), 'firn-route-test-'));
 const firnRoute = (file) =>
@@ -78,8 +80,9 @@ describe('Route screen, phone 390×844', () => {
 
   test('a three-leg route built on the keypad gives the CLI figures for the same route', async () => {
     await d.screen('Route');
-    // It opens on the usual carry-out (docs/route-plan.md worked example: 389 min spare).
-    assert.match(await d.text('Verdict'), /^OK: enough, 389 min spare beyond the 30 min margin/);
+    // It opens on the usual carry-out (docs/route-plan.md worked example), its gauges as saved
+    // in the route file: figures, but no verdict until each gauge is read here.
+    assert.match(await d.text('Verdict'), UNREAD);
     while (await d.find('Leg 2: for')) await d.tap('Remove the last leg');
     for (const [n, leg] of LEGS.entries()) {
       const leg_ = `Leg ${n + 1}`;
@@ -175,7 +178,7 @@ describe('Route screen, phone 390×844', () => {
 
   test('a route file loads through the file picker; the screen saves a route file', async () => {
     await d.tap('Back to the usual carry-out');
-    assert.match(await d.text('Verdict'), /^OK: enough, 389 min spare/);
+    assert.match(await d.text('Verdict'), UNREAD);
     const pick = async (name, text) => {
       await d.reveal('Load a route file');
       const [chooser] = await Promise.all([d.page.waitForEvent('filechooser', {timeout: 5000}),
@@ -187,11 +190,11 @@ describe('Route screen, phone 390×844', () => {
     await pick('bad-route.json', typed.replace('"75min"', '"30h"'));
     const refusal = await d.waitText('Route message', (t) => /bad-route\.json was not loaded/.test(t));
     assert.match(refusal, /legs\[0\]\.duration: 30h \(1800 min\) is outside 1\u20261440 min/);
-    assert.match(await d.text('Verdict'), /^OK: enough, 389 min spare/);
+    assert.match(await d.text('Verdict'), UNREAD);
 
     await pick('typed-route.json', typed);
     await d.waitText('Route message', (t) => t === 'Loaded typed-route.json: Browser test route.');
-    assert.equal(await d.text('Verdict'), shown.verdict);
+    assert.match(await d.text('Verdict'), UNREAD);  // a loaded file's gauges are not read here
 
     await d.reveal('Save as a route file');
     const [download] = await Promise.all([d.page.waitForEvent('download', {timeout: 5000}),

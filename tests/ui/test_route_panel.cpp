@@ -2,6 +2,7 @@
 // device), shows the verdict the model (and `firn route`) gives for the same route, a preset tap
 // adds a leg that the verdict then includes, and no change mark under the chart crosses a label.
 #include <catch2/catch.hpp>
+#include <cmath>
 #include <cstdio>
 #include <imgui.h>
 #include <nlohmann/json.hpp>
@@ -29,6 +30,15 @@ struct RouteScreen : testing::Headless {
     panel = draw_route_panel;
   }
   void tap(AppState& state, const std::string& label) { click(state, label); }
+  // Reads every stock cylinder's gauge as it stands (whole bar) on the keypad, as a medic would.
+  void read_gauges(AppState& state) {
+    for (const route::StockCylinder& c : state.route.input.stock.cylinders) {
+      click(state, c.label);
+      std::string bar = std::to_string(static_cast<int>(std::lround(c.gauge.in(units::bar))));
+      for (char k : bar) click(state, std::string("Key ") + k);
+      click(state, "Key OK");
+    }
+  }
 };
 
 std::string model_verdict(const route::RouteInput& in) {
@@ -39,9 +49,17 @@ std::string model_verdict(const route::RouteInput& in) {
 
 }  // namespace
 
-TEST_CASE("route screen: the usual carry-out's verdict is the model's, and a preset adds a leg") {
+TEST_CASE("route screen: no verdict from gauges as saved; once read, the model's, and a preset adds a leg") {
   RouteScreen ui;
   AppState state;
+  // The gauges came with the route file: the figures show, a verdict does not (brief: never
+  // reassure beyond the data; a cylinder's gauge is read at the incident).
+  std::string unread = ui.text(state, "Verdict");
+  CHECK(unread.rfind("NO VERDICT: 3 of 3 cylinder gauges as saved, not read here", 0) == 0);
+  CHECK(unread.find("enough") == std::string::npos);
+  CHECK(ui.text(state, "#1 2 L alloy gauge") == "as saved, not read here");
+  ui.read_gauges(state);
+  CHECK(ui.text(state, "#1 2 L alloy gauge").rfind("read ", 0) == 0);
   std::string shown = ui.text(state, "Verdict");
   route::RouteInput usual =
       route::read_route_file(route::demo_route_json(), state.team.profile).value();
@@ -70,6 +88,8 @@ TEST_CASE("route screen: opens on the saved route, and every cylinder label is c
   saved.stock.cylinders[0].gauge = units::bar.gauge(90);
   saved.name = "Saved on this phone";
   ui.platform.stored[kRouteKey] = route::write_route_file(saved);
+  ui.frame(state);
+  ui.read_gauges(state);
   nlohmann::json items = ui.frame(state);
   CHECK(state.route.input.name == "Saved on this phone");
   CHECK(ui.text(state, "Verdict").find(model_verdict(saved)) != std::string::npos);
@@ -112,6 +132,8 @@ TEST_CASE("route screen: a route file loads by its typed path; a bad one changes
   ui.tap(state, "Load a route file");
   CHECK(ui.platform.requested_path == "/field/short.json");
   CHECK(state.route.input.name == "Short carry");
+  CHECK(ui.text(state, "Verdict").rfind("NO VERDICT: 1 of 1 cylinder gauges as saved", 0) == 0);
+  ui.read_gauges(state);
   CHECK(ui.text(state, "Verdict").find(model_verdict(state.route.input)) != std::string::npos);
   CHECK(ui.text(state, "Route message") == "Loaded short.json: Short carry.");
 

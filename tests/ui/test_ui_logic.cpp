@@ -132,6 +132,7 @@ TEST_CASE("saved state: round trip keeps values at full precision") {
   state.situation.spo2 = units::percent(72.0);
   state.oxygen.gauge_entered = true;
   state.oxygen.gauge = units::psi.gauge(2175.0);
+  state.route.gauge_read_at = {1790000000, 0, 1790000600};
   state.screen = Screen::Teaching;
   AppState back;
   REQUIRE(state_from_json(back, state_to_json(state)));
@@ -143,6 +144,7 @@ TEST_CASE("saved state: round trip keeps values at full precision") {
   CHECK(back.situation.spo2.in(units::percent) == Approx(72.0));
   CHECK(back.oxygen.gauge_entered);
   CHECK(back.oxygen.gauge.in(units::psi) == Approx(2175.0).epsilon(1e-12));
+  CHECK(back.route.gauge_read_at == state.route.gauge_read_at);  // a reload keeps the readings
   CHECK(back.screen == Screen::Teaching);
 }
 
