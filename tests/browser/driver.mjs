@@ -102,14 +102,17 @@ export class Driver extends LabelledPage {
       await this.page.touchscreen.tap(x, y);
     } else {
       // A mouse is held until a frame has seen the press: ImGui 1.86 loses a press and release
-      // inside one frame, and software-rendered frames here can take longer than a click.
+      // inside one frame, and software-rendered frames here can take longer than a click. The
+      // move and the press may share a frame (the press is where the pointer is in it); the
+      // release needs a frame of its own before the next press, and keys need no more.
       await this.page.mouse.move(x, y);
-      await this.framesPass(1);
       await this.page.mouse.down();
       await this.framesPass(1);
       await this.page.mouse.up();
+      await this.framesPass(settle ? 2 : 1);
+      return;
     }
-    if (settle || !this.touch) await this.framesPass(2);
+    if (settle) await this.framesPass(2);
   }
 
   async screen(name) {
