@@ -4,6 +4,10 @@
 # window. Runs with a throw-away config directory so saved state never leaks in or out.
 # Usage: screenshots.sh FIRN OUT_DIR   (prints where the PNGs are)
 set -euo pipefail
+# One X server for all the shots (an xvfb-run per shot cost ~1 s each).
+if [ -z "${FIRN_IN_XVFB:-}" ]; then
+  FIRN_IN_XVFB=1 exec xvfb-run -a -s "-screen 0 1400x1000x24" "$0" "$@"
+fi
 firn="$1"; out="$2"
 mkdir -p "$out"
 export XDG_CONFIG_HOME="$(mktemp -d)"
@@ -18,8 +22,8 @@ for screen in $screens keypad; do
     IFS=: read -r name width height <<<"$size"
     png="$out/$screen-$name.png"
     rm -f "$png"
-    xvfb-run -a -s "-screen 0 1400x1000x24" "$firn" --screenshot "$png" --screen "$screen" \
-      --width "$width" --height "$height" --pixel-ratio 1
+    "$firn" --screenshot "$png" --screen "$screen" --width "$width" --height "$height" \
+      --pixel-ratio 1
     test -s "$png" || { echo "not ok: no screenshot for $screen $name"; fail=1; continue; }
     # Not blank: a one-colour window has few colours; our screens have text in several colours.
     # Count distinct colours with node's zlib (no image library needed).
