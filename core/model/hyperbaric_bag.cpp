@@ -212,6 +212,14 @@ std::string_view verdict_key(Verdict verdict) {
 
 std::string_view limit_key(Limit limit) { return limit == Limit::Oxygen ? "oxygen" : "pressure"; }
 
+double altitude_rounded_up(Length altitude, const Unit<LengthDimension>& unit, double step) {
+  return std::ceil(altitude.in(unit) / step) * step;
+}
+
+double descent_rounded_down(Length descent, const Unit<LengthDimension>& unit, double step) {
+  return std::floor(descent.in(unit) / step) * step;
+}
+
 std::string verdict_text(const BagResult& r, const Unit<LengthDimension>& unit) {
   std::string u(unit.symbol);
   if (r.verdict == Verdict::FlushMore) {
@@ -233,8 +241,8 @@ std::string verdict_text(const BagResult& r, const Unit<LengthDimension>& unit) 
   }
   if (!r.descent_equivalent) return "No descent equivalent: the bag is worth no more than outside air";
   // Conservative rounding: the descent down, the altitude it is equivalent to up.
-  return "Descent equivalent " + format_number(std::floor(r.descent_equivalent->in(unit)), 0) + " " + u +
-         " (to " + format_number(std::ceil(r.equivalent_altitude->in(unit)), 0) + " " + u + "): the " +
+  return "Descent equivalent " + format_number(descent_rounded_down(*r.descent_equivalent, unit), 0) + " " + u +
+         " (to " + format_number(altitude_rounded_up(*r.equivalent_altitude, unit), 0) + " " + u + "): the " +
          (r.limited_by == Limit::Oxygen ? "oxygen inside" : "pressure") + " limits it";
 }
 

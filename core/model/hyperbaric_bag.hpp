@@ -132,6 +132,13 @@ struct BagResult {
   std::vector<std::string> notes;      // assumptions and explanations to show with the result
 };
 
+// How every surface rounds the bag's figures, as the verdict does: less descent claimed. An
+// equivalent altitude up, a descent down, to whole `step`s of `unit` (the card: 10 m / 50 ft).
+double altitude_rounded_up(units::Length altitude, const units::Unit<units::LengthDimension>& unit,
+                           double step = 1.0);
+double descent_rounded_down(units::Length descent, const units::Unit<units::LengthDimension>& unit,
+                            double step = 1.0);
+
 // The verdict in words for every surface, altitudes in `unit`: "Flush more: at least 24 L/min,
 // or 14 strokes/min" / "Descent equivalent 1280 m (to 2720 m); the oxygen inside limits it".
 std::string verdict_text(const BagResult& r, const units::Unit<units::LengthDimension>& unit);

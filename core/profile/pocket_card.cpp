@@ -23,10 +23,11 @@ std::string whole(double value) { return format_number(std::round(value), 0); }
 std::string altitude_text(Length l, UnitSystem system) {
   return system == UnitSystem::Us ? whole(l.in(feet)) : whole(l.in(metres));
 }
-// Equivalent altitudes to the nearest 10 m / 50 ft: the models are not better than that.
+// Equivalent altitudes to 10 m / 50 ft (the models are not better than that), rounded up as
+// the bag's verdict rounds them: less descent claimed.
 std::string coarse_altitude_text(Length l, UnitSystem system) {
-  if (system == UnitSystem::Us) return format_number(std::round(l.in(feet) / 50.0) * 50.0, 0);
-  return format_number(std::round(l.in(metres) / 10.0) * 10.0, 0);
+  if (system == UnitSystem::Us) return format_number(hyperbaric_bag::altitude_rounded_up(l, feet, 50.0), 0);
+  return format_number(hyperbaric_bag::altitude_rounded_up(l, metres, 10.0), 0);
 }
 // Barometric pressures: hPa (metric) or mmHg (US); gauge pressures: bar/hPa or psi. One unit
 // per quantity on a card: a metric card never shows psi, a US card never bar.

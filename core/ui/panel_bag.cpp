@@ -42,7 +42,7 @@ QuantityField<VolumeFlowDimension> gas_exchange_field(const char* label, const c
 // figure reads the same in the verdict, the results and the ladder.
 std::string equivalent_text(Length altitude, const UnitChoice& u) {
   const Unit<LengthDimension>& unit = chosen_unit(kAltitudeUnits, u.altitude);
-  return altitude_with_unit(from_reading<LengthDimension>(unit, std::ceil(altitude.in(unit) - 1e-9)), u);
+  return altitude_with_unit(from_reading<LengthDimension>(unit, bag::altitude_rounded_up(altitude, unit)), u);
 }
 
 std::string gauge_text(GaugePressure gauge, const UnitChoice& u) {

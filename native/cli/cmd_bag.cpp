@@ -99,11 +99,13 @@ Result<hb::Settings> settings_option(const BagOptions& o) {
   return s;
 }
 
-// An altitude that may be absent: JSON null and a word in the table.
+// An altitude that may be absent: JSON null and a word in the table. Rounded as the verdict
+// rounds it (an altitude up, a descent down: less descent claimed).
 void add_altitude(Report& report, const char* key, const std::optional<Length>& altitude,
-                  const char* label, const char* absent) {
+                  const char* label, const char* absent, bool descent = false) {
   if (altitude) {
-    report.add(key, altitude->in(metres), 0, label, "m");
+    report.add(key, descent ? hb::descent_rounded_down(*altitude, metres) : hb::altitude_rounded_up(*altitude, metres),
+               0, label, "m");
   } else {
     report.json[key] = nullptr;
     report.rows.emplace_back(label, absent);
@@ -118,7 +120,7 @@ void add_figures(Report& report, const hb::BagResult& r) {
   add_altitude(report, "equivalent_altitude_m", r.equivalent_altitude,
                "Equivalent altitude (limiting)", "none (outside the model)");
   add_altitude(report, "descent_equivalent_m", r.descent_equivalent, "Descent equivalent",
-               "none: no better than outside");
+               "none: no better than outside", /*descent=*/true);
   add_altitude(report, "pressure_equivalent_altitude_m", r.pressure_equivalent_altitude,
                "Pressure-equivalent altitude", "below sea level (outside model range)");
   add_altitude(report, "oxygen_equivalent_altitude_m", r.oxygen_equivalent_altitude,

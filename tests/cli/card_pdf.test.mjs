@@ -155,7 +155,9 @@ for (const [size, widthMm, heightMm, expectedPages] of sizes) {
     }).find((c) => c);
     assert.ok(bagCells, 'no 4500 m bag row');
     const equiv = Number(bagCells[bagCells.indexOf(flush) - 1]);
-    assert.ok(Math.abs(equiv - bag.equivalent_altitude_m) <= 5, `bag row ${bagCells}`);
+    // Rounded up to 10 m on the card, to 1 m by the CLI: the card never claims more descent.
+    assert.ok(equiv - bag.equivalent_altitude_m >= 0 && equiv - bag.equivalent_altitude_m < 10,
+              `bag row ${bagCells}`);
 
     const pngs = writePngs(pdf, `card-${size}`);
     assert.equal(pngs.length, pages, 'one PNG per page');
