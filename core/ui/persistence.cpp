@@ -42,10 +42,14 @@ void read(const Json& j, const char* key, double low, double high, double& out) 
   if (std::isfinite(v) && v >= low && v <= high) out = v;
 }
 // When a value was entered, seconds since 1970: 0 (unknown) … the year 2100.
+std::int64_t entered_at_value(const Json& v, std::int64_t fallback) {
+  if (!v.is_number()) return fallback;
+  double at = v.get<double>();
+  return std::isfinite(at) && at >= 0.0 && at <= 4102444800.0 ? static_cast<std::int64_t>(at) : fallback;
+}
 std::int64_t read_entered_at(const Json& j, const char* key, std::int64_t fallback) {
-  double at = static_cast<double>(fallback);
-  read(j, key, 0.0, 4102444800.0, at);
-  return static_cast<std::int64_t>(at);
+  auto it = j.find(key);
+  return it == j.end() ? fallback : entered_at_value(*it, fallback);
 }
 
 void read(const Json& j, const char* key, bool& out) {
@@ -257,7 +261,7 @@ bool state_from_json(AppState& state, const std::string& text) {
   if (auto it = j.find("route_gauges_read_at"); it != j.end() && it->is_array()) {
     std::vector<std::int64_t>& read_at = state.route.gauge_read_at;
     read_at.clear();
-    for (const Json& at : *it) read_at.push_back(read_entered_at(Json{{"at", at}}, "at", 0));
+    for (const Json& at : *it) read_at.push_back(entered_at_value(at, 0));
   }
 
   return true;
