@@ -47,21 +47,56 @@ std::string action(Position position, bool on_oxygen, bool below_target) {
                    : "Judge by the signs: no band to compare with here.";
 }
 
-}  // namespace
+// Least reassuring first: a concern outranks "no verdict", which outranks "within" or "above".
+int reassurance(Position position) {
+  switch (position) {
+    case Position::Critical: return 0;
+    case Position::WellBelow: return 1;
+    case Position::Below: return 2;
+    case Position::Extrapolated: return 3;
+    case Position::Within: return 4;
+    case Position::Above: return 5;
+  }
+  return 3;
+}
 
-Result<Verdict> assess(const Reading& reading) {
+Result<Verdict> assess_at(const Reading& reading, cascade::Acclimatisation acclimatisation);
+
+// Both ends of acclimatisation; on a tie the three-week band (the higher one) is shown. The ends
+// differ when their verdicts would lead to other actions ("within" and "above" do not).
+Result<Verdict> assess_any_time(const Reading& reading) {
+  Result<Verdict> arrival = assess_at(reading, cascade::acclimatisation_of(cascade::Exposure::Acute));
+  if (!arrival) return arrival.error();
+  Result<Verdict> weeks = assess_at(reading, cascade::acclimatisation_of(cascade::Exposure::Acclimatised));
+  if (!weeks) return weeks.error();
+  bool arrival_worse = reassurance(arrival->assessment.position) < reassurance(weeks->assessment.position);
+  Verdict v = arrival_worse ? arrival.value() : weeks.value();
+  v.judged_at = arrival_worse ? cascade::Exposure::Acute : cascade::Exposure::Acclimatised;
+  Position a = arrival->assessment.position, w = weeks->assessment.position;
+  v.ends_differ = a != w && !(reassurance(a) >= reassurance(Position::Within) &&
+                              reassurance(w) >= reassurance(Position::Within));
+  std::vector<std::string_view>& why = v.assessment.why;
+  why.insert(why.begin(), kWhyTimeNotGiven);
+  if (v.ends_differ) why.insert(why.begin() + 1, kWhyEndsDiffer);
+  if (v.ends_differ) {
+    v.headline += arrival_worse ? " (as on arrival; enter the time here)" : " (as after 3 weeks; enter the time here)";
+  }
+  return v;
+}
+
+Result<Verdict> assess_at(const Reading& reading, cascade::Acclimatisation acclimatisation) {
   Verdict v;
   v.on_oxygen = reading.oxygen.has_value();
   v.fio2 = cascade::dry_air_fio2();
   if (reading.oxygen) {
     Result<supplemental_oxygen::DeliveredFio2> fio2 = supplemental_oxygen::delivered_fio2_at(
-        reading.oxygen->device, reading.oxygen->flow, reading.barometric, reading.acclimatisation,
+        reading.oxygen->device, reading.oxygen->flow, reading.barometric, acclimatisation,
         reading.breathing);
     if (!fio2) return fio2.error();
     v.fio2 = fio2->fio2;
   }
   Result<expected_spo2::Expectation> e =
-      expected_spo2::expected(reading.barometric, reading.acclimatisation, v.fio2);
+      expected_spo2::expected(reading.barometric, acclimatisation, v.fio2);
   if (!e) return e.error();
   Result<expected_spo2::Assessment> a =
       expected_spo2::assess(reading.measured, e->band, e->extrapolated);
@@ -74,6 +109,13 @@ Result<Verdict> assess(const Reading& reading) {
   v.headline = headline(v.assessment.position, v.on_oxygen);
   v.action = action(v.assessment.position, v.on_oxygen, v.below_oxygen_target);
   return v;
+}
+
+}  // namespace
+
+Result<Verdict> assess(const Reading& reading) {
+  if (!reading.acclimatisation) return assess_any_time(reading);
+  return assess_at(reading, *reading.acclimatisation);
 }
 
 }  // namespace firn::casualty_spo2

@@ -125,7 +125,10 @@ struct Situation {
   bool spo2_measured = false;                    // false: nothing entered, no verdict
   units::Fraction spo2 = units::percent(88.0);   // meaningful only when spo2_measured
   std::int64_t spo2_entered_at = 0;              // when (seconds since 1970 UTC); 0 unknown
-  units::Duration time_at_altitude = units::hours(0.0);  // at (or above) this altitude
+  // At (or above) this altitude; empty until entered or a preset tapped. Meanwhile figures are
+  // for a newcomer (the least oxygen) and the SpO2 verdict holds for any time (casualty_spo2).
+  bool time_at_altitude_entered = false;
+  units::Duration time_at_altitude = units::hours(0.0);
   bool distress = false;  // breathing fast and deep: lowers the FiO2 a device gives
   bool on_oxygen = false;
   int oxygen_device = 0;  // index into the supplemental-oxygen model's device list

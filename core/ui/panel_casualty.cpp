@@ -85,15 +85,19 @@ void time_field(AppState& state) {
                                      {&hours, &units::days}, days_shown ? 1 : 0, hours(0.0),
                                      units::days(cascade::kTimeAtAltitudeMaxDays), {6.0, 1.0},
                                      days_shown ? 1 : 0};
+  f.entered = &s.time_at_altitude_entered;
   edit_quantity(state, f, s.time_at_altitude);
   float half = (ImGui::GetContentRegionAvail().x - ImGui::GetStyle().ItemSpacing.x) / 2;
   if (big_button(state.display, "On arrival (acute)", half)) {
     s.time_at_altitude = cascade::preset_time_at_altitude(cascade::Exposure::Acute);
+    s.time_at_altitude_entered = true;
   }
   ImGui::SameLine();
   if (big_button(state.display, "3 weeks (acclimatised)", half)) {
     s.time_at_altitude = cascade::preset_time_at_altitude(cascade::Exposure::Acclimatised);
+    s.time_at_altitude_entered = true;
   }
+  time_unknown_note(state);
 }
 
 void draw_who(AppState& state) {
@@ -129,7 +133,7 @@ Result<casualty_spo2::Verdict> situation_verdict(const AppState& state) {
   const Situation& s = state.situation;
   Result<Pressure> pb = situation_pressure(state);
   if (!pb) return pb.error();
-  casualty_spo2::Reading reading{pb.value(), situation_acclimatisation(state), std::nullopt, s.spo2,
+  casualty_spo2::Reading reading{pb.value(), situation_known_acclimatisation(state), std::nullopt, s.spo2,
                                  situation_breathing(state)};
   if (s.on_oxygen) reading.oxygen = casualty_spo2::OxygenGiven{situation_device(state), s.oxygen_flow};
   return casualty_spo2::assess(reading);
@@ -305,6 +309,15 @@ void draw_criteria(AppState& state, bool spo2_out_of_proportion) {
   }
 }
 
+// While the time at altitude is not entered the verdict also compares with this band.
+void weeks_band_line(AppState& state) {
+  Result<expected_spo2::Expectation> weeks =
+      situation_expectation(state, cascade::acclimatisation_of(cascade::Exposure::Acclimatised));
+  if (!weeks) return;
+  result_value(state.display, "Expected SpO2, after 3 weeks",
+               band_text(weeks->band) + (weeks->extrapolated ? " (extrapolated)" : ""));
+}
+
 // On air with a reading: this casualty's flow on each device (estimate).
 void draw_casualty_flows(AppState& state) {
   Result<Pressure> pb = situation_pressure(state);
@@ -354,7 +367,10 @@ void draw_casualty_panel(AppState& state, Platform&) {
     return;
   }
   const expected_spo2::Band& band = expectation->band;
-  result_value(state.display, "Expected SpO2", band_text(band) + (expectation->extrapolated ? " (extrapolated)" : ""));
+  result_value(state.display, "Expected SpO2",
+               band_text(band) + (expectation->extrapolated ? " (extrapolated)" : "") +
+                   (s.time_at_altitude_entered ? "" : " on arrival"));
+  if (!s.time_at_altitude_entered) weeks_band_line(state);
   result_value(state.display, "Middle of the band", percent_text(band.mid), false);
   if (expectation->extrapolated) {
     message_line(std::string(expected_spo2::kWhyExtrapolated), true);

@@ -59,6 +59,7 @@ void draw_curve_panel(AppState& state, Platform&) {
   }
   plot_legend({{plot_colour(state.display, PlotColour::Accent), "casualty's curve (altitude shift)"},
                       {plot_colour(state.display, PlotColour::Dim), "standard curve (37 \xC2\xB0" "C, pH 7.40)"}});
+  time_unknown_note(state);
 
   if (!shifted) {
     message_line(shifted.error().message, true);

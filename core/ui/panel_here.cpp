@@ -213,6 +213,7 @@ void draw_oxygen_here(AppState& state) {
   result_value(state.display, "Arterial PO2 (PaO2), expected",
                gas_pressure_range_text(k.lowest.arterial, k.highest.arterial, u), false);
   result_value(state.display, "PaCO2, expected", gas_pressure_text(k.middle.paco2, u), false);
+  time_unknown_note(state);
 }
 
 }  // namespace

@@ -134,6 +134,7 @@ std::string state_to_json(const AppState& state) {
                     {"spo2", s.spo2.in(fraction)},
                     {"spo2_entered_at", s.spo2_entered_at},
                     {"time_at_altitude_h", s.time_at_altitude.in(hours)},
+                    {"time_at_altitude_entered", s.time_at_altitude_entered},
                     {"distress", s.distress},
                     {"on_oxygen", s.on_oxygen},
                     {"oxygen_device", s.oxygen_device},
@@ -213,6 +214,9 @@ bool state_from_json(AppState& state, const std::string& text) {
   read(si, "acclimatised", acclimatised);
   if (acclimatised) s.time_at_altitude = cascade::preset_time_at_altitude(cascade::Exposure::Acclimatised);
   read(si, "time_at_altitude_h", hours, 0, 8760, s.time_at_altitude);
+  // Saves before the flag defaulted to 0 h: only a time away from that default was entered.
+  s.time_at_altitude_entered = acclimatised || s.time_at_altitude.in(hours) > 0.0;
+  read(si, "time_at_altitude_entered", s.time_at_altitude_entered);
   read(si, "distress", s.distress);
   read(si, "on_oxygen", s.on_oxygen);
   read(si, "oxygen_device", 0, 9, s.oxygen_device);

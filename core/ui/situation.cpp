@@ -88,7 +88,8 @@ std::string situation_summary(const AppState& state) {
   }
   text += " \xC2\xB7 ";
   text += s.spo2_measured ? "SpO2 " + percent_text(s.spo2) : std::string("no SpO2");
-  text += " \xC2\xB7 " + time_at_altitude_text(s.time_at_altitude);
+  text += " \xC2\xB7 " + (s.time_at_altitude_entered ? time_at_altitude_text(s.time_at_altitude)
+                                                    : std::string("time here not entered"));
   text += s.on_oxygen ? " \xC2\xB7 on O2 " + flow_text(s.oxygen_flow) : std::string(" \xC2\xB7 air");
   return text;
 }
@@ -120,8 +121,20 @@ void draw_situation_strip(AppState& state) {
 namespace firn::ui {
 
 cascade::Acclimatisation situation_acclimatisation(const AppState& state) {
+  return situation_known_acclimatisation(state).value_or(cascade::acclimatisation_of(cascade::Exposure::Acute));
+}
+
+std::optional<cascade::Acclimatisation> situation_known_acclimatisation(const AppState& state) {
+  if (!state.situation.time_at_altitude_entered) return std::nullopt;
   Result<cascade::Acclimatisation> a = cascade::acclimatisation_after(state.situation.time_at_altitude);
-  return a ? a.value() : cascade::acclimatisation_of(cascade::Exposure::Acute);
+  return a ? std::optional(a.value()) : std::nullopt;
+}
+
+void time_unknown_note(const AppState& state) {
+  if (state.situation.time_at_altitude_entered) return;
+  message_line("Time at this altitude not entered: figures are for a newcomer (on arrival, the least "
+               "oxygen); an SpO2 verdict is checked against on arrival and after 3 weeks.",
+               true);
 }
 
 cascade::Exposure situation_exposure(const AppState& state) {
@@ -150,23 +163,24 @@ supplemental_oxygen::Breathing situation_breathing(const AppState& state) {
                                   : supplemental_oxygen::Breathing::Rest;
 }
 
-Result<units::Fraction> situation_fio2(const AppState& state) {
+Result<units::Fraction> situation_fio2(const AppState& state, std::optional<cascade::Acclimatisation> at) {
   if (!state.situation.on_oxygen) return cascade::dry_air_fio2();
   Result<units::Pressure> pb = situation_pressure(state);
   if (!pb) return pb.error();
   Result<supplemental_oxygen::DeliveredFio2> d = supplemental_oxygen::delivered_fio2_at(
       situation_device(state), state.situation.oxygen_flow, pb.value(),
-      situation_acclimatisation(state), situation_breathing(state));
+      at.value_or(situation_acclimatisation(state)), situation_breathing(state));
   if (!d) return d.error();
   return d->fio2;
 }
 
-Result<expected_spo2::Expectation> situation_expectation(const AppState& state) {
+Result<expected_spo2::Expectation> situation_expectation(const AppState& state,
+                                                         std::optional<cascade::Acclimatisation> at) {
   Result<units::Pressure> pb = situation_pressure(state);
   if (!pb) return pb.error();
-  Result<units::Fraction> fio2 = situation_fio2(state);
+  Result<units::Fraction> fio2 = situation_fio2(state, at);
   if (!fio2) return fio2.error();
-  return expected_spo2::expected(pb.value(), situation_acclimatisation(state), fio2.value());
+  return expected_spo2::expected(pb.value(), at.value_or(situation_acclimatisation(state)), fio2.value());
 }
 
 }  // namespace firn::ui

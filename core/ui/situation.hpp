@@ -32,8 +32,13 @@ std::string situation_summary(const AppState& state);
 // The summary as a full-width button; tapping it opens the Here screen.
 void draw_situation_strip(AppState& state);
 
-// Where on the acclimatisation time course the casualty is (from the time at altitude).
+// Where on the acclimatisation time course the casualty is (from the time at altitude), for
+// figures: on arrival while the time is not entered (the least oxygen, as the route plan assumes).
 cascade::Acclimatisation situation_acclimatisation(const AppState& state);
+// For the SpO2 verdict: none while the time is not entered (casualty_spo2 then judges both ends).
+std::optional<cascade::Acclimatisation> situation_known_acclimatisation(const AppState& state);
+// Under the figures while the time is not entered: what they assume meanwhile.
+void time_unknown_note(const AppState& state);
 // The nearer preset, for screens that show only the two ends: acclimatised only at share 1.
 cascade::Exposure situation_exposure(const AppState& state);
 // "acute (on arrival)", "36 h at altitude", "2.5 d at altitude".
@@ -42,8 +47,11 @@ supplemental_oxygen::Device situation_device(const AppState& state);
 supplemental_oxygen::Breathing situation_breathing(const AppState& state);
 // FiO2 the casualty breathes: dry air, or what the device gives at its flow here (gas expansion
 // and this breathing: supplemental_oxygen::delivered_fio2_at), the same FiO2 the verdict uses.
-Result<units::Fraction> situation_fio2(const AppState& state);
+// `at` another point of acclimatisation than the situation's.
+Result<units::Fraction> situation_fio2(const AppState& state,
+                                       std::optional<cascade::Acclimatisation> at = std::nullopt);
 // Healthy-lowlander expectation for the situation (pressure, exposure, FiO2).
-Result<expected_spo2::Expectation> situation_expectation(const AppState& state);
+Result<expected_spo2::Expectation> situation_expectation(
+    const AppState& state, std::optional<cascade::Acclimatisation> at = std::nullopt);
 
 }  // namespace firn::ui

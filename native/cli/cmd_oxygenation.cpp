@@ -173,25 +173,26 @@ std::optional<Error> add_oxygen_rows(Report& report, const OxygenationOptions& o
   return std::nullopt;
 }
 
-// --time-at-altitude (2d, 36h) or the --acclimatised preset; acute (on arrival) by default.
-Result<Duration> time_at_altitude(const OxygenationOptions& o) {
+// --time-at-altitude (2d, 36h) or the --acclimatised preset; none when neither is given (the
+// figures are then for a newcomer, and an SpO2 verdict is judged at both ends).
+Result<std::optional<Duration>> time_at_altitude(const OxygenationOptions& o) {
   if (o.acclimatised && o.time_at_altitude) {
     return Error{"give --acclimatised or --time-at-altitude, not both"};
   }
-  if (o.acclimatised) return cascade::preset_time_at_altitude(cascade::Exposure::Acclimatised);
-  if (!o.time_at_altitude) return cascade::preset_time_at_altitude(cascade::Exposure::Acute);
+  if (o.acclimatised) return std::optional(cascade::preset_time_at_altitude(cascade::Exposure::Acclimatised));
+  if (!o.time_at_altitude) return std::optional<Duration>();
   Result<Duration> t = parse_long_duration(*o.time_at_altitude, "time at altitude");
   if (!t) {
     return with_range(Error{"--time-at-altitude: " + t.error().message},
                       cascade::kTimeAtAltitudeDaysRange);
   }
-  return t.value();
+  return std::optional(t.value());
 }
 
 // The measured SpO2 against the band for the oxygen actually given (casualty_spo2::assess): on
 // oxygen when --device and --flow are given, else room air.
 std::optional<Error> add_spo2_rows(Report& report, const OxygenationOptions& o, Pressure pb,
-                                   cascade::Acclimatisation exposure) {
+                                   std::optional<cascade::Acclimatisation> exposure) {
   casualty_spo2::Reading reading{pb, exposure, std::nullopt, percent(NAN)};
   Result<o2::Breathing> breathing = breathing_option(o);
   if (!breathing) return breathing.error();
@@ -224,6 +225,11 @@ std::optional<Error> add_spo2_rows(Report& report, const OxygenationOptions& o, 
   report.add("spo2_gap_pct", a.gap_points, 1, "Gap to expected band", "% points");
   report.add_text("spo2_assessment", std::string(expected_spo2::position_key(a.position)),
                   "Assessment");
+  if (v->judged_at) {
+    report.add_text("spo2_band_judged_at", std::string(cascade::exposure_key(*v->judged_at)),
+                    "Band compared with, time not given: the less reassuring end");
+    report.json["spo2_ends_differ"] = v->ends_differ;
+  }
   report.add_text("spo2_verdict", v->headline, "Verdict");
   report.add_text("spo2_action", v->action, "What to do");
   report.json["hape_suspected"] = a.hape_suspected;
@@ -261,9 +267,11 @@ Result<Report> run_oxygenation(const OxygenationOptions& o) {
     }
     fio2 = fraction(f.value());
   }
-  Result<Duration> time = time_at_altitude(o);
-  if (!time) return time.error();
-  Result<cascade::Acclimatisation> exposure = cascade::acclimatisation_after(time.value());
+  Result<std::optional<Duration>> given = time_at_altitude(o);
+  if (!given) return given.error();
+  const std::optional<Duration> time = given.value();
+  Result<cascade::Acclimatisation> exposure = cascade::acclimatisation_after(
+      time.value_or(cascade::preset_time_at_altitude(cascade::Exposure::Acute)));
   if (!exposure) return Error{"--time-at-altitude: " + exposure.error().message};
   Result<expected_spo2::Expectation> e = expected_spo2::expected(pb.value(), exposure.value(), fio2);
   if (!e) return e.error();
@@ -271,7 +279,14 @@ Result<Report> run_oxygenation(const OxygenationOptions& o) {
 
   report.add_text("model", std::string(atm::model_key(model)), "Atmosphere model");
   report.add_text("exposure", std::string(cascade::acclimatisation_key(exposure.value())), "Exposure");
-  report.add("time_at_altitude_h", time->in(hours), 1, "Time at this altitude", "h");
+  report.json["time_at_altitude_given"] = time.has_value();
+  if (time) {
+    report.add("time_at_altitude_h", time->in(hours), 1, "Time at this altitude", "h");
+  } else {
+    report.notes.emplace_back("Time at this altitude not given (--time-at-altitude): the figures are "
+                              "for a newcomer (on arrival, the least oxygen); an SpO2 verdict is "
+                              "judged on arrival and after 3 weeks, the less reassuring shown.");
+  }
   report.add("acclimatisation_share", exposure->share, 2,
              "Ventilatory acclimatisation (0 acute, 1 acclimatised)", "");
   report.add("pressure_hpa", pb->in(hectopascals), 1, "Barometric pressure", "hPa");
@@ -296,7 +311,9 @@ Result<Report> run_oxygenation(const OxygenationOptions& o) {
   }
 
   if (o.spo2) {
-    if (std::optional<Error> bad = add_spo2_rows(report, o, pb.value(), exposure.value())) return *bad;
+    std::optional<cascade::Acclimatisation> known;
+    if (time) known = exposure.value();
+    if (std::optional<Error> bad = add_spo2_rows(report, o, pb.value(), known)) return *bad;
   } else {
     report.notes.emplace_back(cautions::short_line);
   }

@@ -78,17 +78,48 @@ test('ISA gives lower pressure and SpO2 than West 1996 at 5000 m (West 1996)', (
 
 test('a measured SpO2 far below the band flags HAPE suspicion and oximeter error (WMS 2019; Luks & Swenson 2011)', () => {
   // 68 %: well below the ~79–86 % band but above the 65 % critical line (Tannheimer 2002).
-  const out = firnJson(['oxygenation', '--altitude', '4000m', '--spo2', '68']);
+  const out = firnJson(['oxygenation', '--altitude', '4000m', '--time-at-altitude', '0h', '--spo2', '68']);
   assert.equal(out.spo2_assessment, 'well-below');
   assert.equal(out.hape_suspected, true);
   assert.equal(out.oximeter_unreliable, true);
   assert.ok(out.spo2_gap_pct < -4);
   assert.ok(out.cautions.some((c) => c.includes('HAPE')));
   assert.ok(out.cautions.some((c) => c.includes('80 %')));
-  const ok = firnJson(['oxygenation', '--altitude', '4000m', '--spo2', `${Math.round(out.spo2_expected_pct)}`]);
+  const ok = firnJson(['oxygenation', '--altitude', '4000m', '--time-at-altitude', '0h', '--spo2',
+    `${Math.round(out.spo2_expected_pct)}`]);
   assert.equal(ok.spo2_assessment, 'within');
   assert.equal(ok.spo2_gap_pct, 0);
   assert.equal(ok.hape_suspected, false);
+});
+
+test('no time at altitude given: the SpO2 verdict is the less reassuring of arrival and three weeks', () => {
+  // Ventilatory acclimatisation raises the healthy band (Botella de Maglia 2005: acclimatised
+  // climbers read higher than newcomers at the same altitude). A reading in the middle of the
+  // newcomers' band at 4000 m is "within" for a newcomer; with the time unknown it must not be.
+  const arrival = firnJson(['oxygenation', '--altitude', '4000m', '--time-at-altitude', '0h']);
+  const weeks = firnJson(['oxygenation', '--altitude', '4000m', '--acclimatised']);
+  assert.ok(weeks.spo2_expected_low_pct > arrival.spo2_expected_low_pct);
+  const reading = `${arrival.spo2_expected_low_pct + 1}`;  // printed rounded to whole %
+  const known = firnJson(['oxygenation', '--altitude', '4000m', '--time-at-altitude', '0h', '--spo2', reading]);
+  assert.equal(known.spo2_assessment, 'within');
+  assert.equal(known.spo2_band_judged_at, undefined);
+  const unknown = firnJson(['oxygenation', '--altitude', '4000m', '--spo2', reading]);
+  assert.equal(unknown.time_at_altitude_given, false);
+  assert.equal(unknown.time_at_altitude_h, undefined);
+  assert.ok(['below', 'well-below'].includes(unknown.spo2_assessment), unknown.spo2_assessment);
+  assert.equal(unknown.spo2_band_judged_at, 'acclimatised');
+  assert.equal(unknown.spo2_ends_differ, true);
+  assert.match(unknown.spo2_verdict, /enter the time/);
+  assert.ok(unknown.why.some((w) => w.includes('not entered')));
+  // The figures meanwhile are a newcomer's (the least oxygen), and the text output says so.
+  assert.equal(unknown.spo2_expected_pct, arrival.spo2_expected_pct);
+  const text = runFirn(['oxygenation', '--altitude', '4000m', '--spo2', reading]).stdout;
+  assert.match(text, /Time at this altitude not given/);
+  // A reading well inside both bands is "within" whatever the time.
+  const high = `${Math.ceil(Math.max(arrival.spo2_expected_low_pct, weeks.spo2_expected_low_pct) + 1)}`;
+  const both = firnJson(['oxygenation', '--altitude', '4000m', '--spo2', high]);
+  assert.ok(['within', 'above'].includes(both.spo2_assessment), `${high} %: ${both.spo2_assessment}`);
+  assert.equal(both.spo2_band_judged_at, 'acclimatised');
 });
 
 test('oxygen: cannula flow for the WMS target SpO2 > 90 % (Luks 2019) and "not reachable"', () => {
@@ -114,7 +145,7 @@ test('SpO2 on oxygen is compared with the band on that oxygen (issue 11: 4500 m,
   assert.equal(out.hape_suspected, true);
   assert.equal(out.below_oxygen_target, true);
   assert.ok(out.why.some((w) => w.includes('WMS')));
-  const air = firnJson(['oxygenation', '--altitude', '4500m', '--spo2', '86']);
+  const air = firnJson(['oxygenation', '--altitude', '4500m', '--time-at-altitude', '0h', '--spo2', '86']);
   assert.equal(air.spo2_compared_with, 'air');
   assert.equal(air.spo2_assessment, 'above');
 });
@@ -127,7 +158,7 @@ test('5200 m two days after arrival, 68 % on air: never "within" (issue 11)', ()
   assert.equal(out.oximeter_unreliable, true);
   assert.ok(out.cautions.some((c) => c.includes('Carbon monoxide')));
   // Inside an extrapolated band there is no verdict at all.
-  const inside = firnJson(['oxygenation', '--altitude', '5200m', '--spo2', '70']);
+  const inside = firnJson(['oxygenation', '--altitude', '5200m', '--time-at-altitude', '0h', '--spo2', '70']);
   assert.equal(inside.extrapolated, true);
   assert.equal(inside.spo2_assessment, 'extrapolated');
   assert.match(inside.spo2_verdict, /^No verdict/);
@@ -142,7 +173,7 @@ test('below 65 % is critical at any altitude (Tannheimer M et al., Int J Sports 
 });
 
 test('time at altitude moves the band between the presets (acclimatisation time course)', () => {
-  const acute = firnJson(['oxygenation', '--altitude', '4500m']);
+  const acute = firnJson(['oxygenation', '--altitude', '4500m', '--time-at-altitude', '0h']);
   const partly = firnJson(['oxygenation', '--altitude', '4500m', '--time-at-altitude', '36h']);
   const week = firnJson(['oxygenation', '--altitude', '4500m', '--time-at-altitude', '7d']);
   const accl = firnJson(['oxygenation', '--altitude', '4500m', '--acclimatised']);

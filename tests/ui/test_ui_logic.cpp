@@ -175,6 +175,7 @@ TEST_CASE("Casualty: the SpO2 field starts empty, no verdict until a value is ty
   AppState state;
   enter_altitude(state, 5200);
   state.situation.time_at_altitude = units::days(2);
+  state.situation.time_at_altitude_entered = true;
   CHECK(ui.text(state, "Measured SpO2") == "not entered");
   CHECK(ui.text(state, "Verdict").rfind("NO VERDICT", 0) == 0);
   CHECK(ui.text(state, "What to do") == "(absent)");
@@ -333,6 +334,36 @@ TEST_CASE("Teaching: landmarks to the highest summit, arrow keys step 50 m, extr
   ui.click(state, "Sea level");
   press(ImGuiKey_LeftArrow);
   CHECK(state.teaching.altitude.in(units::metres) == 0.0);  // clamped at sea level
+}
+
+TEST_CASE("Casualty: the time at altitude starts empty; the verdict meanwhile holds for any time") {
+  // A value nobody entered is visibly empty and produces no verdict (the brief's safety rules):
+  // the SpO2 verdict is then the less reassuring of on arrival and after 3 weeks (casualty_spo2),
+  // so it cannot read "within" for a casualty days into a trip from the newcomers' band.
+  Headless ui;
+  ui.panel = draw_casualty_panel;
+  AppState state;
+  enter_altitude(state, 4000);
+  CHECK(ui.text(state, "Time at this altitude") == empty_prompt("time at altitude"));
+  auto pb = atmosphere::pressure_at(units::metres(4000), state.settings.model).value();
+  auto arrival = expected_spo2::expected(pb, cascade::Exposure::Acute).value();
+  auto weeks = expected_spo2::expected(pb, cascade::Exposure::Acclimatised).value();
+  REQUIRE(weeks.band.low.in(units::percent) > arrival.band.low.in(units::percent) + 1.0);
+  int reading = static_cast<int>(std::ceil(arrival.band.low.in(units::percent)));
+  state.situation.spo2 = units::percent(reading);
+  state.situation.spo2_measured = true;
+  auto unknown = casualty_spo2::assess({pb, std::nullopt, std::nullopt, units::percent(reading)}).value();
+  REQUIRE(unknown.assessment.position != expected_spo2::Position::Within);
+  CHECK(ui.text(state, "Verdict").find(unknown.headline) != std::string::npos);
+  CHECK(ui.text(state, "Verdict").find("enter the time") != std::string::npos);
+  CHECK(ui.text(state, "Expected SpO2").find("on arrival") != std::string::npos);
+  CHECK(ui.text(state, "Expected SpO2, after 3 weeks") != "(absent)");
+  CHECK(situation_summary(state).find("time here not entered") != std::string::npos);
+  ui.click(state, "On arrival (acute)");
+  CHECK(state.situation.time_at_altitude_entered);
+  CHECK(ui.text(state, "Time at this altitude") == "0 h");
+  CHECK(ui.text(state, "Verdict").rfind("OK: Within the band", 0) == 0);
+  CHECK(ui.text(state, "Expected SpO2, after 3 weeks") == "(absent)");
 }
 
 TEST_CASE("Casualty: the presets set the time at altitude") {

@@ -133,3 +133,77 @@ TEST_CASE("sweep: casualty verdict over altitude, time, device and reading", "[c
   CHECK_REFUSED_NAMING(assess({west(4000), kAcute, OxygenGiven{Device::NasalCannula, litres_per_minute(7)}, percent(80)}),
                        "between 0.5 and 6 L/min");
 }
+
+namespace {
+// Least reassuring first, as a medic reads them: a concern, then no verdict, then "within",
+// "above" (the order the unknown-time rule must respect; written here, not taken from the code).
+int reassurance_rank(Position p) {
+  switch (p) {
+    case Position::Critical: return 0;
+    case Position::WellBelow: return 1;
+    case Position::Below: return 2;
+    case Position::Extrapolated: return 3;
+    case Position::Within: return 4;
+    case Position::Above: return 5;
+  }
+  return -1;
+}
+}  // namespace
+
+TEST_CASE("time at altitude not given: never more reassuring than any time it could be", "[casualty-spo2][sweep]") {
+  // The safety rule for a value nobody entered: the verdict must hold whatever the time at
+  // altitude turns out to be, from arrival to years (the acclimatisation time course is
+  // cascade::acclimatisation_after; its plateau after 21 days).
+  using supplemental_oxygen::Device;
+  int differ = 0;
+  for (double h : sweep::grid(2500, 6000, 14)) {
+    for (std::optional<OxygenGiven> o :
+         {std::optional<OxygenGiven>{}, std::optional<OxygenGiven>{{Device::NasalCannula, litres_per_minute(2)}}}) {
+      for (double spo2 : sweep::grid(60, 100, 40)) {
+        INFO(h << " m, SpO2 " << spo2 << (o ? " on a cannula" : " on air"));
+        Result<Verdict> unknown = assess({west(h), std::nullopt, o, percent(spo2)});
+        REQUIRE(unknown.ok());
+        REQUIRE(unknown->judged_at.has_value());
+        CHECK(mentions(unknown->assessment.why, "not entered"));
+        for (double days : {0.0, 0.25, 1.0, 2.0, 4.0, 7.0, 14.0, 21.0, 365.0}) {
+          Result<Verdict> known = assess({west(h), cascade::acclimatisation_after(units::days(days)).value(), o,
+                                          percent(spo2)});
+          REQUIRE(known.ok());
+          CHECK_FALSE(known->judged_at.has_value());
+          CHECK(reassurance_rank(unknown->assessment.position) <= reassurance_rank(known->assessment.position));
+        }
+        differ += unknown->ends_differ ? 1 : 0;
+      }
+    }
+  }
+  CHECK(differ > 0);  // the grid does reach readings where the time matters
+}
+
+TEST_CASE("time at altitude not given: 4500 m on air, a reading inside the on-arrival band only", "[casualty-spo2]") {
+  // At 4500 m on air the band on arrival is lower than after three weeks (ventilatory
+  // acclimatisation: Botella de Maglia 2005's two regressions, docs/expected-spo2.md). A reading
+  // inside the on-arrival band is "within" for a newcomer and below the three-week band (the two
+  // do not overlap here): with the time unknown it must not read "within".
+  Pressure pb = west(4500);
+  expected_spo2::Band newcomer = expected_spo2::expected(pb, cascade::Exposure::Acute).value().band;
+  expected_spo2::Band weeks = expected_spo2::expected(pb, cascade::Exposure::Acclimatised).value().band;
+  REQUIRE(weeks.low.in(percent) > newcomer.low.in(percent) + 1.0);
+  double reading = std::ceil(newcomer.low.in(percent));
+  REQUIRE(reading < weeks.low.in(percent));
+  CHECK(judge(4500, reading, kAcute).assessment.position == Position::Within);
+  Verdict v = assess({pb, std::nullopt, std::nullopt, percent(reading)}).value();
+  CHECK(v.assessment.position != Position::Within);
+  CHECK(v.judged_at == cascade::Exposure::Acclimatised);
+  CHECK(v.ends_differ);
+  CHECK(v.band.low.in(percent) == Approx(weeks.low.in(percent)));
+  CHECK(v.headline.find("enter the time") != std::string::npos);
+  CHECK(mentions(v.assessment.why, "two differ"));
+  // Inside the three-week band: "within" after three weeks, "above" on arrival — the same action,
+  // so said without the request for the time.
+  double inside = std::ceil(weeks.low.in(percent));
+  REQUIRE(inside <= weeks.high.in(percent));
+  Verdict w = assess({pb, std::nullopt, std::nullopt, percent(inside)}).value();
+  CHECK(w.assessment.position == Position::Within);
+  CHECK_FALSE(w.ends_differ);
+  CHECK(w.headline.find("enter the time") == std::string::npos);
+}
