@@ -15,13 +15,13 @@ PORT=${FIRN_PORT:-8080}
 JOBS=${FIRN_JOBS:-$(nproc)}
 LOGS="$ROOT/build/logs"
 
-# Debian packages: compilers and build tools, Emscripten, GLFW, Catch2, JSON and argument
-# parsing, stb, the UI font, fonttools (font subsetting), Xvfb + Mesa (software GL), Chromium
+# Debian packages: compilers and build tools (Ninja: docs/measurements.md), Emscripten, GLFW,
+# Catch2, JSON and argument parsing, stb, the UI font, fonttools (font subsetting), Xvfb + Mesa (software GL), Chromium
 # (browser tests, card PDF), poppler (PDF checks), librsvg (icons), node-terser (the page's glue
 # script minified), dpkg-dev (apt-get source),
 # clang-14 + libclang-rt-14-dev (ASan/UBSan unit tests and libFuzzer targets, docs/hardening.md),
 # python3-fluids (reference atmospheres the tests check against; Debian's python3, not pyenv's).
-PACKAGES=(build-essential cmake pkg-config git ca-certificates xz-utils dpkg-dev
+PACKAGES=(build-essential cmake ninja-build pkg-config git ca-certificates xz-utils dpkg-dev
   emscripten libglfw3-dev libgl-dev libegl-dev libgl1-mesa-dri catch2 nlohmann-json3-dev
   libcli11-dev libstb-dev fonts-dejavu-core fonttools xvfb xauth chromium poppler-utils
   librsvg2-bin node-terser clang-14 libclang-rt-14-dev python3-fluids)
@@ -159,6 +159,8 @@ print_phases() {
 }
 
 HARDENING=build/hardening  # the clang-14 sanitizer + fuzz tree, built by `test` only
+# New build trees use Ninja; a tree configured before keeps its generator.
+export CMAKE_GENERATOR=${CMAKE_GENERATOR:-Ninja}
 
 WEB=build/web
 

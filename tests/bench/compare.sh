@@ -28,6 +28,7 @@ while [ $# -gt 0 ]; do
 done
 web=build/bench-web bare=build/bench-bare native=build/bench-native
 export NODE_PATH=/usr/share/nodejs  # emcc needs Debian's acorn (DEVELOPERS.md)
+export CMAKE_GENERATOR="Unix Makefiles"  # relink.sh reads the Makefile generator's link.txt
 
 missing=()
 [ -f .deps/imgui-1.86/examples/example_glfw_opengl3/main.cpp ] || missing+=("ImGui source (.deps)")
