@@ -132,9 +132,8 @@ std::optional<cascade::Acclimatisation> situation_known_acclimatisation(const Ap
 
 void time_unknown_note(const AppState& state) {
   if (state.situation.time_at_altitude_entered) return;
-  message_line("Time at this altitude not entered: figures are for a newcomer (on arrival, the least "
-               "oxygen); an SpO2 verdict is checked against on arrival and after 3 weeks.",
-               true);
+  message_line("Time at this altitude not entered: figures are a newcomer's (on arrival, the least "
+               "oxygen).");
 }
 
 cascade::Exposure situation_exposure(const AppState& state) {
