@@ -19,16 +19,20 @@ void append_status(AppState& state, const std::string& text) {
 
 void load_team_profile(AppState& state, Platform& platform) {
   TeamState& team = state.team;
-  team.profile = tp::demo_profile();
   team.stored = false;
+  // The demo is parsed only where it is used: a saved profile is the usual start (issue 17).
   std::optional<std::string> text = platform.load_text(kProfileKey);
-  if (!text) return;  // first start: the demo profile, marked demo on screen and card
+  if (!text) {  // first start: the demo profile, marked demo on screen and card
+    team.profile = tp::demo_profile();
+    return;
+  }
   Result<tp::TeamProfile> parsed = tp::parse_profile(*text);
   if (parsed) {
-    team.profile = parsed.value();
+    team.profile = std::move(parsed).value();
     team.stored = true;
     return;
   }
+  team.profile = tp::demo_profile();
   // Keep the unreadable text before anything else is written under the profile key.
   bool kept = platform.save_text(kBadProfileKey, *text);
   std::string message = "The saved team profile could not be read (" + parsed.error().message +
