@@ -199,7 +199,7 @@ build_hardening() {
 }
 
 # The long soak (2,000 seeded random interactions; issue 7), kept out of `test` (issue 13): the
-# test run has a 200-step session (ctest browser_session).
+# test run has a 150-step session (ctest browser_session).
 soak() {
   local steps=${FIRN_SESSION_STEPS:-2000}
   say "soak: $steps random interactions on the phone-sized page"

@@ -4,7 +4,7 @@
 // and shows no problem), and the app's heap in use within 10 % of what it was after the first 100
 // interactions (both read in the same state: Day theme, Here screen; the font atlas on the heap
 // follows the theme).
-//   ctest browser_session: 200 steps, seed 1 (every test run)
+//   ctest browser_session: 150 steps, seed 1 (every test run)
 //   ./firn.sh soak:        2,000 steps, a random seed (printed)
 // Env: FIRN_SITE (built site); FIRN_SESSION_STEPS (default 300); FIRN_SESSION_SEED (default:
 // random, printed); FIRN_SCREENSHOTS (the last screen is saved there).
