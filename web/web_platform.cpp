@@ -69,8 +69,8 @@ EM_JS(int, firn_js_request_file_import, (void* platform), {
       var file = input.files && input.files[0];
       input.remove();
       if (!file) return;
-      file.text().then(function(text) { give(file.name, text, ''); },
-                       function(error) { give(file.name, '', 'cannot read ' + file.name + ': ' + error); });
+      file.text().then(function(text) { give(file.name, text, ""); },
+                       function(error) { give(file.name, "", 'cannot read ' + file.name + ': ' + error); });
     });
     document.body.appendChild(input);
     input.click();

@@ -60,30 +60,6 @@ int reassurance(Position position) {
   return 3;
 }
 
-Result<Verdict> assess_at(const Reading& reading, cascade::Acclimatisation acclimatisation);
-
-// Both ends of acclimatisation; on a tie the three-week band (the higher one) is shown. The ends
-// differ when their verdicts would lead to other actions ("within" and "above" do not).
-Result<Verdict> assess_any_time(const Reading& reading) {
-  Result<Verdict> arrival = assess_at(reading, cascade::acclimatisation_of(cascade::Exposure::Acute));
-  if (!arrival) return arrival.error();
-  Result<Verdict> weeks = assess_at(reading, cascade::acclimatisation_of(cascade::Exposure::Acclimatised));
-  if (!weeks) return weeks.error();
-  bool arrival_worse = reassurance(arrival->assessment.position) < reassurance(weeks->assessment.position);
-  Verdict v = arrival_worse ? arrival.value() : weeks.value();
-  v.judged_at = arrival_worse ? cascade::Exposure::Acute : cascade::Exposure::Acclimatised;
-  Position a = arrival->assessment.position, w = weeks->assessment.position;
-  v.ends_differ = a != w && !(reassurance(a) >= reassurance(Position::Within) &&
-                              reassurance(w) >= reassurance(Position::Within));
-  std::vector<std::string_view>& why = v.assessment.why;
-  why.insert(why.begin(), kWhyTimeNotGiven);
-  if (v.ends_differ) why.insert(why.begin() + 1, kWhyEndsDiffer);
-  if (v.ends_differ) {
-    v.headline += arrival_worse ? " (as on arrival; enter the time here)" : " (as after 3 weeks; enter the time here)";
-  }
-  return v;
-}
-
 Result<Verdict> assess_at(const Reading& reading, cascade::Acclimatisation acclimatisation) {
   Verdict v;
   v.on_oxygen = reading.oxygen.has_value();
@@ -108,6 +84,31 @@ Result<Verdict> assess_at(const Reading& reading, cascade::Acclimatisation accli
   if (v.below_oxygen_target) v.assessment.why.push_back(kWhyOxygenTarget);
   v.headline = headline(v.assessment.position, v.on_oxygen);
   v.action = action(v.assessment.position, v.on_oxygen, v.below_oxygen_target);
+  return v;
+}
+
+// "Within" and "above" lead to the same action; every other pair of positions does not.
+bool same_action(Position a, Position b) {
+  auto reassuring = [](Position p) { return p == Position::Within || p == Position::Above; };
+  return a == b || (reassuring(a) && reassuring(b));
+}
+
+// Both ends of acclimatisation; on a tie the three-week band (the higher one) is shown.
+Result<Verdict> assess_any_time(const Reading& reading) {
+  Result<Verdict> arrival = assess_at(reading, cascade::acclimatisation_of(cascade::Exposure::Acute));
+  if (!arrival) return arrival.error();
+  Result<Verdict> weeks = assess_at(reading, cascade::acclimatisation_of(cascade::Exposure::Acclimatised));
+  if (!weeks) return weeks.error();
+  bool arrival_worse = reassurance(arrival->assessment.position) < reassurance(weeks->assessment.position);
+  Verdict v = arrival_worse ? arrival.value() : weeks.value();
+  v.judged_at = arrival_worse ? cascade::Exposure::Acute : cascade::Exposure::Acclimatised;
+  v.ends_differ = !same_action(arrival->assessment.position, weeks->assessment.position);
+  std::vector<std::string_view>& why = v.assessment.why;
+  why.insert(why.begin(), kWhyTimeNotGiven);
+  if (v.ends_differ) {
+    why.insert(why.begin() + 1, kWhyEndsDiffer);
+    v.headline += arrival_worse ? " (as on arrival; enter the time here)" : " (as after 3 weeks; enter the time here)";
+  }
   return v;
 }
 

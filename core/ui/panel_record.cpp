@@ -334,7 +334,8 @@ struct BandStep {
 };
 
 // Time at altitude at a past moment: the Casualty screen's figure (meant as now) counted back,
-// never below 0 (then the acute band, the lower one: no low reading looks expected).
+// never below 0; 0 while it is not entered (the on-arrival band, as the legend says: healthy
+// newcomers — a chart to read against, not a verdict).
 std::optional<expected_spo2::Expectation> band_on_air(const AppState& state, Length altitude,
                                                       ClockTime at, ClockTime now) {
   double back = static_cast<double>(record::minutes_between(at, now));
