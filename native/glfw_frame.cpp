@@ -12,7 +12,10 @@
 namespace firn::glfw {
 
 int draw_frame(GLFWwindow* window, ui::AppState& state, ui::Platform& platform) {
-  if (ui::update_fonts(state)) {
+  // The first NewFrame creates the device objects and uploads the atlas just built; creating the
+  // texture here as well uploaded the first atlas twice and lost one texture (issue 17).
+  bool texture_exists = ImGui::GetIO().Fonts->TexID != ImTextureID{};
+  if (ui::update_fonts(state) && texture_exists) {
     ImGui_ImplOpenGL3_DestroyFontsTexture();
     ImGui_ImplOpenGL3_CreateFontsTexture();
   }

@@ -88,7 +88,10 @@ test('landscape phone: every screen is reachable; day and night screenshots', as
   await setTheme('Night');
   for (const label of ['Here', 'Casualty', 'Oxygen']) {
     await goTo(label);
-    await browser.page.screenshot({path: join(screenshotDir(), `landscape-${label.toLowerCase()}-night.png`)});
+    const png = await browser.page.screenshot({path: join(screenshotDir(), `landscape-${label.toLowerCase()}-night.png`)});
+    // A theme change rebuilds the font atlas and its texture. A canvas left blank by a lost
+    // texture compresses to a few KB (seen while changing the upload); a drawn screen is 40 KB+.
+    assert.ok(png.length > 15000, `${label} at night: a ${png.length}-byte screenshot is a blank canvas`);
   }
   await setTheme('Day');
   console.log(`landscape screenshots in ${screenshotDir()}`);
