@@ -26,6 +26,8 @@ namespace {
 using namespace units;
 
 constexpr std::string_view kGaugeFirst = "Read the cylinder gauge and enter it: no duration without it";
+constexpr std::string_view kFlowFirst = "Enter the flow: no duration without it";
+constexpr std::string_view kTimeFirst = "Enter the evacuation time: no plan without it";
 
 void draw_timeline(const AppState& state, const evacuation::PlanInput& input,
                    const evacuation::EvacuationPlan& plan) {
@@ -104,6 +106,13 @@ VolumeFlow cylinder_flow(const AppState& state) {
   return state.situation.on_oxygen ? state.situation.oxygen_flow : state.oxygen.flow;
 }
 
+// What must be entered before a duration: the gauge, and the flow unless the casualty's is used.
+std::optional<std::string_view> missing_for_duration(const AppState& state) {
+  if (!state.oxygen.gauge_entered) return kGaugeFirst;
+  if (!state.situation.on_oxygen && !state.oxygen.flow_entered) return kFlowFirst;
+  return std::nullopt;
+}
+
 // The duration figures: the lower of the real-gas estimate and the field rule leads.
 void show_duration(AppState& state, const LastsToReserve& lasts) {
   const cylinder::DurationEstimate& d = lasts.real_gas;
@@ -155,11 +164,13 @@ CylinderInHand draw_cylinder(AppState& state, Pressure ambient) {
     edit_quantity(state, casualty_flow_field(state, "Flow (the casualty's, as on Casualty)", "cyl-flow"),
                   state.situation.oxygen_flow);
   } else {
-    edit_quantity(state, flow_field("Flow", "cyl-flow", cylinder::max_flow_lpm), in.flow);
+    QuantityField<VolumeFlowDimension> flow = flow_field("Flow", "cyl-flow", cylinder::max_flow_lpm);
+    flow.entered = &in.flow_entered;
+    edit_quantity(state, flow, in.flow);
   }
 
-  if (!in.gauge_entered) {
-    verdict_line(state.display, Tone::Neutral, std::string(kGaugeFirst));
+  if (std::optional<std::string_view> missing = missing_for_duration(state)) {
+    verdict_line(state.display, Tone::Neutral, std::string(*missing));
     return chosen;
   }
   Result<LastsToReserve> lasts = lasts_to_reserve(state, chosen, ambient, cylinder_flow(state));
@@ -187,11 +198,15 @@ void draw_plan(AppState& state, Pressure ambient, const CylinderInHand& chosen) 
   int_stepper(state.display, "Cylinders", "plan-count", &in.cylinder_count, 1, OxygenInputs::kMaxCylinders);
   edit_quantity(state, flow_field("Starting flow", "plan-first-flow", cylinder::max_flow_lpm), in.first_flow);
   edit_quantity(state, duration_field("Starting flow lasts", "plan-first-time", 0, 4320), in.first_phase);
-  edit_quantity(state, duration_field("Evacuation time", "plan-time", 1, 4320), in.evacuation);
+  QuantityField<DurationDimension> time = duration_field("Evacuation time", "plan-time", 1, 4320);
+  time.entered = &in.evacuation_entered;
+  edit_quantity(state, time, in.evacuation);
   ImGui::TextDisabled("Then the flow above until arrival.");
 
-  if (!in.gauge_entered) {
-    verdict_line(state.display, Tone::Neutral, std::string(kGaugeFirst));
+  std::optional<std::string_view> missing = missing_for_duration(state);
+  if (!missing && !in.evacuation_entered) missing = kTimeFirst;
+  if (missing) {
+    verdict_line(state.display, Tone::Neutral, std::string(*missing));
     return;
   }
   evacuation::PlanInput input;

@@ -165,6 +165,7 @@ std::string use_evacuation_section(const tp::TeamProfile& p, OxygenInputs& in) {
   if (!made || made->phases.empty() || made->cylinders.empty()) return "";
   const evacuation::PlanInput& plan = made.value();
   in.evacuation = plan.evacuation;
+  in.evacuation_entered = true;  // the team's usual carry-out, chosen by the user
   in.cylinder_count = std::clamp(static_cast<int>(plan.cylinders.size()), 1, OxygenInputs::kMaxCylinders);
   const evacuation::FlowPhase& first = plan.phases.front();
   bool timed_start = plan.phases.size() > 1 && first.duration.has_value();
@@ -193,6 +194,7 @@ void draw_use_in_calculators(AppState& state) {
   in.gauge_read_at = 0;     // the Record screen times no reserve from it
   in.reserve = p.reserve_pressure_gauge;
   in.flow = p.flows.front();
+  in.flow_entered = true;
   std::string plan = use_evacuation_section(p, in);
   state.bag.gauge = p.bag.gauge_pressure;
   state.team.file.message = "Oxygen screen: " + c.label + " full, reserve and flow from the profile" +

@@ -156,8 +156,10 @@ std::string state_to_json(const AppState& state) {
                  {"temperature_entered", o.temperature_entered},
                  {"cylinder_temperature_k", o.cylinder_temperature.in(kelvin)},
                  {"reserve_pa", o.reserve.in(pascals)},
+                 {"flow_entered", o.flow_entered},
                  {"flow_lpm", o.flow.in(litres_per_minute)},
                  {"cylinders", o.cylinder_count},
+                 {"evacuation_entered", o.evacuation_entered},
                  {"evacuation_min", o.evacuation.in(minutes)},
                  {"first_flow_lpm", o.first_flow.in(litres_per_minute)},
                  {"first_phase_min", o.first_phase.in(minutes)}};
@@ -247,8 +249,11 @@ bool state_from_json(AppState& state, const std::string& text) {
   // Saves from before the flag held the old 0 °C default nobody entered (it claimed more gas).
   if (!ox.temperature_entered) ox.cylinder_temperature = cylinder::assumed_temperature;
   read(o, "reserve_pa", pascals, 0, 35e6, ox.reserve);
+  // Saves from before these flags held the old defaults nobody entered: they come back empty.
+  read(o, "flow_entered", ox.flow_entered);
   read(o, "flow_lpm", litres_per_minute, 0, 30, ox.flow);
   read(o, "cylinders", 1, OxygenInputs::kMaxCylinders, ox.cylinder_count);
+  read(o, "evacuation_entered", ox.evacuation_entered);
   read(o, "evacuation_min", minutes, 1, 4320, ox.evacuation);
   read(o, "first_flow_lpm", litres_per_minute, 0, 30, ox.first_flow);
   read(o, "first_phase_min", minutes, 0, 4320, ox.first_phase);

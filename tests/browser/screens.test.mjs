@@ -211,6 +211,10 @@ for (const device of DEVICES) {
       // The − key toggles the sign wherever it is pressed.
       await d.enter('Cylinder temperature', `${Math.abs(device.celsius)}${device.celsius < 0 ? '-' : ''}`);
       await d.waitText('Cylinder temperature', (t) => t === `${device.celsius} °C`);
+      // Off oxygen the flow and the evacuation time are the planner's: empty until entered.
+      assert.match(await d.text('Verdict'), /^NO VERDICT: Enter the flow/);
+      await d.enter('Flow', '4');
+      await d.waitText('Flow', (t) => t === '4.0 L/min');
       const c = firn('cylinder', '--water-capacity', '2', `--pressure=${device.cylinderBar}bar`,
                      '--flow', '4', '--reserve', '20bar', `--temperature=${device.celsius}C`,
                      '--altitude', alt);
@@ -219,6 +223,8 @@ for (const device of DEVICES) {
       assertNear(await d.text('Contents (free gas, real gas)'), c.contents_l,
                  {cliDecimals: 0, what: 'contents L'});
       assertNear(await d.text('Usable above reserve'), c.usable_l, {cliDecimals: 0, what: 'usable L'});
+      assert.match(await d.text('Verdict'), /^NO VERDICT: Enter the evacuation time/);
+      await d.enter('Evacuation time', '240');
       await d.item('Evacuation timeline');
       await d.cautionReachable('Oxygen');
       await d.shot('oxygen');

@@ -215,7 +215,7 @@ TEST_CASE("Oxygen: on oxygen, the cylinder runs at the casualty's flow, one valu
   CHECK(state.situation.oxygen_flow.in(units::litres_per_minute) == Approx(5.0));
   CHECK(state.oxygen.flow.in(units::litres_per_minute) == Approx(4.0));  // the planning flow kept
   state.situation.on_oxygen = false;
-  CHECK(ui.text(state, "Flow") == "4.0 L/min");
+  CHECK(ui.text(state, "Flow").find("enter") != std::string::npos);  // the planning flow: not entered
   CHECK(ui.text(state, linked) == "(absent)");
 }
 
@@ -236,7 +236,21 @@ TEST_CASE("Oxygen: the cylinder gauge starts empty; no duration and no plan unti
   REQUIRE(state.oxygen.gauge_entered);
   CHECK(state.oxygen.gauge_read_at > 0);
   CHECK(ui.text(state, "Cylinder gauge") == "150 bar");
+  // Off oxygen the flow is the planner's: empty, and no duration, until entered.
+  CHECK(ui.text(state, "Lasts to reserve") == "(absent)");
+  CHECK(ui.text(state, "Verdict").rfind("NO VERDICT: Enter the flow", 0) == 0);
+  ui.click(state, "Flow");
+  for (const char* k : {"Key 4", "Key OK"}) ui.click(state, k);
+  REQUIRE(state.oxygen.flow_entered);
   CHECK(ui.text(state, "Lasts to reserve") != "(absent)");
+  // The plan waits for the evacuation time: a carry-out nobody gave gives no verdict.
+  ImGui::GetIO().DisplaySize = ImVec2(390, 2400);  // the plan below the phone's first screenful
+  CHECK(ui.text(state, "Verdict").rfind("NO VERDICT: Enter the evacuation time", 0) == 0);
+  ui.click(state, "Evacuation time");
+  for (const char* k : {"Key 2", "Key 4", "Key 0", "Key OK"}) ui.click(state, k);
+  REQUIRE(state.oxygen.evacuation_entered);
+  CHECK(state.oxygen.evacuation.in(units::minutes) == Approx(240.0));
+  CHECK(ui.text(state, "Verdict").rfind("NO VERDICT", 0) != 0);
   // The temperature nobody entered: shown empty, counted at the one assumed value, said so.
   CHECK(ui.text(state, "Cylinder temperature").find("enter") != std::string::npos);
   CHECK(state.oxygen.cylinder_temperature == cylinder::assumed_temperature);
@@ -260,6 +274,8 @@ TEST_CASE("Team: 'Use on Oxygen' takes the profile's usual carry-out through pla
   CHECK(in.first_flow == plan.phases.front().flow);
   CHECK(in.first_phase == *plan.phases.front().duration);
   CHECK(in.flow == plan.phases.back().flow);
+  CHECK(in.flow_entered);        // the user chose the team's usual carry-out:
+  CHECK(in.evacuation_entered);  // its flow and time count as entered
   CHECK(in.gauge_entered);
   CHECK(in.gauge_read_at == 0);  // a full cylinder by choice, not a reading the Record screen times
   CHECK(ui.text(state, "Team message").find("plan 6 h") != std::string::npos);
