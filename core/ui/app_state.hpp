@@ -172,8 +172,10 @@ struct OxygenInputs {
   int cylinder_count = 3;
   bool evacuation_entered = false;
   units::Duration evacuation = units::hours(4.0);
-  units::VolumeFlow first_flow = units::litres_per_minute(8.0);  // first phase of the plan
-  units::Duration first_phase = units::hours(1.0);
+  // A first phase at another flow: none until entered (a default one would change the verdict
+  // either way, depending on the flow after it).
+  units::VolumeFlow first_flow = units::litres_per_minute(8.0);
+  units::Duration first_phase = units::hours(0.0);
 };
 
 // The Route screen: the carry-out being planned (the team's usual one until edited).

@@ -257,6 +257,7 @@ bool state_from_json(AppState& state, const std::string& text) {
   read(o, "evacuation_min", minutes, 1, 4320, ox.evacuation);
   read(o, "first_flow_lpm", litres_per_minute, 0, 30, ox.first_flow);
   read(o, "first_phase_min", minutes, 0, 4320, ox.first_phase);
+  if (!ox.evacuation_entered) ox.first_phase = minutes(0.0);  // an old save's default 1 h
 
   const Json a = child(j, "ams");
   read(a, "headache", AmsInputs::kUnanswered, 3, state.ams.headache);
