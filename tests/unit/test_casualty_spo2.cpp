@@ -137,16 +137,11 @@ TEST_CASE("sweep: casualty verdict over altitude, time, device and reading", "[c
 namespace {
 // Least reassuring first, as a medic reads them: a concern, then no verdict, then "within",
 // "above" (the order the unknown-time rule must respect; written here, not taken from the code).
+constexpr Position kLeastReassuringFirst[] = {Position::Critical, Position::WellBelow, Position::Below,
+                                              Position::Extrapolated, Position::Within, Position::Above};
 int reassurance_rank(Position p) {
-  switch (p) {
-    case Position::Critical: return 0;
-    case Position::WellBelow: return 1;
-    case Position::Below: return 2;
-    case Position::Extrapolated: return 3;
-    case Position::Within: return 4;
-    case Position::Above: return 5;
-  }
-  return -1;
+  return static_cast<int>(std::find(std::begin(kLeastReassuringFirst), std::end(kLeastReassuringFirst), p) -
+                          std::begin(kLeastReassuringFirst));
 }
 }  // namespace
 
