@@ -164,12 +164,13 @@ struct OxygenInputs {
   bool temperature_entered = false;
   units::Temperature cylinder_temperature = cylinder::assumed_temperature;
   units::GaugePressure reserve = cylinder::default_reserve_gauge;  // the one default (model)
-  // The planning flow (off oxygen) and the evacuation time: empty until entered (no duration and
-  // no plan verdict from a flow or a carry-out nobody gave).
+  // The planning flow (off oxygen), the cylinder count and the evacuation time: empty until
+  // entered (no duration and no plan verdict from a flow or a carry-out nobody gave).
   bool flow_entered = false;
   units::VolumeFlow flow = units::litres_per_minute(4.0);
   static constexpr int kMaxCylinders = 20;  // the plan's stepper and saved-state limit
-  int cylinder_count = 3;
+  bool count_entered = false;
+  int cylinder_count = 1;
   bool evacuation_entered = false;
   units::Duration evacuation = units::hours(4.0);
   // A first phase at another flow: none until entered (a default one would change the verdict

@@ -28,6 +28,7 @@ using namespace units;
 constexpr std::string_view kGaugeFirst = "Read the cylinder gauge and enter it: no duration without it";
 constexpr std::string_view kFlowFirst = "Enter the flow: no duration without it";
 constexpr std::string_view kTimeFirst = "Enter the evacuation time: no plan without it";
+constexpr std::string_view kCountFirst = "Enter how many cylinders: no plan without it";
 
 void draw_timeline(const AppState& state, const evacuation::PlanInput& input,
                    const evacuation::EvacuationPlan& plan) {
@@ -195,7 +196,8 @@ Tone plan_tone(evacuation::Verdict v) {
 void draw_plan(AppState& state, Pressure ambient, const CylinderInHand& chosen) {
   OxygenInputs& in = state.oxygen;
   heading("Evacuation plan (cylinders like this one, used in turn)");
-  int_stepper(state.display, "Cylinders", "plan-count", &in.cylinder_count, 1, OxygenInputs::kMaxCylinders);
+  int_stepper(state.display, "Cylinders", "plan-count", &in.cylinder_count, 1, OxygenInputs::kMaxCylinders,
+              &in.count_entered);
   edit_quantity(state, flow_field("Starting flow", "plan-first-flow", cylinder::max_flow_lpm), in.first_flow);
   edit_quantity(state, duration_field("Starting flow lasts", "plan-first-time", 0, 4320), in.first_phase);
   QuantityField<DurationDimension> time = duration_field("Evacuation time", "plan-time", 1, 4320);
@@ -204,6 +206,7 @@ void draw_plan(AppState& state, Pressure ambient, const CylinderInHand& chosen) 
   ImGui::TextDisabled("Then the flow above until arrival.");
 
   std::optional<std::string_view> missing = missing_for_duration(state);
+  if (!missing && !in.count_entered) missing = kCountFirst;
   if (!missing && !in.evacuation_entered) missing = kTimeFirst;
   if (missing) {
     verdict_line(state.display, Tone::Neutral, std::string(*missing));

@@ -166,6 +166,7 @@ std::string use_evacuation_section(const tp::TeamProfile& p, OxygenInputs& in) {
   const evacuation::PlanInput& plan = made.value();
   in.evacuation = plan.evacuation;
   in.evacuation_entered = true;  // the team's usual carry-out, chosen by the user
+  in.count_entered = true;
   in.cylinder_count = std::clamp(static_cast<int>(plan.cylinders.size()), 1, OxygenInputs::kMaxCylinders);
   const evacuation::FlowPhase& first = plan.phases.front();
   bool timed_start = plan.phases.size() > 1 && first.duration.has_value();

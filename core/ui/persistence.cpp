@@ -158,6 +158,7 @@ std::string state_to_json(const AppState& state) {
                  {"reserve_pa", o.reserve.in(pascals)},
                  {"flow_entered", o.flow_entered},
                  {"flow_lpm", o.flow.in(litres_per_minute)},
+                 {"count_entered", o.count_entered},
                  {"cylinders", o.cylinder_count},
                  {"evacuation_entered", o.evacuation_entered},
                  {"evacuation_min", o.evacuation.in(minutes)},
@@ -252,6 +253,7 @@ bool state_from_json(AppState& state, const std::string& text) {
   // Saves from before these flags held the old defaults nobody entered: they come back empty.
   read(o, "flow_entered", ox.flow_entered);
   read(o, "flow_lpm", litres_per_minute, 0, 30, ox.flow);
+  read(o, "count_entered", ox.count_entered);
   read(o, "cylinders", 1, OxygenInputs::kMaxCylinders, ox.cylinder_count);
   read(o, "evacuation_entered", ox.evacuation_entered);
   read(o, "evacuation_min", minutes, 1, 4320, ox.evacuation);

@@ -183,26 +183,37 @@ bool toggle_row(const DisplayMetrics& display, const char* id, const char* off_l
 }
 
 bool int_stepper(const DisplayMetrics& display, const char* label, const char* id, int* value, int low,
-                 int high) {
+                 int high, bool* entered) {
   ImGui::TextDisabled("%s", label);
   ImGui::PushID(id);
   float height = std::max(touch_target(display), ImGui::GetFrameHeight());
   float width = std::max(height, 2.5f * em());
   int before = *value;
-  if (tap_button("\xE2\x88\x92", ImVec2(width, height)) && *value > low) --*value;
+  bool empty = entered != nullptr && !*entered;
+  auto first_tap = [&] {
+    *value = low;
+    *entered = true;
+  };
+  if (tap_button("\xE2\x88\x92", ImVec2(width, height))) {
+    if (empty) first_tap();
+    else if (*value > low) --*value;
+  }
   test_hook::item(std::string(label) + " -");
   ImGui::SameLine();
-  std::string shown = std::to_string(*value);
+  std::string shown = empty ? std::string("not entered") : std::to_string(*value);
   if (display.font_large) ImGui::PushFont(display.font_large);
   ImGui::AlignTextToFramePadding();
   ImGui::TextUnformatted(shown.c_str());
   if (display.font_large) ImGui::PopFont();
   test_hook::item_text(label, shown);
   ImGui::SameLine();
-  if (tap_button("+", ImVec2(width, height)) && *value < high) ++*value;
+  if (tap_button("+", ImVec2(width, height))) {
+    if (empty) first_tap();
+    else if (*value < high) ++*value;
+  }
   test_hook::item(std::string(label) + " +");
   ImGui::PopID();
-  return *value != before;
+  return *value != before || (empty && *entered);
 }
 
 void message_line(const std::string& text, bool warning) {

@@ -57,9 +57,10 @@ void result_value(const DisplayMetrics& display, const char* label, const std::s
 bool toggle_row(const DisplayMetrics& display, const char* id, const char* off_label, const char* on_label,
                 bool* value);
 
-// An integer with − / + ("Cylinders": 3). Recorded as label, "<label> -", "<label> +".
+// An integer with − / + ("Cylinders": 3). Recorded as label, "<label> -", "<label> +". With
+// `entered`, a count nobody gave yet shows "not entered"; the first tap on either sets `low`.
 bool int_stepper(const DisplayMetrics& display, const char* label, const char* id, int* value, int low,
-                 int high);
+                 int high, bool* entered = nullptr);
 
 // How a verdict reads at a glance. Each tone has its own word, shape and colour so that "short"
 // never looks like "enough", in every theme and without colour.

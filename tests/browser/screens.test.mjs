@@ -223,6 +223,10 @@ for (const device of DEVICES) {
       assertNear(await d.text('Contents (free gas, real gas)'), c.contents_l,
                  {cliDecimals: 0, what: 'contents L'});
       assertNear(await d.text('Usable above reserve'), c.usable_l, {cliDecimals: 0, what: 'usable L'});
+      assert.match(await d.text('Verdict'), /^NO VERDICT: Enter how many cylinders/);
+      assert.equal(await d.text('Cylinders'), 'not entered');
+      for (let i = 0; i < 3; ++i) await d.tap('Cylinders +');  // the first tap gives 1
+      await d.waitText('Cylinders', (t) => t === '3');
       assert.match(await d.text('Verdict'), /^NO VERDICT: Enter the evacuation time/);
       await d.enter('Evacuation time', '240');
       await d.item('Evacuation timeline');

@@ -245,6 +245,13 @@ TEST_CASE("Oxygen: the cylinder gauge starts empty; no duration and no plan unti
   CHECK(ui.text(state, "Lasts to reserve") != "(absent)");
   // The plan waits for the evacuation time: a carry-out nobody gave gives no verdict.
   ImGui::GetIO().DisplaySize = ImVec2(390, 2400);  // the plan below the phone's first screenful
+  CHECK(ui.text(state, "Cylinders") == "not entered");
+  CHECK(ui.text(state, "Verdict").rfind("NO VERDICT: Enter how many cylinders", 0) == 0);
+  ui.click(state, "Cylinders +");  // the first tap gives 1, then one more each
+  CHECK(ui.text(state, "Cylinders") == "1");
+  ui.click(state, "Cylinders +");
+  CHECK(state.oxygen.cylinder_count == 2);
+  REQUIRE(state.oxygen.count_entered);
   CHECK(ui.text(state, "Verdict").rfind("NO VERDICT: Enter the evacuation time", 0) == 0);
   ui.click(state, "Evacuation time");
   for (const char* k : {"Key 2", "Key 4", "Key 0", "Key OK"}) ui.click(state, k);
@@ -275,7 +282,8 @@ TEST_CASE("Team: 'Use on Oxygen' takes the profile's usual carry-out through pla
   CHECK(in.first_phase == *plan.phases.front().duration);
   CHECK(in.flow == plan.phases.back().flow);
   CHECK(in.flow_entered);        // the user chose the team's usual carry-out:
-  CHECK(in.evacuation_entered);  // its flow and time count as entered
+  CHECK(in.count_entered);       // its flow, cylinders and time count as entered
+  CHECK(in.evacuation_entered);
   CHECK(in.gauge_entered);
   CHECK(in.gauge_read_at == 0);  // a full cylinder by choice, not a reading the Record screen times
   CHECK(ui.text(state, "Team message").find("plan 6 h") != std::string::npos);
