@@ -132,6 +132,8 @@ struct Situation {
   bool distress = false;  // breathing fast and deep: lowers the FiO2 a device gives
   bool on_oxygen = false;
   int oxygen_device = 0;  // index into the supplemental-oxygen model's device list
+  // Empty until entered: the band on oxygen and the cylinder's duration depend on it.
+  bool oxygen_flow_entered = false;
   units::VolumeFlow oxygen_flow = units::litres_per_minute(2.0);
 };
 

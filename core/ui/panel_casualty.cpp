@@ -113,7 +113,9 @@ void draw_who(AppState& state) {
       o2::FlowRange range = o2::valid_flows(situation_device(state));
       s.oxygen_flow = std::clamp(s.oxygen_flow, range.low, range.high);
     }
-    edit_quantity(state, casualty_flow_field(state, "Oxygen flow", "o2-flow"), s.oxygen_flow);
+    QuantityField<VolumeFlowDimension> flow = casualty_flow_field(state, "Oxygen flow", "o2-flow");
+    flow.entered = &s.oxygen_flow_entered;
+    edit_quantity(state, flow, s.oxygen_flow);
   }
 }
 
@@ -135,7 +137,10 @@ Result<casualty_spo2::Verdict> situation_verdict(const AppState& state) {
   if (!pb) return pb.error();
   casualty_spo2::Reading reading{pb.value(), situation_known_acclimatisation(state), std::nullopt, s.spo2,
                                  situation_breathing(state)};
-  if (s.on_oxygen) reading.oxygen = casualty_spo2::OxygenGiven{situation_device(state), s.oxygen_flow};
+  if (s.on_oxygen) {
+    if (!s.oxygen_flow_entered) return Error{std::string(kEnterOxygenFlow)};
+    reading.oxygen = casualty_spo2::OxygenGiven{situation_device(state), s.oxygen_flow};
+  }
   return casualty_spo2::assess(reading);
 }
 

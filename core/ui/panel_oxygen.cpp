@@ -107,10 +107,11 @@ VolumeFlow cylinder_flow(const AppState& state) {
   return state.situation.on_oxygen ? state.situation.oxygen_flow : state.oxygen.flow;
 }
 
-// What must be entered before a duration: the gauge, and the flow unless the casualty's is used.
+// What must be entered before a duration: the gauge and the flow (the casualty's, on oxygen).
 std::optional<std::string_view> missing_for_duration(const AppState& state) {
   if (!state.oxygen.gauge_entered) return kGaugeFirst;
-  if (!state.situation.on_oxygen && !state.oxygen.flow_entered) return kFlowFirst;
+  bool flow_entered = state.situation.on_oxygen ? state.situation.oxygen_flow_entered : state.oxygen.flow_entered;
+  if (!flow_entered) return kFlowFirst;
   return std::nullopt;
 }
 
@@ -162,8 +163,10 @@ CylinderInHand draw_cylinder(AppState& state, Pressure ambient) {
   ImGui::PopTextWrapPos();
   edit_quantity(state, cylinder_pressure_field(state, "Reserve (swap at)", "cyl-reserve", bar.gauge(cylinder::max_reserve_bar)), in.reserve);
   if (state.situation.on_oxygen) {
-    edit_quantity(state, casualty_flow_field(state, "Flow (the casualty's, as on Casualty)", "cyl-flow"),
-                  state.situation.oxygen_flow);
+    QuantityField<VolumeFlowDimension> linked =
+        casualty_flow_field(state, "Flow (the casualty's, as on Casualty)", "cyl-flow");
+    linked.entered = &state.situation.oxygen_flow_entered;
+    edit_quantity(state, linked, state.situation.oxygen_flow);
   } else {
     QuantityField<VolumeFlowDimension> flow = flow_field("Flow", "cyl-flow", cylinder::max_flow_lpm);
     flow.entered = &in.flow_entered;

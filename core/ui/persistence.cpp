@@ -138,6 +138,7 @@ std::string state_to_json(const AppState& state) {
                     {"distress", s.distress},
                     {"on_oxygen", s.on_oxygen},
                     {"oxygen_device", s.oxygen_device},
+                    {"oxygen_flow_entered", s.oxygen_flow_entered},
                     {"oxygen_flow_lpm", s.oxygen_flow.in(litres_per_minute)}};
   const BagInputs& b = state.bag;
   j["bag"] = {{"gauge_pa", b.gauge.in(pascals)},
@@ -223,6 +224,7 @@ bool state_from_json(AppState& state, const std::string& text) {
   read(si, "distress", s.distress);
   read(si, "on_oxygen", s.on_oxygen);
   read(si, "oxygen_device", 0, 9, s.oxygen_device);
+  read(si, "oxygen_flow_entered", s.oxygen_flow_entered);  // older saves: empty again
   read(si, "oxygen_flow_lpm", litres_per_minute, 0, 30, s.oxygen_flow);
 
   const Json b = child(j, "bag");

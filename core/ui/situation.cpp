@@ -164,6 +164,7 @@ supplemental_oxygen::Breathing situation_breathing(const AppState& state) {
 
 Result<units::Fraction> situation_fio2(const AppState& state, std::optional<cascade::Acclimatisation> at) {
   if (!state.situation.on_oxygen) return cascade::dry_air_fio2();
+  if (!state.situation.oxygen_flow_entered) return Error{std::string(kEnterOxygenFlow)};
   Result<units::Pressure> pb = situation_pressure(state);
   if (!pb) return pb.error();
   Result<supplemental_oxygen::DeliveredFio2> d = supplemental_oxygen::delivered_fio2_at(

@@ -4,6 +4,7 @@
 
 #include <optional>
 #include <string>
+#include <string_view>
 
 #include "model/expected_spo2.hpp"
 #include "model/latitude_month.hpp"
@@ -47,6 +48,8 @@ supplemental_oxygen::Device situation_device(const AppState& state);
 supplemental_oxygen::Breathing situation_breathing(const AppState& state);
 // FiO2 the casualty breathes: dry air, or what the device gives at its flow here (gas expansion
 // and this breathing: supplemental_oxygen::delivered_fio2_at), the same FiO2 the verdict uses.
+// On oxygen with no flow entered there is no FiO2: every figure on oxygen says this instead.
+inline constexpr std::string_view kEnterOxygenFlow = "enter the oxygen flow (Casualty screen)";
 // `at` another point of acclimatisation than the situation's.
 Result<units::Fraction> situation_fio2(const AppState& state,
                                        std::optional<cascade::Acclimatisation> at = std::nullopt);

@@ -205,8 +205,10 @@ TEST_CASE("Oxygen: on oxygen, the cylinder runs at the casualty's flow, one valu
   enter_altitude(state, 4000);
   state.situation.on_oxygen = true;
   state.situation.oxygen_device = 0;  // cannula
-  state.situation.oxygen_flow = units::litres_per_minute(3.0);
   const std::string linked = "Flow (the casualty's, as on Casualty)";
+  CHECK(ui.text(state, linked).find("enter") != std::string::npos);  // "On oxygen" alone sets no flow
+  state.situation.oxygen_flow = units::litres_per_minute(3.0);
+  state.situation.oxygen_flow_entered = true;
   CHECK(ui.text(state, linked) == "3.0 L/min");
   CHECK(ui.text(state, "Flow") == "(absent)");
   ui.click(state, linked);
@@ -388,6 +390,27 @@ TEST_CASE("Casualty: the time at altitude starts empty; the verdict meanwhile ho
   CHECK(ui.text(state, "Time at this altitude") == "0 h");
   CHECK(ui.text(state, "Verdict").rfind("OK: Within the band", 0) == 0);
   CHECK(ui.text(state, "Expected SpO2, after 3 weeks") == "(absent)");
+}
+
+TEST_CASE("Casualty: on oxygen, no band and no verdict until the flow is entered") {
+  // The band on oxygen depends on the FiO2 the flow gives: a default flow nobody set (the old
+  // 2 L/min) made a reading on 6 L/min look within a band it was below.
+  Headless ui;
+  ui.panel = draw_casualty_panel;
+  AppState state;
+  enter_altitude(state, 4500);
+  state.situation.spo2 = units::percent(86);
+  state.situation.spo2_measured = true;
+  ui.click(state, "On oxygen");
+  REQUIRE(state.situation.on_oxygen);
+  CHECK(ui.text(state, "Oxygen flow").find("enter") != std::string::npos);
+  CHECK(ui.text(state, "Verdict") == "NO VERDICT: enter the oxygen flow (Casualty screen)");
+  CHECK(ui.text(state, "Expected SpO2").find_first_of("0123456789") == std::string::npos);  // no band
+  ui.click(state, "Oxygen flow");
+  for (const char* k : {"Key 4", "Key OK"}) ui.click(state, k);
+  REQUIRE(state.situation.oxygen_flow_entered);
+  CHECK(ui.text(state, "Verdict").rfind("NO VERDICT", 0) != 0);
+  CHECK(ui.text(state, "Expected SpO2").find_first_of("0123456789") != std::string::npos);
 }
 
 TEST_CASE("Casualty: the presets set the time at altitude") {
