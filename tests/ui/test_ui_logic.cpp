@@ -41,6 +41,11 @@ void enter_altitude(AppState& state, double metres) {
   state.situation.altitude_entered = true;
 }
 
+void enter_spo2(AppState& state, double percent) {
+  state.situation.spo2 = units::percent(percent);
+  state.situation.spo2_measured = true;
+}
+
 }  // namespace
 
 TEST_CASE("keypad: digits, backspace and OK set the altitude") {
@@ -376,8 +381,7 @@ TEST_CASE("Casualty: the time at altitude starts empty; the verdict meanwhile ho
   auto weeks = expected_spo2::expected(pb, cascade::Exposure::Acclimatised).value();
   REQUIRE(weeks.band.low.in(units::percent) > arrival.band.low.in(units::percent) + 1.0);
   int reading = static_cast<int>(std::ceil(arrival.band.low.in(units::percent)));
-  state.situation.spo2 = units::percent(reading);
-  state.situation.spo2_measured = true;
+  enter_spo2(state, reading);
   auto unknown = casualty_spo2::assess({pb, std::nullopt, std::nullopt, units::percent(reading)}).value();
   REQUIRE(unknown.assessment.position != expected_spo2::Position::Within);
   CHECK(ui.text(state, "Verdict").find(unknown.headline) != std::string::npos);
@@ -399,8 +403,7 @@ TEST_CASE("Casualty: on oxygen, no band and no verdict until the flow is entered
   ui.panel = draw_casualty_panel;
   AppState state;
   enter_altitude(state, 4500);
-  state.situation.spo2 = units::percent(86);
-  state.situation.spo2_measured = true;
+  enter_spo2(state, 86);
   ui.click(state, "On oxygen");
   REQUIRE(state.situation.on_oxygen);
   CHECK(ui.text(state, "Oxygen flow").find("enter") != std::string::npos);
