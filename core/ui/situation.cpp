@@ -90,7 +90,11 @@ std::string situation_summary(const AppState& state) {
   text += s.spo2_measured ? "SpO2 " + percent_text(s.spo2) : std::string("no SpO2");
   text += " \xC2\xB7 " + (s.time_at_altitude_entered ? time_at_altitude_text(s.time_at_altitude)
                                                     : std::string("time here not entered"));
-  text += s.on_oxygen ? " \xC2\xB7 on O2 " + flow_text(s.oxygen_flow) : std::string(" \xC2\xB7 air");
+  if (s.on_oxygen) {
+    text += " \xC2\xB7 on O2 " + (s.oxygen_flow_entered ? flow_text(s.oxygen_flow) : std::string("(flow not entered)"));
+  } else {
+    text += " \xC2\xB7 air";
+  }
   return text;
 }
 

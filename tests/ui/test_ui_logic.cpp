@@ -407,6 +407,7 @@ TEST_CASE("Casualty: on oxygen, no band and no verdict until the flow is entered
   ui.click(state, "On oxygen");
   REQUIRE(state.situation.on_oxygen);
   CHECK(ui.text(state, "Oxygen flow").find("enter") != std::string::npos);
+  CHECK(situation_summary(state).find("on O2 (flow not entered)") != std::string::npos);
   CHECK(ui.text(state, "Verdict") == "NO VERDICT: enter the oxygen flow (Casualty screen)");
   CHECK(ui.text(state, "Expected SpO2").find_first_of("0123456789") == std::string::npos);  // no band
   ui.click(state, "Oxygen flow");
