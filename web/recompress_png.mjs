@@ -1,7 +1,9 @@
-// Lossless recompression of the page icons that rsvg-convert writes: the same pixels, with the
-// image data stored unfiltered at zlib level 9, which suits flat-colour icons (the three icons
-// 41 KB → 30 KB; PNG does not gzip further, so this is transfer size; docs/BENCHMARKS.md). The
-// result is decoded again and compared pixel for pixel; the smaller of the two files is kept.
+// Recompression of the page icons that rsvg-convert writes (docs/BENCHMARKS.md). Two candidates:
+// the same pixels stored unfiltered at zlib level 9 (lossless), and an 8-bit palette image: the
+// icon's flat colours and up to 256 of its anti-aliased edge blends, each pixel mapped to the
+// nearest entry. The palette one is kept only if no pixel's composited (premultiplied) channel
+// moves by more than MAX_PALETTE_ERROR of 255 — at edges only, invisible at icon size. The
+// smallest candidate wins; each is decoded again and compared with the pixels it promises.
 // Handles 8-bit, non-interlaced greyscale/RGB/RGBA (what rsvg-convert writes); copies any other.
 // Usage: node recompress_png.mjs IN.png OUT.png
 import {copyFileSync, readFileSync, writeFileSync} from 'node:fs';
@@ -13,7 +15,9 @@ if (!input || !output) {
   process.exit(2);
 }
 const SIGNATURE = Buffer.from([137, 80, 78, 71, 13, 10, 26, 10]);
-const CHANNELS = {0: 1, 2: 3, 4: 2, 6: 4};  // colour type → bytes per pixel at 8 bits
+const CHANNELS = {0: 1, 2: 3, 3: 1, 4: 2, 6: 4};  // colour type → bytes per pixel at 8 bits
+const PALETTE = 3;
+const MAX_PALETTE_ERROR = 4;  // of 255, per premultiplied channel: edge pixels only (flats exact)
 
 function chunks(png) {
   if (!png.subarray(0, 8).equals(SIGNATURE)) throw new Error('not a PNG');
@@ -26,7 +30,8 @@ function chunks(png) {
   return list;
 }
 
-// The raw pixel rows of an 8-bit, non-interlaced PNG, or null for any other kind.
+// The pixels of an 8-bit, non-interlaced PNG as rows of its own samples (palette images: RGBA),
+// or null for any other kind.
 function pixels(png) {
   const list = chunks(png);
   const header = list[0].data;
@@ -36,7 +41,7 @@ function pixels(png) {
   if (depth !== 8 || !bpp || interlace !== 0) return null;
   const stride = width * bpp;
   const filtered = zlib.inflateSync(Buffer.concat(list.filter((c) => c.type === 'IDAT').map((c) => c.data)));
-  const rows = Buffer.alloc(height * stride);
+  let rows = Buffer.alloc(height * stride);
   for (let y = 0; y < height; ++y) {
     const filter = filtered[y * (stride + 1)];
     const line = filtered.subarray(y * (stride + 1) + 1, (y + 1) * (stride + 1));
@@ -57,7 +62,17 @@ function pixels(png) {
       row[x] = (line[x] + predictor) & 255;
     }
   }
-  return {rows, stride, height};
+  if (colour === PALETTE) {
+    const plte = list.find((c) => c.type === 'PLTE').data;
+    const trns = list.find((c) => c.type === 'tRNS')?.data ?? Buffer.alloc(0);
+    const rgba = Buffer.alloc(width * height * 4);
+    rows.forEach((index, i) => {
+      plte.copy(rgba, i * 4, index * 3, index * 3 + 3);
+      rgba[i * 4 + 3] = index < trns.length ? trns[index] : 255;
+    });
+    return {rows: rgba, stride: width * 4, width, height, bpp: 4, header};
+  }
+  return {rows, stride, width, height, bpp, header};
 }
 
 const crcTable = Array.from({length: 256}, (_, n) => {
@@ -76,20 +91,100 @@ function chunk(type, data) {
   return framed;
 }
 
+// Rows of `stride` bytes → zlib stream of unfiltered rows (filter byte 0): flat colours compress
+// best this way (docs/BENCHMARKS.md).
+function idat(rows, stride, height) {
+  const unfiltered = Buffer.alloc(height * (stride + 1));
+  for (let y = 0; y < height; ++y) rows.copy(unfiltered, y * (stride + 1) + 1, y * stride, (y + 1) * stride);
+  return zlib.deflateSync(unfiltered, {level: 9, memLevel: 9});
+}
+
+function png(header, extra, rows, stride, height) {
+  return Buffer.concat([SIGNATURE, chunk('IHDR', header), ...extra.map((c) => chunk(c.type, c.data)),
+                        chunk('IDAT', idat(rows, stride, height)), chunk('IEND', Buffer.alloc(0))]);
+}
+
+// The image as RGBA, whatever its channels.
+function rgba(image) {
+  const out = Buffer.alloc(image.width * image.height * 4);
+  for (let i = 0; i < image.width * image.height; ++i) {
+    const px = image.rows.subarray(i * image.bpp, (i + 1) * image.bpp);
+    const grey = image.bpp <= 2;
+    out[i * 4] = px[0];
+    out[i * 4 + 1] = grey ? px[0] : px[1];
+    out[i * 4 + 2] = grey ? px[0] : px[2];
+    out[i * 4 + 3] = image.bpp === 2 ? px[1] : image.bpp === 4 ? px[3] : 255;
+  }
+  return out;
+}
+
+// At most 256 colours, chosen farthest-first: the icon's flat colours come in first (the most
+// frequent colour seeds the palette), then, one at a time, whichever colour of the image is
+// farthest from every entry so far, so the largest change any pixel suffers is as small as the
+// 256 entries allow. Distance: the largest channel difference as composited (premultiplied; at
+// alpha 3 the colour hardly shows).
+function quantise(pixelsRgba) {
+  const counts = new Map();
+  for (let i = 0; i < pixelsRgba.length; i += 4) {
+    const key = pixelsRgba.readUInt32BE(i);
+    counts.set(key, (counts.get(key) ?? 0) + 1);
+  }
+  const keys = [...counts.keys()].sort((a, b) => counts.get(b) - counts.get(a));
+  const colours = keys.map((key) => [key >>> 24, (key >>> 16) & 255, (key >>> 8) & 255, key & 255]);
+  const distance = (p, c) => Math.max(Math.abs(p[3] - c[3]),
+    ...[0, 1, 2].map((j) => Math.abs(p[j] * p[3] - c[j] * c[3]) / 255));
+  const palette = [];
+  const error = colours.map(() => Infinity);
+  const owner = colours.map(() => 0);
+  let farthest = 0;
+  while (palette.length < 256 && error[farthest] > 0) {
+    palette.push(colours[farthest]);
+    colours.forEach((c, k) => {
+      const d = distance(colours[farthest], c);
+      if (d < error[k]) { error[k] = d; owner[k] = palette.length - 1; }
+    });
+    farthest = error.reduce((best, e, k) => (e > error[best] ? k : best), 0);
+  }
+  const entry = new Map(keys.map((key, k) => [key, owner[k]]));
+  const indices = Buffer.alloc(pixelsRgba.length / 4);
+  for (let i = 0; i < indices.length; ++i) indices[i] = entry.get(pixelsRgba.readUInt32BE(i * 4));
+  return {palette, indices, worst: Math.round(Math.max(...error))};
+}
+
+function paletteCandidate(image) {
+  const original = rgba(image);
+  const {palette, indices, worst} = quantise(original);
+  if (worst > MAX_PALETTE_ERROR) return {worst};
+  const header = Buffer.from(image.header);
+  header[9] = PALETTE;
+  const plte = Buffer.from(palette.flatMap((p) => p.slice(0, 3)));
+  let lastAlpha = palette.length;
+  while (lastAlpha > 0 && palette[lastAlpha - 1][3] === 255) --lastAlpha;
+  const extra = [{type: 'PLTE', data: plte}];
+  if (lastAlpha > 0) extra.push({type: 'tRNS', data: Buffer.from(palette.slice(0, lastAlpha).map((p) => p[3]))});
+  const file = png(header, extra, indices, image.width, image.height);
+  const expected = Buffer.from(indices.reduce((out, k) => (out.push(...palette[k]), out), []));
+  return {file, expected, worst};
+}
+
 const original = readFileSync(input);
 const image = pixels(original);
 if (!image) {
   copyFileSync(input, output);
   process.exit(0);
 }
-const unfiltered = Buffer.alloc(image.height * (image.stride + 1));  // filter byte 0 per row
-for (let y = 0; y < image.height; ++y) {
-  image.rows.copy(unfiltered, y * (image.stride + 1) + 1, y * image.stride, (y + 1) * image.stride);
-}
-const idat = zlib.deflateSync(unfiltered, {level: 9, memLevel: 9});
-const kept = chunks(original).filter((c) => c.type !== 'IDAT' && c.type !== 'IEND');
-const candidate = Buffer.concat([SIGNATURE, ...kept.map((c) => chunk(c.type, c.data)),
-                                 chunk('IDAT', idat), chunk('IEND', Buffer.alloc(0))]);
-const again = pixels(candidate);
+const ancillary = chunks(original).filter((c) => !['IHDR', 'IDAT', 'IEND', 'PLTE', 'tRNS'].includes(c.type));
+const lossless = png(image.header, ancillary, image.rows, image.stride, image.height);
+const again = pixels(lossless);
 if (!again || !again.rows.equals(image.rows)) throw new Error(`${input}: recompressed pixels differ`);
-writeFileSync(output, candidate.length < original.length ? candidate : original);
+const candidates = [original, lossless];
+const quantised = paletteCandidate(image);
+if (quantised.file) {
+  const decoded = pixels(quantised.file);
+  if (!decoded.rows.equals(quantised.expected)) throw new Error(`${input}: palette pixels differ`);
+  candidates.push(quantised.file);
+}
+const smallest = candidates.reduce((a, b) => (b.length < a.length ? b : a));
+console.log(`${output}: ${original.length} → ${smallest.length} bytes` +
+            ` (palette: largest channel change ${quantised.worst}/255${quantised.file ? '' : ', not used'})`);
+writeFileSync(output, smallest);
