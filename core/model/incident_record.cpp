@@ -1,17 +1,16 @@
 // The casualty record file: reading with every problem named by its path, writing so that it
 // reads back the same. Format: docs/incident-record.md.
 #include "model/incident_record.hpp"
-
-#include <nlohmann/json.hpp>
-
 #include <algorithm>
 #include <cmath>
 #include <cstdio>
 #include <type_traits>
 
+#include "model/json.hpp"
+
 namespace firn::record {
 
-using Json = nlohmann::ordered_json;
+using Json = json::Value;
 using namespace units;
 
 // [SECTION] Clock times
@@ -165,11 +164,6 @@ std::string breathing_words(const Breathing& b) {
 
 namespace {
 
-std::string shown(const Json& value) {
-  std::string text = value.dump(-1, ' ', false, Json::error_handler_t::replace);
-  return text.size() > 40 ? text.substr(0, 37) + "..." : text;
-}
-
 // Reads one entry's fields, naming every problem with its path.
 class EntryReader {
  public:
@@ -181,8 +175,7 @@ class EntryReader {
   }
 
   const Json* find(std::string_view key) {
-    auto it = object_.find(std::string(key));
-    return it == object_.end() ? nullptr : &*it;
+    return object_.find(key);
   }
 
   std::optional<std::string> text(std::string_view key, size_t max_chars) {
@@ -192,7 +185,7 @@ class EntryReader {
       fail(key, "must be text in quotes, got " + shown(*v));
       return std::nullopt;
     }
-    const std::string& s = v->get_ref<const std::string&>();
+    const std::string& s = v->as_string();
     if (s.size() > max_chars) {
       fail(key, std::to_string(s.size()) + " characters is more than " +
                     std::to_string(max_chars));
@@ -204,15 +197,15 @@ class EntryReader {
   std::optional<int> whole(std::string_view key, int low, int high, std::string_view unit) {
     const Json* v = find(key);
     if (!v) return std::nullopt;
-    if (!v->is_number() || !std::isfinite(v->get<double>()) ||
-        v->get<double>() != std::floor(v->get<double>()) || v->get<double>() < low ||
-        v->get<double>() > high) {
+    if (!v->is_number() || !std::isfinite(v->as_double()) ||
+        v->as_double() != std::floor(v->as_double()) || v->as_double() < low ||
+        v->as_double() > high) {
       fail(key, "must be a whole number from " + std::to_string(low) + " to " +
                     std::to_string(high) + (unit.empty() ? "" : " ") + std::string(unit) +
                     ", got " + shown(*v));
       return std::nullopt;
     }
-    return static_cast<int>(v->get<double>());
+    return static_cast<int>(v->as_double());
   }
 
   // "5200m", "2psi", "6L/min": parsed by the unit parser, then checked in `unit`.
@@ -275,10 +268,10 @@ std::optional<Entry> read_entry(const Json& value, const std::string& path,
   }
   size_t before = problems.size();
   EntryReader r(value, path, problems);
-  for (auto it = value.begin(); it != value.end(); ++it) {
-    if (std::find(std::begin(kKnownEntryFields), std::end(kKnownEntryFields), it.key()) ==
+  for (const json::Member& m : value.members()) {
+    if (std::find(std::begin(kKnownEntryFields), std::end(kKnownEntryFields), m.first) ==
         std::end(kKnownEntryFields)) {
-      r.fail(it.key(), "unknown field (a typo?)");
+      r.fail(m.first, "unknown field (a typo?)");
     }
   }
   Entry e;
@@ -321,7 +314,7 @@ std::optional<Entry> read_entry(const Json& value, const std::string& path,
       for (const Json& item : *c) {
         bool found = false;
         for (Criterion k : kAllCriteria) {
-          if (item.is_string() && item.get_ref<const std::string&>() == criterion_key(k)) {
+          if (item.is_string() && item.as_string() == criterion_key(k)) {
             if (std::find(e.criteria.begin(), e.criteria.end(), k) == e.criteria.end()) {
               e.criteria.push_back(k);
             }
@@ -349,36 +342,36 @@ std::optional<Entry> read_entry(const Json& value, const std::string& path,
 }  // namespace
 
 Result<Record> parse_record(std::string_view json_text) {
-  Json root = Json::parse(json_text.begin(), json_text.end(), nullptr, false);
-  if (root.is_discarded()) return Error{"the record file is not valid JSON"};
+  json::Parsed parsed = json::parse(json_text);
+  if (!parsed.ok) return Error{"the record file is not valid JSON"};
+  const Json& root = parsed.value;
   if (!root.is_object()) return Error{"the record file must hold one JSON object {…}"};
   std::vector<std::string> problems;
-  auto version = root.find("firn_record");
-  if (version == root.end() || !version->is_number_integer() ||
-      version->get<int>() != kSchemaVersion) {
+  const Json* version = root.find("firn_record");
+  if (!version || !version->is_number_integer() || version->as_integer() != kSchemaVersion) {
     return Error{"firn_record: this file is not a Firn casualty record of version " +
                  std::to_string(kSchemaVersion) + " (\"firn_record\": 1)"};
   }
   Record record;
   for (auto [key, target] : {std::pair{"incident", &record.incident},
                              std::pair{"casualty", &record.casualty}}) {
-    auto it = root.find(key);
-    if (it == root.end()) continue;
-    if (!it->is_string() || it->get_ref<const std::string&>().size() > kMaxLabelChars) {
+    const Json* it = root.find(key);
+    if (!it) continue;
+    if (!it->is_string() || it->as_string().size() > kMaxLabelChars) {
       problems.push_back(std::string(key) + ": must be text of at most " +
                          std::to_string(kMaxLabelChars) + " characters");
     } else {
-      *target = it->get<std::string>();
+      *target = it->as_string();
     }
   }
-  for (auto it = root.begin(); it != root.end(); ++it) {
-    if (it.key() != "firn_record" && it.key() != "incident" && it.key() != "casualty" &&
-        it.key() != "entries") {
-      problems.push_back(it.key() + ": unknown field (a typo?)");
+  for (const json::Member& m : root.members()) {
+    if (m.first != "firn_record" && m.first != "incident" && m.first != "casualty" &&
+        m.first != "entries") {
+      problems.push_back(m.first + ": unknown field (a typo?)");
     }
   }
-  auto entries = root.find("entries");
-  if (entries == root.end() || !entries->is_array()) {
+  const Json* entries = root.find("entries");
+  if (!entries || !entries->is_array()) {
     problems.push_back("entries: must be a list […] of entries");
   } else if (entries->size() > kMaxEntries) {
     problems.push_back("entries: " + std::to_string(entries->size()) + " entries is more than " +
@@ -439,7 +432,7 @@ std::string write_record(const Record& record) {
     entries.push_back(std::move(j));
   }
   root["entries"] = std::move(entries);
-  return root.dump(2, ' ', false, Json::error_handler_t::replace) + "\n";
+  return root.dump(2) + "\n";
 }
 
 }  // namespace firn::record

@@ -377,7 +377,10 @@ std::string table_csv(const Table& table) {
   };
   std::string csv;
   auto line = [&](const std::vector<std::string>& cells) {
-    for (size_t i = 0; i < cells.size(); ++i) csv += (i ? "," : "") + field(cells[i]);
+    for (size_t i = 0; i < cells.size(); ++i) {
+      if (i) csv += ',';
+      csv += field(cells[i]);
+    }
     csv += "\r\n";
   };
   line(table.header);

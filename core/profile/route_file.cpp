@@ -86,17 +86,16 @@ class Reader {
   }
 
   void only(const Json& obj, const std::string& path, std::initializer_list<std::string_view> known) {
-    for (auto it = obj.begin(); it != obj.end(); ++it) {
+    for (const json::Member& m : obj.members()) {
       bool listed = false;
-      for (std::string_view k : known) listed = listed || it.key() == k;
-      if (!listed) fail(child(path, it.key()), "unknown field (a typo?)");
+      for (std::string_view k : known) listed = listed || m.first == k;
+      if (!listed) fail(child(path, m.first), "unknown field (a typo?)");
     }
   }
 
   const Json* find(const Json& obj, const std::string& path, std::string_view key, bool required,
                    std::string_view example) {
-    auto it = obj.find(std::string(key));
-    if (it != obj.end()) return &*it;
+    if (const Json* v = obj.find(key)) return v;
     if (required) fail(child(path, key), "is missing (example: " + std::string(example) + ")");
     return nullptr;
   }
@@ -109,7 +108,7 @@ class Reader {
       fail(child(path, key), "must be text in quotes, got " + json_shown(*v));
       return std::nullopt;
     }
-    const std::string& s = v->get_ref<const std::string&>();
+    const std::string& s = v->as_string();
     if (s.empty() || s.size() > max_chars) {
       fail(child(path, key), std::to_string(s.size()) + " characters is outside 1" + kRange +
                                  std::to_string(max_chars) + " characters");
@@ -132,7 +131,7 @@ class Reader {
                       std::string(example) + "\"");
       return std::nullopt;
     }
-    const std::string& written = v->get_ref<const std::string&>();
+    const std::string& written = v->as_string();
     std::string words(key);
     for (char& c : words) c = c == '_' ? ' ' : c;
     Result<Quantity<D>> q = parse(written, words);
@@ -167,11 +166,11 @@ class Reader {
 };
 
 std::optional<int> clock_minutes(Reader& r, const Json& root) {
-  const Json* v = root.contains("start_time") ? &root["start_time"] : nullptr;
+  const Json* v = root.find("start_time");
   if (!v) return std::nullopt;
   int h = -1, m = -1;
   char tail = 0;
-  if (v->is_string() && std::sscanf(v->get_ref<const std::string&>().c_str(), "%2d:%2d%c", &h,
+  if (v->is_string() && std::sscanf(v->as_string().c_str(), "%2d:%2d%c", &h,
                                     &m, &tail) == 2 && h >= 0 && h < 24 && m >= 0 && m < 60) {
     return h * 60 + m;
   }
@@ -406,15 +405,15 @@ std::optional<Stock> read_stock(Reader& r, const Json& v, const team_profile::Te
 std::optional<int> schema_version(Reader& r, const Json& root) {
   const Json* v = r.find(root, "", "schema_version", true, std::to_string(current_route_schema_version));
   if (!v) return std::nullopt;
-  if (!v->is_number_integer() || v->get<long long>() < 1 ||
-      v->get<long long>() > current_route_schema_version) {
-    std::string newer = v->is_number_integer() && v->get<long long>() > current_route_schema_version
+  if (!v->is_number_integer() || v->as_integer() < 1 ||
+      v->as_integer() > current_route_schema_version) {
+    std::string newer = v->is_number_integer() && v->as_integer() > current_route_schema_version
                             ? " (written by a newer Firn: update Firn)" : "";
     r.fail("schema_version", json_shown(*v) + " is outside 1" + kRange +
                                  std::to_string(current_route_schema_version) + newer);
     return std::nullopt;
   }
-  return static_cast<int>(v->get<long long>());
+  return static_cast<int>(v->as_integer());
 }
 
 std::optional<RouteInput> read_root(Reader& r, const Json& root,
@@ -428,7 +427,7 @@ std::optional<RouteInput> read_root(Reader& r, const Json& root,
   bool ok = true;
   if (root.contains("demo")) {
     if (root["demo"].is_boolean()) {
-      in.demo = root["demo"].get<bool>();
+      in.demo = root["demo"].as_bool();
     } else {
       r.fail("demo", "must be true or false, got " + json_shown(root["demo"]));
       ok = false;

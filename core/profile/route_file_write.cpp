@@ -112,7 +112,7 @@ std::string write_route_file(const RouteInput& in) {
   for (const Leg& leg : in.legs) legs.push_back(leg_object(leg));
   root["legs"] = legs;
   root["stock"] = stock_object(in.stock);
-  return root.dump(2, ' ', false, Json::error_handler_t::replace) + "\n";
+  return root.dump(2) + "\n";
 }
 
 }  // namespace firn::route

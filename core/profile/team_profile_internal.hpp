@@ -1,17 +1,16 @@
 // Shared by the team-profile reader, the v1 migration and the writer (not for other callers).
 #pragma once
 
-#include <nlohmann/json.hpp>
-
 #include <optional>
 #include <string>
 #include <string_view>
 
+#include "model/json.hpp"
 #include "profile/team_profile.hpp"
 
 namespace firn::team_profile::internal {
 
-using Json = nlohmann::ordered_json;
+using Json = json::Value;
 
 // "card.altitude_to", "cylinders[2]": field paths as messages show them (0-based indices).
 std::string child(const std::string& path, std::string_view key);

@@ -13,39 +13,38 @@ std::optional<Json> migrate_v1(const Json& old, Problems& problems) {
       problems.lines.push_back(path + ": " + message);
     }
   } r{problems};
-  for (auto it = old.begin(); it != old.end(); ++it) {
+  for (const json::Member& m : old.members()) {
     bool listed = false;
     for (std::string_view k : {"schema_version", "demo", "team_name", "altitude_unit",
                               "card_altitudes", "model", "cylinders", "reserve_pressure_bar",
                               "flows_lpm", "bag_gauge_psi", "pump_stroke_l", "co2_limit_pct",
                               "notes"}) {
-      listed = listed || it.key() == k;
+      listed = listed || m.first == k;
     }
-    if (!listed) r.fail(it.key(), "unknown field in a schema 1 file (a typo?)");
+    if (!listed) r.fail(m.first, "unknown field in a schema 1 file (a typo?)");
   }
   // A v1 number at `key` becomes v2 text "<number><unit>", or a problem naming the v1 path.
   auto with_unit = [&](const Json& object, const std::string& path, std::string_view key,
                        std::string_view unit) -> Json {
-    auto found = object.find(std::string(key));
-    if (found == object.end()) return Json();  // v2 parsing reports what is missing
+    const Json* found = object.find(key);
+    if (!found) return Json();  // v2 parsing reports what is missing
     if (!found->is_number()) {
       r.fail(child(path, key), "must be a number (schema 1), got " + json_shown(*found));
       return Json();
     }
-    return Json(format_number(found->get<double>(), 6) + std::string(unit));
+    return Json(format_number(found->as_double(), 6) + std::string(unit));
   };
   auto copy = [&](const Json& from, std::string_view key, Json& to, std::string_view new_key) {
-    auto found = from.find(std::string(key));
-    if (found != from.end()) to[std::string(new_key)] = *found;
+    if (const Json* found = from.find(key)) to[new_key] = *found;
   };
   Json v2 = Json::object();
   v2["schema_version"] = current_schema_version;
   copy(old, "demo", v2, "demo");
   copy(old, "team_name", v2, "team_name");
   std::string altitude_unit = "m";
-  if (auto found = old.find("altitude_unit"); found != old.end()) {
-    if (found->is_string() && (*found == "m" || *found == "ft")) {
-      altitude_unit = found->get<std::string>();
+  if (const Json* found = old.find("altitude_unit"); found) {
+    if (found->is_string() && (found->as_string() == "m" || found->as_string() == "ft")) {
+      altitude_unit = found->as_string();
     } else {
       r.fail("altitude_unit", json_shown(*found) + " must be \"m\" or \"ft\" (schema 1)");
     }
@@ -53,7 +52,7 @@ std::optional<Json> migrate_v1(const Json& old, Problems& problems) {
   v2["units"] = altitude_unit == "ft" ? "us" : "metric";
   v2["atmosphere_model"] = old.contains("model") ? old["model"] : Json("west");
   Json card = Json::object();
-  if (auto found = old.find("card_altitudes"); found != old.end() && found->is_object()) {
+  if (const Json* found = old.find("card_altitudes"); found && found->is_object()) {
     for (auto [from, to] : {std::pair{"from", "altitude_from"}, std::pair{"to", "altitude_to"},
                             std::pair{"step", "altitude_step"}}) {
       Json value = with_unit(*found, "card_altitudes", from, altitude_unit);
@@ -62,7 +61,7 @@ std::optional<Json> migrate_v1(const Json& old, Problems& problems) {
   }
   copy(old, "notes", card, "notes");
   v2["card"] = card;
-  if (auto found = old.find("cylinders"); found != old.end() && found->is_array()) {
+  if (const Json* found = old.find("cylinders"); found && found->is_array()) {
     Json list = Json::array();
     for (size_t i = 0; i < found->size(); ++i) {
       const Json& c = (*found)[i];
@@ -79,7 +78,7 @@ std::optional<Json> migrate_v1(const Json& old, Problems& problems) {
     v2["cylinders"] = list;
   }
   if (old.contains("reserve_pressure_bar")) v2["reserve_pressure"] = with_unit(old, top, "reserve_pressure_bar", "bar");
-  if (auto found = old.find("flows_lpm"); found != old.end() && found->is_array()) {
+  if (const Json* found = old.find("flows_lpm"); found && found->is_array()) {
     Json list = Json::array();
     for (size_t i = 0; i < found->size(); ++i) {
       const Json& f = (*found)[i];
@@ -87,7 +86,7 @@ std::optional<Json> migrate_v1(const Json& old, Problems& problems) {
         r.fail(item("flows_lpm", i), "must be a number (schema 1), got " + json_shown(f));
         continue;
       }
-      list.push_back(format_number(f.get<double>(), 6) + "L/min");
+      list.push_back(format_number(f.as_double(), 6) + "L/min");
     }
     v2["flows"] = list;
   }

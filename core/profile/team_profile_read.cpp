@@ -12,22 +12,6 @@ namespace firn::team_profile::internal {
 
 using namespace units;
 
-// Records where the JSON syntax broke (the DOM parser alone only says "failed"). Works without
-// exceptions: sax_parse calls parse_error and stops.
-struct LocatingSax : nlohmann::detail::json_sax_dom_parser<Json> {
-  explicit LocatingSax(Json& root) : nlohmann::detail::json_sax_dom_parser<Json>(root, false) {}
-  bool parse_error(std::size_t position, const std::string& token,
-                   const nlohmann::detail::exception&) {
-    failed = true;
-    error_position = position;
-    error_token = token;
-    return false;
-  }
-  bool failed = false;
-  std::size_t error_position = 0;
-  std::string error_token;
-};
-
 std::string child(const std::string& path, std::string_view key) {
   return path.empty() ? std::string(key) : path + "." + std::string(key);
 }
@@ -51,10 +35,7 @@ static std::string utf8_shown(std::string_view text, size_t max_bytes) {
   return out;
 }
 
-std::string json_shown(const Json& value) {
-  std::string text = value.dump();
-  return text.size() > 40 ? utf8_shown(text, 37) + "..." : text;
-}
+std::string json_shown(const Json& value) { return json::shown(value); }
 
 namespace {
 
@@ -101,14 +82,9 @@ class Reader {
 
   const Json* field(const Json& object, const std::string& path, std::string_view key,
                     bool required, std::string_view example) {
-    auto found = object.find(std::string(key));
-    if (found == object.end()) {
-      if (required) {
-        fail(child(path, key), "is missing (example: " + std::string(example) + ")");
-      }
-      return nullptr;
-    }
-    return &*found;
+    const Json* found = object.find(key);
+    if (!found && required) fail(child(path, key), "is missing (example: " + std::string(example) + ")");
+    return found;
   }
 
   bool object(const Json& value, const std::string& path) {
@@ -132,10 +108,10 @@ class Reader {
 
   void reject_unknown(const Json& object, const std::string& path,
                       std::initializer_list<std::string_view> known) {
-    for (auto it = object.begin(); it != object.end(); ++it) {
+    for (const json::Member& m : object.members()) {
       bool listed = false;
-      for (std::string_view k : known) listed = listed || it.key() == k;
-      if (!listed) fail(child(path, it.key()), "unknown field (a typo?)");
+      for (std::string_view k : known) listed = listed || m.first == k;
+      if (!listed) fail(child(path, m.first), "unknown field (a typo?)");
     }
   }
 
@@ -153,7 +129,7 @@ class Reader {
       fail(path, "must be text in quotes, got " + json_shown(value));
       return std::nullopt;
     }
-    const std::string& s = value.get_ref<const std::string&>();
+    const std::string& s = value.as_string();
     if (s.size() < low_chars || s.size() > max_chars) {
       fail(path, std::to_string(s.size()) + " characters is outside " +
                      std::to_string(low_chars) + "\xE2\x80\xA6" + std::to_string(max_chars) +
@@ -184,7 +160,7 @@ class Reader {
                      std::string(example) + "\"");
       return std::nullopt;
     }
-    const std::string& text = value.get_ref<const std::string&>();
+    const std::string& text = value.as_string();
     Result<Quantity<D>> parsed = parse(text, field_words(path));
     if (!parsed) {
       fail(path, parsed.error().message);
@@ -208,7 +184,7 @@ class Reader {
       fail(where, "must be a whole number, got " + json_shown(*value));
       return std::nullopt;
     }
-    long long n = value->get<long long>();
+    long long n = value->as_integer();
     if (n < low || n > high) {
       fail(where, std::to_string(n) + " is outside " + std::to_string(low) + "\xE2\x80\xA6" +
                       std::to_string(high));
@@ -261,7 +237,7 @@ std::optional<CylinderType> read_cylinder(Reader& r, const Json& value, const st
   ok = ok && label;
   if (const Json* size = r.field(value, path, "size", false, "\"D\"")) {
     Result<LetterSize> parsed = Error{""};
-    if (size->is_string()) parsed = cylinder::parse_letter_size(size->get_ref<const std::string&>());
+    if (size->is_string()) parsed = cylinder::parse_letter_size(size->as_string());
     if (!parsed) {
       r.fail(child(path, "size"), json_shown(*size) + " is not a US letter size: use D, E, M or H");
       ok = false;
@@ -469,7 +445,7 @@ bool read_settings(Reader& r, const Json& root, TeamProfile& p) {
   bool ok = true;
   if (const Json* demo = r.field(root, top, "demo", false, "")) {
     if (demo->is_boolean()) {
-      p.demo = demo->get<bool>();
+      p.demo = demo->as_bool();
     } else {
       r.fail("demo", "must be true or false, got " + json_shown(*demo));
       ok = false;
@@ -605,31 +581,28 @@ std::optional<TeamProfile> read_current(const Json& root, Problems& problems) {
 
 // Parses text to JSON, reporting syntax errors with line and column.
 std::optional<Json> parse_json(std::string_view text, Problems& problems) {
-  Json root;
-  LocatingSax sax(root);
-  bool parsed = Json::sax_parse(text.begin(), text.end(), &sax);
-  if (!parsed || sax.failed) {
-    size_t end = std::min(sax.error_position, text.size());
+  json::Parsed parsed = json::parse(text);
+  if (!parsed.ok) {
     size_t line = 1, column = 1;
-    for (size_t i = 0; i + 1 < end; ++i) {
+    for (size_t i = 0; i < parsed.error.offset && i < text.size(); ++i) {
       if (text[i] == '\n') { ++line; column = 1; } else { ++column; }
     }
     problems.lines.push_back("the file is not valid JSON: line " + std::to_string(line) +
                              ", column " + std::to_string(column) + " near '" +
-                             utf8_shown(sax.error_token, 20) + "'");
+                             utf8_shown(parsed.error.near, 20) + "'");
     return std::nullopt;
   }
-  if (!root.is_object()) {
-    problems.lines.push_back("the file must hold one JSON object {…}, got " + json_shown(root));
+  if (!parsed.value.is_object()) {
+    problems.lines.push_back("the file must hold one JSON object {…}, got " + json_shown(parsed.value));
     return std::nullopt;
   }
-  return root;
+  return std::move(parsed.value);
 }
 
 // The schema version of a parsed document, or a problem.
 std::optional<int> schema_version(const Json& root, Problems& problems) {
-  auto found = root.find("schema_version");
-  if (found == root.end()) {
+  const Json* found = root.find("schema_version");
+  if (!found) {
     problems.lines.push_back("schema_version: is missing (this Firn writes " +
                              std::to_string(current_schema_version) + ")");
     return std::nullopt;
@@ -638,7 +611,7 @@ std::optional<int> schema_version(const Json& root, Problems& problems) {
     problems.lines.push_back("schema_version: must be a whole number, got " + json_shown(*found));
     return std::nullopt;
   }
-  long long v = found->get<long long>();
+  long long v = found->as_integer();
   if (v < 1 || v > current_schema_version) {
     std::string hint = v > current_schema_version ? " (written by a newer Firn: update Firn)" : "";
     problems.lines.push_back("schema_version: " + std::to_string(v) + " is outside 1\xE2\x80\xA6" +

@@ -3,7 +3,8 @@
 // Parsing never throws (the web build has no exceptions): every access checks the type first.
 #include "ui/persistence.hpp"
 
-#include <nlohmann/json.hpp>
+#include "model/json.hpp"
+
 
 #include <algorithm>
 #include <array>
@@ -12,12 +13,13 @@
 #include <string_view>
 
 #include "model/cylinder.hpp"
+#include "model/json.hpp"
 #include "model/hyperbaric_bag.hpp"
 #include "model/oxygen_cascade.hpp"
 
 namespace firn::ui {
 
-using Json = nlohmann::ordered_json;  // core/profile's instantiation: one json type in the page
+using Json = json::Value;
 using namespace units;
 
 namespace {
@@ -36,30 +38,30 @@ constexpr std::array<std::string_view, N> unit_keys(const UnitList<D, N>& list) 
 
 // Readers: leave `out` untouched unless the value is there, of the right type and in range.
 void read(const Json& j, const char* key, double low, double high, double& out) {
-  auto it = j.find(key);
-  if (it == j.end() || !it->is_number()) return;
-  double v = it->get<double>();
+  const Json* it = j.find(key);
+  if (!it || !it->is_number()) return;
+  double v = it->as_double();
   if (std::isfinite(v) && v >= low && v <= high) out = v;
 }
 // When a value was entered, seconds since 1970: 0 (unknown) … the year 2100.
 std::int64_t entered_at_value(const Json& v, std::int64_t fallback) {
   if (!v.is_number()) return fallback;
-  double at = v.get<double>();
+  double at = v.as_double();
   return std::isfinite(at) && at >= 0.0 && at <= 4102444800.0 ? static_cast<std::int64_t>(at) : fallback;
 }
 std::int64_t read_entered_at(const Json& j, const char* key, std::int64_t fallback) {
-  auto it = j.find(key);
-  return it == j.end() ? fallback : entered_at_value(*it, fallback);
+  const Json* it = j.find(key);
+  return !it ? fallback : entered_at_value(*it, fallback);
 }
 
 void read(const Json& j, const char* key, bool& out) {
-  auto it = j.find(key);
-  if (it != j.end() && it->is_boolean()) out = it->get<bool>();
+  const Json* it = j.find(key);
+  if (it && it->is_boolean()) out = it->as_bool();
 }
 void read(const Json& j, const char* key, int low, int high, int& out) {
-  auto it = j.find(key);
-  if (it == j.end() || !it->is_number_integer()) return;
-  long long v = it->get<long long>();
+  const Json* it = j.find(key);
+  if (!it || !it->is_number_integer()) return;
+  long long v = it->as_integer();
   if (v >= low && v <= high) out = static_cast<int>(v);
 }
 bool same_letters(std::string_view a, std::string_view b) {
@@ -70,9 +72,9 @@ bool same_letters(std::string_view a, std::string_view b) {
 }
 template <class Enum, size_t N>
 void read(const Json& j, const char* key, const std::array<std::string_view, N>& keys, Enum& out) {
-  auto it = j.find(key);
-  if (it == j.end() || !it->is_string()) return;
-  const std::string& text = it->get_ref<const std::string&>();
+  const Json* it = j.find(key);
+  if (!it || !it->is_string()) return;
+  const std::string& text = it->as_string();
   for (size_t i = 0; i < N; ++i) {
     if (same_letters(keys[i], text)) out = static_cast<Enum>(i);
   }
@@ -88,14 +90,14 @@ void read(const Json& j, const char* key, const ReadingUnit<D>& unit, double low
 template <class D>
 void read(const Json& j, const char* key, const ReadingUnit<D>& unit, const Range<D>& range,
           Quantity<D>& out) {
-  auto it = j.find(key);
-  if (it == j.end() || !it->is_number()) return;
-  Quantity<D> v = from_reading<D>(unit, it->get<double>());
+  const Json* it = j.find(key);
+  if (!it || !it->is_number()) return;
+  Quantity<D> v = from_reading<D>(unit, it->as_double());
   if (range.contains(v)) out = v;  // contains() refuses NaN and infinities too
 }
 Json child(const Json& j, const char* key) {
-  auto it = j.find(key);
-  return it != j.end() && it->is_object() ? *it : Json::object();
+  const Json* it = j.find(key);
+  return it && it->is_object() ? *it : Json::object();
 }
 
 template <class Enum, size_t N>
@@ -175,16 +177,17 @@ std::string state_to_json(const AppState& state) {
 }
 
 bool state_from_json(AppState& state, const std::string& text) {
-  Json j = Json::parse(text, nullptr, /*allow_exceptions=*/false);
-  if (j.is_discarded() || !j.is_object()) return false;
+  json::Parsed parsed = json::parse(text);
+  if (!parsed.ok || !parsed.value.is_object()) return false;
+  const Json& j = parsed.value;
   read(j, "screen", kScreenKeys, state.screen);
 
   const Json st = child(j, "settings");
   Settings& settings = state.settings;
   read(st, "theme", kThemeKeys, settings.theme);
   read(st, "night_dim", settings.night_dim);
-  if (auto it = st.find("model"); it != st.end() && it->is_string()) {
-    if (Result<atmosphere::Model> m = atmosphere::parse_model(it->get_ref<const std::string&>())) {
+  if (const Json* it = st.find("model"); it && it->is_string()) {
+    if (Result<atmosphere::Model> m = atmosphere::parse_model(it->as_string())) {
       settings.model = m.value();
     }
   }
@@ -272,7 +275,7 @@ bool state_from_json(AppState& state, const std::string& text) {
 
   read(child(j, "teaching"), "altitude_m", metres, 0, TeachingInputs::kTopM, state.teaching.altitude);
   // The route screen's gauge readings (the route itself is its own file): one time each.
-  if (auto it = j.find("route_gauges_read_at"); it != j.end() && it->is_array()) {
+  if (const Json* it = j.find("route_gauges_read_at"); it && it->is_array()) {
     std::vector<std::int64_t>& read_at = state.route.gauge_read_at;
     read_at.clear();
     for (const Json& at : *it) read_at.push_back(entered_at_value(at, 0));
