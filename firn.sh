@@ -16,7 +16,7 @@ JOBS=${FIRN_JOBS:-$(nproc)}
 LOGS="$ROOT/build/logs"
 
 # Debian packages: compilers and build tools (Ninja: docs/measurements.md), Emscripten, GLFW,
-# Catch2, JSON and argument parsing, stb, the UI font, fonttools (font subsetting), Xvfb + Mesa (software GL), Chromium
+# Catch2, nlohmann-json (the reference the JSON tests compare with), CLI11, stb, the UI font, fonttools (font subsetting), Xvfb + Mesa (software GL), Chromium
 # (browser tests, card PDF), poppler (PDF checks), librsvg (icons), node-terser (the page's glue
 # script minified), dpkg-dev (apt-get source),
 # clang-14 + libclang-rt-14-dev (ASan/UBSan unit tests and libFuzzer targets, docs/hardening.md),

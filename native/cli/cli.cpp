@@ -191,9 +191,7 @@ namespace {
 // JSON for stdout. Strings may echo what the user typed (an option name, a file path) and so may
 // not be UTF-8: such bytes print as U+FFFD instead of throwing (fuzz_cli finding, see
 // docs/hardening.md).
-std::string json_text(const Json& json) {
-  return json.dump(-1, ' ', false, Json::error_handler_t::replace);
-}
+std::string json_text(const Json& json) { return json.dump(); }
 
 void print_table(const Report& report) {
   size_t width = 0;

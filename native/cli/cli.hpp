@@ -4,7 +4,6 @@
 #pragma once
 
 #include <CLI/CLI.hpp>
-#include <nlohmann/json.hpp>
 
 #include <functional>
 #include <optional>
@@ -13,13 +12,14 @@
 #include <vector>
 
 #include "model/atmosphere.hpp"
+#include "model/json.hpp"
 #include "model/latitude_month.hpp"
 #include "model/result.hpp"
 #include "model/units.hpp"
 
 namespace firn::cli {
 
-using Json = nlohmann::ordered_json;
+using Json = json::Value;  // the page's own reader and writer (core/model/json.hpp)
 
 // What a command computed: JSON for --json, and rows + notes for the human table.
 struct Report {

@@ -71,7 +71,7 @@ void add_flow_corrections(Report& report, VolumeFlow lpm, Pressure ambient) {
              "Rotameter: as free gas", "L/min");
   report.add("fixed_orifice_free_gas_lpm", orifice->actual_free_gas.in(litres_per_minute), 2,
              "Fixed orifice: as free gas", "L/min");
-  report.json["flow_notes"] = {rota->explanation, orifice->explanation};
+  report.json["flow_notes"] = std::vector<std::string>{rota->explanation, orifice->explanation};
   report.notes.push_back(rota->explanation);
   report.notes.push_back(orifice->explanation);
 }

@@ -204,7 +204,7 @@ Result<Report> run_profile(const ProfileOptions& o) {
   Report report;
   if (o.demo) {
     if (json) {
-      report.json = Json::parse(tp::demo_profile_json());
+      report.json = json::parse(tp::demo_profile_json()).value;
     } else {
       std::fputs(std::string(tp::demo_profile_json()).c_str(), stdout);
     }
@@ -227,7 +227,7 @@ Result<Report> run_profile(const ProfileOptions& o) {
   report.add("cylinder_types", static_cast<double>(profile.cylinders.size()), 0, "Cylinder types", "");
   report.add("card_rows", static_cast<double>(profile.card_altitudes().size()), 0, "Card rows", "");
   report.json["evacuation"] = profile.evacuation.has_value();
-  int version = Json::parse(text.value(), nullptr, false).value("schema_version", 0);
+  int version = static_cast<int>(json::parse(text.value()).value["schema_version"].as_integer());
   bool migrated = version < tp::current_schema_version;
   report.json["migrated_from_older_schema"] = migrated;
   if (migrated) report.notes.emplace_back("older schema: read and upgraded; save it again to keep the new form");

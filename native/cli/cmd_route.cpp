@@ -134,7 +134,7 @@ Result<Report> run_route(const RouteOptions& o) {
   if (o.demo) {  // the file itself (as `firn profile --demo`)
     Report report;
     if (o.command->count("--json") > 0) {
-      report.json = Json::parse(route::demo_route_json());
+      report.json = json::parse(route::demo_route_json()).value;
     } else {
       std::fputs(std::string(route::demo_route_json()).c_str(), stdout);
     }

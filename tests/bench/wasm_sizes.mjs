@@ -74,7 +74,7 @@ const GROUPS = [
   ['ImGui: stb_truetype (font rasteriser)', /stbtt/],
   ['ImGui: stb_textedit, stb_rect_pack', /stb_|stbrp|STB_TEXTEDIT/],
   ['ImGui: backends (GLFW, OpenGL3)', /ImGui_Impl/],
-  ['nlohmann::json (team profile files)', /nlohmann::/],
+  ['firn::json (its own files: profile, route, record, saved state)', /firn::json::/],
   ['Firn: ui (core/ui)', /firn::ui::/],
   ['Firn: web runner and platform (web/)', /firn::web::|firn_/],
   ['Firn: model (core/model)', /firn::/],

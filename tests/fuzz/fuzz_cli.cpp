@@ -17,6 +17,8 @@
 #include <string>
 #include <vector>
 
+#include <nlohmann/json.hpp>  // the reference reader judges what Firn's writer printed
+
 #include "cli/cli.hpp"
 #include "fuzz_checks.hpp"
 #include "profile/team_profile.hpp"
@@ -144,7 +146,7 @@ extern "C" int LLVMFuzzerTestOneInput(const uint8_t* bytes, size_t size) {
                 w.rfind("--help", 0) == 0 || w.rfind("--version", 0) == 0;
   }
   if (wants_json && !asks_help && code != -1) {
-    firn::fuzz::require(firn::cli::Json::accept(printed), "--json printed no JSON: " + printed);
+    firn::fuzz::require(nlohmann::json::accept(printed), "--json printed no JSON: " + printed);
   }
   if (!firn::fuzz::has_non_finite_text(input)) {
     firn::fuzz::require_clean_text(printed, "CLI output");
