@@ -1,5 +1,7 @@
 #include "native_platform.hpp"
 
+#include "ui/test_hook.hpp"
+
 #include <cstdlib>
 #include <filesystem>
 #include <fstream>
@@ -102,12 +104,10 @@ std::string NativePlatform::offer_download(std::string_view file_name, std::stri
   return save_text(file_name, text) ? path_for(file_name) : std::string();
 }
 
-void NativePlatform::publish_test_items(std::string_view json) { last_test_items_ = json; }
-
 void NativePlatform::write_test_items() const {
   if (test_items_path_.empty()) return;
   std::ofstream out(test_items_path_, std::ios::binary | std::ios::trunc);
-  out << last_test_items_;
+  out << ui::test_hook::frame_json();  // the last frame's
 }
 
 }  // namespace firn::native

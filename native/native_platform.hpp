@@ -16,7 +16,6 @@ class NativePlatform final : public ui::Platform {
   std::optional<std::string> load_text(std::string_view key) override;
   bool save_text(std::string_view key, std::string_view text) override;
   bool open_html_document(std::string_view title, std::string_view html) override;
-  void publish_test_items(std::string_view json) override;
   std::string_view name() const override { return "native"; }
   // A typed path (empty: <config dir>/team-profile-import.json); read at once.
   bool request_file_import(std::string_view path, std::string_view default_name) override;
@@ -33,7 +32,6 @@ class NativePlatform final : public ui::Platform {
   std::string path_for(std::string_view key) const;
   std::string config_dir_;
   std::string test_items_path_;
-  std::string last_test_items_;
   std::optional<ui::ImportedFile> imported_;
 };
 

@@ -1,5 +1,7 @@
 #include "web_platform.hpp"
 
+#include "ui/test_hook.hpp"
+
 #include <emscripten.h>
 
 #include <cctype>
@@ -98,12 +100,17 @@ EM_JS(int, firn_js_offer_download, (const char* name, const char* text, const ch
   }
 });
 
-EM_JS(void, firn_js_publish_test_items, (const char* json), {
-  try {
-    window.firnTestItems = JSON.parse(UTF8ToString(json));
-  } catch (e) {
-    window.firnTestItems = [];
-  }
+// window.firnTestItems: the last frame's items, made from the wasm only when a test reads them.
+EM_JS(void, firn_js_publish_test_items, (), {
+  if (window.firnTestItemsInstalled) return;
+  window.firnTestItemsInstalled = true;
+  Object.defineProperty(window, 'firnTestItems', {configurable: true, get: function() {
+    try {
+      return JSON.parse(UTF8ToString(Module['_firn_test_items_json']()));
+    } catch (e) {
+      return [];
+    }
+  }});
 });
 
 EM_JS(void, firn_js_report_start_problem, (const char* kind), {
@@ -164,9 +171,7 @@ bool WebPlatform::open_html_document(std::string_view title, std::string_view ht
                                 text.c_str(), "text/html") != 0;
 }
 
-void WebPlatform::publish_test_items(std::string_view json) {
-  firn_js_publish_test_items(std::string(json).c_str());
-}
+void WebPlatform::publish_test_items() { firn_js_publish_test_items(); }
 
 bool WebPlatform::request_file_import(std::string_view, std::string_view) {
   return firn_js_request_file_import(this) != 0;
@@ -202,4 +207,11 @@ extern "C" EMSCRIPTEN_KEEPALIVE void firn_file_imported(void* platform, const ch
                                                        const char* text, const char* error) {
   if (platform == nullptr) return;
   static_cast<firn::web::WebPlatform*>(platform)->file_imported({name, text, error});
+}
+
+// The last frame's test items as JSON, for window.firnTestItems (valid until the next call).
+extern "C" EMSCRIPTEN_KEEPALIVE const char* firn_test_items_json() {
+  static std::string json;
+  json = firn::ui::test_hook::frame_json();
+  return json.c_str();
 }

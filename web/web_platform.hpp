@@ -14,7 +14,7 @@ class WebPlatform final : public ui::Platform {
   std::optional<std::string> load_text(std::string_view key) override;
   bool save_text(std::string_view key, std::string_view text) override;
   bool open_html_document(std::string_view title, std::string_view html) override;
-  void publish_test_items(std::string_view json) override;
+  void publish_test_items() override;
   std::string_view name() const override { return "web"; }
   // The browser's file picker; the chosen file's text arrives through firn_file_imported().
   bool request_file_import(std::string_view path, std::string_view default_name) override;

@@ -281,8 +281,10 @@ void write_number(std::string& out, double d) {
     out += "null";
     return;
   }
+  // From 15 digits: a double that reads back from fewer prints the same at 15 (%g drops the
+  // trailing zeros), and the saved state is written after every gesture.
   char buffer[32];
-  for (int precision = 1; precision <= 17; ++precision) {
+  for (int precision = 15; precision <= 17; ++precision) {
     std::snprintf(buffer, sizeof buffer, "%.*g", precision, d);
     if (std::strtod(buffer, nullptr) == d) break;
   }

@@ -67,6 +67,7 @@ struct Leg {
   // Bag legs: oxygen fed into the bag (free gas), and the fresh-air flush that carries it.
   VolumeFlow bag_oxygen_feed = units::litres_per_minute(0.0);
   std::optional<VolumeFlow> bag_flush;
+  bool operator==(const Leg&) const = default;
 };
 
 struct Casualty {
@@ -77,6 +78,7 @@ struct Casualty {
   cascade::Exposure exposure = cascade::Exposure::Acute;  // acute predicts less oxygen
   Fraction target = units::percent(supplemental_oxygen::kDefaultTargetPercent);
   supplemental_oxygen::Device device = supplemental_oxygen::Device::NasalCannula;
+  bool operator==(const Casualty&) const = default;
 };
 
 // One cylinder on hand (its type from the team profile).
@@ -86,6 +88,7 @@ struct StockCylinder {
   Volume water_capacity;
   GaugePressure gauge;      // as read now, at the route's start altitude
   Temperature temperature = cylinder::assumed_temperature;
+  bool operator==(const StockCylinder&) const = default;
 };
 
 struct Stock {
@@ -99,6 +102,7 @@ struct Stock {
   std::string count_in_label;
   Volume count_in_water_capacity;
   GaugePressure count_in_fill_gauge;
+  bool operator==(const Stock&) const = default;
 };
 
 struct RouteInput {
@@ -114,6 +118,7 @@ struct RouteInput {
   std::optional<int> start_clock_min;  // minutes after midnight: swap times as clock times
   // Hyperbaric bag settings for bag legs (the team profile's bag gauge pressure).
   GaugePressure bag_gauge = units::psi.gauge(2.0);
+  bool operator==(const RouteInput&) const = default;
 };
 
 // [SECTION] The casualty's need at one pressure: the one place an individual estimate plugs in.

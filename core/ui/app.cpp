@@ -251,7 +251,7 @@ void draw_frame(AppState& state, Platform& platform, float width, float height) 
     save_route_if_changed(state.route, platform);
   }
 #if FIRN_TEST_HOOKS
-  platform.publish_test_items(test_hook::frame_json());
+  platform.publish_test_items();
 #endif
 }
 

@@ -6,6 +6,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <optional>
 #include <string>
 
 #include "model/clock.hpp"
@@ -251,9 +252,21 @@ void draw_cylinder_bars(const AppState& state, const route::RouteInput& in, cons
                       {mark, "a change of cylinder"}});
 }
 
+// The plan of the route on screen, made again only when its input changed: planning takes ~3 ms
+// natively (more in the page) and the screen redraws at every finger move (docs/BENCHMARKS.md).
+const Result<route::RoutePlan>& current_plan(const route::RouteInput& in) {
+  static std::optional<route::RouteInput> planned_for;
+  static Result<route::RoutePlan> plan = Error{""};
+  if (planned_for != in) {
+    plan = route::plan_route(in);
+    planned_for = in;
+  }
+  return plan;
+}
+
 void draw_result(AppState& state) {
   const route::RouteInput& in = state.route.input;
-  Result<route::RoutePlan> plan = route::plan_route(in);
+  const Result<route::RoutePlan>& plan = current_plan(in);
   if (!plan) {
     result_error(state.display, "Oxygen to arrival", plan.error().message);
     return;

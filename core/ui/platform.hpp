@@ -64,9 +64,10 @@ class Platform {
     return (void)title, std::string();
   }
 
-  // Published to UI tests (web: window.firnTestItems; native: --test-items FILE). Only called
-  // when FIRN_TEST_HOOKS is on.
-  virtual void publish_test_items(std::string_view json) = 0;
+  // After each frame when FIRN_TEST_HOOKS is on: the frame's items (test_hook::frame_json()) are
+  // there for UI tests until the next frame (web: window.firnTestItems, made only when a test
+  // reads it; native: --test-items FILE at exit). Nothing is built per frame: the hooks ship.
+  virtual void publish_test_items() {}
 
   // "native" or "web": shown in About, used to word platform-specific hints.
   virtual std::string_view name() const = 0;

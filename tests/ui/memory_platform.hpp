@@ -48,7 +48,6 @@ class MemoryPlatform : public Platform {
     return storage_location() + "/" + std::string(file_name);
   }
   bool open_html_document(std::string_view, std::string_view) override { return false; }
-  void publish_test_items(std::string_view) override {}
   std::string_view name() const override { return "test"; }
 
  private:

@@ -28,7 +28,6 @@ class FlakyStorage : public Platform {
     return true;
   }
   bool open_html_document(std::string_view, std::string_view) override { return false; }
-  void publish_test_items(std::string_view) override {}
   std::string_view name() const override { return "test"; }
 };
 
