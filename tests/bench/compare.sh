@@ -69,7 +69,7 @@ quiet build-web cmake --build $web --target firn_site -j "$jobs"
 [ -f $bare/CMakeCache.txt ] || quiet configure-bare emcmake cmake -S tests/bench/bare -B $bare -DCMAKE_BUILD_TYPE=Release
 quiet build-bare cmake --build $bare -j "$jobs"
 [ -f $native/CMakeCache.txt ] || quiet configure-native cmake -S . -B $native -DCMAKE_BUILD_TYPE=Release
-quiet build-native cmake --build $native --target firn_bench -j "$jobs"
+quiet build-native cmake --build $native --target firn_bench firn_frame_bench -j "$jobs"
 echo "built in $(( $(date +%s) - start )) s"
 echo "Firn link:  $(sed -e 's/ @.*//' -e 's/^[^ ]* //' $web/web/CMakeFiles/firn.dir/link.txt)"
 echo "bare link:  $(sed -e 's/ @.*//' -e 's/^[^ ]* //' $bare/CMakeFiles/bare.dir/link.txt)"
@@ -94,6 +94,7 @@ node tests/bench/page_bench.mjs --firn $web/site --bare $bare/site --loads "$loa
 echo
 echo "== 3. core (native, Release, g++; one thread)"
 $native/tests/firn_bench
+$native/tests/firn_frame_bench
 
 if [ "$experiments" = 1 ]; then
   echo
