@@ -41,6 +41,7 @@ struct Casualty {
   cascade::Acclimatisation acclimatisation;
   Fraction spo2_on_air;  // 30…100 %, measured at rest on room air here
   Breathing breathing = Breathing::Rest;
+  bool operator==(const Casualty&) const = default;
 };
 
 struct Shunt {

@@ -40,6 +40,7 @@ std::string_view exposure_key(Exposure exposure);  // "acute" / "acclimatised"
 // τ = 2 days, scaled to reach 1 at 21 days. Time counts at (or above) this altitude.
 struct Acclimatisation {
   double share = 0.0;
+  bool operator==(const Acclimatisation&) const = default;
 };
 inline constexpr double kAcclimatisationTimeConstantDays = 2.0;
 inline constexpr double kFullyAcclimatisedDays = 21.0;

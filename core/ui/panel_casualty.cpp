@@ -19,6 +19,7 @@
 #include "model/supplemental_oxygen.hpp"
 #include "ui/fields.hpp"
 #include "ui/format.hpp"
+#include "ui/memo.hpp"
 #include "ui/plot.hpp"
 #include "ui/situation.hpp"
 #include "ui/test_hook.hpp"
@@ -164,6 +165,13 @@ casualty_oxygen::Casualty situation_casualty(const AppState& state, Pressure pb)
   return {pb, situation_acclimatisation(state), state.situation.spo2, situation_breathing(state)};
 }
 
+// casualty_oxygen::lowest_flow on one device, remembered for the three devices (ui/memo.hpp):
+// it predicts every flowmeter step, and two parts of this screen ask for it.
+Result<casualty_oxygen::CasualtyFlow> casualty_flow(const casualty_oxygen::Casualty& c, o2::Device d) {
+  static Memo<std::pair<casualty_oxygen::Casualty, o2::Device>, Result<casualty_oxygen::CasualtyFlow>, 3> flows;
+  return flows.get({c, d}, [](const auto& key) { return casualty_oxygen::lowest_flow(key.first, key.second); });
+}
+
 // The first flow for this casualty (estimate) on the chosen device, or the first device that
 // reaches the target.
 void start_flow_line(AppState& state) {
@@ -176,7 +184,7 @@ void start_flow_line(AppState& state) {
   }
   std::optional<casualty_oxygen::CasualtyFlow> best;
   for (o2::Device d : order) {
-    Result<casualty_oxygen::CasualtyFlow> f = casualty_oxygen::lowest_flow(situation_casualty(state, pb.value()), d);
+    Result<casualty_oxygen::CasualtyFlow> f = casualty_flow(situation_casualty(state, pb.value()), d);
     if (f && f->reachable) {
       result_value(state.display, "Start oxygen at (estimate)",
                    std::string(o2::device_name(d)) + " " + flow_text(f->flow) + ", then titrate to the oximeter",
@@ -329,7 +337,7 @@ void draw_casualty_flows(AppState& state) {
   if (!pb) return;
   heading("Oxygen for this casualty (estimate from the SpO2 on air)");
   for (o2::Device d : {o2::Device::NasalCannula, o2::Device::SimpleMask, o2::Device::NonRebreather}) {
-    Result<casualty_oxygen::CasualtyFlow> f = casualty_oxygen::lowest_flow(situation_casualty(state, pb.value()), d);
+    Result<casualty_oxygen::CasualtyFlow> f = casualty_flow(situation_casualty(state, pb.value()), d);
     std::string label = "For SpO2 > 90 %, " + std::string(o2::device_name(d));
     std::string text = !f ? std::string("\xE2\x80\x94")
                        : f->reached_on_air ? std::string("reached on air")

@@ -6,7 +6,6 @@
 
 #include <algorithm>
 #include <cmath>
-#include <optional>
 #include <string>
 
 #include "model/clock.hpp"
@@ -15,6 +14,7 @@
 #include "ui/fields.hpp"
 #include "ui/file_exchange.hpp"
 #include "ui/format.hpp"
+#include "ui/memo.hpp"
 #include "ui/plot.hpp"
 #include "ui/route_store.hpp"
 #include "ui/test_hook.hpp"
@@ -252,21 +252,15 @@ void draw_cylinder_bars(const AppState& state, const route::RouteInput& in, cons
                       {mark, "a change of cylinder"}});
 }
 
-// The plan of the route on screen, made again only when its input changed: planning takes ~3 ms
-// natively (more in the page) and the screen redraws at every finger move (docs/BENCHMARKS.md).
-const Result<route::RoutePlan>& current_plan(const route::RouteInput& in) {
-  static std::optional<route::RouteInput> planned_for;
-  static Result<route::RoutePlan> plan = Error{""};
-  if (planned_for != in) {
-    plan = route::plan_route(in);
-    planned_for = in;
-  }
-  return plan;
+// The plan of the route on screen, made again only when its input changed (ui/memo.hpp).
+Result<route::RoutePlan> current_plan(const route::RouteInput& in) {
+  static Memo<route::RouteInput, Result<route::RoutePlan>> plans;
+  return plans.get(in, route::plan_route);
 }
 
 void draw_result(AppState& state) {
   const route::RouteInput& in = state.route.input;
-  const Result<route::RoutePlan>& plan = current_plan(in);
+  const Result<route::RoutePlan> plan = current_plan(in);
   if (!plan) {
     result_error(state.display, "Oxygen to arrival", plan.error().message);
     return;
