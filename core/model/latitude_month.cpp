@@ -16,12 +16,40 @@ constexpr double kAltitudeStepM = 1000.0;
 constexpr double kRatioScale = 1e5;
 
 // NRLMSISE-00 / West 1996 × 1e5; rows (month − 1)·37 + latitude index, columns altitude index.
-constexpr std::int32_t kRatio[12 * kLatitudeNodes][kAltitudeNodes] = {
+// Read only at compile time: the program keeps each value less kRatioOffset in 16 bits (every
+// value lies in 60000…125535, checked at compile time), half the bytes of the table in the page.
+constexpr int kRows = 12 * kLatitudeNodes;
+constexpr std::int32_t kRatioTable[kRows][kAltitudeNodes] = {
 #include "model/latitude_month_table.inc"
 };
+constexpr std::int32_t kRatioOffset = 60000;
+
+constexpr bool fits_16_bits() {
+  for (const auto& row : kRatioTable) {
+    for (std::int32_t value : row) {
+      if (value < kRatioOffset || value - kRatioOffset > 0xFFFF) return false;
+    }
+  }
+  return true;
+}
+static_assert(fits_16_bits(), "a latitude table value does not fit 16 bits above kRatioOffset");
+
+struct PackedRatios {
+  std::uint16_t values[kRows][kAltitudeNodes];
+};
+constexpr PackedRatios pack_ratios() {
+  PackedRatios packed{};
+  for (int r = 0; r < kRows; ++r) {
+    for (int a = 0; a < kAltitudeNodes; ++a) {
+      packed.values[r][a] = static_cast<std::uint16_t>(kRatioTable[r][a] - kRatioOffset);
+    }
+  }
+  return packed;
+}
+constexpr PackedRatios kRatio = pack_ratios();
 
 double table_ratio(int month, int lat_index, int alt_index) {
-  return kRatio[(month - 1) * kLatitudeNodes + lat_index][alt_index] / kRatioScale;
+  return (kRatio.values[(month - 1) * kLatitudeNodes + lat_index][alt_index] + kRatioOffset) / kRatioScale;
 }
 
 // Linear between nodes in latitude and altitude (the ratio is smooth in both; within 0.1 % of
