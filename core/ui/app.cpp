@@ -65,6 +65,9 @@ bool update_fonts(AppState& state) {
   if (std::fabs(scale - state.built_font_scale) < 0.01f) return false;
   ImGuiIO& io = ImGui::GetIO();
   io.Fonts->Clear();
+  // The atlas exactly as tall as its glyphs (not the next power of two: GL ES 3 and WebGL 2 take
+  // any size), and no software mouse cursors (the system draws them): less to upload at start.
+  io.Fonts->Flags |= ImFontAtlasFlags_NoPowerOfTwoHeight | ImFontAtlasFlags_NoMouseCursors;
   add_font(assets::ui_font_regular(), std::round(kBaseFontPx * scale), glyph_ranges(),
            state.display.pixel_ratio);
   state.display.font_large = add_font(assets::ui_font_bold(), std::round(kBaseFontPx * kLargeFontEm * scale),
