@@ -176,8 +176,10 @@ struct OxygenInputs {
   bool evacuation_entered = false;
   units::Duration evacuation = units::hours(4.0);
   // A first phase at another flow: none until entered (a default one would change the verdict
-  // either way, depending on the flow after it).
-  units::VolumeFlow first_flow = units::litres_per_minute(8.0);
+  // either way, depending on the flow after it). Its flow is empty until entered too: a phase
+  // given a time but no flow makes no plan.
+  bool first_flow_entered = false;
+  units::VolumeFlow first_flow = units::litres_per_minute(8.0);  // meaningful when entered
   units::Duration first_phase = units::hours(0.0);
 };
 

@@ -29,6 +29,8 @@ constexpr std::string_view kGaugeFirst = "Read the cylinder gauge and enter it: 
 constexpr std::string_view kFlowFirst = "Enter the flow: no duration without it";
 constexpr std::string_view kTimeFirst = "Enter the evacuation time: no plan without it";
 constexpr std::string_view kCountFirst = "Enter how many cylinders: no plan without it";
+constexpr std::string_view kFirstFlowFirst =
+    "Enter the starting flow, or set how long it lasts to 0: no plan without it";
 
 void draw_timeline(const AppState& state, const evacuation::PlanInput& input,
                    const evacuation::EvacuationPlan& plan) {
@@ -201,7 +203,9 @@ void draw_plan(AppState& state, Pressure ambient, const CylinderInHand& chosen) 
   heading("Evacuation plan (cylinders like this one, used in turn)");
   int_stepper(state.display, "Cylinders", "plan-count", &in.cylinder_count, 1, OxygenInputs::kMaxCylinders,
               &in.count_entered);
-  edit_quantity(state, flow_field("Starting flow", "plan-first-flow", cylinder::max_flow_lpm), in.first_flow);
+  QuantityField<VolumeFlowDimension> first_flow = flow_field("Starting flow", "plan-first-flow", cylinder::max_flow_lpm);
+  first_flow.entered = &in.first_flow_entered;
+  edit_quantity(state, first_flow, in.first_flow);
   edit_quantity(state, duration_field("Starting flow lasts", "plan-first-time", 0, 4320), in.first_phase);
   QuantityField<DurationDimension> time = duration_field("Evacuation time", "plan-time", 1, 4320);
   time.entered = &in.evacuation_entered;
@@ -211,6 +215,7 @@ void draw_plan(AppState& state, Pressure ambient, const CylinderInHand& chosen) 
   std::optional<std::string_view> missing = missing_for_duration(state);
   if (!missing && !in.count_entered) missing = kCountFirst;
   if (!missing && !in.evacuation_entered) missing = kTimeFirst;
+  if (!missing && in.first_phase.in(minutes) > 0.0 && !in.first_flow_entered) missing = kFirstFlowFirst;
   if (missing) {
     verdict_line(state.display, Tone::Neutral, std::string(*missing));
     return;

@@ -171,6 +171,7 @@ std::string use_evacuation_section(const tp::TeamProfile& p, OxygenInputs& in) {
   const evacuation::FlowPhase& first = plan.phases.front();
   bool timed_start = plan.phases.size() > 1 && first.duration.has_value();
   in.first_flow = first.flow;
+  in.first_flow_entered = timed_start;
   in.first_phase = timed_start ? *first.duration : minutes(0.0);
   in.flow = plan.phases.back().flow;
   std::string taken = "plan " + duration_text(in.evacuation) + ", " + std::to_string(in.cylinder_count) +

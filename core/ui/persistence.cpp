@@ -165,6 +165,7 @@ std::string state_to_json(const AppState& state) {
                  {"cylinders", o.cylinder_count},
                  {"evacuation_entered", o.evacuation_entered},
                  {"evacuation_min", o.evacuation.in(minutes)},
+                 {"first_flow_entered", o.first_flow_entered},
                  {"first_flow_lpm", o.first_flow.in(litres_per_minute)},
                  {"first_phase_min", o.first_phase.in(minutes)}};
   const AmsInputs& a = state.ams;
@@ -262,6 +263,7 @@ bool state_from_json(AppState& state, const std::string& text) {
   read(o, "cylinders", 1, OxygenInputs::kMaxCylinders, ox.cylinder_count);
   read(o, "evacuation_entered", ox.evacuation_entered);
   read(o, "evacuation_min", minutes, 1, 4320, ox.evacuation);
+  read(o, "first_flow_entered", ox.first_flow_entered);  // older saves: empty again
   read(o, "first_flow_lpm", litres_per_minute, 0, 30, ox.first_flow);
   read(o, "first_phase_min", minutes, 0, 4320, ox.first_phase);
   if (!ox.evacuation_entered) ox.first_phase = minutes(0.0);  // an old save's default 1 h

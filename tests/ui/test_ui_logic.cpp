@@ -270,6 +270,17 @@ TEST_CASE("Oxygen: the cylinder gauge starts empty; no duration and no plan unti
   CHECK(state.oxygen.cylinder_temperature == cylinder::assumed_temperature);
   CHECK(ui.text(state, "Cylinder temperature assumed").find("counted at 15 \xC2\xB0" "C") != std::string::npos);
   CHECK(ui.text(state, "Verdict").rfind("NO VERDICT", 0) != 0);
+  // A starting phase given a time but no flow: no plan from the old 8 L/min nobody entered.
+  CHECK(ui.text(state, "Starting flow").find("enter") != std::string::npos);
+  ui.click(state, "Starting flow lasts");
+  for (const char* k : {"Key 3", "Key 0", "Key OK"}) ui.click(state, k);
+  REQUIRE(state.oxygen.first_phase.in(units::minutes) > 0.0);
+  CHECK(ui.text(state, "Verdict").rfind("NO VERDICT: Enter the starting flow", 0) == 0);
+  ui.click(state, "Starting flow");
+  for (const char* k : {"Key 6", "Key OK"}) ui.click(state, k);
+  REQUIRE(state.oxygen.first_flow_entered);
+  CHECK(state.oxygen.first_flow.in(units::litres_per_minute) == Approx(6.0));
+  CHECK(ui.text(state, "Verdict").rfind("NO VERDICT", 0) != 0);
 }
 
 TEST_CASE("Team: 'Use on Oxygen' takes the profile's usual carry-out through plan_input, as firn plan does") {
@@ -291,6 +302,7 @@ TEST_CASE("Team: 'Use on Oxygen' takes the profile's usual carry-out through pla
   CHECK(in.flow_entered);        // the user chose the team's usual carry-out:
   CHECK(in.count_entered);       // its flow, cylinders and time count as entered
   CHECK(in.evacuation_entered);
+  CHECK(in.first_flow_entered);  // the demo starts with a timed flow
   CHECK(in.gauge_entered);
   CHECK(in.gauge_read_at == 0);  // a full cylinder by choice, not a reading the Record screen times
   CHECK(ui.text(state, "Team message").find("plan 6 h") != std::string::npos);
