@@ -5,6 +5,8 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdint>
+#include <type_traits>
 
 #include "assets.hpp"
 #include "model/cautions.hpp"
@@ -27,25 +29,11 @@ namespace {
 constexpr float kBaseFontPx = 18.0f;  // 1 em at pixel ratio 1, day theme
 constexpr float kLargeFontEm = 1.9f;  // results
 
-const ImWchar* glyph_ranges() {
-  // Latin-1 + Latin Extended-A, Greek (µ), punctuation, sub/superscripts, arrows, ≈ ≤ ≥, ▲▼.
-  static const ImWchar ranges[] = {0x0020, 0x017F, 0x0391, 0x03C9, 0x2013, 0x2030,
-                                   0x2070, 0x209F, 0x2190, 0x2195, 0x2212, 0x2212,
-                                   0x2248, 0x2248, 0x2260, 0x2265, 0x25B2, 0x25BC, 0};
-  return ranges;
-}
-
-// The large face shows computed results and typed values only, never a team's own words:
-// ASCII and the symbols results are written with (a scan of every string in core/: no accented
-// letter), so its atlas is a third smaller and a phone starts sooner (docs/BENCHMARKS.md).
-const ImWchar* large_glyph_ranges() {
-  // The same set as FIRN_FONT_BOLD_UNICODES in assets/CMakeLists.txt (the face is cut to it).
-  static const ImWchar ranges[] = {0x0020, 0x007E, 0x00A0, 0x00A0, 0x00B0, 0x00B3, 0x00B5, 0x00B5,
-                                   0x00B7, 0x00B7, 0x00D7, 0x00D7, 0x2013, 0x2014, 0x2018, 0x201E,
-                                   0x2022, 0x2022, 0x2026, 0x2026, 0x2030, 0x2030, 0x2190, 0x2195,
-                                   0x2212, 0x2212, 0x2248, 0x2248, 0x2260, 0x2265, 0x25B2, 0x25BC, 0};
-  return ranges;
-}
+// The characters each face carries are stated once, in assets/CMakeLists.txt: regular has
+// Latin-1 and Latin Extended-A for names, Greek, sub/superscripts, arrows, ≈ ≤ ≥, ▲▼; bold (large
+// results and typed values, computed text only) ASCII and the symbols results use, so its atlas
+// is small and a phone starts sooner (docs/BENCHMARKS.md).
+static_assert(std::is_same_v<ImWchar, std::uint16_t>, "ImGui glyph ranges are 16-bit here");
 
 ImFont* add_font(std::span<const unsigned char> bytes, float size_px, const ImWchar* ranges,
                  float pixel_ratio) {
@@ -68,10 +56,10 @@ bool update_fonts(AppState& state) {
   // The atlas exactly as tall as its glyphs (not the next power of two: GL ES 3 and WebGL 2 take
   // any size), and no software mouse cursors (the system draws them): less to upload at start.
   io.Fonts->Flags |= ImFontAtlasFlags_NoPowerOfTwoHeight | ImFontAtlasFlags_NoMouseCursors;
-  add_font(assets::ui_font_regular(), std::round(kBaseFontPx * scale), glyph_ranges(),
+  add_font(assets::ui_font_regular(), std::round(kBaseFontPx * scale), assets::ui_font_regular_ranges(),
            state.display.pixel_ratio);
   state.display.font_large = add_font(assets::ui_font_bold(), std::round(kBaseFontPx * kLargeFontEm * scale),
-                                      large_glyph_ranges(), state.display.pixel_ratio);
+                                      assets::ui_font_bold_ranges(), state.display.pixel_ratio);
   io.Fonts->Build();
   state.built_font_scale = scale;
   apply_theme(state.settings.theme, state.display.pixel_ratio, state.settings.night_dim);

@@ -157,7 +157,9 @@ void result_value(const DisplayMetrics& display, const char* label, const std::s
     // (a long cascade or a range must never run off the right edge of a phone).
     dim_wrapped_text(label);  // a long label wraps on a 360 px phone, never clipped
     float needed = ImGui::CalcTextSize(shown.c_str()).x + ImGui::GetStyle().ItemSpacing.x;
-    if (ImGui::GetItemRectMax().x + needed <= ImGui::GetWindowPos().x + ImGui::GetWindowContentRegionMax().x) {
+    // The edge of the column it is in (a table cell on the wide Teaching screen), not the
+    // window's: measured against the window, a 900 px Teaching screen broke "mmHg" in two.
+    if (ImGui::GetItemRectMax().x + needed <= ImGui::GetWindowPos().x + ImGui::GetContentRegionMax().x) {
       ImGui::SameLine();
     }
     wrapped_text(shown);

@@ -379,6 +379,23 @@ TEST_CASE("Teaching: landmarks to the highest summit, arrow keys step 50 m, extr
   CHECK(state.teaching.altitude.in(units::metres) == 0.0);  // clamped at sea level
 }
 
+TEST_CASE("A secondary result too long for its column's line goes under its label, whole words") {
+  // Seen in a 900 px screenshot of Teaching: the cascade sat beside its label, measured against
+  // the window instead of its table column, and wrapped inside "mmHg". Common practice: a value
+  // that does not fit beside its label starts on its own line.
+  Headless ui;
+  ui.panel = draw_teaching_panel;
+  AppState state;
+  ImGui::GetIO().DisplaySize = ImVec2(900, 900);  // the three-column Teaching layout
+  bool found = false;
+  for (const auto& i : ui.frame(state)) {
+    if (i["label"] != "Cascade, acclimatised") continue;
+    found = true;
+    CHECK(i["x"].get<float>() < 20.0f);  // at the column's left edge, not after the label
+  }
+  CHECK(found);
+}
+
 TEST_CASE("Casualty: the time at altitude starts empty; the verdict meanwhile holds for any time") {
   // A value nobody entered is visibly empty and produces no verdict (the brief's safety rules):
   // the SpO2 verdict is then the less reassuring of on arrival and after 3 weeks (casualty_spo2),
