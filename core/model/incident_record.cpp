@@ -236,9 +236,6 @@ class EntryReader {
   std::vector<std::string>& problems_;
 };
 
-constexpr std::string_view kKnownEntryFields[] = {
-    "time", "kind", "altitude", "spo2", "on", "flow", "heart_rate", "breathing_rate", "avpu",
-    "lake_louise", "criteria", "bag_gauge", "note"};
 
 std::optional<Breathing> read_breathing(EntryReader& r) {
   std::optional<std::string> on = r.text("on", 20);
@@ -268,11 +265,9 @@ std::optional<Entry> read_entry(const Json& value, const std::string& path,
   }
   size_t before = problems.size();
   EntryReader r(value, path, problems);
-  for (const json::Member& m : value.members()) {
-    if (std::find(std::begin(kKnownEntryFields), std::end(kKnownEntryFields), m.first) ==
-        std::end(kKnownEntryFields)) {
-      r.fail(m.first, "unknown field (a typo?)");
-    }
+  for (const std::string& key : json::unknown_keys(value, {"time", "kind", "altitude", "spo2", "on",
+           "flow", "heart_rate", "breathing_rate", "avpu", "lake_louise", "criteria", "bag_gauge", "note"})) {
+    r.fail(key, "unknown field (a typo?)");
   }
   Entry e;
   if (std::optional<std::string> t = r.text("time", 40)) {
@@ -364,11 +359,8 @@ Result<Record> parse_record(std::string_view json_text) {
       *target = it->as_string();
     }
   }
-  for (const json::Member& m : root.members()) {
-    if (m.first != "firn_record" && m.first != "incident" && m.first != "casualty" &&
-        m.first != "entries") {
-      problems.push_back(m.first + ": unknown field (a typo?)");
-    }
+  for (const std::string& key : json::unknown_keys(root, {"firn_record", "incident", "casualty", "entries"})) {
+    problems.push_back(key + ": unknown field (a typo?)");
   }
   const Json* entries = root.find("entries");
   if (!entries || !entries->is_array()) {

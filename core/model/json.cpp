@@ -430,6 +430,14 @@ std::string Value::dump(int indent) const {
   return out;
 }
 
+std::vector<std::string> unknown_keys(const Value& object, std::initializer_list<std::string_view> known) {
+  std::vector<std::string> unknown;
+  for (const Member& m : object.members()) {
+    if (std::find(known.begin(), known.end(), m.first) == known.end()) unknown.push_back(m.first);
+  }
+  return unknown;
+}
+
 std::string shown(const Value& v) {
   constexpr std::size_t kMax = 40, kCut = 37;
   std::string text = v.dump();

@@ -91,6 +91,10 @@ class Value {
   std::vector<Member> members_;
 };
 
+// The keys of an object that are not in `known`, in the file's order: each file reader names
+// them as "unknown field (a typo?)".
+std::vector<std::string> unknown_keys(const Value& object, std::initializer_list<std::string_view> known);
+
 // A value as a file would write it, for messages: at most 40 bytes, cut between characters and
 // ending "..." when cut.
 std::string shown(const Value& v);

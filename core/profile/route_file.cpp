@@ -86,11 +86,7 @@ class Reader {
   }
 
   void only(const Json& obj, const std::string& path, std::initializer_list<std::string_view> known) {
-    for (const json::Member& m : obj.members()) {
-      bool listed = false;
-      for (std::string_view k : known) listed = listed || m.first == k;
-      if (!listed) fail(child(path, m.first), "unknown field (a typo?)");
-    }
+    for (const std::string& key : json::unknown_keys(obj, known)) fail(child(path, key), "unknown field (a typo?)");
   }
 
   const Json* find(const Json& obj, const std::string& path, std::string_view key, bool required,

@@ -13,15 +13,10 @@ std::optional<Json> migrate_v1(const Json& old, Problems& problems) {
       problems.lines.push_back(path + ": " + message);
     }
   } r{problems};
-  for (const json::Member& m : old.members()) {
-    bool listed = false;
-    for (std::string_view k : {"schema_version", "demo", "team_name", "altitude_unit",
-                              "card_altitudes", "model", "cylinders", "reserve_pressure_bar",
-                              "flows_lpm", "bag_gauge_psi", "pump_stroke_l", "co2_limit_pct",
-                              "notes"}) {
-      listed = listed || m.first == k;
-    }
-    if (!listed) r.fail(m.first, "unknown field in a schema 1 file (a typo?)");
+  for (const std::string& key : json::unknown_keys(old, {"schema_version", "demo", "team_name",
+           "altitude_unit", "card_altitudes", "model", "cylinders", "reserve_pressure_bar",
+           "flows_lpm", "bag_gauge_psi", "pump_stroke_l", "co2_limit_pct", "notes"})) {
+    r.fail(key, "unknown field in a schema 1 file (a typo?)");
   }
   // A v1 number at `key` becomes v2 text "<number><unit>", or a problem naming the v1 path.
   auto with_unit = [&](const Json& object, const std::string& path, std::string_view key,

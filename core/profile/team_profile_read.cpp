@@ -108,10 +108,8 @@ class Reader {
 
   void reject_unknown(const Json& object, const std::string& path,
                       std::initializer_list<std::string_view> known) {
-    for (const json::Member& m : object.members()) {
-      bool listed = false;
-      for (std::string_view k : known) listed = listed || m.first == k;
-      if (!listed) fail(child(path, m.first), "unknown field (a typo?)");
+    for (const std::string& key : json::unknown_keys(object, known)) {
+      fail(child(path, key), "unknown field (a typo?)");
     }
   }
 

@@ -151,6 +151,10 @@ TEST_CASE("Writing: escapes, layout, numbers that read back the same", "[json]")
   CHECK(Value(std::string("bad \xFF byte")).dump() == "\"bad \xEF\xBF\xBD byte\"");
   // A repeated key: the last value counts, as in the reference library.
   CHECK(parsed(R"({"a": 1, "b": 2, "a": 3})")["a"].as_integer() == 3);
+  // The keys a reader does not know, in the file's order (each file reader names them).
+  CHECK(firn::json::unknown_keys(parsed(R"({"zz": 1, "a": 2, "colour": 3})"), {"a", "b"}) ==
+        std::vector<std::string>{"zz", "colour"});
+  CHECK(firn::json::unknown_keys(parsed("[1]"), {"a"}).empty());  // not an object: no keys
 }
 
 TEST_CASE("Same verdict and same values as the reference library on broken and mended files",
