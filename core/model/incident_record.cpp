@@ -338,6 +338,9 @@ std::optional<Entry> read_entry(const Json& value, const std::string& path,
 
 Result<Record> parse_record(std::string_view json_text) {
   json::Parsed parsed = json::parse(json_text);
+  if (!parsed.ok && !parsed.error.limit.empty()) {
+    return Error{"the record file is not a Firn record: " + parsed.error.limit};
+  }
   if (!parsed.ok) return Error{"the record file is not valid JSON"};
   const Json& root = parsed.value;
   if (!root.is_object()) return Error{"the record file must hold one JSON object {…}"};

@@ -58,6 +58,7 @@ class Reader {
 
   Parsed read() {
     Parsed parsed;
+    if (text_.size() > kMaxTextBytes) return refused(0, "it is larger than 4 MB");
     skip_space();
     if (!value(parsed.value, 0)) return failed();
     skip_space();
@@ -74,6 +75,17 @@ class Reader {
     Parsed parsed;
     parsed.error = error_;
     return parsed;
+  }
+
+  Parsed refused(std::size_t at, std::string why) {
+    fail_at(at, at);
+    error_.limit = std::move(why);
+    return failed();
+  }
+  bool refuse(std::string why) {
+    fail_at(at_, at_);
+    error_.limit = std::move(why);
+    return false;
   }
 
   // The token from `start` through the character at `at` (the whole UTF-8 sequence there).
@@ -95,8 +107,8 @@ class Reader {
   bool value(Value& out, int depth) {
     if (at_ >= text_.size()) return fail_at(at_, at_);
     switch (text_[at_]) {
-      case '{': return depth < kMaxDepth ? object(out, depth + 1) : fail_at(at_, at_);
-      case '[': return depth < kMaxDepth ? array(out, depth + 1) : fail_at(at_, at_);
+      case '{': return depth < kMaxDepth ? object(out, depth + 1) : refuse("it is nested more than 256 deep");
+      case '[': return depth < kMaxDepth ? array(out, depth + 1) : refuse("it is nested more than 256 deep");
       case '"': {
         std::string s;
         if (!string(s)) return false;
@@ -136,6 +148,7 @@ class Reader {
       skip_space();
       Value member;
       if (!value(member, depth)) return false;
+      if (out.size() == kMaxMembers && !out.contains(key)) return refuse("an object has more than 256 fields");
       out[key] = std::move(member);  // a repeated key: the last one counts
       skip_space();
       if (next_is(',')) { ++at_; continue; }

@@ -104,6 +104,9 @@ std::string shown(const Value& v);
 struct SyntaxError {
   std::size_t offset = 0;
   std::string near;
+  // Empty for a syntax error; otherwise why a well-formed text was refused ("it is larger than
+  // 4 MB"): past the limits below, no Firn file, and reading on could hang or exhaust a phone.
+  std::string limit;
 };
 
 struct Parsed {
@@ -112,9 +115,13 @@ struct Parsed {
   SyntaxError error;  // meaningful when !ok
 };
 
-// One JSON value and nothing but whitespace after it. Nesting deeper than kMaxDepth is an error
-// (a file of a million '[' must not overflow the stack).
+// One JSON value and nothing but whitespace after it. Limits far above any Firn file (a record
+// of 2000 entries is ~300 KB; no object has 30 fields): deeper nesting would overflow the stack,
+// a larger text exhaust a phone's memory, a larger object take seconds (a repeated key is looked
+// up among the fields before it).
 inline constexpr int kMaxDepth = 256;
+inline constexpr std::size_t kMaxTextBytes = 4 * 1024 * 1024;
+inline constexpr std::size_t kMaxMembers = 256;
 Parsed parse(std::string_view text);
 
 }  // namespace firn::json

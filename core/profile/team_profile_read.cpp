@@ -580,6 +580,10 @@ std::optional<TeamProfile> read_current(const Json& root, Problems& problems) {
 // Parses text to JSON, reporting syntax errors with line and column.
 std::optional<Json> parse_json(std::string_view text, Problems& problems) {
   json::Parsed parsed = json::parse(text);
+  if (!parsed.ok && !parsed.error.limit.empty()) {
+    problems.lines.push_back("the file is not a Firn file: " + parsed.error.limit);
+    return std::nullopt;
+  }
   if (!parsed.ok) {
     size_t line = 1, column = 1;
     for (size_t i = 0; i < parsed.error.offset && i < text.size(); ++i) {

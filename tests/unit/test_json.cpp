@@ -129,6 +129,31 @@ TEST_CASE("Nesting past the limit is refused, not a stack overflow", "[json]") {
   CHECK_FALSE(accepts(std::string(1'000'000, '{')));
 }
 
+TEST_CASE("Texts past the limits are refused with the reason, quickly", "[json]") {
+  // A wrong file picked on a phone (a photo, a large export) must not hang or exhaust the page;
+  // Firn's own files stay far inside (limits in model/json.hpp, checked against the demo files).
+  std::string large = "[" + std::string(firn::json::kMaxTextBytes, ' ') + "]";
+  firn::json::Parsed p = firn::json::parse(large);
+  CHECK_FALSE(p.ok);
+  CHECK(p.error.limit == "it is larger than 4 MB");
+  std::string wide = "{";
+  for (std::size_t i = 0; i <= firn::json::kMaxMembers; ++i) wide += (i ? ",\"k" : "\"k") + std::to_string(i) + "\":0";
+  p = firn::json::parse(wide + "}");
+  CHECK_FALSE(p.ok);
+  CHECK(p.error.limit == "an object has more than 256 fields");
+  // 256 fields, each repeated: still read (a repeated key does not count twice).
+  std::string full = "{";
+  for (std::size_t i = 0; i < firn::json::kMaxMembers; ++i) full += (i ? ",\"k" : "\"k") + std::to_string(i) + "\":0";
+  CHECK(accepts(full + ",\"k0\":1}"));
+  p = firn::json::parse(std::string(300, '['));
+  CHECK(p.error.limit == "it is nested more than 256 deep");
+  CHECK(firn::json::parse("[1,]").error.limit.empty());  // a plain syntax error names no limit
+  // The messages users see.
+  firn::team_profile::Problems problems = firn::team_profile::check_profile(wide + "}");
+  REQUIRE_FALSE(problems.lines.empty());
+  CHECK(problems.lines.front() == "the file is not a Firn file: an object has more than 256 fields");
+}
+
 TEST_CASE("Writing: escapes, layout, numbers that read back the same", "[json]") {
   Value v = Value::object();
   v["text"] = "quote \" backslash \\ newline \n bell \x07 é";
