@@ -59,6 +59,8 @@ class Reader {
   Parsed read() {
     Parsed parsed;
     if (text_.size() > kMaxTextBytes) return refused(0, "it is larger than 4 MB");
+    // RFC 8259 §8.1 lets a reader ignore a leading byte order mark: Windows editors write one.
+    if (text_.substr(0, 3) == "\xEF\xBB\xBF") at_ = 3;
     skip_space();
     if (!value(parsed.value, 0)) return failed();
     skip_space();

@@ -106,6 +106,16 @@ TEST_CASE("RFC 8259 §6 and §7: numbers and strings, accepted and refused", "[j
   }
 }
 
+TEST_CASE("RFC 8259 §8.1: a leading byte order mark is ignored, as the reference library does", "[json]") {
+  // A team profile saved by a Windows editor starts with one; only at the start is it allowed.
+  CHECK(parsed("\xEF\xBB\xBF{\"a\": 1}")["a"].as_integer() == 1);
+  CHECK(Reference::parse("\xEF\xBB\xBF{\"a\": 1}", nullptr, false)["a"] == 1);
+  CHECK_FALSE(accepts("{\"a\": \xEF\xBB\xBF" "1}"));  // not inside the text
+  CHECK_FALSE(accepts("\xEF\xBB"));
+  std::string with_mark = "\xEF\xBB\xBF" + std::string(firn::team_profile::demo_profile_json());
+  CHECK(firn::team_profile::parse_profile(with_mark).ok());
+}
+
 TEST_CASE("A syntax error says where the text broke", "[json]") {
   std::string text = "{\n \"schema_version\": 2,\n oops\n}";
   firn::json::Parsed p = firn::json::parse(text);
