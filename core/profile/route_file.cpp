@@ -18,7 +18,6 @@ using team_profile::Problems;
 using team_profile::internal::child;
 using team_profile::internal::item;
 using team_profile::internal::Json;
-using team_profile::internal::json_shown;
 
 constexpr std::size_t kNameCharsMax = 60, kLabelCharsMax = 40;
 const std::string kRange = "\xE2\x80\xA6";  // "…"
@@ -68,13 +67,13 @@ class Reader {
 
   bool object(const Json& v, const std::string& path) {
     if (v.is_object()) return true;
-    fail(path, "must be an object {" + kRange + "}, got " + json_shown(v));
+    fail(path, "must be an object {" + kRange + "}, got " + json::shown(v));
     return false;
   }
 
   bool list(const Json& v, const std::string& path, std::size_t low, std::size_t high) {
     if (!v.is_array()) {
-      fail(path, "must be a list [" + kRange + "], got " + json_shown(v));
+      fail(path, "must be a list [" + kRange + "], got " + json::shown(v));
       return false;
     }
     if (v.size() < low || v.size() > high) {
@@ -101,7 +100,7 @@ class Reader {
     const Json* v = find(obj, path, key, required, example);
     if (!v) return std::nullopt;
     if (!v->is_string()) {
-      fail(child(path, key), "must be text in quotes, got " + json_shown(*v));
+      fail(child(path, key), "must be text in quotes, got " + json::shown(*v));
       return std::nullopt;
     }
     const std::string& s = v->as_string();
@@ -123,7 +122,7 @@ class Reader {
     if (!v) return std::nullopt;
     std::string where = child(path, key);
     if (!v->is_string()) {
-      fail(where, json_shown(*v) + " needs its unit, written as text like \"" +
+      fail(where, json::shown(*v) + " needs its unit, written as text like \"" +
                       std::string(example) + "\"");
       return std::nullopt;
     }
@@ -170,7 +169,7 @@ std::optional<int> clock_minutes(Reader& r, const Json& root) {
                                     &m, &tail) == 2 && h >= 0 && h < 24 && m >= 0 && m < 60) {
     return h * 60 + m;
   }
-  r.fail("start_time", json_shown(*v) + " is not a clock time 00:00" + kRange + "23:59 (\"07:30\")");
+  r.fail("start_time", json::shown(*v) + " is not a clock time 00:00" + kRange + "23:59 (\"07:30\")");
   return -1;
 }
 
@@ -405,7 +404,7 @@ std::optional<int> schema_version(Reader& r, const Json& root) {
       v->as_integer() > current_route_schema_version) {
     std::string newer = v->is_number_integer() && v->as_integer() > current_route_schema_version
                             ? " (written by a newer Firn: update Firn)" : "";
-    r.fail("schema_version", json_shown(*v) + " is outside 1" + kRange +
+    r.fail("schema_version", json::shown(*v) + " is outside 1" + kRange +
                                  std::to_string(current_route_schema_version) + newer);
     return std::nullopt;
   }
@@ -425,7 +424,7 @@ std::optional<RouteInput> read_root(Reader& r, const Json& root,
     if (root["demo"].is_boolean()) {
       in.demo = root["demo"].as_bool();
     } else {
-      r.fail("demo", "must be true or false, got " + json_shown(root["demo"]));
+      r.fail("demo", "must be true or false, got " + json::shown(root["demo"]));
       ok = false;
     }
   }

@@ -15,7 +15,6 @@ using Json = json::Value;
 // "card.altitude_to", "cylinders[2]": field paths as messages show them (0-based indices).
 std::string child(const std::string& path, std::string_view key);
 std::string item(const std::string& path, size_t index);
-std::string json_shown(const Json& value);  // a value as the file wrote it, shortened
 
 // Text → JSON object, with the line and column of a syntax error.
 std::optional<Json> parse_json(std::string_view text, Problems& problems);

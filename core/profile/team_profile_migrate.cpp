@@ -24,7 +24,7 @@ std::optional<Json> migrate_v1(const Json& old, Problems& problems) {
     const Json* found = object.find(key);
     if (!found) return Json();  // v2 parsing reports what is missing
     if (!found->is_number()) {
-      r.fail(child(path, key), "must be a number (schema 1), got " + json_shown(*found));
+      r.fail(child(path, key), "must be a number (schema 1), got " + json::shown(*found));
       return Json();
     }
     return Json(format_number(found->as_double(), 6) + std::string(unit));
@@ -41,7 +41,7 @@ std::optional<Json> migrate_v1(const Json& old, Problems& problems) {
     if (found->is_string() && (found->as_string() == "m" || found->as_string() == "ft")) {
       altitude_unit = found->as_string();
     } else {
-      r.fail("altitude_unit", json_shown(*found) + " must be \"m\" or \"ft\" (schema 1)");
+      r.fail("altitude_unit", json::shown(*found) + " must be \"m\" or \"ft\" (schema 1)");
     }
   }
   v2["units"] = altitude_unit == "ft" ? "us" : "metric";
@@ -78,7 +78,7 @@ std::optional<Json> migrate_v1(const Json& old, Problems& problems) {
     for (size_t i = 0; i < found->size(); ++i) {
       const Json& f = (*found)[i];
       if (!f.is_number()) {
-        r.fail(item("flows_lpm", i), "must be a number (schema 1), got " + json_shown(f));
+        r.fail(item("flows_lpm", i), "must be a number (schema 1), got " + json::shown(f));
         continue;
       }
       list.push_back(format_number(f.as_double(), 6) + "L/min");

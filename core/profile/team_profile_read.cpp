@@ -35,8 +35,6 @@ static std::string utf8_shown(std::string_view text, size_t max_bytes) {
   return out;
 }
 
-std::string json_shown(const Json& value) { return json::shown(value); }
-
 namespace {
 
 // "450bar" as the user wrote it, plus the value in the limit's unit when that differs.
@@ -89,13 +87,13 @@ class Reader {
 
   bool object(const Json& value, const std::string& path) {
     if (value.is_object()) return true;
-    fail(path, "must be an object {…}, got " + json_shown(value));
+    fail(path, "must be an object {…}, got " + json::shown(value));
     return false;
   }
 
   bool array(const Json& value, const std::string& path, size_t low, size_t high) {
     if (!value.is_array()) {
-      fail(path, "must be a list […], got " + json_shown(value));
+      fail(path, "must be a list […], got " + json::shown(value));
       return false;
     }
     if (value.size() < low || value.size() > high) {
@@ -124,7 +122,7 @@ class Reader {
   std::optional<std::string> text_value(const Json& value, const std::string& path,
                                         size_t low_chars, size_t max_chars) {
     if (!value.is_string()) {
-      fail(path, "must be text in quotes, got " + json_shown(value));
+      fail(path, "must be text in quotes, got " + json::shown(value));
       return std::nullopt;
     }
     const std::string& s = value.as_string();
@@ -154,7 +152,7 @@ class Reader {
       const std::function<Result<Quantity<D>>(std::string_view, std::string_view)>& parse,
       const ReadingUnit<D>& unit, double low, double high, std::string_view example) {
     if (!value.is_string()) {
-      fail(path, json_shown(value) + " needs its unit, written as text like \"" +
+      fail(path, json::shown(value) + " needs its unit, written as text like \"" +
                      std::string(example) + "\"");
       return std::nullopt;
     }
@@ -179,7 +177,7 @@ class Reader {
     if (!value) return std::nullopt;
     std::string where = child(path, key);
     if (!value->is_number_integer()) {
-      fail(where, "must be a whole number, got " + json_shown(*value));
+      fail(where, "must be a whole number, got " + json::shown(*value));
       return std::nullopt;
     }
     long long n = value->as_integer();
@@ -237,7 +235,7 @@ std::optional<CylinderType> read_cylinder(Reader& r, const Json& value, const st
     Result<LetterSize> parsed = Error{""};
     if (size->is_string()) parsed = cylinder::parse_letter_size(size->as_string());
     if (!parsed) {
-      r.fail(child(path, "size"), json_shown(*size) + " is not a US letter size: use D, E, M or H");
+      r.fail(child(path, "size"), json::shown(*size) + " is not a US letter size: use D, E, M or H");
       ok = false;
     } else {
       c.letter_size = parsed.value();
@@ -445,7 +443,7 @@ bool read_settings(Reader& r, const Json& root, TeamProfile& p) {
     if (demo->is_boolean()) {
       p.demo = demo->as_bool();
     } else {
-      r.fail("demo", "must be true or false, got " + json_shown(*demo));
+      r.fail("demo", "must be true or false, got " + json::shown(*demo));
       ok = false;
     }
   }
@@ -595,7 +593,7 @@ std::optional<Json> parse_json(std::string_view text, Problems& problems) {
     return std::nullopt;
   }
   if (!parsed.value.is_object()) {
-    problems.lines.push_back("the file must hold one JSON object {…}, got " + json_shown(parsed.value));
+    problems.lines.push_back("the file must hold one JSON object {…}, got " + json::shown(parsed.value));
     return std::nullopt;
   }
   return std::move(parsed.value);
@@ -610,7 +608,7 @@ std::optional<int> schema_version(const Json& root, Problems& problems) {
     return std::nullopt;
   }
   if (!found->is_number_integer()) {
-    problems.lines.push_back("schema_version: must be a whole number, got " + json_shown(*found));
+    problems.lines.push_back("schema_version: must be a whole number, got " + json::shown(*found));
     return std::nullopt;
   }
   long long v = found->as_integer();

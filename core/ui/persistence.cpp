@@ -3,9 +3,6 @@
 // Parsing never throws (the web build has no exceptions): every access checks the type first.
 #include "ui/persistence.hpp"
 
-#include "model/json.hpp"
-
-
 #include <algorithm>
 #include <array>
 #include <cctype>
@@ -13,8 +10,8 @@
 #include <string_view>
 
 #include "model/cylinder.hpp"
-#include "model/json.hpp"
 #include "model/hyperbaric_bag.hpp"
+#include "model/json.hpp"
 #include "model/oxygen_cascade.hpp"
 
 namespace firn::ui {
